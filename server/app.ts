@@ -1,0 +1,61 @@
+import { existsSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import type { Logger } from 'pino';
+import { pinoHttp } from 'pino-http';
+import type { Sequelize } from 'sequelize';
+import swaggerUi from 'swagger-ui-express';
+import { openApiDocument, openApiText } from './api/openapi-document';
+import { createOperationRouter } from './api/operation-router';
+import { createProblemHandler, notFoundHandler } from './api/problem-details';
+import { projectRoot } from './config';
+import { createHealthHandlers } from './health/health-handlers';
+
+export interface AppDependencies {
+  sequelize: Sequelize;
+  logger: Logger;
+  /** The built Angular app; when absent the server answers the API only. */
+  clientFolder?: string;
+}
+
+export const riffleVersion = (JSON.parse(readFileSync(join(projectRoot, 'package.json'), 'utf8')) as { version: string }).version;
+
+export const defaultClientFolder = join(projectRoot, 'dist', 'riffle', 'browser');
+
+/** Builds the whole web application; it never listens, so tests can drive it directly. */
+export function createApp({ sequelize, logger, clientFolder }: AppDependencies): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (request) => !request.url?.startsWith('/api/') } }));
+  app.use(express.json({ limit: '1mb' }));
+
+  app.get('/api/v1/openapi.yaml', (_request, response) => {
+    response.type('application/yaml').send(openApiText);
+  });
+  app.use('/api/docs', swaggerUi.serve, swaggerUi.setup(undefined, { swaggerOptions: { url: '/api/v1/openapi.yaml' }, customSiteTitle: 'Riffle API' }));
+
+  const handlers = { ...createHealthHandlers(sequelize, riffleVersion) };
+  app.use('/api/v1', createOperationRouter({ document: openApiDocument, handlers }));
+  app.use('/api', notFoundHandler);
+
+  if (clientFolder && existsSync(join(clientFolder, 'index.html'))) {
+    app.use(express.static(clientFolder, { index: false, maxAge: '1h' }));
+    // Client-side routes: every other GET gets the app's page.
+    app.get('/{*splat}', (_request, response) => {
+      response.set('Cache-Control', 'no-cache').sendFile(join(clientFolder, 'index.html'));
+    });
+  }
+  app.use(notFoundHandler);
+  app.use(createProblemHandler(logger));
+  return app;
+}
