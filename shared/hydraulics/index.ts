@@ -1,0 +1,18 @@
+/*
+ * Riffle's hydraulics engine: pure functions on SI numbers, for Node and the
+ * browser alike. Units are converted only at the edges (units.ts).
+ */
+export * from './hydraulics-error';
+export * from './physical-constants';
+export * from './units';
+export * from './water-properties';
+export * from './pipe-catalogue';
+export * from './fittings-catalogue';
+export * from './friction';
+export * from './system-curve';
+export * from './polynomial';
+export * from './pump-curve-fit';
+export * from './operating-point';
+export * from './pump-arrangements';
+export * from './operating-regions';
+export * from './power-and-energy';

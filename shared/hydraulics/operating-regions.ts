@@ -1,0 +1,63 @@
+import { HydraulicsInputError, requirePositive } from './hydraulics-error';
+import type { PumpCurveFit } from './pump-curve-fit';
+
+/*
+ * Where an operating point sits relative to the pump's best efficiency point.
+ * Preferred operating region (POR) default 70-120 % of BEP flow, per
+ * ANSI/HI 9.6.3 (Rotodynamic Pumps - Guideline for Operating Regions) for
+ * most rotodynamic pumps; narrower bands (e.g. 80-115 %) are used for high
+ * specific speed, so the band is configurable. The allowable operating
+ * region (AOR) is the supplier's, stored on the fit when given.
+ */
+
+export type OperatingRegion = 'preferred' | 'allowable' | 'outside' | 'unknown-bep';
+
+export interface PreferredBand {
+  /** Lower limit, percent of BEP flow. */
+  minPercent: number;
+  /** Upper limit, percent of BEP flow. */
+  maxPercent: number;
+}
+
+export const DEFAULT_PREFERRED_BAND: PreferredBand = Object.freeze({ minPercent: 70, maxPercent: 120 });
+
+export interface RegionClassification {
+  region: OperatingRegion;
+  /** Flow as percent of BEP flow; null when the BEP is unknown. */
+  percentOfBep: number | null;
+}
+
+/** Throws unless the band is positive with min < max. */
+export function checkPreferredBand(band: PreferredBand): PreferredBand {
+  requirePositive(band.minPercent, '/preferredBand/minPercent', 'preferred band minimum');
+  requirePositive(band.maxPercent, '/preferredBand/maxPercent', 'preferred band maximum');
+  if (!(band.maxPercent > band.minPercent)) {
+    throw new HydraulicsInputError('/preferredBand/maxPercent', 'preferred band maximum must exceed its minimum');
+  }
+  return band;
+}
+
+/**
+ * Classifies a pump flow (m3/s): 'preferred' inside the POR, else
+ * 'allowable' inside the supplier's AOR when one is stored, else 'outside';
+ * 'unknown-bep' when the fit has no BEP. Call checkPreferredBand once on a
+ * caller-supplied band; this function is on the hot path and does not.
+ */
+export function classifyOperatingRegion(
+  fit: Pick<PumpCurveFit, 'bep' | 'allowableRegion'>,
+  flow: number,
+  band: PreferredBand = DEFAULT_PREFERRED_BAND,
+): RegionClassification {
+  if (!fit.bep) {
+    return { region: 'unknown-bep', percentOfBep: null };
+  }
+  const percentOfBep = (100 * flow) / fit.bep.flow;
+  if (percentOfBep >= band.minPercent && percentOfBep <= band.maxPercent) {
+    return { region: 'preferred', percentOfBep };
+  }
+  const aor = fit.allowableRegion;
+  if (aor && flow >= aor.flowMin && flow <= aor.flowMax) {
+    return { region: 'allowable', percentOfBep };
+  }
+  return { region: 'outside', percentOfBep };
+}

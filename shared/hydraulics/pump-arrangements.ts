@@ -1,0 +1,156 @@
+import { HydraulicsInputError } from './hydraulics-error';
+import { type HeadCurve, type NoOperatingPointReason, solveOperatingPoint } from './operating-point';
+import { polynomialValue } from './polynomial';
+import { findRootBracketed } from './root-finding';
+import type { CompiledSystemCurve } from './system-curve';
+
+/*
+ * Several pumps on one system. Parallel: flows add at equal head. Series:
+ * heads add at equal flow. Source: I. J. Karassik et al., Pump Handbook,
+ * 4th ed. (2008), ch. 10 (pumps in systems); any fluid-mechanics text
+ * (e.g. White, Fluid Mechanics, section 11.5). Check valves are assumed on
+ * each parallel pump, so a pump that cannot reach the common head delivers
+ * nothing instead of running backwards.
+ */
+
+export type ArrangementResult =
+  | {
+      ok: true;
+      totalFlow: number;
+      head: number;
+      /** Flow of each running pump, m3/s (0 for a pump that cannot reach the common head). */
+      pumpFlows: number[];
+    }
+  | { ok: false; reason: NoOperatingPointReason; message: string };
+
+function requireCount(value: number, field: string, min: number): void {
+  if (!Number.isInteger(value) || value < min) {
+    throw new HydraulicsInputError(field, `must be a whole number of at least ${min}, got ${value}`);
+  }
+}
+
+/**
+ * Combined curve of `running` identical pumps in parallel:
+ * H(Q) = h(Q/m), i.e. coefficient k divided by m^k, range multiplied by m.
+ */
+export function parallelHeadCurve(pump: HeadCurve, running: number): HeadCurve {
+  requireCount(running, '/running', 1);
+  return {
+    headCoefficients: pump.headCoefficients.map((coefficient, power) => coefficient / Math.pow(running, power)),
+    flowMin: pump.flowMin * running,
+    flowMax: pump.flowMax * running,
+  };
+}
+
+/** Combined curve of `count` identical pumps in series: H(Q) = n h(Q), same flow range. */
+export function seriesHeadCurve(pump: HeadCurve, count: number): HeadCurve {
+  requireCount(count, '/count', 1);
+  return {
+    headCoefficients: pump.headCoefficients.map((coefficient) => coefficient * count),
+    flowMin: pump.flowMin,
+    flowMax: pump.flowMax,
+  };
+}
+
+/**
+ * `installed` identical pumps in parallel with `running` of them on
+ * (one failed: running = installed - 1). Each running pump delivers Q/m at
+ * the common head.
+ */
+export function solveParallelIdentical(
+  pump: HeadCurve,
+  system: CompiledSystemCurve,
+  installed: number,
+  running: number,
+): ArrangementResult & { installed: number; running: number } {
+  requireCount(installed, '/installed', 1);
+  requireCount(running, '/running', 1);
+  if (running > installed) {
+    throw new HydraulicsInputError('/running', `running pumps (${running}) cannot exceed installed pumps (${installed})`);
+  }
+  const point = solveOperatingPoint(parallelHeadCurve(pump, running), system);
+  if (!point.ok) {
+    return { ...point, installed, running };
+  }
+  return {
+    ok: true,
+    totalFlow: point.flow,
+    head: point.head,
+    pumpFlows: new Array<number>(running).fill(point.flow / running),
+    installed,
+    running,
+  };
+}
+
+/** `count` identical pumps in series: heads add at the common flow. */
+export function solveSeries(pump: HeadCurve, system: CompiledSystemCurve, count: number): ArrangementResult {
+  const point = solveOperatingPoint(seriesHeadCurve(pump, count), system);
+  if (!point.ok) {
+    return point;
+  }
+  return { ok: true, totalFlow: point.flow, head: point.head, pumpFlows: new Array<number>(count).fill(point.flow) };
+}
+
+/** Flow at which a non-increasing curve delivers `head`, inside [0, flowMax]; 0 at or above shut-off. */
+function flowAtHead(pump: HeadCurve, head: number): number {
+  if (head >= polynomialValue(pump.headCoefficients, 0)) {
+    return 0;
+  }
+  return findRootBracketed((flow) => polynomialValue(pump.headCoefficients, flow) - head, 0, pump.flowMax);
+}
+
+/** Flow at which the system needs `head`; 0 at or below its static head. */
+function systemFlowAtHead(system: CompiledSystemCurve, head: number, guess: number): number {
+  if (head <= system.staticHead) {
+    return 0;
+  }
+  let upper = guess;
+  while (system.evaluate(upper) < head) {
+    upper *= 2;
+  }
+  return findRootBracketed((flow) => system.evaluate(flow) - head, 0, upper);
+}
+
+/**
+ * Unequal pumps in parallel (each curve must start at zero flow). Solves the
+ * common head H at which sum_i Q_i(H) equals the system's flow at H; a pump
+ * whose shut-off head is below H delivers 0 and is reported so.
+ * No solution: 'below-static-head' if no pump reaches the static head,
+ * 'beyond-curve' if some pump would have to run past its last point.
+ */
+export function solveParallelUnequal(pumps: readonly HeadCurve[], system: CompiledSystemCurve): ArrangementResult {
+  if (pumps.length === 0) {
+    throw new HydraulicsInputError('/pumps', 'at least one pump is needed');
+  }
+  pumps.forEach((pump, index) => {
+    if (pump.flowMin !== 0) {
+      throw new HydraulicsInputError(
+        `/pumps/${index}`,
+        'parallel operation of unequal pumps needs curves that start at zero flow (shut-off)',
+      );
+    }
+  });
+  const shutOffs = pumps.map((pump) => polynomialValue(pump.headCoefficients, 0));
+  const highest = Math.max(...shutOffs);
+  if (highest <= system.staticHead) {
+    return {
+      ok: false,
+      reason: 'below-static-head',
+      message: `the highest shut-off head ${highest.toFixed(2)} m does not exceed the static head ${system.staticHead.toFixed(2)} m`,
+    };
+  }
+  const lowest = Math.max(...pumps.map((pump) => polynomialValue(pump.headCoefficients, pump.flowMax)));
+  const flowGuess = pumps.reduce((sum, pump) => sum + pump.flowMax, 0);
+  const surplus = (head: number) =>
+    pumps.reduce((sum, pump) => sum + flowAtHead(pump, head), 0) - systemFlowAtHead(system, head, flowGuess);
+  if (surplus(lowest) < 0) {
+    return {
+      ok: false,
+      reason: 'beyond-curve',
+      message: 'at least one pump would run past the last published point of its curve (run-out)',
+    };
+  }
+  const head = findRootBracketed(surplus, lowest, highest);
+  const pumpFlows = pumps.map((pump) => flowAtHead(pump, head));
+  return { ok: true, totalFlow: pumpFlows.reduce((sum, flow) => sum + flow, 0), head, pumpFlows };
+}

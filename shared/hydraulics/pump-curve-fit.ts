@@ -1,0 +1,334 @@
+import { HydraulicsInputError, requireFinite, requireInRange, requireNonNegative, requirePositive } from './hydraulics-error';
+import { leastSquaresPolynomial } from './least-squares';
+import { STANDARD_GRAVITY } from './physical-constants';
+import { maximumOver, polynomialValue, totalRiseOver } from './polynomial';
+import { waterDensity } from './water-properties';
+
+/*
+ * Fitting a pump's published curve (head, and optionally power, efficiency
+ * and NPSH required, at a few flows) to polynomials in flow, and evaluating
+ * the stored fit. All values SI: flow m3/s, head m, power W, efficiency 0-1.
+ */
+
+/** One point of a published pump curve. */
+export interface PumpCurvePoint {
+  /** m3/s, >= 0, strictly increasing along the curve */
+  flow: number;
+  /** m, > 0, non-increasing along the curve */
+  head: number;
+  /** Input power at this flow, W (shaft or electrical, see powerBasis). */
+  power?: number;
+  /** Efficiency at this flow, 0-1 (pump, or wire-to-water with powerBasis 'electrical'). */
+  efficiency?: number;
+  /** NPSH required (NPSH3), m. */
+  npshRequired?: number;
+}
+
+export type PowerBasis = 'shaft' | 'electrical';
+
+export interface PumpCurveFitOptions {
+  /** What the supplier's power means: pump shaft power (default) or electrical input (wire-to-water). */
+  powerBasis?: PowerBasis;
+  /** The allowable operating region, when the supplier states one, m3/s. */
+  allowableRegion?: { flowMin: number; flowMax: number };
+}
+
+/** A polynomial with the flow range it was fitted over. */
+export interface FittedRange {
+  /** Ascending powers of flow (m3/s). */
+  coefficients: number[];
+  flowMin: number;
+  flowMax: number;
+}
+
+/**
+ * A fitted pump curve: a plain JSON-serialisable object (store it and reload
+ * it with JSON.parse; no refitting needed). Coefficients are SI, in ascending
+ * powers of flow in m3/s.
+ */
+export interface PumpCurveFit {
+  schemaVersion: 1;
+  /** Degree of the head polynomial. */
+  degree: 2 | 3;
+  /** Head, m. */
+  headCoefficients: number[];
+  /** Valid flow range, m3/s: from the first to the last published point. */
+  flowMin: number;
+  flowMax: number;
+  /** Head at zero flow, m (extrapolated, with a warning, when the first point is not at zero flow). */
+  shutOffHead: number;
+  /** Efficiency 0-1, through the origin (first coefficient 0); null without efficiency or power data. */
+  efficiencyCoefficients: number[] | null;
+  /** Input power, W; null without power data. */
+  powerCoefficients: number[] | null;
+  /** Meaning of power and efficiency: shaft (pump) or electrical (wire-to-water); null without either. */
+  powerBasis: PowerBasis | null;
+  npshRequired: FittedRange | null;
+  /** Best efficiency point; null when it cannot be located (see bepUnknownReason). */
+  bep: { flow: number; head: number; efficiency: number } | null;
+  bepUnknownReason: string | null;
+  allowableRegion: { flowMin: number; flowMax: number } | null;
+  statistics: {
+    /** Root-mean-square head residual, m. */
+    rmsHead: number;
+    /** Signed residual (published - fitted) of largest magnitude, m. */
+    worstResidual: number;
+    /** Flow of that point, m3/s. */
+    worstResidualFlow: number;
+    pointCount: number;
+  };
+  warnings: string[];
+}
+
+/** Density at which suppliers' power figures are converted to efficiency: water at 20 C (Kell 1975). */
+const TEST_WATER_DENSITY = waterDensity(20);
+
+/** A fitted head curve may rise by at most this fraction of shut-off head before it is rejected. */
+const HEAD_RISE_TOLERANCE = 0.005;
+
+function validatePoints(points: readonly PumpCurvePoint[]): void {
+  if (!Array.isArray(points) || points.length < 3) {
+    throw new HydraulicsInputError('/points', `a pump curve needs at least three points, got ${Array.isArray(points) ? points.length : 0}`);
+  }
+  points.forEach((point, index) => {
+    const field = `/points/${index}`;
+    requireNonNegative(point.flow, `${field}/flow`, 'flow');
+    requirePositive(point.head, `${field}/head`, 'head');
+    if (point.power !== undefined) {
+      requireNonNegative(point.power, `${field}/power`, 'power');
+    }
+    if (point.efficiency !== undefined) {
+      requireInRange(point.efficiency, 0, 1, `${field}/efficiency`, 'efficiency (fraction)');
+    }
+    if (point.npshRequired !== undefined) {
+      requirePositive(point.npshRequired, `${field}/npshRequired`, 'NPSH required');
+    }
+    if (index > 0) {
+      const previous = points[index - 1];
+      if (!(point.flow > previous.flow)) {
+        throw new HydraulicsInputError(`${field}/flow`, `flows must be strictly increasing: ${point.flow} follows ${previous.flow}`);
+      }
+      if (point.head > previous.head) {
+        throw new HydraulicsInputError(
+          `${field}/head`,
+          `head rises from ${previous.head} m to ${point.head} m; Riffle accepts only curves whose head does not rise with flow`,
+        );
+      }
+    }
+  });
+  for (const key of ['power', 'efficiency'] as const) {
+    const given = points.filter((point) => point[key] !== undefined).length;
+    if (given > 0 && given < points.length) {
+      const missing = points.findIndex((point) => point[key] === undefined);
+      throw new HydraulicsInputError(`/points/${missing}/${key}`, `${key} must be given on every point or on none`);
+    }
+  }
+}
+
+/**
+ * Degree rule: a cubic when there are at least five points spread over at
+ * least half of the flow range (last - first >= 0.5 last); otherwise a
+ * quadratic. Fewer points or clustered points cannot pin a cubic's extra
+ * term and it would wander between them.
+ */
+function preferredDegree(flows: readonly number[]): 2 | 3 {
+  const first = flows[0];
+  const last = flows[flows.length - 1];
+  return flows.length >= 5 && last - first >= 0.5 * last ? 3 : 2;
+}
+
+function powersUpTo(degree: number, from: number): number[] {
+  return Array.from({ length: degree - from + 1 }, (_, index) => from + index);
+}
+
+function pointEfficiencies(points: readonly PumpCurvePoint[]): number[] | null {
+  if (points[0].efficiency !== undefined) {
+    return points.map((point) => point.efficiency as number);
+  }
+  if (points[0].power !== undefined) {
+    return points.map((point, index) => {
+      const power = point.power as number;
+      if (power === 0) {
+        throw new HydraulicsInputError(`/points/${index}/power`, 'power must be greater than zero');
+      }
+      const efficiency = (TEST_WATER_DENSITY * STANDARD_GRAVITY * point.flow * point.head) / power;
+      if (efficiency > 1) {
+        throw new HydraulicsInputError(
+          `/points/${index}/power`,
+          `power ${power} W is less than the water power ${(efficiency * power).toFixed(1)} W at this point`,
+        );
+      }
+      return efficiency;
+    });
+  }
+  return null;
+}
+
+function locateBep(
+  efficiencyCoefficients: number[] | null,
+  headCoefficients: number[],
+  flowMin: number,
+  flowMax: number,
+): Pick<PumpCurveFit, 'bep' | 'bepUnknownReason'> {
+  if (!efficiencyCoefficients) {
+    return { bep: null, bepUnknownReason: 'the curve has no efficiency or power data' };
+  }
+  const best = maximumOver(efficiencyCoefficients, flowMin, flowMax);
+  const span = flowMax - flowMin;
+  if (best.x >= flowMax - 1e-9 * span) {
+    return { bep: null, bepUnknownReason: 'efficiency still rises at the last curve point: the BEP lies beyond the published data' };
+  }
+  if (best.x <= flowMin + 1e-9 * span && flowMin > 0) {
+    return { bep: null, bepUnknownReason: 'efficiency falls from the first curve point: the BEP lies before the published data' };
+  }
+  return {
+    bep: { flow: best.x, head: polynomialValue(headCoefficients, best.x), efficiency: best.value },
+    bepUnknownReason: null,
+  };
+}
+
+/**
+ * Fits a pump curve to published points (least squares, see least-squares.ts).
+ *
+ * - Head: degree 2 or 3 by the rule in preferredDegree. The fitted head must
+ *   not rise over the data range: a rising cubic falls back to a quadratic
+ *   (with a warning); a quadratic that rises by more than 0.5 % of shut-off
+ *   head is rejected (HydraulicsInputError on /points), a smaller rise is kept
+ *   with a warning.
+ * - Efficiency: through the origin (eta(0) = 0), powers 1-2, or 1-3 with a
+ *   cubic head fit; from the points' efficiency, or eta = rho g Q H / P from
+ *   their power (rho of water at 20 C).
+ * - Power: same degree as head, with a constant term (shut-off power).
+ * - NPSH required: quadratic over the points that give it (at least three).
+ * - BEP: the maximum of fitted efficiency inside the data range; null with a
+ *   reason when there is no efficiency or the maximum sits at an end.
+ * Throws HydraulicsInputError for fewer than three points, non-finite values,
+ * flows not strictly increasing, or head rising with flow.
+ */
+export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCurveFitOptions = {}): PumpCurveFit {
+  validatePoints(points);
+  const flows = points.map((point) => point.flow);
+  const heads = points.map((point) => point.head);
+  const flowMin = flows[0];
+  const flowMax = flows[flows.length - 1];
+  const warnings: string[] = [];
+
+  let degree = preferredDegree(flows);
+  let headCoefficients = leastSquaresPolynomial(flows, heads, powersUpTo(degree, 0));
+  if (degree === 3 && totalRiseOver(headCoefficients, flowMin, flowMax) > 0) {
+    warnings.push('the cubic head fit rose within the data range; a quadratic is used');
+    degree = 2;
+    headCoefficients = leastSquaresPolynomial(flows, heads, powersUpTo(2, 0));
+  }
+  const shutOffHead = headCoefficients[0];
+  const rise = totalRiseOver(headCoefficients, flowMin, flowMax);
+  if (rise > HEAD_RISE_TOLERANCE * Math.max(shutOffHead, heads[0])) {
+    throw new HydraulicsInputError(
+      '/points',
+      `the fitted head curve rises by ${rise.toFixed(3)} m within the data range; add points near shut-off or check the data`,
+    );
+  }
+  if (rise > 0) {
+    warnings.push(`the fitted head curve rises by ${rise.toFixed(4)} m near shut-off (within tolerance)`);
+  }
+  if (flowMin > 0) {
+    warnings.push('shut-off head is extrapolated: the first point is not at zero flow');
+  }
+
+  const residuals = points.map((point) => point.head - polynomialValue(headCoefficients, point.flow));
+  let worstIndex = 0;
+  residuals.forEach((residual, index) => {
+    if (Math.abs(residual) > Math.abs(residuals[worstIndex])) {
+      worstIndex = index;
+    }
+  });
+  const statistics = {
+    rmsHead: Math.sqrt(residuals.reduce((sum, residual) => sum + residual * residual, 0) / residuals.length),
+    worstResidual: residuals[worstIndex],
+    worstResidualFlow: flows[worstIndex],
+    pointCount: points.length,
+  };
+
+  const efficiencies = pointEfficiencies(points);
+  const efficiencyCoefficients = efficiencies ? leastSquaresPolynomial(flows, efficiencies, powersUpTo(degree, 1)) : null;
+  const powerCoefficients =
+    points[0].power !== undefined
+      ? leastSquaresPolynomial(flows, points.map((point) => point.power as number), powersUpTo(degree, 0))
+      : null;
+  const npshPoints = points.filter((point) => point.npshRequired !== undefined);
+  if (npshPoints.length > 0 && npshPoints.length < 3) {
+    throw new HydraulicsInputError('/points', 'NPSH required needs at least three points when given');
+  }
+  const npshRequired: FittedRange | null =
+    npshPoints.length >= 3
+      ? {
+          coefficients: leastSquaresPolynomial(
+            npshPoints.map((point) => point.flow),
+            npshPoints.map((point) => point.npshRequired as number),
+            [0, 1, 2],
+          ),
+          flowMin: npshPoints[0].flow,
+          flowMax: npshPoints[npshPoints.length - 1].flow,
+        }
+      : null;
+
+  let allowableRegion: PumpCurveFit['allowableRegion'] = null;
+  if (options.allowableRegion) {
+    const { flowMin: aorMin, flowMax: aorMax } = options.allowableRegion;
+    requireNonNegative(aorMin, '/allowableRegion/flowMin', 'allowable region minimum flow');
+    requirePositive(aorMax, '/allowableRegion/flowMax', 'allowable region maximum flow');
+    if (!(aorMax > aorMin)) {
+      throw new HydraulicsInputError('/allowableRegion/flowMax', 'allowable region maximum flow must exceed its minimum');
+    }
+    allowableRegion = { flowMin: aorMin, flowMax: aorMax };
+  }
+
+  return {
+    schemaVersion: 1,
+    degree,
+    headCoefficients,
+    flowMin,
+    flowMax,
+    shutOffHead,
+    efficiencyCoefficients,
+    powerCoefficients,
+    powerBasis: efficiencies ? (options.powerBasis ?? 'shaft') : null,
+    npshRequired,
+    ...locateBep(efficiencyCoefficients, headCoefficients, flowMin, flowMax),
+    allowableRegion,
+    statistics,
+    warnings,
+  };
+}
+
+/** Throws unless `flow` lies within [flowMin, flowMax]: fitted curves are never extrapolated. */
+export function requireFlowInRange(range: { flowMin: number; flowMax: number }, flow: number, field = '/flow'): number {
+  requireFinite(flow, field, 'flow');
+  const slack = 1e-12 * range.flowMax;
+  if (flow < range.flowMin - slack || flow > range.flowMax + slack) {
+    throw new HydraulicsInputError(
+      field,
+      `flow ${flow} m3/s is outside the curve's published range ${range.flowMin}-${range.flowMax} m3/s`,
+    );
+  }
+  return flow;
+}
+
+/** Pump head at `flow`, m; outside the curve's range -> HydraulicsInputError. */
+export function pumpHeadAt(fit: PumpCurveFit, flow: number): number {
+  return polynomialValue(fit.headCoefficients, requireFlowInRange(fit, flow));
+}
+
+/** Fitted efficiency (0-1) at `flow`, or null when the curve has none; outside the range -> HydraulicsInputError. */
+export function pumpEfficiencyAt(fit: PumpCurveFit, flow: number): number | null {
+  requireFlowInRange(fit, flow);
+  return fit.efficiencyCoefficients ? polynomialValue(fit.efficiencyCoefficients, flow) : null;
+}
+
+/** Fitted NPSH required at `flow`, m, or null when not given; outside its range -> HydraulicsInputError. */
+export function pumpNpshRequiredAt(fit: PumpCurveFit, flow: number): number | null {
+  if (!fit.npshRequired) {
+    return null;
+  }
+  return polynomialValue(fit.npshRequired.coefficients, requireFlowInRange(fit.npshRequired, flow));
+}
