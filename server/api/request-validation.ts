@@ -7,7 +7,7 @@ import { ProblemError, type FieldProblem } from './problem-details';
 
 const contractId = 'riffle-openapi.json';
 /** OpenAPI words that may stand inside a schema but are not JSON Schema keywords. */
-const openApiSchemaWords = ['example', 'xml', 'externalDocs', 'discriminator'];
+const openApiSchemaWords = ['example', 'xml', 'externalDocs', 'discriminator', 'components'];
 
 type Location = 'path' | 'query' | 'body';
 
