@@ -1,0 +1,15 @@
+/** The pages the toolbar offers; a link with `roles` shows only to signed-in users with one of them. */
+export interface NavigationLink {
+  label: string;
+  icon: string;
+  path: string;
+  /** Leave out for pages everyone may open. */
+  roles?: readonly string[];
+  /** A page served outside the Angular app (opened in a new tab). */
+  external?: boolean;
+}
+
+export const navigationLinks: readonly NavigationLink[] = [
+  { label: 'Overview', icon: 'water', path: '/' },
+  { label: 'API reference', icon: 'integration_instructions', path: '/api/docs', external: true },
+];
