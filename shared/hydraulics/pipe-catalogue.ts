@@ -98,11 +98,14 @@ function scheduleSeries(wall: Readonly<Record<number, number>>) {
   };
 }
 
-/** Dimension-ratio pipe: minimum wall t = OD / DR, so ID = OD (1 - 2/DR). */
-function dimensionRatioSeries(ratio: number) {
+/**
+ * Dimension-ratio pipe: minimum wall t = max(OD / DR, floor), ID = OD - 2t.
+ * ASTM D2241 sets a 0.060 in floor on the wall of small sizes.
+ */
+function dimensionRatioSeries(ratio: number, wallFloor = 0) {
   return (nominal: number) => {
     const outside = IPS_OUTSIDE_DIAMETER[nominal];
-    return { outside, inside: outside * (1 - 2 / ratio) };
+    return { outside, inside: outside - 2 * Math.max(outside / ratio, wallFloor) };
   };
 }
 
@@ -127,17 +130,17 @@ const SERIES_DEFINITIONS: readonly SeriesDefinition[] = [
     id: 'pvc-sdr21',
     label: 'PVC SDR 21 (200 psi)',
     material: 'pvc',
-    source: 'ASTM D2241 (IPS outside diameter, minimum wall = OD/21); SDR 21 is tabulated from 3/4"',
+    source: 'ASTM D2241 (IPS outside diameter, minimum wall = OD/21, at least 0.060 in); SDR 21 is tabulated from 3/4"',
     nominalSizes: ALL_NOMINAL.filter((n) => n >= 0.75),
-    dimensionsInInches: dimensionRatioSeries(21),
+    dimensionsInInches: dimensionRatioSeries(21, 0.06),
   },
   {
     id: 'pvc-sdr26',
     label: 'PVC SDR 26 (160 psi)',
     material: 'pvc',
-    source: 'ASTM D2241 (IPS outside diameter, minimum wall = OD/26); SDR 26 is tabulated from 1"',
+    source: 'ASTM D2241 (IPS outside diameter, minimum wall = OD/26, at least 0.060 in); SDR 26 is tabulated from 1"',
     nominalSizes: ALL_NOMINAL.filter((n) => n >= 1),
-    dimensionsInInches: dimensionRatioSeries(26),
+    dimensionsInInches: dimensionRatioSeries(26, 0.06),
   },
   {
     id: 'hdpe-dr11',

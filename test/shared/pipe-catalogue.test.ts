@@ -1,0 +1,73 @@
+import { expect } from 'chai';
+import { HydraulicsInputError, PIPE_SERIES, PIPE_SIZES, pipeSizeById } from '../../shared/hydraulics';
+import { type FluidsAnswer, fluidsReference } from './reference/fluids-reference';
+
+/** python3-fluids schedule names (fluids.piping.schedule_lookup) for each series with a standard. */
+const FLUIDS_SCHEDULE: Record<string, string> = {
+  'pvc-sch40': '40D1785',
+  'pvc-sch80': '80D1785',
+  'pvc-sdr21': 'DR21D2241',
+  'pvc-sdr26': 'DR26D2241',
+  'hdpe-dr11': 'DR11F2619IPS',
+  'hdpe-dr17': 'DR17F2619IPS',
+  'steel-sch40': '40',
+};
+
+describe('pipe catalogue', () => {
+  const sized = PIPE_SIZES.filter((size) => size.series in FLUIDS_SCHEDULE);
+  let reference: FluidsAnswer;
+  before(() => {
+    reference = fluidsReference({
+      pipes: sized.map((size): [string, number] => [FLUIDS_SCHEDULE[size.series], size.nominalSize]),
+    });
+  });
+
+  it('matches python3-fluids nearest_pipe inside and outside diameters for every standard size', () => {
+    sized.forEach((size, index) => {
+      const [inside, outside] = reference.pipes[index];
+      // fluids holds D1785 schedules exactly as tabulated; D2241 and F2619 walls rounded to 0.001 in
+      // (two walls: 0.002 in on the bore) and B36.10M in rounded millimetres (within 0.002 in)
+      const tolerance = size.series.startsWith('pvc-sch') ? 1e-9 : 0.002 * 0.0254;
+      expect(size.insideDiameter, `${size.id} inside`).to.be.closeTo(inside, tolerance);
+      expect(size.outsideDiameter, `${size.id} outside`).to.be.closeTo(outside, tolerance);
+    });
+  });
+
+  it('covers 1/2" to 8" in every series where the standard has them', () => {
+    expect(PIPE_SERIES.map((series) => series.id)).to.have.members([...Object.keys(FLUIDS_SCHEDULE), 'pvc-flex']);
+    for (const series of PIPE_SERIES) {
+      expect(series.source, series.id).to.be.a('string').and.not.equal('');
+      const nominals = series.sizes.map((size) => size.nominalSize);
+      expect(Math.max(...nominals), series.id).to.be.oneOf([4, 8]);
+    }
+    expect(pipeSizeById('pvc-sch40-0.5').nominalLabel).to.equal('1/2"');
+    expect(pipeSizeById('pvc-sch40-1.25').nominalLabel).to.equal('1-1/4"');
+  });
+
+  it('gives material defaults: C 150 and 0.0015 mm for plastic, C 120 and 0.045 mm for steel', () => {
+    const pvc = pipeSizeById('pvc-sch40-3');
+    expect(pvc.insideDiameter).to.be.closeTo(3.068 * 0.0254, 1e-12);
+    expect(pvc.hazenWilliamsC).to.equal(150);
+    expect(pvc.roughness).to.equal(1.5e-6);
+    const steel = pipeSizeById('steel-sch40-2');
+    expect(steel.hazenWilliamsC).to.equal(120);
+    expect(steel.roughness).to.equal(4.5e-5);
+    const hose = pipeSizeById('pvc-flex-1.5');
+    expect(hose.insideDiameter).to.be.closeTo(1.5 * 0.0254, 1e-12);
+    expect(hose.outsideDiameter).to.equal(null);
+  });
+
+  it('has unique, URL-safe ids', () => {
+    const ids = PIPE_SIZES.map((size) => size.id);
+    expect(new Set(ids).size).to.equal(ids.length);
+    for (const id of ids) {
+      expect(encodeURIComponent(id)).to.equal(id);
+    }
+  });
+
+  it('rejects an unknown id with a typed error saying how ids are formed', () => {
+    expect(() => pipeSizeById('pvc-sch40-7', '/segments/2/pipeSizeId'))
+      .to.throw(HydraulicsInputError, /'<series>-<nominal inches>'.*pvc-sch40, pvc-sch80/)
+      .with.property('field', '/segments/2/pipeSizeId');
+  });
+});

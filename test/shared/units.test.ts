@@ -1,0 +1,85 @@
+import { expect } from 'chai';
+import fc from 'fast-check';
+import {
+  DIAMETER_UNITS,
+  FLOW_UNITS,
+  HEAD_UNITS,
+  HydraulicsInputError,
+  LENGTH_UNITS,
+  PRESSURE_UNITS,
+  diameterFromSI,
+  diameterToSI,
+  flowFromSI,
+  flowToSI,
+  headFromSI,
+  headToPressure,
+  headToSI,
+  lengthFromSI,
+  lengthToSI,
+  pressureFromSI,
+  pressureToHead,
+  pressureToSI,
+  waterDensity,
+  type FlowUnit,
+} from '../../shared/hydraulics';
+
+describe('units', () => {
+  it('converts flows by the exact definitions (US gallon 3.785411784 L, NIST SP 811 Appendix B)', () => {
+    expect(flowToSI(1, 'gpm')).to.be.closeTo(3.785411784e-3 / 60, 1e-18);
+    expect(flowToSI(1, 'gph')).to.be.closeTo(3.785411784e-3 / 3600, 1e-18);
+    expect(flowToSI(60, 'L/min')).to.be.closeTo(1e-3, 1e-18);
+    expect(flowToSI(1, 'L/s')).to.be.closeTo(1e-3, 1e-18);
+    expect(flowToSI(3.6, 'm3/h')).to.be.closeTo(1e-3, 1e-18);
+    expect(flowToSI(2.5, 'm3/s')).to.equal(2.5);
+  });
+
+  it('100 gpm is 6000 gph (common practice: 1 gpm = 60 gph)', () => {
+    expect(flowFromSI(flowToSI(100, 'gpm'), 'gph')).to.be.closeTo(6000, 1e-9);
+  });
+
+  it('converts lengths, heads and diameters by the international foot and inch (0.3048 m, 25.4 mm exactly)', () => {
+    expect(lengthToSI(1, 'ft')).to.be.closeTo(0.3048, 1e-15);
+    expect(headToSI(10, 'ft')).to.be.closeTo(3.048, 1e-14);
+    expect(diameterToSI(3.068, 'in')).to.be.closeTo(0.0779272, 1e-15);
+    expect(diameterToSI(50, 'mm')).to.be.closeTo(0.05, 1e-15);
+    expect(headFromSI(1, 'ft')).to.be.closeTo(1 / 0.3048, 1e-12);
+  });
+
+  it('converts pressure to head through the water density (1 psi = 6894.757 Pa, NIST SP 811)', () => {
+    expect(pressureToSI(1, 'psi')).to.be.closeTo(6894.757, 1e-3);
+    expect(pressureToSI(1, 'bar')).to.equal(1e5);
+    const density = waterDensity(20);
+    // 1 psi of water at 20 C: 6894.757 / (998.2 * 9.80665) = 0.7043 m = 2.311 ft
+    expect(pressureToHead(1, 'psi', density)).to.be.closeTo(6894.757 / (density * 9.80665), 1e-6);
+    expect(headFromSI(pressureToHead(1, 'psi', density), 'ft')).to.be.closeTo(2.311, 0.001);
+    expect(headToPressure(10, 'kPa', 1000)).to.be.closeTo(98.0665, 1e-9);
+  });
+
+  it('round trips every unit to SI and back (property)', () => {
+    const value = fc.double({ min: -1e6, max: 1e6, noNaN: true, noDefaultInfinity: true });
+    const pairs: [readonly string[], (v: number, u: never) => number, (v: number, u: never) => number][] = [
+      [FLOW_UNITS, flowToSI, flowFromSI],
+      [HEAD_UNITS, headToSI, headFromSI],
+      [LENGTH_UNITS, lengthToSI, lengthFromSI],
+      [DIAMETER_UNITS, diameterToSI, diameterFromSI],
+      [PRESSURE_UNITS, pressureToSI, pressureFromSI],
+    ];
+    for (const [units, toSI, fromSI] of pairs) {
+      fc.assert(
+        fc.property(value, fc.constantFrom(...units), (v, u) => {
+          const back = fromSI(toSI(v, u as never), u as never);
+          return Math.abs(back - v) <= 1e-12 * Math.max(1, Math.abs(v));
+        }),
+      );
+    }
+  });
+
+  it('names the accepted units when a unit is unknown', () => {
+    expect(() => flowToSI(1, 'cfs' as FlowUnit))
+      .to.throw(HydraulicsInputError, /unknown flow unit 'cfs'; accepted units: gpm, gph, L\/min, L\/s, m3\/h, m3\/s/)
+      .with.property('field', '/flowUnit');
+    expect(() => headToSI(1, 'yd' as never)).to.throw(HydraulicsInputError, /accepted units: m, ft/);
+    expect(() => flowToSI(Number.NaN, 'gpm')).to.throw(HydraulicsInputError, /finite/);
+    expect(() => flowToSI(1, 'toString' as FlowUnit)).to.throw(HydraulicsInputError);
+  });
+});
