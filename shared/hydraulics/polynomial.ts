@@ -66,3 +66,20 @@ export function maximumOver(coefficients: readonly number[], lo: number, hi: num
   }
   return best;
 }
+
+/**
+ * Coefficients in powers of x of p(x - shift), given p's coefficients:
+ * sum_k d_k (x - shift)^k expanded by the binomial theorem.
+ */
+export function polynomialShifted(coefficients: readonly number[], shift: number): number[] {
+  const result = new Array<number>(coefficients.length).fill(0);
+  coefficients.forEach((coefficient, power) => {
+    let binomial = 1;
+    for (let j = 0; j <= power; j += 1) {
+      // term of (x - shift)^power in x^j: C(power, j) (-shift)^(power - j)
+      result[j] += coefficient * binomial * Math.pow(-shift, power - j);
+      binomial = (binomial * (power - j)) / (j + 1);
+    }
+  });
+  return result;
+}

@@ -1,7 +1,7 @@
 import { HydraulicsInputError, requireFinite, requireInRange, requireNonNegative, requirePositive } from './hydraulics-error';
 import { leastSquaresPolynomial } from './least-squares';
 import { STANDARD_GRAVITY } from './physical-constants';
-import { maximumOver, polynomialValue, totalRiseOver } from './polynomial';
+import { maximumOver, polynomialShifted, polynomialValue, totalRiseOver } from './polynomial';
 import { waterDensity } from './water-properties';
 
 /*
@@ -83,8 +83,8 @@ export interface PumpCurveFit {
 /** Density at which suppliers' power figures are converted to efficiency: water at 20 C (Kell 1975). */
 const TEST_WATER_DENSITY = waterDensity(20);
 
-/** A fitted head curve may rise by at most this fraction of shut-off head before it is rejected. */
-const HEAD_RISE_TOLERANCE = 0.005;
+/** Rise (fraction of the highest head) below which a fitted curve counts as non-increasing: round-off only. */
+const HEAD_RISE_TOLERANCE = 1e-9;
 
 function validatePoints(points: readonly PumpCurvePoint[]): void {
   if (!Array.isArray(points) || points.length < 3) {
@@ -141,6 +141,81 @@ function powersUpTo(degree: number, from: number): number[] {
   return Array.from({ length: degree - from + 1 }, (_, index) => from + index);
 }
 
+interface HeadCandidate {
+  degree: 2 | 3;
+  /** Powers of x = Q - origin used by the fit; leaving out power 1 holds the slope at zero there. */
+  powers: number[];
+  origin: 'first' | 'last';
+  description: string;
+}
+
+function candidate(degree: 2 | 3, powers: number[], origin: 'first' | 'last', description: string): HeadCandidate {
+  return { degree, powers, origin, description };
+}
+
+/**
+ * Head fit that does not rise over the data range (constrained, not merely
+ * flagged). The unconstrained fit of the preferred degree is taken when it
+ * does not rise. Otherwise, of these candidates the one with the least RMS
+ * residual among those that do not rise is taken, and a warning says which:
+ * a cubic held flat (zero slope) at the first or at the last point, an
+ * unconstrained quadratic, a quadratic held flat at the first or the last
+ * point (x = Q - Q_origin, the x term left out). A quadratic held flat at an
+ * end cannot rise when its x^2 coefficient has the right sign, so some
+ * candidate nearly always qualifies; if none does -> HydraulicsInputError on
+ * /points.
+ */
+function fitNonIncreasingHead(
+  flows: readonly number[],
+  heads: readonly number[],
+): { degree: 2 | 3; headCoefficients: number[]; note: string | null } {
+  const first = flows[0];
+  const last = flows[flows.length - 1];
+  const tolerance = HEAD_RISE_TOLERANCE * Math.max(...heads);
+  const fit = (option: HeadCandidate) => {
+    const origin = option.origin === 'first' ? first : last;
+    const headCoefficients = polynomialShifted(
+      leastSquaresPolynomial(flows.map((flow) => flow - origin), heads, option.powers),
+      origin,
+    );
+    const rises = totalRiseOver(headCoefficients, first, last) > tolerance;
+    const squares = flows.reduce((sum, flow, index) => sum + (heads[index] - polynomialValue(headCoefficients, flow)) ** 2, 0);
+    return { option, headCoefficients, rises, squares };
+  };
+
+  const preferred = preferredDegree(flows);
+  const unconstrained = fit(candidate(preferred, preferred === 3 ? [0, 1, 2, 3] : [0, 1, 2], 'first', ''));
+  if (!unconstrained.rises) {
+    return { degree: preferred, headCoefficients: unconstrained.headCoefficients, note: null };
+  }
+  const alternatives: HeadCandidate[] = [
+    ...(preferred === 3
+      ? [
+          candidate(3, [0, 2, 3], 'first', 'a cubic held flat at the first point'),
+          candidate(3, [0, 2, 3], 'last', 'a cubic held flat at the last point'),
+          candidate(2, [0, 1, 2], 'first', 'a quadratic'),
+        ]
+      : []),
+    candidate(2, [0, 2], 'first', 'a quadratic held flat at the first point'),
+    candidate(2, [0, 2], 'last', 'a quadratic held flat at the last point'),
+  ];
+  const best = alternatives
+    .map(fit)
+    .filter((result) => !result.rises)
+    .sort((a, b) => a.squares - b.squares)[0];
+  if (!best) {
+    throw new HydraulicsInputError(
+      '/points',
+      'no quadratic or cubic through these points keeps head from rising with flow; add points near shut-off or check the data',
+    );
+  }
+  return {
+    degree: best.option.degree,
+    headCoefficients: best.headCoefficients,
+    note: `the ${preferred === 3 ? 'cubic' : 'quadratic'} least-squares fit would rise within the data range; head is fitted as ${best.option.description} so that it does not rise`,
+  };
+}
+
 function pointEfficiencies(points: readonly PumpCurvePoint[]): number[] | null {
   if (points[0].efficiency !== undefined) {
     return points.map((point) => point.efficiency as number);
@@ -190,11 +265,9 @@ function locateBep(
 /**
  * Fits a pump curve to published points (least squares, see least-squares.ts).
  *
- * - Head: degree 2 or 3 by the rule in preferredDegree. The fitted head must
- *   not rise over the data range: a rising cubic falls back to a quadratic
- *   (with a warning); a quadratic that rises by more than 0.5 % of shut-off
- *   head is rejected (HydraulicsInputError on /points), a smaller rise is kept
- *   with a warning.
+ * - Head: degree 2 or 3 by the rule in preferredDegree, constrained not to
+ *   rise over the data range (fitNonIncreasingHead; each fallback is noted in
+ *   warnings).
  * - Efficiency: through the origin (eta(0) = 0), powers 1-2, or 1-3 with a
  *   cubic head fit; from the points' efficiency, or eta = rho g Q H / P from
  *   their power (rho of water at 20 C).
@@ -213,24 +286,11 @@ export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCur
   const flowMax = flows[flows.length - 1];
   const warnings: string[] = [];
 
-  let degree = preferredDegree(flows);
-  let headCoefficients = leastSquaresPolynomial(flows, heads, powersUpTo(degree, 0));
-  if (degree === 3 && totalRiseOver(headCoefficients, flowMin, flowMax) > 0) {
-    warnings.push('the cubic head fit rose within the data range; a quadratic is used');
-    degree = 2;
-    headCoefficients = leastSquaresPolynomial(flows, heads, powersUpTo(2, 0));
+  const { degree, headCoefficients, note } = fitNonIncreasingHead(flows, heads);
+  if (note) {
+    warnings.push(note);
   }
   const shutOffHead = headCoefficients[0];
-  const rise = totalRiseOver(headCoefficients, flowMin, flowMax);
-  if (rise > HEAD_RISE_TOLERANCE * Math.max(shutOffHead, heads[0])) {
-    throw new HydraulicsInputError(
-      '/points',
-      `the fitted head curve rises by ${rise.toFixed(3)} m within the data range; add points near shut-off or check the data`,
-    );
-  }
-  if (rise > 0) {
-    warnings.push(`the fitted head curve rises by ${rise.toFixed(4)} m near shut-off (within tolerance)`);
-  }
   if (flowMin > 0) {
     warnings.push('shut-off head is extrapolated: the first point is not at zero flow');
   }
