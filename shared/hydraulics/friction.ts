@@ -5,13 +5,17 @@ import { STANDARD_GRAVITY } from './physical-constants';
  * Pipe friction. Lengths and diameters in m, flow in m3/s, head in m.
  *
  * Flow-regime rule used everywhere in Riffle: laminar f = 64/Re below
- * Re = 2300; from Re = 2300 upward the turbulent correlation (Colebrook-White
- * by default). In the transition band 2300-4000 this is conservative: the
- * turbulent factor is the larger one there.
+ * Re = 2300; the turbulent correlation (Colebrook-White by default) from
+ * Re = 4000; in the transition band 2300-4000 a straight line in Re from
+ * 64/2300 to the turbulent value at 4000. The blend keeps the system curve
+ * continuous, so a pump curve that crosses it always has an exact operating
+ * point; real flow in that band is unsteady and no correlation predicts it.
  */
 
 /** Reynolds number below which flow is taken as laminar. */
 export const LAMINAR_REYNOLDS_LIMIT = 2300;
+/** Reynolds number from which flow is taken as fully turbulent. */
+export const TURBULENT_REYNOLDS_LIMIT = 4000;
 
 export type FrictionFactorMethod = 'colebrook' | 'swamee-jain';
 
@@ -96,7 +100,7 @@ const LN10 = Math.LN10;
  * 2-4 steps here). Source: C. F. Colebrook, "Turbulent flow in pipes, with
  * particular reference to the transition region between the smooth and rough
  * pipe laws", J. Inst. Civil Eng. 11(4), 133-156 (1939). Valid for turbulent
- * flow, Re >= ~4000 (used from 2300, see LAMINAR_REYNOLDS_LIMIT), any eps/D.
+ * flow, Re >= ~4000, any eps/D.
  */
 export function frictionFactorColebrook(reynolds: number, relativeRoughness: number): number {
   let x = 1 / Math.sqrt(frictionFactorSwameeJain(reynolds, relativeRoughness));
@@ -116,8 +120,19 @@ export function frictionFactorColebrook(reynolds: number, relativeRoughness: num
 }
 
 /**
- * Darcy friction factor with Riffle's regime rule: 64/Re below Re 2300,
- * otherwise Colebrook-White (default) or Swamee-Jain.
+ * Friction factor in the transition band as a straight line through
+ * (2300, 64/2300) and (4000, turbulentAt4000): returns [value, slope d f/d Re].
+ */
+export function transitionFrictionFactor(reynolds: number, turbulentAt4000: number): [number, number] {
+  const laminarAt2300 = 64 / LAMINAR_REYNOLDS_LIMIT;
+  const slope = (turbulentAt4000 - laminarAt2300) / (TURBULENT_REYNOLDS_LIMIT - LAMINAR_REYNOLDS_LIMIT);
+  return [laminarAt2300 + slope * (reynolds - LAMINAR_REYNOLDS_LIMIT), slope];
+}
+
+/**
+ * Darcy friction factor with Riffle's regime rule (top of this file): 64/Re
+ * below Re 2300, Colebrook-White (default) or Swamee-Jain from 4000, a
+ * straight-line blend between.
  */
 export function darcyFrictionFactor(
   reynolds: number,
@@ -127,9 +142,11 @@ export function darcyFrictionFactor(
   if (reynolds < LAMINAR_REYNOLDS_LIMIT) {
     return frictionFactorLaminar(reynolds);
   }
-  return method === 'colebrook'
-    ? frictionFactorColebrook(reynolds, relativeRoughness)
-    : frictionFactorSwameeJain(reynolds, relativeRoughness);
+  const turbulent = method === 'colebrook' ? frictionFactorColebrook : frictionFactorSwameeJain;
+  if (reynolds >= TURBULENT_REYNOLDS_LIMIT) {
+    return turbulent(reynolds, relativeRoughness);
+  }
+  return transitionFrictionFactor(reynolds, turbulent(TURBULENT_REYNOLDS_LIMIT, relativeRoughness))[0];
 }
 
 /**

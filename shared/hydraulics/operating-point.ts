@@ -105,12 +105,16 @@ export function solveOperatingPoint(pump: HeadCurve, system: CompiledSystemCurve
       hi = flow;
     }
     const slope = pumpSlope - system.slope(flow);
-    let next = slope < 0 ? flow - difference / slope : Number.NaN;
+    const newtonStep = slope < 0 ? -difference / slope : Number.NaN;
+    if (Math.abs(newtonStep) <= tolerance) {
+      return { ok: true, flow, head, iterations: iteration };
+    }
+    let next = flow + newtonStep;
     if (!(next > lo && next < hi)) {
       next = 0.5 * (lo + hi);
-    }
-    if (Math.abs(next - flow) <= tolerance) {
-      return { ok: true, flow, head, iterations: iteration };
+      if (hi - lo <= tolerance) {
+        return { ok: true, flow, head, iterations: iteration };
+      }
     }
     flow = next;
   }

@@ -2,9 +2,11 @@ import { fittingK } from './fittings-catalogue';
 import {
   HAZEN_WILLIAMS_FLOW_EXPONENT,
   LAMINAR_REYNOLDS_LIMIT,
+  TURBULENT_REYNOLDS_LIMIT,
   frictionFactorColebrook,
   hazenWilliamsResistance,
   headLossDarcyWeisbach,
+  transitionFrictionFactor,
 } from './friction';
 import { HydraulicsInputError, requireFinite, requireNonNegative, requirePositive } from './hydraulics-error';
 import { MATERIAL_DEFAULTS, PIPE_MATERIALS, type PipeMaterial, pipeSizeById } from './pipe-catalogue';
@@ -184,14 +186,16 @@ function resolveSegment(segment: PipeSegmentInput, index: number, method: Fricti
 
 /*
  * Darcy-Weisbach friction is precomputed per segment as a table of the
- * Colebrook factor f over u = ln(Re) from Re = 2300 to 1e8, with the exact
+ * Colebrook factor f over u = ln(Re) from Re = 4000 to 1e8, with the exact
  * derivative df/du at each node, evaluated by cubic Hermite interpolation.
  * Accuracy: relative error of the friction head below 1e-8 against the exact
- * Colebrook solution over that range (the tests check it). Below Re 2300 the
- * laminar 64/Re is exact; above 1e8 Colebrook is solved directly.
+ * Colebrook solution over that range (the tests check it). Below Re 4000 the
+ * laminar and transition rules (friction.ts) are evaluated exactly; above
+ * 1e8 Colebrook is solved directly.
  */
-const TABLE_LOG_RE_MIN = Math.log(LAMINAR_REYNOLDS_LIMIT);
-const TABLE_LOG_RE_MAX = Math.log(1e8);
+const TABLE_LOG_RE_MIN = Math.log(TURBULENT_REYNOLDS_LIMIT);
+const TABLE_REYNOLDS_MAX = 1e8;
+const TABLE_LOG_RE_MAX = Math.log(TABLE_REYNOLDS_MAX);
 const TABLE_INTERVALS = 128;
 const TABLE_STEP = (TABLE_LOG_RE_MAX - TABLE_LOG_RE_MIN) / TABLE_INTERVALS;
 
@@ -212,6 +216,8 @@ interface DarcySegmentTable {
   /** Re = reynoldsPerFlow * Q */
   reynoldsPerFlow: number;
   relativeRoughness: number;
+  /** Colebrook f at Re 4000, the upper end of the transition blend. */
+  turbulentAt4000: number;
   values: Float64Array;
   slopes: Float64Array;
 }
@@ -229,6 +235,7 @@ function buildDarcyTable(segment: ResolvedSegment, kinematicViscosity: number): 
     coefficient: segment.length / (segment.insideDiameter * 2 * STANDARD_GRAVITY * segment.area * segment.area),
     reynoldsPerFlow: segment.insideDiameter / (segment.area * kinematicViscosity),
     relativeRoughness,
+    turbulentAt4000: values[0],
     values,
     slopes,
   };
@@ -243,13 +250,16 @@ function darcyFrictionWithSlope(table: DarcySegmentTable, flow: number, out: Flo
     out[1] = linear;
     return;
   }
-  const u = Math.log(reynolds);
   let f: number;
   let dfdu: number;
-  if (u >= TABLE_LOG_RE_MAX) {
+  if (reynolds < TURBULENT_REYNOLDS_LIMIT) {
+    const [value, perReynolds] = transitionFrictionFactor(reynolds, table.turbulentAt4000);
+    f = value;
+    dfdu = perReynolds * reynolds;
+  } else if (reynolds >= TABLE_REYNOLDS_MAX) {
     [f, dfdu] = colebrookWithLogSlope(reynolds, table.relativeRoughness);
   } else {
-    const position = (u - TABLE_LOG_RE_MIN) / TABLE_STEP;
+    const position = (Math.log(reynolds) - TABLE_LOG_RE_MIN) / TABLE_STEP;
     const node = Math.floor(position);
     const t = position - node;
     const f0 = table.values[node];

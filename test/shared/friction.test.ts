@@ -42,12 +42,15 @@ describe('friction', () => {
     });
   });
 
-  it('uses 64/Re below Re 2300 and Colebrook from 2300 up (conservative in transition)', () => {
+  it('uses 64/Re below Re 2300, the turbulent correlation from 4000 and a straight line between', () => {
     expect(darcyFrictionFactor(2000, 1e-4)).to.equal(64 / 2000);
     expect(darcyFrictionFactor(2299.9, 0)).to.equal(64 / 2299.9);
-    const turbulent = darcyFrictionFactor(2300, 0);
-    expect(turbulent).to.equal(frictionFactorColebrook(2300, 0));
-    expect(turbulent).to.be.greaterThan(64 / 2300);
+    expect(darcyFrictionFactor(2300, 1e-3)).to.be.closeTo(64 / 2300, 1e-15);
+    const at4000 = frictionFactorColebrook(4000, 1e-3);
+    expect(darcyFrictionFactor(4000, 1e-3)).to.equal(at4000);
+    expect(darcyFrictionFactor(3999.999, 1e-3)).to.be.closeTo(at4000, 1e-8);
+    expect(darcyFrictionFactor(3150, 1e-3)).to.be.closeTo((64 / 2300 + at4000) / 2, 1e-15);
+    expect(darcyFrictionFactor(3150, 1e-3, 'swamee-jain')).to.be.closeTo((64 / 2300 + frictionFactorSwameeJain(4000, 1e-3)) / 2, 1e-15);
     expect(darcyFrictionFactor(1e5, 1e-4, 'swamee-jain')).to.equal(frictionFactorSwameeJain(1e5, 1e-4));
   });
 

@@ -63,6 +63,17 @@ describe('system curve', () => {
     expect(worst).to.be.lessThan(1e-8);
   });
 
+  it('Darcy-Weisbach: continuous through the laminar, transition and turbulent limits (Re 2300 and 4000)', () => {
+    const system = compileSystemCurve({ staticHead: 0, frictionMethod: 'darcy-weisbach', segments: [{ length: 50, pipeSizeId: 'pvc-sch40-1' }] });
+    const segment = system.segments[0];
+    const flowAt = (reynolds: number) => (reynolds * system.kinematicViscosity * segment.area) / segment.insideDiameter;
+    for (const limit of [2300, 4000]) {
+      const below = system.evaluate(flowAt(limit * (1 - 1e-9)));
+      const above = system.evaluate(flowAt(limit * (1 + 1e-9)));
+      expect(Math.abs(above / below - 1), `at Re ${limit}`).to.be.lessThan(1e-7);
+    }
+  });
+
   it('breaks the head down into static, outlet pressure, friction and minor losses that add up', () => {
     const system = compileSystemCurve(darcyInput);
     const flow = 0.003;
