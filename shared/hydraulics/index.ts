@@ -16,3 +16,5 @@ export * from './operating-point';
 export * from './pump-arrangements';
 export * from './operating-regions';
 export * from './power-and-energy';
+export * from './affinity-laws';
+export * from './npsh';

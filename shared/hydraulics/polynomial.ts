@@ -83,3 +83,11 @@ export function polynomialShifted(coefficients: readonly number[], shift: number
   });
   return result;
 }
+
+/**
+ * Coefficients of v p(x / a), i.e. coefficient k multiplied by v / a^k:
+ * the stretch of a curve by `argumentFactor` along x and `valueFactor` in value.
+ */
+export function polynomialScaled(coefficients: readonly number[], valueFactor: number, argumentFactor: number): number[] {
+  return coefficients.map((coefficient, power) => (coefficient * valueFactor) / Math.pow(argumentFactor, power));
+}

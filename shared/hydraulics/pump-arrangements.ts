@@ -1,6 +1,6 @@
 import { HydraulicsInputError } from './hydraulics-error';
 import { type HeadCurve, type NoOperatingPointReason, solveOperatingPoint } from './operating-point';
-import { polynomialValue } from './polynomial';
+import { polynomialScaled, polynomialValue } from './polynomial';
 import { findRootBracketed } from './root-finding';
 import type { CompiledSystemCurve } from './system-curve';
 
@@ -36,7 +36,7 @@ function requireCount(value: number, field: string, min: number): void {
 export function parallelHeadCurve(pump: HeadCurve, running: number): HeadCurve {
   requireCount(running, '/running', 1);
   return {
-    headCoefficients: pump.headCoefficients.map((coefficient, power) => coefficient / Math.pow(running, power)),
+    headCoefficients: polynomialScaled(pump.headCoefficients, 1, running),
     flowMin: pump.flowMin * running,
     flowMax: pump.flowMax * running,
   };
@@ -46,7 +46,7 @@ export function parallelHeadCurve(pump: HeadCurve, running: number): HeadCurve {
 export function seriesHeadCurve(pump: HeadCurve, count: number): HeadCurve {
   requireCount(count, '/count', 1);
   return {
-    headCoefficients: pump.headCoefficients.map((coefficient) => coefficient * count),
+    headCoefficients: polynomialScaled(pump.headCoefficients, count, 1),
     flowMin: pump.flowMin,
     flowMax: pump.flowMax,
   };

@@ -1,0 +1,76 @@
+import { requireFinite, requireInRange, requireNonNegative, requirePositive } from './hydraulics-error';
+import { STANDARD_GRAVITY } from './physical-constants';
+import { waterDensity, waterVapourPressure } from './water-properties';
+
+/*
+ * Net positive suction head for pumps that draw from an open water surface.
+ */
+
+/**
+ * Pressure of the ICAO standard atmosphere at `altitude` (m above sea level),
+ * Pa absolute: p = 101325 (1 - 2.25577e-5 h)^5.25588. Source: ISO 2533:1975
+ * (ICAO Doc 7488), troposphere; valid -500 to 11000 m.
+ */
+export function standardAtmosphericPressure(altitude: number): number {
+  requireInRange(altitude, -500, 11000, '/altitude', 'altitude (m)');
+  return 101325 * Math.pow(1 - 2.25577e-5 * altitude, 5.25588);
+}
+
+export interface SuctionConditions {
+  /** Absolute pressure on the water surface, Pa (see standardAtmosphericPressure). */
+  surfacePressure: number;
+  /** Water temperature, C (0-40). */
+  temperature: number;
+  /** Height of the water surface above the pump's impeller eye, m; negative for a suction lift. */
+  surfaceElevation: number;
+  /** Friction and fitting losses of the suction pipe at the operating flow, m. */
+  suctionLosses: number;
+}
+
+/**
+ * NPSH available, m: NPSHa = (p_surface - p_vapour)/(rho g) + z_s - h_f,s,
+ * with p_vapour and rho of the water at its temperature (water-properties).
+ * Source: ANSI/HI 9.6.1 (Rotodynamic Pumps - Guideline for NPSH Margin);
+ * Karassik, Pump Handbook, 4th ed., NPSH chapter.
+ */
+export function npshAvailable(conditions: SuctionConditions): number {
+  requirePositive(conditions.surfacePressure, '/surfacePressure', 'surface pressure');
+  requireFinite(conditions.surfaceElevation, '/surfaceElevation', 'surface elevation');
+  requireNonNegative(conditions.suctionLosses, '/suctionLosses', 'suction losses');
+  const density = waterDensity(conditions.temperature);
+  const vapourPressure = waterVapourPressure(conditions.temperature);
+  return (
+    (conditions.surfacePressure - vapourPressure) / (density * STANDARD_GRAVITY) +
+    conditions.surfaceElevation -
+    conditions.suctionLosses
+  );
+}
+
+export interface NpshGuidance {
+  /** Least NPSHa / NPSHr. */
+  ratio: number;
+  /** Least NPSHa - NPSHr, m. */
+  difference: number;
+}
+
+/**
+ * Clean-water guidance of ANSI/HI 9.6.1: NPSH margin ratio of at least 1.1
+ * and at least 0.6 m; Riffle requires both (the greater margin governs).
+ */
+export const DEFAULT_NPSH_GUIDANCE: NpshGuidance = Object.freeze({ ratio: 1.1, difference: 0.6 });
+
+export interface NpshMargin {
+  ratio: number;
+  /** m */
+  difference: number;
+  adequate: boolean;
+}
+
+/** Margin of NPSH available over NPSH required (both m), judged against `guidance`. */
+export function npshMargin(available: number, required: number, guidance: NpshGuidance = DEFAULT_NPSH_GUIDANCE): NpshMargin {
+  requireFinite(available, '/npshAvailable', 'NPSH available');
+  requirePositive(required, '/npshRequired', 'NPSH required');
+  const ratio = available / required;
+  const difference = available - required;
+  return { ratio, difference, adequate: ratio >= guidance.ratio && difference >= guidance.difference };
+}
