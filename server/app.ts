@@ -11,6 +11,8 @@ import { createOperationRouter } from './api/operation-router';
 import { createProblemHandler, notFoundHandler } from './api/problem-details';
 import { projectRoot } from './config';
 import { createHealthHandlers } from './health/health-handlers';
+import { createCalculationHandlers } from './calculations/calculation-handlers';
+import { CatalogSnapshot } from './selection/catalog-snapshot';
 
 export interface AppDependencies {
   sequelize: Sequelize;
@@ -44,7 +46,12 @@ export function createApp({ sequelize, logger, clientFolder }: AppDependencies):
   });
   app.use('/api/docs', swaggerUi.serve, swaggerUi.setup(undefined, { swaggerOptions: { url: '/api/v1/openapi.yaml' }, customSiteTitle: 'Riffle API' }));
 
-  const handlers = { ...createHealthHandlers(sequelize, riffleVersion) };
+  // Calculations and selection: one in-memory view of the catalog's current curves.
+  const catalogSnapshot = new CatalogSnapshot(sequelize);
+  const handlers = {
+    ...createHealthHandlers(sequelize, riffleVersion),
+    ...createCalculationHandlers(catalogSnapshot),
+  };
   app.use('/api/v1', createOperationRouter({ document: openApiDocument, handlers }));
   app.use('/api', notFoundHandler);
 

@@ -6,3 +6,29 @@ type Schemas = components['schemas'];
 
 export type Health = Schemas['Health'];
 export type ProblemDetails = Schemas['ProblemDetails'];
+
+// Calculations and selection.
+export type FlowUnit = Schemas['FlowUnit'];
+export type HeadUnit = Schemas['HeadUnit'];
+export type LengthUnit = Schemas['LengthUnit'];
+export type DiameterUnit = Schemas['DiameterUnit'];
+export type PowerUnit = Schemas['PowerUnit'];
+export type CalculationUnits = Schemas['CalculationUnits'];
+export type FittingCount = Schemas['FittingCount'];
+export type PipeSegment = Schemas['PipeSegment'];
+export type PipeSystem = Schemas['PipeSystem'];
+export type SystemCurveRequest = Schemas['SystemCurveRequest'];
+export type SystemCurvePoint = Schemas['SystemCurvePoint'];
+export type SystemCurveResponse = Schemas['SystemCurveResponse'];
+export type PumpCurvePointInput = Schemas['PumpCurvePoint'];
+export type InlinePump = Schemas['InlinePump'];
+export type CatalogPump = Schemas['CatalogPump'];
+export type PumpArrangement = Schemas['PumpArrangement'];
+export type PreferredBandInput = Schemas['PreferredBand'];
+export type OperatingPointRequest = Schemas['OperatingPointRequest'];
+export type OperatingRegionName = Schemas['OperatingRegion'];
+export type OperatingPointSummary = Schemas['OperatingPoint'];
+export type CurveFitSummary = Schemas['CurveFitSummary'];
+export type OperatingPointResponse = Schemas['OperatingPointResponse'];
+export type PipeSizesResponse = Schemas['PipeSizesResponse'];
+export type FittingsResponse = Schemas['FittingsResponse'];

@@ -21,10 +21,295 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/calculations/system-curve": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Head the pipework needs at each flow (the system curve)
+         * @description Total dynamic head at each requested flow: static head, outlet pressure head, pipe
+         *     friction (Hazen-Williams or Darcy-Weisbach with Colebrook) and fitting losses
+         *     (Crane TP-410 K values), with the velocity in each segment. Numbers in and out are in
+         *     the request's `units`. A velocity above 5 ft/s (1.52 m/s), the common-practice limit
+         *     for plastic pipe, is reported in `warnings`.
+         */
+        post: operations["calculateSystemCurve"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/calculations/operating-point": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Where a pump (or identical pumps in parallel) meets the system curve
+         * @description The pump is either an inline published curve (at least three points, head not rising
+         *     with flow; optional power or efficiency on every point) or a catalog pump by `pumpId`
+         *     (its current curve revision). `arrangement` runs `running` of `installed` identical
+         *     pumps in parallel: flows add at equal head. With two or more pumps all running,
+         *     `oneFailed` gives the point with one of them off. The preferred operating region is
+         *     70-120 % of BEP flow by default (ANSI/HI 9.6.3), configurable with `preferredBand`.
+         *     No intersection on the published curve is a 422 problem whose `reason` says why.
+         */
+        post: operations["calculateOperatingPoint"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/pipe-sizes": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * The pipe catalogue the calculations know, by series
+         * @description Inside and outside diameters in the `diameter` unit asked for (default in), with each series' dimensional source and default Hazen-Williams C; roughness in the same unit.
+         */
+        get: operations["listPipeSizes"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/fittings": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * The fittings and valves the calculations know, with how their K is found
+         * @description Crane TP-410 fittings have K = multiplier x f_T, f_T being the fully turbulent friction
+         *     factor of the fitting's bore; entrances and the exit have a fixed K. Give `insideDiameter`
+         *     and `diameter` to get each fitting's K for that bore.
+         */
+        get: operations["listFittings"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
 }
 export type webhooks = Record<string, never>;
 export interface components {
     schemas: {
+        /** @enum {string} */
+        FlowUnit: "gpm" | "gph" | "L/min" | "L/s" | "m3/h" | "m3/s";
+        /** @enum {string} */
+        HeadUnit: "m" | "ft";
+        /** @enum {string} */
+        LengthUnit: "m" | "ft";
+        /** @enum {string} */
+        DiameterUnit: "mm" | "in" | "m";
+        /**
+         * @description hp is the mechanical horsepower, 745.7 W.
+         * @enum {string}
+         */
+        PowerUnit: "W" | "kW" | "hp";
+        /** @description The units of every number in the request and its answer. Velocities are in length units per second. */
+        CalculationUnits: {
+            flow: components["schemas"]["FlowUnit"];
+            head: components["schemas"]["HeadUnit"];
+            length: components["schemas"]["LengthUnit"];
+            diameter: components["schemas"]["DiameterUnit"];
+            /** @description Unit of power in the answer (default kW). */
+            power?: components["schemas"]["PowerUnit"];
+        };
+        FittingCount: {
+            /** @enum {string} */
+            kind: "elbow-90-standard" | "elbow-90-long-radius" | "elbow-45-standard" | "bend-180-return" | "tee-run" | "tee-branch" | "valve-gate" | "valve-ball" | "valve-globe" | "valve-butterfly" | "check-valve-swing" | "check-valve-swing-clearway" | "foot-valve-poppet" | "foot-valve-hinged" | "entrance-sharp" | "entrance-inward-projecting" | "exit";
+            count: number;
+        };
+        /** @description One run of pipe of one bore. Give `pipe` (a catalogue size id) or `insideDiameter`; C and roughness default to the size's or the material's. */
+        PipeSegment: {
+            /** @description In length units. */
+            length: number;
+            /** @description In diameter units. */
+            insideDiameter?: number;
+            /** @description A size id from GET /pipe-sizes, e.g. pvc-sch40-3. */
+            pipe?: string;
+            /** @enum {string} */
+            material?: "pvc" | "hdpe" | "steel" | "flexible-pvc";
+            hazenWilliamsC?: number;
+            /** @description Absolute roughness, in diameter units. */
+            roughness?: number;
+            fittings?: components["schemas"]["FittingCount"][];
+            /** @description Extra resistance coefficient (filter module, manifold, nozzle), dimensionless. */
+            minorLossK?: number;
+        };
+        /** @description The pipework from the intake water surface to the outlet, segments in series. */
+        PipeSystem: {
+            /** @description Discharge level (or outlet) above the intake water surface, in head units. */
+            staticHead: number;
+            /** @description Pressure head wanted at the outlet (nozzle, pressurised filter), in head units; default 0. */
+            outletPressureHead?: number;
+            /** @enum {string} */
+            frictionMethod: "hazen-williams" | "darcy-weisbach";
+            /** @description Water temperature in C; default 20. */
+            waterTemperatureC?: number;
+            segments: components["schemas"]["PipeSegment"][];
+        };
+        SystemCurveRequest: {
+            units: components["schemas"]["CalculationUnits"];
+            system: components["schemas"]["PipeSystem"];
+            flows: number[];
+        };
+        SystemCurvePoint: {
+            flow: number;
+            /** @description Total dynamic head. */
+            head: number;
+            staticHead: number;
+            outletPressureHead: number;
+            frictionHead: number;
+            minorHead: number;
+            /** @description Mean velocity in each segment, length units per second. */
+            velocities: number[];
+        };
+        SystemCurveResponse: {
+            units: components["schemas"]["CalculationUnits"];
+            points: components["schemas"]["SystemCurvePoint"][];
+            warnings: string[];
+        };
+        PumpCurvePoint: {
+            flow: number;
+            head: number;
+            /** @description Input power at this flow, in power units (default kW). */
+            power?: number;
+            /** @description Efficiency at this flow, percent. */
+            efficiency?: number;
+        };
+        InlinePump: {
+            curve: components["schemas"]["PumpCurvePoint"][];
+            /**
+             * @description What power and efficiency mean: pump shaft (default) or electrical input (wire-to-water).
+             * @enum {string}
+             */
+            powerBasis?: "shaft" | "electrical";
+        };
+        CatalogPump: {
+            pumpId: number;
+        };
+        /** @description Identical pumps in parallel. */
+        PumpArrangement: {
+            installed: number;
+            running: number;
+        };
+        /** @description The preferred operating region as percent of BEP flow; default 70-120 (ANSI/HI 9.6.3). */
+        PreferredBand: {
+            minPercent: number;
+            maxPercent: number;
+        };
+        OperatingPointRequest: {
+            units: components["schemas"]["CalculationUnits"];
+            system: components["schemas"]["PipeSystem"];
+            pump: components["schemas"]["InlinePump"] | components["schemas"]["CatalogPump"];
+            arrangement?: components["schemas"]["PumpArrangement"];
+            preferredBand?: components["schemas"]["PreferredBand"];
+        };
+        /**
+         * @description preferred: inside the POR; allowable: inside the maker's AOR; outside; unknown-bep: the curve has no efficiency data.
+         * @enum {string}
+         */
+        OperatingRegion: "preferred" | "allowable" | "outside" | "unknown-bep";
+        OperatingPoint: {
+            /** @description Total flow of the running pumps. */
+            flow: number;
+            head: number;
+            flowPerPump: number;
+            /** @description Flow per pump as percent of BEP flow. */
+            percentOfBep: number | null;
+            region: components["schemas"]["OperatingRegion"];
+            /** @description Pump efficiency at the point, percent. */
+            efficiency: number | null;
+            /** @description Input power of all running pumps, in power units. */
+            inputPower: number | null;
+        };
+        /** @description The fitted curve of one pump, in the request's units. */
+        CurveFitSummary: {
+            degree: number;
+            shutOffHead: number;
+            flowMin: number;
+            flowMax: number;
+            bep: {
+                flow: number;
+                head: number;
+                /** @description Percent. */
+                efficiency: number;
+            } | null;
+            preferredRegion: {
+                flowMin: number;
+                flowMax: number;
+            } | null;
+            rmsHead: number;
+            warnings: string[];
+        };
+        OperatingPointResponse: {
+            units: components["schemas"]["CalculationUnits"];
+            operatingPoint: components["schemas"]["OperatingPoint"];
+            /** @description With two or more pumps all running: the point with one of them off (null otherwise, or when the rest run past their curve). */
+            oneFailed: components["schemas"]["OperatingPoint"] | null;
+            fit: components["schemas"]["CurveFitSummary"];
+            warnings: string[];
+        };
+        PipeSizesResponse: {
+            units: {
+                diameter: components["schemas"]["DiameterUnit"];
+            };
+            series: {
+                id: string;
+                label: string;
+                /** @enum {string} */
+                material: "pvc" | "hdpe" | "steel" | "flexible-pvc";
+                source: string;
+                sizes: {
+                    id: string;
+                    /** @description Nominal pipe size, inches. */
+                    nominalSize: number;
+                    nominalLabel: string;
+                    insideDiameter: number;
+                    outsideDiameter: number | null;
+                    hazenWilliamsC: number;
+                    roughness: number;
+                }[];
+            }[];
+        };
+        FittingsResponse: {
+            fittings: {
+                kind: string;
+                label: string;
+                /** @enum {string} */
+                method: "crane" | "fixed";
+                /** @description n in K = n f_T (Crane fittings). */
+                multiplier?: number;
+                /** @description K for the bore asked for, or the fixed K. */
+                k?: number;
+                source: string;
+            }[];
+        };
         Health: {
             /** @enum {string} */
             status: "ok" | "degraded";
@@ -50,6 +335,24 @@ export interface components {
         };
     };
     responses: {
+        /** @description The request is well formed but cannot be computed (an absurd size, no operating point); `pointer` names the field. */
+        UnprocessableInput: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description The thing named in the request does not exist. */
+        NotFound: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
         /** @description The request does not match the contract. */
         BadRequest: {
             headers: {
@@ -108,6 +411,344 @@ export interface operations {
                     "application/json": components["schemas"]["Health"];
                 };
             };
+        };
+    };
+    calculateSystemCurve: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "units": {
+                 *         "flow": "gpm",
+                 *         "head": "ft",
+                 *         "length": "ft",
+                 *         "diameter": "in"
+                 *       },
+                 *       "system": {
+                 *         "staticHead": 14.5,
+                 *         "outletPressureHead": 0,
+                 *         "frictionMethod": "hazen-williams",
+                 *         "waterTemperatureC": 20,
+                 *         "segments": [
+                 *           {
+                 *             "length": 240,
+                 *             "insideDiameter": 3,
+                 *             "hazenWilliamsC": 150,
+                 *             "fittings": [],
+                 *             "minorLossK": 0
+                 *           }
+                 *         ]
+                 *       },
+                 *       "flows": [
+                 *         0,
+                 *         50,
+                 *         100,
+                 *         150
+                 *       ]
+                 *     }
+                 */
+                "application/json": components["schemas"]["SystemCurveRequest"];
+            };
+        };
+        responses: {
+            /** @description One point per requested flow, in the same order. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "units": {
+                     *         "flow": "gpm",
+                     *         "head": "ft",
+                     *         "length": "ft",
+                     *         "diameter": "in"
+                     *       },
+                     *       "points": [
+                     *         {
+                     *           "flow": 0,
+                     *           "head": 14.5,
+                     *           "staticHead": 14.5,
+                     *           "outletPressureHead": 0,
+                     *           "frictionHead": 0,
+                     *           "minorHead": 0,
+                     *           "velocities": [
+                     *             0
+                     *           ]
+                     *         },
+                     *         {
+                     *           "flow": 50,
+                     *           "head": 16.05,
+                     *           "staticHead": 14.5,
+                     *           "outletPressureHead": 0,
+                     *           "frictionHead": 1.55,
+                     *           "minorHead": 0,
+                     *           "velocities": [
+                     *             2.27
+                     *           ]
+                     *         },
+                     *         {
+                     *           "flow": 100,
+                     *           "head": 20.11,
+                     *           "staticHead": 14.5,
+                     *           "outletPressureHead": 0,
+                     *           "frictionHead": 5.61,
+                     *           "minorHead": 0,
+                     *           "velocities": [
+                     *             4.54
+                     *           ]
+                     *         },
+                     *         {
+                     *           "flow": 150,
+                     *           "head": 26.39,
+                     *           "staticHead": 14.5,
+                     *           "outletPressureHead": 0,
+                     *           "frictionHead": 11.89,
+                     *           "minorHead": 0,
+                     *           "velocities": [
+                     *             6.81
+                     *           ]
+                     *         }
+                     *       ],
+                     *       "warnings": [
+                     *         "at 150 gpm segment 0: velocity 6.81 ft/s exceeds 5 ft/s, the common-practice limit for plastic pipe"
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["SystemCurveResponse"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    calculateOperatingPoint: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "units": {
+                 *         "flow": "gpm",
+                 *         "head": "ft",
+                 *         "length": "ft",
+                 *         "diameter": "in",
+                 *         "power": "kW"
+                 *       },
+                 *       "system": {
+                 *         "staticHead": 14.5,
+                 *         "frictionMethod": "hazen-williams",
+                 *         "segments": [
+                 *           {
+                 *             "length": 240,
+                 *             "insideDiameter": 3,
+                 *             "hazenWilliamsC": 150
+                 *           }
+                 *         ]
+                 *       },
+                 *       "pump": {
+                 *         "curve": [
+                 *           {
+                 *             "flow": 0,
+                 *             "head": 40,
+                 *             "efficiency": 0
+                 *           },
+                 *           {
+                 *             "flow": 40,
+                 *             "head": 37.5,
+                 *             "efficiency": 42
+                 *           },
+                 *           {
+                 *             "flow": 80,
+                 *             "head": 32.5,
+                 *             "efficiency": 60
+                 *           },
+                 *           {
+                 *             "flow": 120,
+                 *             "head": 25,
+                 *             "efficiency": 63
+                 *           },
+                 *           {
+                 *             "flow": 160,
+                 *             "head": 15,
+                 *             "efficiency": 50
+                 *           }
+                 *         ]
+                 *       },
+                 *       "arrangement": {
+                 *         "installed": 1,
+                 *         "running": 1
+                 *       }
+                 *     }
+                 */
+                "application/json": components["schemas"]["OperatingPointRequest"];
+            };
+        };
+        responses: {
+            /** @description The operating point, the fitted curve and any warnings. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "units": {
+                     *         "flow": "gpm",
+                     *         "head": "ft",
+                     *         "length": "ft",
+                     *         "diameter": "in",
+                     *         "power": "kW"
+                     *       },
+                     *       "operatingPoint": {
+                     *         "flow": 127.54,
+                     *         "head": 23.31,
+                     *         "flowPerPump": 127.54,
+                     *         "percentOfBep": 123.2,
+                     *         "region": "outside",
+                     *         "efficiency": 61.04,
+                     *         "inputPower": 0.917
+                     *       },
+                     *       "oneFailed": null,
+                     *       "fit": {
+                     *         "degree": 3,
+                     *         "shutOffHead": 40,
+                     *         "flowMin": 0,
+                     *         "flowMax": 160,
+                     *         "bep": {
+                     *           "flow": 103.52,
+                     *           "head": 28.39,
+                     *           "efficiency": 63.69
+                     *         },
+                     *         "preferredRegion": {
+                     *           "flowMin": 72.47,
+                     *           "flowMax": 124.23
+                     *         },
+                     *         "rmsHead": 0,
+                     *         "warnings": []
+                     *       },
+                     *       "warnings": [
+                     *         "at 127.54 gpm segment 0: velocity 5.79 ft/s exceeds 5 ft/s, the common-practice limit for plastic pipe",
+                     *         "outside the preferred operating region: expect shorter bearing and seal life"
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["OperatingPointResponse"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    listPipeSizes: {
+        parameters: {
+            query?: {
+                /** @description Unit of the diameters and roughness in the answer. */
+                diameter?: components["schemas"]["DiameterUnit"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Every series and its sizes. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "units": {
+                     *         "diameter": "in"
+                     *       },
+                     *       "series": [
+                     *         {
+                     *           "id": "pvc-sch40",
+                     *           "label": "PVC Schedule 40",
+                     *           "material": "pvc",
+                     *           "source": "ASTM D1785, Table 1 (outside diameter and minimum wall, Schedule 40)",
+                     *           "sizes": [
+                     *             {
+                     *               "id": "pvc-sch40-3",
+                     *               "nominalSize": 3,
+                     *               "nominalLabel": "3\"",
+                     *               "insideDiameter": 3.068,
+                     *               "outsideDiameter": 3.5,
+                     *               "hazenWilliamsC": 150,
+                     *               "roughness": 0.000059
+                     *             }
+                     *           ]
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["PipeSizesResponse"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+        };
+    };
+    listFittings: {
+        parameters: {
+            query?: {
+                /** @description A bore for which to compute each K, in the `diameter` unit. */
+                insideDiameter?: number;
+                /** @description Unit of insideDiameter (default in). */
+                diameter?: components["schemas"]["DiameterUnit"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Every fitting kind. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "fittings": [
+                     *         {
+                     *           "kind": "elbow-90-standard",
+                     *           "label": "90-degree standard elbow",
+                     *           "method": "crane",
+                     *           "multiplier": 30,
+                     *           "k": 0.52,
+                     *           "source": "Crane TP-410, Appendix A-29: K = 30 f_T"
+                     *         },
+                     *         {
+                     *           "kind": "exit",
+                     *           "label": "Pipe exit into a tank or pond (count once)",
+                     *           "method": "fixed",
+                     *           "k": 1,
+                     *           "source": "Crane TP-410, Appendix A-29: K = 1"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["FittingsResponse"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            422: components["responses"]["UnprocessableInput"];
         };
     };
 }

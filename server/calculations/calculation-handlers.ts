@@ -1,0 +1,195 @@
+import type { Request, RequestHandler } from 'express';
+import type {
+  CalculationUnits,
+  DiameterUnit,
+  FittingsResponse,
+  OperatingPointRequest,
+  OperatingPointResponse,
+  OperatingPointSummary,
+  PipeSizesResponse,
+  SystemCurveRequest,
+  SystemCurveResponse,
+} from '../../shared/api/api-schemas';
+import {
+  craneFullyTurbulentFrictionFactor,
+  diameterFromSI,
+  diameterToSI,
+  FITTINGS,
+  flowToSI,
+  PIPE_SERIES,
+  systemBreakdown,
+  VELOCITY_WARNING_LIMIT,
+  type CompiledSystemCurve,
+  type NoOperatingPointReason,
+} from '../../shared/hydraulics';
+import { ProblemError } from '../api/problem-details';
+import { dutyOfParallelPumps, type DutyPoint, type PumpOnFile } from './arrangement-duty';
+import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
+import { fitInlinePump, preferredBandOf, preferredFlowRange, summarizeFit } from './pump-request';
+import { answerUnits, echoedUnits } from './request-units';
+import { plausibleLimits, prepareSystem, requirePlausibleFlow, round, velocityWarnings } from './system-request';
+
+/** Where the calculations find a catalog pump's current curve. */
+export interface CurrentPumpCurves {
+  findPump(pumpId: number): Promise<PumpOnFile | undefined>;
+}
+
+/** A duty point as the answer shows it, in the request's units. */
+export function operatingPointSummary(point: DutyPoint, units: CalculationUnits): OperatingPointSummary {
+  const to = answerUnits(units);
+  return {
+    flow: to.flow(point.flow),
+    head: to.head(point.head),
+    flowPerPump: to.flow(point.flowPerPump),
+    percentOfBep: point.percentOfBep,
+    region: point.region,
+    efficiency: point.efficiency === null ? null : point.efficiency * 100,
+    inputPower: point.inputPower === null ? null : to.power(point.inputPower),
+  };
+}
+
+const noPointTitles: Record<NoOperatingPointReason, string> = {
+  'below-static-head': 'the pump cannot lift the water this high: its shut-off head is below the static head plus outlet pressure head',
+  'before-curve': 'the curves would cross left of the first published point of the pump curve, where the maker gives no data',
+  'beyond-curve': 'the curves would cross right of the last published point (run-out): the system needs less head than the pump gives even there',
+};
+
+/** The duty-point messages a designer reads, in the request's units. */
+export function dutyWarningMessages(point: DutyPoint, system: CompiledSystemCurve, units: CalculationUnits): string[] {
+  const to = answerUnits(units);
+  const messages = velocityWarnings(system, point.flow, units);
+  if (point.warnings.includes('run-out')) {
+    messages.push(`run-out: each pump runs at ${round(to.flow(point.flowPerPump))} ${units.flow}, at the end of its published curve`);
+  }
+  if (point.warnings.includes('dead-head')) {
+    messages.push('near dead-head: the pump runs close to its shut-off head and passes little water; it may overheat');
+  }
+  if (point.region === 'outside') messages.push('outside the preferred operating region: expect shorter bearing and seal life');
+  return messages;
+}
+
+function diameterUnitOf(request: Request): DiameterUnit {
+  return ((request.query as { diameter?: DiameterUnit }).diameter ?? 'in') as DiameterUnit;
+}
+
+export function createCalculationHandlers(pumps: CurrentPumpCurves): Record<
+  'calculateSystemCurve' | 'calculateOperatingPoint' | 'listPipeSizes' | 'listFittings',
+  RequestHandler
+> {
+  return {
+    calculateSystemCurve: (request, response) => {
+      const body = request.body as SystemCurveRequest;
+      const { curve } = prepareSystem(body.units, body.system);
+      const to = answerUnits(body.units);
+      const warnings = new Set<string>();
+      const points = body.flows.map((flowInUnits, index) => {
+        const flow = flowToSI(flowInUnits, body.units.flow);
+        requirePlausibleFlow(flow, `/body/flows/${index}`);
+        const breakdown = systemBreakdown(curve, flow);
+        for (const warning of breakdown.warnings) if (!warning.startsWith('segment ')) warnings.add(warning);
+        if (breakdown.segments.some((segment) => segment.velocity > VELOCITY_WARNING_LIMIT)) {
+          for (const warning of velocityWarnings(curve, flow, body.units)) warnings.add(warning);
+        }
+        return {
+          flow: flowInUnits,
+          head: to.head(breakdown.totalHead),
+          staticHead: to.head(breakdown.staticHead),
+          outletPressureHead: to.head(breakdown.outletPressureHead),
+          frictionHead: to.head(breakdown.frictionHead),
+          minorHead: to.head(breakdown.minorHead),
+          velocities: breakdown.segments.map((segment) => to.length(segment.velocity)),
+        };
+      });
+      const answer: SystemCurveResponse = { units: echoedUnits(body.units), points, warnings: [...warnings] };
+      response.json(answer);
+    },
+
+    calculateOperatingPoint: async (request, response) => {
+      const body = request.body as OperatingPointRequest;
+      const { curve, density } = prepareSystem(body.units, body.system);
+      const band = preferredBandOf(body.preferredBand);
+      let pump: PumpOnFile;
+      if ('pumpId' in body.pump) {
+        const found = await pumps.findPump(body.pump.pumpId);
+        if (!found) {
+          throw new ProblemError(404, 'Pump not found', `No pump with a current curve has id ${body.pump.pumpId}`, [
+            { pointer: '/body/pump/pumpId', detail: 'no pump with a current curve has this id' },
+          ]);
+        }
+        pump = found;
+      } else {
+        pump = { fit: fitInlinePump(body.units, body.pump) };
+      }
+      const installed = body.arrangement?.installed ?? 1;
+      const running = body.arrangement?.running ?? installed;
+      if (running > installed) throw unprocessable('/body/arrangement/running', `running pumps (${running}) cannot exceed installed pumps (${installed})`);
+      const duty = withRequestPointers(() => dutyOfParallelPumps(pump, curve, running, band, density), pointerInto('/body/arrangement'));
+      if (!duty.ok) {
+        throw new ProblemError(422, 'No operating point', noPointTitles[duty.reason], [{ pointer: '/body/pump', detail: noPointTitles[duty.reason] }], 'no-operating-point', {
+          reason: duty.reason,
+        });
+      }
+      const oneFailed = running === installed && installed >= 2 ? dutyOfParallelPumps(pump, curve, running - 1, band, density) : null;
+      const warnings = dutyWarningMessages(duty.point, curve, body.units);
+      if (oneFailed && !oneFailed.ok) warnings.push(`with one pump failed: ${noPointTitles[oneFailed.reason]}`);
+      const answer: OperatingPointResponse = {
+        units: echoedUnits(body.units),
+        operatingPoint: operatingPointSummary(duty.point, body.units),
+        oneFailed: oneFailed?.ok ? operatingPointSummary(oneFailed.point, body.units) : null,
+        fit: summarizeFit(pump.fit, body.units, preferredFlowRange(pump.fit, band, pump.declaredPreferred)),
+        warnings,
+      };
+      response.json(answer);
+    },
+
+    listPipeSizes: (request, response) => {
+      const diameter = diameterUnitOf(request);
+      const answer: PipeSizesResponse = {
+        units: { diameter },
+        series: PIPE_SERIES.map((series) => ({
+          id: series.id,
+          label: series.label,
+          material: series.material,
+          source: series.source,
+          sizes: series.sizes.map((size) => ({
+            id: size.id,
+            nominalSize: size.nominalSize,
+            nominalLabel: size.nominalLabel,
+            insideDiameter: diameterFromSI(size.insideDiameter, diameter),
+            outsideDiameter: size.outsideDiameter === null ? null : diameterFromSI(size.outsideDiameter, diameter),
+            hazenWilliamsC: size.hazenWilliamsC,
+            roughness: diameterFromSI(size.roughness, diameter),
+          })),
+        })),
+      };
+      response.set('Cache-Control', 'private, max-age=3600').json(answer);
+    },
+
+    listFittings: (request, response) => {
+      const query = request.query as { insideDiameter?: number };
+      let frictionFactor: number | null = null;
+      if (query.insideDiameter !== undefined) {
+        const bore = diameterToSI(query.insideDiameter, diameterUnitOf(request));
+        if (bore < plausibleLimits.insideDiameterMin || bore > plausibleLimits.insideDiameterMax) {
+          throw unprocessable('/query/insideDiameter', 'inside diameter is outside the plausible range for a water feature');
+        }
+        frictionFactor = craneFullyTurbulentFrictionFactor(bore);
+      }
+      const answer: FittingsResponse = {
+        fittings: FITTINGS.map((fitting) =>
+          fitting.resistance.method === 'fixed'
+            ? { kind: fitting.kind, label: fitting.label, method: 'fixed', k: fitting.resistance.k, source: fitting.source }
+            : {
+                kind: fitting.kind,
+                label: fitting.label,
+                method: 'crane',
+                multiplier: fitting.resistance.multiplier,
+                ...(frictionFactor === null ? {} : { k: fitting.resistance.multiplier * frictionFactor }),
+                source: fitting.source,
+              },
+        ),
+      };
+      response.set('Cache-Control', 'private, max-age=3600').json(answer);
+    },
+  };
+}

@@ -1,0 +1,66 @@
+import type { CalculationUnits, CurveFitSummary, InlinePump, PreferredBandInput } from '../../shared/api/api-schemas';
+import {
+  checkPreferredBand,
+  DEFAULT_PREFERRED_BAND,
+  fitPumpCurve,
+  flowToSI,
+  headToSI,
+  type PreferredBand,
+  type PumpCurveFit,
+} from '../../shared/hydraulics';
+import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
+import { answerUnits, powerToSI, powerUnitOf } from './request-units';
+import { plausibleLimits } from './system-request';
+
+/** Highest pump head Riffle accepts on a curve, m: beyond any water-feature pump (a typing slip). */
+const PLAUSIBLE_PUMP_HEAD = 1000;
+
+/** Fits an inline published curve; every problem is a 422 pointing under `pointer` (`/body/pump`). */
+export function fitInlinePump(units: CalculationUnits, pump: InlinePump, pointer = '/body/pump'): PumpCurveFit {
+  const power = powerUnitOf(units);
+  const points = pump.curve.map((point, index) => {
+    const at = `${pointer}/curve/${index}`;
+    const flow = flowToSI(point.flow, units.flow);
+    if (flow > plausibleLimits.flowMax) throw unprocessable(`${at}/flow`, 'flow is outside the plausible range for a water feature');
+    const head = headToSI(point.head, units.head);
+    if (head > PLAUSIBLE_PUMP_HEAD) throw unprocessable(`${at}/head`, 'head is outside the plausible range for a water feature');
+    return {
+      flow,
+      head,
+      ...(point.power === undefined ? {} : { power: powerToSI(point.power, power) }),
+      ...(point.efficiency === undefined ? {} : { efficiency: point.efficiency / 100 }),
+    };
+  });
+  return withRequestPointers(
+    () => fitPumpCurve(points, { powerBasis: pump.powerBasis }),
+    (field) => field.replace(/^\/points/, `${pointer}/curve`),
+  );
+}
+
+/** The request's preferred band, checked, or the ANSI/HI 9.6.3 default of 70-120 % of BEP flow. */
+export function preferredBandOf(band: PreferredBandInput | undefined, pointer = '/body'): PreferredBand {
+  if (!band) return DEFAULT_PREFERRED_BAND;
+  return withRequestPointers(() => checkPreferredBand(band), pointerInto(pointer));
+}
+
+/** The preferred region in flow per pump, m3/s: a declared one when the supplier states it, else the band around BEP. */
+export function preferredFlowRange(fit: PumpCurveFit, band: PreferredBand, declared?: { flowMin: number; flowMax: number } | null): { flowMin: number; flowMax: number } | null {
+  if (declared) return declared;
+  if (!fit.bep) return null;
+  return { flowMin: (fit.bep.flow * band.minPercent) / 100, flowMax: (fit.bep.flow * band.maxPercent) / 100 };
+}
+
+/** A fit as the answer shows it, in the request's units; efficiencies in percent. */
+export function summarizeFit(fit: PumpCurveFit, units: CalculationUnits, preferredRegion: { flowMin: number; flowMax: number } | null): CurveFitSummary {
+  const to = answerUnits(units);
+  return {
+    degree: fit.degree,
+    shutOffHead: to.head(fit.shutOffHead),
+    flowMin: to.flow(fit.flowMin),
+    flowMax: to.flow(fit.flowMax),
+    bep: fit.bep ? { flow: to.flow(fit.bep.flow), head: to.head(fit.bep.head), efficiency: fit.bep.efficiency * 100 } : null,
+    preferredRegion: preferredRegion ? { flowMin: to.flow(preferredRegion.flowMin), flowMax: to.flow(preferredRegion.flowMax) } : null,
+    rmsHead: to.head(fit.statistics.rmsHead),
+    warnings: fit.warnings,
+  };
+}

@@ -1,0 +1,116 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import type { PumpCurveFit } from '../../shared/hydraulics';
+import type { PumpOnFile } from '../calculations/arrangement-duty';
+import type { CurrentPumpCurves } from '../calculations/calculation-handlers';
+
+/*
+ * The catalog as the search needs it: every active pump with its current curve revision's
+ * stored engine fit, held in memory. A search over 10,000 pumps cannot afford to read and parse
+ * 10,000 fits per request, so the snapshot is reloaded only when a cheap stamp of the catalog
+ * tables (counts, the highest revision id, the latest update) differs from the one it was built
+ * from. Concurrent requests share one stamp query and one reload.
+ */
+
+export interface CatalogPump extends PumpOnFile {
+  pumpId: number;
+  supplierId: number;
+  supplier: string;
+  model: string;
+  modelCode: string;
+  kind: string;
+  revisionId: number;
+}
+
+/** The pumps of one catalog state, and a place for derived structures that live as long as it does. */
+export interface CatalogState {
+  readonly stamp: string;
+  readonly pumps: readonly CatalogPump[];
+  readonly byId: ReadonlyMap<number, CatalogPump>;
+  /** Memo for structures built from `pumps` (the search's packed arrays), dropped with the state. */
+  readonly derived: Map<string, unknown>;
+}
+
+interface PumpRow {
+  pump_id: number;
+  supplier_id: number;
+  supplier_name: string;
+  model_code: string;
+  display_name: string;
+  kind: string;
+  revision_id: number;
+  fit: string | PumpCurveFit;
+  preferred_min: number | null;
+  preferred_max: number | null;
+}
+
+const stampQuery = `
+  SELECT CONCAT_WS('/',
+    (SELECT COUNT(*) FROM pumps), (SELECT COALESCE(SUM(current_revision_id), 0) FROM pumps),
+    (SELECT COALESCE(SUM(status = 'active'), 0) FROM pumps), (SELECT MAX(updated_at) FROM pumps),
+    (SELECT MAX(id) FROM curve_revisions), (SELECT COUNT(*) FROM curve_declared_ranges),
+    (SELECT MAX(updated_at) FROM suppliers)) AS stamp`;
+
+const pumpsQuery = `
+  SELECT p.id AS pump_id, p.supplier_id, s.name AS supplier_name, p.model_code, p.display_name, p.kind,
+         r.id AS revision_id, r.fit, d.flow_min_m3s AS preferred_min, d.flow_max_m3s AS preferred_max
+  FROM pumps p
+  JOIN suppliers s ON s.id = p.supplier_id
+  JOIN curve_revisions r ON r.id = p.current_revision_id
+  LEFT JOIN curve_declared_ranges d ON d.revision_id = r.id AND d.region = 'preferred'
+  WHERE p.status = 'active'
+  ORDER BY p.id`;
+
+function toCatalogPump(row: PumpRow): CatalogPump {
+  const fit = (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as PumpCurveFit;
+  return {
+    pumpId: row.pump_id,
+    supplierId: row.supplier_id,
+    supplier: row.supplier_name,
+    model: row.display_name,
+    modelCode: row.model_code,
+    kind: row.kind,
+    revisionId: row.revision_id,
+    fit,
+    declaredPreferred: row.preferred_min !== null && row.preferred_max !== null ? { flowMin: row.preferred_min, flowMax: row.preferred_max } : null,
+  };
+}
+
+export class CatalogSnapshot implements CurrentPumpCurves {
+  private state: CatalogState | undefined;
+  private pendingStamp: Promise<string> | undefined;
+  private pendingLoad: Promise<CatalogState> | undefined;
+
+  constructor(private readonly sequelize: Sequelize) {}
+
+  /** The catalog as it is now: the held state when the stamp is unchanged, else a fresh load. */
+  async current(): Promise<CatalogState> {
+    const stamp = await this.readStamp();
+    if (this.state?.stamp === stamp) return this.state;
+    this.pendingLoad ??= this.load(stamp).finally(() => {
+      this.pendingLoad = undefined;
+    });
+    return this.pendingLoad;
+  }
+
+  async findPump(pumpId: number): Promise<CatalogPump | undefined> {
+    return (await this.current()).byId.get(pumpId);
+  }
+
+  private readStamp(): Promise<string> {
+    this.pendingStamp ??= this.sequelize
+      .query<{ stamp: string }>(stampQuery, { type: QueryTypes.SELECT })
+      .then((rows) => String(rows[0]?.stamp ?? ''))
+      .finally(() => {
+        this.pendingStamp = undefined;
+      });
+    return this.pendingStamp;
+  }
+
+  private async load(stamp: string): Promise<CatalogState> {
+    const rows = await this.sequelize.query<PumpRow>(pumpsQuery, { type: QueryTypes.SELECT });
+    const pumps = rows.map(toCatalogPump);
+    const state: CatalogState = { stamp, pumps, byId: new Map(pumps.map((pump) => [pump.pumpId, pump])), derived: new Map() };
+    this.state = state;
+    return state;
+  }
+}
