@@ -9,16 +9,21 @@ import swaggerUi from 'swagger-ui-express';
 import { openApiDocument, openApiText } from './api/openapi-document';
 import { createOperationRouter } from './api/operation-router';
 import { createProblemHandler, notFoundHandler } from './api/problem-details';
-import { projectRoot } from './config';
+import { loadConfig, projectRoot } from './config';
 import { createHealthHandlers } from './health/health-handlers';
+import { createAccountHandlers, createOperationGuards } from './accounts/account-routes';
+import { accountsDependenciesFrom, type AccountsDependencies } from './accounts/accounts-dependencies';
 import { createCalculationHandlers } from './calculations/calculation-handlers';
 import { CatalogSnapshot } from './selection/catalog-snapshot';
+import { createSelectionHandlers } from './selection/selection-handlers';
 
 export interface AppDependencies {
   sequelize: Sequelize;
   logger: Logger;
   /** The built Angular app; when absent the server answers the API only. */
   clientFolder?: string;
+  /** Mail, the address e-mailed links point to, and rate limits; from the configuration when left out. */
+  accounts?: Partial<AccountsDependencies>;
 }
 
 export const riffleVersion = (JSON.parse(readFileSync(join(projectRoot, 'package.json'), 'utf8')) as { version: string }).version;
@@ -26,7 +31,7 @@ export const riffleVersion = (JSON.parse(readFileSync(join(projectRoot, 'package
 export const defaultClientFolder = join(projectRoot, 'dist', 'riffle', 'browser');
 
 /** Builds the whole web application; it never listens, so tests can drive it directly. */
-export function createApp({ sequelize, logger, clientFolder }: AppDependencies): Express {
+export function createApp({ sequelize, logger, clientFolder, accounts }: AppDependencies): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -48,11 +53,16 @@ export function createApp({ sequelize, logger, clientFolder }: AppDependencies):
 
   // Calculations and selection: one in-memory view of the catalog's current curves.
   const catalogSnapshot = new CatalogSnapshot(sequelize);
+  // Accounts and access: sign-in, tokens, admin, and the guard every operation's declaration asks for.
+  const accountsDependencies = accountsDependenciesFrom(loadConfig(), accounts);
   const handlers = {
     ...createHealthHandlers(sequelize, riffleVersion),
+    ...createAccountHandlers(sequelize, accountsDependencies),
     ...createCalculationHandlers(catalogSnapshot),
+    ...createSelectionHandlers(catalogSnapshot),
   };
-  app.use('/api/v1', createOperationRouter({ document: openApiDocument, handlers }));
+  const guardFor = createOperationGuards(openApiDocument, accountsDependencies.rateLimits);
+  app.use('/api/v1', createOperationRouter({ document: openApiDocument, handlers, guardFor }));
   app.use('/api', notFoundHandler);
 
   if (clientFolder && existsSync(join(clientFolder, 'index.html'))) {

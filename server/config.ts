@@ -22,6 +22,29 @@ export interface RiffleConfig {
   /** Where the private MariaDB keeps its files when Riffle runs it itself. */
   varDir: string;
   logLevel: string;
+  /** Where links in e-mails point: the address users reach Riffle at. */
+  publicUrl: string;
+  mail: MailConfig;
+}
+
+/**
+ * Outgoing mail. Without `RIFFLE_SMTP_HOST` mail goes to Riffle's own fake SMTP server on
+ * loopback (which `npm start` and `npm test` run), and it keeps what it receives in
+ * `mailboxFolder`; with it, mail goes to that relay unchanged.
+ */
+export interface MailConfig {
+  /** True when mail goes to the loopback fake SMTP server rather than a real relay. */
+  fake: boolean;
+  host: string;
+  /** 0 lets the fake server take any free loopback port. */
+  port: number;
+  /** `none` for the loopback fake; `starttls` or `implicit` for a real relay. */
+  tls: 'none' | 'starttls' | 'implicit';
+  user: string;
+  password: string;
+  from: string;
+  /** Where the fake SMTP server keeps received messages (one JSON file each). */
+  mailboxFolder: string;
 }
 
 /** A configuration value that cannot be used; the message says what to do. */
@@ -50,6 +73,21 @@ function readChoice<T extends string>(env: NodeJS.ProcessEnv, name: string, choi
   return raw as T;
 }
 
+function readMail(env: NodeJS.ProcessEnv, varDir: string): MailConfig {
+  const relayHost = env.RIFFLE_SMTP_HOST || '';
+  const fake = relayHost === '';
+  return {
+    fake,
+    host: relayHost || '127.0.0.1',
+    port: readPort(env, 'RIFFLE_SMTP_PORT', fake ? 0 : 587),
+    tls: fake ? 'none' : readChoice(env, 'RIFFLE_SMTP_TLS', ['none', 'starttls', 'implicit'] as const, 'starttls'),
+    user: env.RIFFLE_SMTP_USER || '',
+    password: env.RIFFLE_SMTP_PASSWORD ?? '',
+    from: env.RIFFLE_MAIL_FROM || 'Riffle <no-reply@riffle.test>',
+    mailboxFolder: env.RIFFLE_MAILBOX_FOLDER || join(varDir, 'mailbox'),
+  };
+}
+
 /** Reads and checks the environment once; every unusable value is a ConfigError naming the variable. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): RiffleConfig {
   const mode = readChoice(env, 'NODE_ENV', ['development', 'production', 'test'] as const, 'development');
@@ -57,11 +95,14 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): RiffleConfig {
   if (demo && mode === 'production') {
     throw new ConfigError('RIFFLE_DEMO=yes is refused when NODE_ENV=production: demo accounts must never reach production');
   }
+  const httpHost = env.RIFFLE_HTTP_HOST || '127.0.0.1';
+  const httpPort = readPort(env, 'PORT', 8080);
+  const varDir = env.RIFFLE_VAR_DIR || join(projectRoot, 'var');
   return {
     mode,
     demo,
-    httpHost: env.RIFFLE_HTTP_HOST || '127.0.0.1',
-    httpPort: readPort(env, 'PORT', 8080),
+    httpHost,
+    httpPort,
     database: {
       host: env.RIFFLE_DB_HOST || '127.0.0.1',
       port: readPort(env, 'RIFFLE_DB_PORT', 3307),
@@ -69,7 +110,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): RiffleConfig {
       user: env.RIFFLE_DB_USER || 'root',
       password: env.RIFFLE_DB_PASSWORD ?? '',
     },
-    varDir: env.RIFFLE_VAR_DIR || join(projectRoot, 'var'),
+    varDir,
     logLevel: readChoice(env, 'RIFFLE_LOG_LEVEL', logLevels, mode === 'test' ? 'silent' : 'info'),
+    publicUrl: (env.RIFFLE_PUBLIC_URL || `http://${httpHost}:${httpPort}`).replace(/\/+$/, ''),
+    mail: readMail(env, varDir),
   };
 }

@@ -11,6 +11,7 @@ import { createMigrator } from '../server/database/migrator';
 import { initialiseModels } from '../server/database/models';
 import { PrivateMariaDb } from '../server/database/private-mariadb';
 import { ensureClientBuilt } from '../server/launch/client-build';
+import { startFakeSmtpServer, type FakeSmtpServer } from '../server/mail/fake-smtp-server';
 import { freeLoopbackPort } from './support/free-port';
 
 interface SuiteResult {
@@ -64,11 +65,12 @@ async function main(): Promise<number> {
   const databasePort = await freeLoopbackPort();
   const databaseName = 'riffle_test';
   let database: PrivateMariaDb | undefined;
+  let smtp: FakeSmtpServer | undefined;
   const results: SuiteResult[] = [];
   for (const signal of ['SIGINT', 'SIGTERM'] as const) {
     process.once(signal, () => {
       say(`${signal} received; stopping the test MariaDB`);
-      void (database?.stop() ?? Promise.resolve()).finally(() => {
+      void Promise.all([database?.stop(), smtp?.stop()]).finally(() => {
         rmSync(workFolder, { recursive: true, force: true });
         process.exit(130);
       });
@@ -87,6 +89,11 @@ async function main(): Promise<number> {
 
     await ensureClientBuilt(say);
 
+    // Mail from the suites goes to a fake SMTP server on loopback; they read what it kept in the mailbox folder.
+    const mailboxFolder = join(workFolder, 'mailbox');
+    smtp = await startFakeSmtpServer({ port: 0, mailboxFolder });
+    say(`fake SMTP server on 127.0.0.1:${smtp.port}`);
+
     const env: NodeJS.ProcessEnv = {
       ...process.env,
       NODE_ENV: 'test',
@@ -95,6 +102,9 @@ async function main(): Promise<number> {
       RIFFLE_DB_NAME: databaseName,
       RIFFLE_TEST_MARIADB_FOLDER: join(workFolder, 'mariadb'),
       RIFFLE_TEST_WORK_FOLDER: workFolder,
+      RIFFLE_SMTP_HOST: '',
+      RIFFLE_SMTP_PORT: String(smtp.port),
+      RIFFLE_MAILBOX_FOLDER: mailboxFolder,
     };
     say('mocha suites');
     results.push(await runMocha(env, workFolder));
@@ -104,6 +114,7 @@ async function main(): Promise<number> {
     console.error(error);
     results.push({ name: 'set-up', passed: 0, failed: 1 });
   } finally {
+    await smtp?.stop();
     await database?.stop().catch((error: Error) => console.error(`could not stop the test MariaDB: ${error.message}`));
     rmSync(workFolder, { recursive: true, force: true });
   }

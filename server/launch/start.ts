@@ -11,6 +11,9 @@ import { createMigrator } from '../database/migrator';
 import { initialiseModels } from '../database/models';
 import { MariaDbStartError, PrivateMariaDb } from '../database/private-mariadb';
 import { createLogger } from '../logging';
+import { demoAccounts, demoPassword } from '../accounts/demo-accounts';
+import { startFakeSmtpServer } from '../mail/fake-smtp-server';
+import { createSmtpMailer } from '../mail/mailer';
 import { ensureClientBuilt } from './client-build';
 
 function say(line: string): void {
@@ -89,9 +92,22 @@ async function main(): Promise<void> {
     if (applied.length > 0) say(`applied ${applied.length} migration(s)`);
     if (config.demo && (await seedDemoDataWhenEmpty(sequelize))) say('loaded the demo data (invented suppliers and pumps)');
 
+    // Mail: the loopback fake SMTP server unless a relay is configured.
+    let mailPort = config.mail.port;
+    if (config.mail.fake) {
+      const smtp = await startFakeSmtpServer({ port: config.mail.port, mailboxFolder: config.mail.mailboxFolder });
+      stops.push({ what: 'demo mail server', stop: () => smtp.stop() });
+      mailPort = smtp.port;
+      say(`demo mail server on 127.0.0.1:${smtp.port} (no mail leaves this machine${config.demo ? '; admins read it on the Demo mailbox page' : ''})`);
+    }
+    if (config.demo) {
+      say(`demo accounts, all with the password ${demoPassword}:`);
+      for (const account of demoAccounts) say(`  ${account.email.padEnd(24)} ${account.role}${account.supplierCode ? ` of ${account.supplierCode}` : ''}`);
+    }
+
     await ensureClientBuilt(say);
 
-    const server = createServer(createApp({ sequelize, logger, clientFolder: defaultClientFolder }));
+    const server = createServer(createApp({ sequelize, logger, clientFolder: defaultClientFolder, accounts: { mailer: createSmtpMailer(config.mail, mailPort) } }));
     await listen(server, config.httpPort, config.httpHost);
     stops.push({ what: 'web server', stop: () => new Promise((resolve) => server.close(() => resolve())) });
     say(`Riffle is running at http://${config.httpHost}:${config.httpPort}/ (Ctrl-C stops it)`);

@@ -21,6 +21,250 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/auth/sign-in": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Sign in with e-mail and password
+         * @description Answers an opaque session token for the `Authorization: Bearer` header, and when it
+         *     expires. Wrong credentials and an unknown e-mail get the same 401. Repeated failures from
+         *     one address are limited (429).
+         */
+        post: operations["signIn"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/auth/sign-out": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Sign out (revoke this session) */
+        post: operations["signOut"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/auth/me": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Who the token belongs to */
+        get: operations["getCurrentUser"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/auth/forgot-password": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * E-mail a single-use password reset link
+         * @description The answer is the same whether or not the address belongs to an account.
+         */
+        post: operations["requestPasswordReset"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/auth/reset-password": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Set a new password with the e-mailed link's token
+         * @description The link works once and expires; every session of the user is signed out.
+         */
+        post: operations["resetPassword"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/auth/accept-invitation": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /** Accept an e-mailed invitation, set name and password, and sign in */
+        post: operations["acceptInvitation"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/account/api-tokens": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** My personal API tokens (never the tokens themselves) */
+        get: operations["listApiTokens"];
+        put?: never;
+        /** Create a personal API token; the answer is the only time the token is shown */
+        post: operations["createApiToken"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/account/api-tokens/{tokenId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                tokenId: number;
+            };
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        /** Revoke one of my API tokens */
+        delete: operations["revokeApiToken"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/admin/users": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Every account, with the suppliers a supplier-admin may be bound to */
+        get: operations["listUsers"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/admin/users/{userId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                userId: number;
+            };
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /**
+         * Change an account's name, role, supplier or disabled flag
+         * @description A supplier-admin needs a supplier; other roles have none. Admins cannot demote or disable themselves.
+         */
+        patch: operations["updateUser"];
+        trace?: never;
+    };
+    "/admin/invitations": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Invitations not yet accepted */
+        get: operations["listInvitations"];
+        put?: never;
+        /** Invite someone by e-mail for a role; the message carries a single-use link */
+        post: operations["inviteUser"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/admin/audit-events": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The audit log, newest first */
+        get: operations["listAuditEvents"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/admin/demo-mailbox": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Messages the built-in demo mail server received (demo mode only)
+         * @description Lets the invitation and reset flows be followed without a real mailbox. Answers 404 outside demo mode or when mail goes to a real relay.
+         */
+        get: operations["listDemoMail"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/calculations/system-curve": {
         parameters: {
             query?: never;
@@ -333,6 +577,148 @@ export interface components {
                 detail: string;
             }[];
         };
+        /** @enum {string} */
+        Role: "admin" | "supplier-admin" | "designer" | "integrator";
+        /** @enum {string} */
+        ApiScope: "catalog:read" | "calculations:run" | "projects:write" | "curves:import";
+        /** Format: email */
+        Email: string;
+        /** @description At least 10 characters, not a common password, not containing the e-mail address. */
+        NewPassword: string;
+        /** @description The token from the e-mailed link. */
+        EmailLinkToken: string;
+        AccountUser: {
+            id: number;
+            email: string;
+            name: string;
+            role: components["schemas"]["Role"];
+            /** @description The supplier a supplier-admin is bound to. */
+            supplierId: number | null;
+        };
+        SignInRequest: {
+            email: string;
+            password: string;
+        };
+        SignInResponse: {
+            /** @description Opaque; send as `Authorization: Bearer <token>`. */
+            token: string;
+            /** Format: date-time */
+            expiresAt: string;
+            user: components["schemas"]["AccountUser"];
+        };
+        PasswordResetRequest: {
+            email: components["schemas"]["Email"];
+        };
+        AcceptedMessage: {
+            message: string;
+        };
+        NewPasswordRequest: {
+            token: components["schemas"]["EmailLinkToken"];
+            password: components["schemas"]["NewPassword"];
+        };
+        InvitationAcceptance: {
+            token: components["schemas"]["EmailLinkToken"];
+            name: string;
+            password: components["schemas"]["NewPassword"];
+        };
+        ApiTokenSummary: {
+            id: number;
+            name: string;
+            /** @description The token's first characters */
+            prefix: string;
+            scopes: components["schemas"]["ApiScope"][];
+            /** Format: date-time */
+            createdAt: string;
+            /** Format: date-time */
+            lastUsedAt: string | null;
+            /** Format: date-time */
+            expiresAt: string | null;
+            /** Format: date-time */
+            revokedAt: string | null;
+        };
+        ApiTokenList: {
+            tokens: components["schemas"]["ApiTokenSummary"][];
+        };
+        NewApiToken: {
+            name: string;
+            scopes: components["schemas"]["ApiScope"][];
+            /** @description Leave out for a token that does not expire. */
+            expiresInDays?: number;
+        };
+        CreatedApiToken: {
+            /** @description Shown this once; Riffle keeps only its hash. */
+            token: string;
+            apiToken: components["schemas"]["ApiTokenSummary"];
+        };
+        SupplierChoice: {
+            id: number;
+            code: string;
+            name: string;
+        };
+        AdminUser: {
+            id: number;
+            email: string;
+            name: string;
+            role: components["schemas"]["Role"];
+            supplierId: number | null;
+            disabled: boolean;
+            /** Format: date-time */
+            createdAt: string;
+        };
+        AdminUserList: {
+            users: components["schemas"]["AdminUser"][];
+            suppliers: components["schemas"]["SupplierChoice"][];
+        };
+        UserChanges: {
+            name?: string;
+            role?: components["schemas"]["Role"];
+            supplierId?: number | null;
+            disabled?: boolean;
+        };
+        NewInvitation: {
+            email: components["schemas"]["Email"];
+            role: components["schemas"]["Role"];
+            /** @description Required for a supplier-admin. */
+            supplierId?: number | null;
+        };
+        InvitationSummary: {
+            id: number;
+            email: string;
+            role: components["schemas"]["Role"];
+            supplierId: number | null;
+            /** Format: date-time */
+            createdAt: string;
+            /** Format: date-time */
+            expiresAt: string;
+        };
+        InvitationList: {
+            invitations: components["schemas"]["InvitationSummary"][];
+        };
+        AuditEventList: {
+            events: {
+                id: number;
+                /** Format: date-time */
+                at: string;
+                action: string;
+                actorEmail: string | null;
+                subjectEmail: string | null;
+                /** @description The address given */
+                email: string | null;
+                ip: string | null;
+                detail: string | null;
+            }[];
+        };
+        DemoMailbox: {
+            messages: {
+                id: string;
+                /** Format: date-time */
+                receivedAt: string;
+                from: string;
+                to: string[];
+                subject: string;
+                text: string;
+            }[];
+        };
     };
     responses: {
         /** @description The request is well formed but cannot be computed (an absurd size, no operating point); `pointer` names the field. */
@@ -355,6 +741,62 @@ export interface components {
         };
         /** @description The request does not match the contract. */
         BadRequest: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description Signed in, but the role or the token's scopes do not allow this operation. */
+        NotAllowed: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description No valid session or API token (missing, malformed, unknown, expired or revoked), or wrong credentials. */
+        Unauthorized: {
+            headers: {
+                "WWW-Authenticate"?: string;
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description Too many attempts from this address; `Retry-After` says when to try again. */
+        TooManyRequests: {
+            headers: {
+                "Retry-After"?: number;
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description The e-mailed link was already used or has expired. */
+        LinkGone: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description The new password is too short, too common or contains the e-mail address. */
+        WeakPassword: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description The e-mail address already has an account. */
+        Conflict: {
             headers: {
                 [name: string]: unknown;
             };
@@ -411,6 +853,595 @@ export interface operations {
                     "application/json": components["schemas"]["Health"];
                 };
             };
+        };
+    };
+    signIn: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "email": "designer@riffle.test",
+                 *       "password": "riffle-demo"
+                 *     }
+                 */
+                "application/json": components["schemas"]["SignInRequest"];
+            };
+        };
+        responses: {
+            /** @description Signed in. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "token": "rfs_9q3V0iD2yJm6Pp0k8n5cYkT1wqRrXo4bA7sHfE2LdGu",
+                     *       "expiresAt": "2026-12-01T20:00:00.000Z",
+                     *       "user": {
+                     *         "id": 2,
+                     *         "email": "designer@riffle.test",
+                     *         "name": "Demo Designer",
+                     *         "role": "designer",
+                     *         "supplierId": null
+                     *       }
+                     *     }
+                     */
+                    "application/json": components["schemas"]["SignInResponse"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    signOut: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The session is revoked. */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+        };
+    };
+    getCurrentUser: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The signed-in user. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "id": 2,
+                     *       "email": "designer@riffle.test",
+                     *       "name": "Demo Designer",
+                     *       "role": "designer",
+                     *       "supplierId": null
+                     *     }
+                     */
+                    "application/json": components["schemas"]["AccountUser"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+        };
+    };
+    requestPasswordReset: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "email": "designer@riffle.test"
+                 *     }
+                 */
+                "application/json": components["schemas"]["PasswordResetRequest"];
+            };
+        };
+        responses: {
+            /** @description When the address has an account, a link is on its way. */
+            202: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "message": "If that address has a Riffle account, a reset link is on its way. It works once, within 1 hour."
+                     *     }
+                     */
+                    "application/json": components["schemas"]["AcceptedMessage"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    resetPassword: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "token": "rfl_Vb2nX0aQe7LrT4kW9cJm1uHs6dPzYf3oGi8EtNy5BxR",
+                 *       "password": "gravel-bed-weir-42"
+                 *     }
+                 */
+                "application/json": components["schemas"]["NewPasswordRequest"];
+            };
+        };
+        responses: {
+            /** @description The password is changed. */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            400: components["responses"]["BadRequest"];
+            410: components["responses"]["LinkGone"];
+            422: components["responses"]["WeakPassword"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    acceptInvitation: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "token": "rfl_Vb2nX0aQe7LrT4kW9cJm1uHs6dPzYf3oGi8EtNy5BxR",
+                 *       "name": "Robin Fenwick",
+                 *       "password": "gravel-bed-weir-42"
+                 *     }
+                 */
+                "application/json": components["schemas"]["InvitationAcceptance"];
+            };
+        };
+        responses: {
+            /** @description The account exists and is signed in. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "token": "rfs_9q3V0iD2yJm6Pp0k8n5cYkT1wqRrXo4bA7sHfE2LdGu",
+                     *       "expiresAt": "2026-12-01T20:00:00.000Z",
+                     *       "user": {
+                     *         "id": 7,
+                     *         "email": "robin@example.test",
+                     *         "name": "Robin Fenwick",
+                     *         "role": "designer",
+                     *         "supplierId": null
+                     *       }
+                     *     }
+                     */
+                    "application/json": components["schemas"]["SignInResponse"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            409: components["responses"]["Conflict"];
+            410: components["responses"]["LinkGone"];
+            422: components["responses"]["WeakPassword"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listApiTokens: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Live and revoked tokens, newest first. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "tokens": [
+                     *         {
+                     *           "id": 3,
+                     *           "name": "Estimating sheet",
+                     *           "prefix": "rft_Q2xLpa",
+                     *           "scopes": [
+                     *             "calculations:run"
+                     *           ],
+                     *           "createdAt": "2026-11-02T09:15:00.000Z",
+                     *           "lastUsedAt": "2026-11-30T16:40:00.000Z",
+                     *           "expiresAt": null,
+                     *           "revokedAt": null
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ApiTokenList"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+        };
+    };
+    createApiToken: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "name": "Estimating sheet",
+                 *       "scopes": [
+                 *         "calculations:run",
+                 *         "catalog:read"
+                 *       ],
+                 *       "expiresInDays": 90
+                 *     }
+                 */
+                "application/json": components["schemas"]["NewApiToken"];
+            };
+        };
+        responses: {
+            /** @description The token, shown this once. */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "token": "rft_Q2xLpaR8mVn3kT6yW1sB0dF9gH4jZ7cX5vN2qE8uIoA",
+                     *       "apiToken": {
+                     *         "id": 3,
+                     *         "name": "Estimating sheet",
+                     *         "prefix": "rft_Q2xLpa",
+                     *         "scopes": [
+                     *           "calculations:run",
+                     *           "catalog:read"
+                     *         ],
+                     *         "createdAt": "2026-11-02T09:15:00.000Z",
+                     *         "lastUsedAt": null,
+                     *         "expiresAt": "2027-01-31T09:15:00.000Z",
+                     *         "revokedAt": null
+                     *       }
+                     *     }
+                     */
+                    "application/json": components["schemas"]["CreatedApiToken"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+        };
+    };
+    revokeApiToken: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                tokenId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Revoked (or already revoked). */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    listUsers: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Accounts by e-mail, and the suppliers. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "users": [
+                     *         {
+                     *           "id": 3,
+                     *           "email": "supplier@riffle.test",
+                     *           "name": "Demo Supplier Admin",
+                     *           "role": "supplier-admin",
+                     *           "supplierId": 1,
+                     *           "disabled": false,
+                     *           "createdAt": "2026-11-01T08:00:00.000Z"
+                     *         }
+                     *       ],
+                     *       "suppliers": [
+                     *         {
+                     *           "id": 1,
+                     *           "code": "ALDERBROOK",
+                     *           "name": "Alderbrook Demo Pumps"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["AdminUserList"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+        };
+    };
+    updateUser: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                userId: number;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "role": "supplier-admin",
+                 *       "supplierId": 2
+                 *     }
+                 */
+                "application/json": components["schemas"]["UserChanges"];
+            };
+        };
+        responses: {
+            /** @description The account as it is now. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "id": 3,
+                     *       "email": "supplier@riffle.test",
+                     *       "name": "Demo Supplier Admin",
+                     *       "role": "supplier-admin",
+                     *       "supplierId": 2,
+                     *       "disabled": false,
+                     *       "createdAt": "2026-11-01T08:00:00.000Z"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["AdminUser"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    listInvitations: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Open invitations, newest first, expired ones included. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "invitations": [
+                     *         {
+                     *           "id": 4,
+                     *           "email": "robin@example.test",
+                     *           "role": "designer",
+                     *           "supplierId": null,
+                     *           "createdAt": "2026-11-30T10:00:00.000Z",
+                     *           "expiresAt": "2026-12-07T10:00:00.000Z"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["InvitationList"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+        };
+    };
+    inviteUser: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "email": "robin@example.test",
+                 *       "role": "designer"
+                 *     }
+                 */
+                "application/json": components["schemas"]["NewInvitation"];
+            };
+        };
+        responses: {
+            /** @description The invitation is sent. */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "id": 4,
+                     *       "email": "robin@example.test",
+                     *       "role": "designer",
+                     *       "supplierId": null,
+                     *       "createdAt": "2026-11-30T10:00:00.000Z",
+                     *       "expiresAt": "2026-12-07T10:00:00.000Z"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["InvitationSummary"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            409: components["responses"]["Conflict"];
+            422: components["responses"]["UnprocessableInput"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listAuditEvents: {
+        parameters: {
+            query?: {
+                limit?: number;
+                /** @description Only events older than this id (for the next page). */
+                before?: number;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Events. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "events": [
+                     *         {
+                     *           "id": 12,
+                     *           "at": "2026-11-30T10:00:00.000Z",
+                     *           "action": "sign-in-failed",
+                     *           "actorEmail": null,
+                     *           "subjectEmail": null,
+                     *           "email": "someone@example.test",
+                     *           "ip": "127.0.0.1",
+                     *           "detail": "wrong e-mail or password"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["AuditEventList"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+        };
+    };
+    listDemoMail: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Messages, newest first. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "messages": [
+                     *         {
+                     *           "id": "1764583200000-1",
+                     *           "receivedAt": "2026-12-01T10:00:00.000Z",
+                     *           "from": "no-reply@riffle.test",
+                     *           "to": [
+                     *             "robin@example.test"
+                     *           ],
+                     *           "subject": "You are invited to Riffle",
+                     *           "text": "Open this link to set your name and password: http://127.0.0.1:8080/accounts/accept-invitation?token=..."
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["DemoMailbox"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
         };
     };
     calculateSystemCurve: {

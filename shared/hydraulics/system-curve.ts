@@ -103,8 +103,9 @@ export interface SystemBreakdown {
 /**
  * The system curve prepared for fast evaluation.
  * `evaluate(q)` is total head (m) at flow q (m3/s, >= 0) and `slope(q)` its
- * derivative dH/dQ (m per m3/s); both cost a handful of arithmetic operations
- * per segment and, being the hot path, do not validate q.
+ * derivative dH/dQ (m per m3/s); `headAndSlope` gives both for the cost of
+ * one. Each costs a handful of arithmetic operations per segment and, being
+ * the hot path, does not validate q.
  */
 export interface CompiledSystemCurve {
   readonly frictionMethod: FrictionMethod;
@@ -120,6 +121,8 @@ export interface CompiledSystemCurve {
   readonly minorCoefficient: number;
   evaluate(flow: number): number;
   slope(flow: number): number;
+  /** Head into out[0] and slope into out[1] in one pass (the solver's inner loop). */
+  headAndSlope(flow: number, out: Float64Array): void;
   readonly segments: readonly ResolvedSegment[];
   readonly temperature: number;
   readonly kinematicViscosity: number;
@@ -334,36 +337,45 @@ export function compileSystemCurve(input: SystemCurveInput): CompiledSystemCurve
       hazenWilliams: { a, b },
       evaluate: (flow) => staticHead + a * Math.pow(flow, HAZEN_WILLIAMS_FLOW_EXPONENT) + b * flow * flow,
       slope: (flow) => HAZEN_WILLIAMS_FLOW_EXPONENT * a * Math.pow(flow, slopeExponent) + 2 * b * flow,
+      headAndSlope(flow, out) {
+        const friction = a * Math.pow(flow, slopeExponent);
+        out[0] = staticHead + (friction + b * flow) * flow;
+        out[1] = HAZEN_WILLIAMS_FLOW_EXPONENT * friction + 2 * b * flow;
+      },
     };
   }
 
   const tables = segments.map((segment) => buildDarcyTable(segment, kinematicViscosity));
+  const segmentScratch = new Float64Array(2);
+  const headAndSlope = (flow: number, out: Float64Array): void => {
+    if (flow <= 0) {
+      out[0] = staticHead;
+      out[1] = 0;
+      return;
+    }
+    let head = staticHead + minorCoefficient * flow * flow;
+    let slope = 2 * minorCoefficient * flow;
+    for (const table of tables) {
+      darcyFrictionWithSlope(table, flow, segmentScratch);
+      head += segmentScratch[0];
+      slope += segmentScratch[1];
+    }
+    out[0] = head;
+    out[1] = slope;
+  };
   const scratch = new Float64Array(2);
   return {
     ...common,
     frictionMethod: 'darcy-weisbach',
     hazenWilliams: null,
+    headAndSlope,
     evaluate(flow) {
-      if (flow <= 0) {
-        return staticHead;
-      }
-      let head = staticHead + minorCoefficient * flow * flow;
-      for (const table of tables) {
-        darcyFrictionWithSlope(table, flow, scratch);
-        head += scratch[0];
-      }
-      return head;
+      headAndSlope(flow, scratch);
+      return scratch[0];
     },
     slope(flow) {
-      if (flow <= 0) {
-        return 0;
-      }
-      let slope = 2 * minorCoefficient * flow;
-      for (const table of tables) {
-        darcyFrictionWithSlope(table, flow, scratch);
-        slope += scratch[1];
-      }
-      return slope;
+      headAndSlope(flow, scratch);
+      return scratch[1];
     },
   };
 }

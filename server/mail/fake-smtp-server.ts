@@ -1,0 +1,55 @@
+import { SMTPServer } from 'smtp-server';
+import type { AddressInfo } from 'node:net';
+import { storeMailboxMessage } from './mailbox';
+import { decodeEncodedWords, parsePlainMessage } from './mime-text';
+
+export interface FakeSmtpServer {
+  port: number;
+  stop: () => Promise<void>;
+}
+
+const maxMessageBytes = 1_000_000;
+
+/**
+ * An SMTP server on loopback that accepts every message and keeps it in `mailboxFolder`, so the
+ * invitation and reset flows can be followed without a real mailbox. No TLS and no AUTH: it
+ * never listens beyond 127.0.0.1.
+ */
+export async function startFakeSmtpServer(options: { port: number; mailboxFolder: string }): Promise<FakeSmtpServer> {
+  const server = new SMTPServer({
+    disabledCommands: ['STARTTLS', 'AUTH'],
+    authOptional: true,
+    logger: false,
+    size: maxMessageBytes,
+    banner: 'Riffle demo mail (messages stay on this machine)',
+    onData(stream, session, callback) {
+      const chunks: Buffer[] = [];
+      stream.on('data', (chunk: Buffer) => chunks.push(chunk));
+      stream.on('error', callback);
+      stream.on('end', () => {
+        try {
+          const message = parsePlainMessage(Buffer.concat(chunks).toString('utf8'));
+          storeMailboxMessage(options.mailboxFolder, {
+            receivedAt: new Date().toISOString(),
+            from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
+            to: session.envelope.rcptTo.map((recipient) => recipient.address),
+            subject: decodeEncodedWords(message.headers.get('subject') ?? ''),
+            text: message.text,
+          });
+          callback();
+        } catch (error) {
+          callback(error as Error);
+        }
+      });
+    },
+  });
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(options.port, '127.0.0.1', () => {
+      server.off('error', reject);
+      resolve();
+    });
+  });
+  const { port } = server.server.address() as AddressInfo;
+  return { port, stop: () => new Promise((resolve) => server.close(() => resolve())) };
+}
