@@ -15,7 +15,6 @@ import { createAccountHandlers, createOperationGuards } from './accounts/account
 import { accountsDependenciesFrom, type AccountsDependencies } from './accounts/accounts-dependencies';
 import { createCalculationHandlers } from './calculations/calculation-handlers';
 import { CatalogSnapshot } from './selection/catalog-snapshot';
-import { createSelectionHandlers } from './selection/selection-handlers';
 
 export interface AppDependencies {
   sequelize: Sequelize;
@@ -59,7 +58,6 @@ export function createApp({ sequelize, logger, clientFolder, accounts }: AppDepe
     ...createHealthHandlers(sequelize, riffleVersion),
     ...createAccountHandlers(sequelize, accountsDependencies),
     ...createCalculationHandlers(catalogSnapshot),
-    ...createSelectionHandlers(catalogSnapshot),
   };
   const guardFor = createOperationGuards(openApiDocument, accountsDependencies.rateLimits);
   app.use('/api/v1', createOperationRouter({ document: openApiDocument, handlers, guardFor }));
