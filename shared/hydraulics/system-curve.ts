@@ -8,7 +8,7 @@ import {
   headLossDarcyWeisbach,
   transitionFrictionFactor,
 } from './friction';
-import { HydraulicsInputError, requireFinite, requireNonNegative, requirePositive } from './hydraulics-error';
+import { HydraulicsInputError, requireInRange, requirePositive } from './hydraulics-error';
 import { MATERIAL_DEFAULTS, PIPE_MATERIALS, type PipeMaterial, pipeSizeById } from './pipe-catalogue';
 import { STANDARD_GRAVITY } from './physical-constants';
 import { waterKinematicViscosity } from './water-properties';
@@ -24,6 +24,23 @@ import { waterKinematicViscosity } from './water-properties';
 
 export type FrictionMethod = 'hazen-williams' | 'darcy-weisbach';
 export const FRICTION_METHODS: readonly FrictionMethod[] = ['hazen-williams', 'darcy-weisbach'];
+
+/**
+ * Ranges the engine accepts for a system (wide of any water feature or small
+ * pump station, and narrow enough that no result overflows): lengths up to
+ * 100 km, bores 1 mm to 5 m, heads within +-10 km, K up to 1e6, C 1-200,
+ * roughness up to 50 mm.
+ */
+export const SYSTEM_INPUT_LIMITS = Object.freeze({
+  maxLength: 1e5,
+  minInsideDiameter: 1e-3,
+  maxInsideDiameter: 5,
+  maxAbsoluteHead: 1e4,
+  maxK: 1e6,
+  minHazenWilliamsC: 1,
+  maxHazenWilliamsC: 200,
+  maxRoughness: 0.05,
+});
 
 /** Velocity above which plastic pipe risks water hammer: 5 ft/s (common practice for plastic pipe). */
 export const VELOCITY_WARNING_LIMIT = 1.524;
@@ -131,6 +148,7 @@ export interface CompiledSystemCurve {
 function resolveSegment(segment: PipeSegmentInput, index: number, method: FrictionMethod): ResolvedSegment {
   const field = `/segments/${index}`;
   requirePositive(segment.length, `${field}/length`, 'segment length');
+  requireInRange(segment.length, 0, SYSTEM_INPUT_LIMITS.maxLength, `${field}/length`, 'segment length (m)');
   let insideDiameter: number;
   let defaults: { hazenWilliamsC: number; roughness: number } | null = null;
   if (segment.pipeSizeId !== undefined) {
@@ -141,7 +159,13 @@ function resolveSegment(segment: PipeSegmentInput, index: number, method: Fricti
     insideDiameter = size.insideDiameter;
     defaults = size;
   } else if (segment.insideDiameter !== undefined) {
-    insideDiameter = requirePositive(segment.insideDiameter, `${field}/insideDiameter`, 'inside diameter');
+    insideDiameter = requireInRange(
+      segment.insideDiameter,
+      SYSTEM_INPUT_LIMITS.minInsideDiameter,
+      SYSTEM_INPUT_LIMITS.maxInsideDiameter,
+      `${field}/insideDiameter`,
+      'inside diameter (m)',
+    );
     if (segment.material !== undefined) {
       if (!PIPE_MATERIALS.includes(segment.material)) {
         throw new HydraulicsInputError(
@@ -156,11 +180,17 @@ function resolveSegment(segment: PipeSegmentInput, index: number, method: Fricti
   }
   const hazenWilliamsC =
     segment.hazenWilliamsC !== undefined
-      ? requirePositive(segment.hazenWilliamsC, `${field}/hazenWilliamsC`, 'Hazen-Williams C')
+      ? requireInRange(
+          segment.hazenWilliamsC,
+          SYSTEM_INPUT_LIMITS.minHazenWilliamsC,
+          SYSTEM_INPUT_LIMITS.maxHazenWilliamsC,
+          `${field}/hazenWilliamsC`,
+          'Hazen-Williams C',
+        )
       : (defaults?.hazenWilliamsC ?? Number.NaN);
   const roughness =
     segment.roughness !== undefined
-      ? requireNonNegative(segment.roughness, `${field}/roughness`, 'roughness')
+      ? requireInRange(segment.roughness, 0, SYSTEM_INPUT_LIMITS.maxRoughness, `${field}/roughness`, 'roughness (m)')
       : (defaults?.roughness ?? Number.NaN);
   if (method === 'hazen-williams' && Number.isNaN(hazenWilliamsC)) {
     throw new HydraulicsInputError(`${field}/hazenWilliamsC`, 'give hazenWilliamsC, a material or a pipeSizeId');
@@ -168,10 +198,11 @@ function resolveSegment(segment: PipeSegmentInput, index: number, method: Fricti
   if (method === 'darcy-weisbach' && Number.isNaN(roughness)) {
     throw new HydraulicsInputError(`${field}/roughness`, 'give roughness, a material or a pipeSizeId');
   }
-  let totalK = segment.extraK === undefined ? 0 : requireNonNegative(segment.extraK, `${field}/extraK`, 'extra K');
+  let totalK =
+    segment.extraK === undefined ? 0 : requireInRange(segment.extraK, 0, SYSTEM_INPUT_LIMITS.maxK, `${field}/extraK`, 'extra K');
   (segment.fittings ?? []).forEach((fitting, fittingIndex) => {
     const fittingField = `${field}/fittings/${fittingIndex}`;
-    requireNonNegative(fitting.count, `${fittingField}/count`, 'fitting count');
+    requireInRange(fitting.count, 0, 1000, `${fittingField}/count`, 'fitting count');
     if (!Number.isInteger(fitting.count)) {
       throw new HydraulicsInputError(`${fittingField}/count`, `fitting count must be a whole number, got ${fitting.count}`);
     }
@@ -293,9 +324,12 @@ function checkFlow(flow: number): void {
  * Throws HydraulicsInputError (with the field path) for invalid input.
  */
 export function compileSystemCurve(input: SystemCurveInput): CompiledSystemCurve {
-  requireFinite(input.staticHead, '/staticHead', 'static head');
+  const maxHead = SYSTEM_INPUT_LIMITS.maxAbsoluteHead;
+  requireInRange(input.staticHead, -maxHead, maxHead, '/staticHead', 'static head (m)');
   const outletPressureHead =
-    input.outletPressureHead === undefined ? 0 : requireFinite(input.outletPressureHead, '/outletPressureHead', 'outlet pressure head');
+    input.outletPressureHead === undefined
+      ? 0
+      : requireInRange(input.outletPressureHead, -maxHead, maxHead, '/outletPressureHead', 'outlet pressure head (m)');
   if (!FRICTION_METHODS.includes(input.frictionMethod)) {
     throw new HydraulicsInputError(
       '/frictionMethod',

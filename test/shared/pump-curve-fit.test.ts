@@ -1,4 +1,5 @@
 import { expect } from 'chai';
+import fc from 'fast-check';
 import {
   HydraulicsInputError,
   STANDARD_GRAVITY,
@@ -134,6 +135,35 @@ describe('pump curve fit', () => {
     const reloaded = JSON.parse(JSON.stringify(fit));
     expect(reloaded).to.deep.equal(fit);
     expect(pumpHeadAt(reloaded, 0.003)).to.equal(pumpHeadAt(fit, 0.003));
+  });
+
+  it('fits any non-increasing point set with a curve that does not rise and finite statistics (property)', () => {
+    const pointSet = fc
+      .tuple(
+        fc.integer({ min: 3, max: 9 }),
+        fc.double({ min: 0.5, max: 80, noNaN: true }),
+        fc.double({ min: 1e-4, max: 0.1, noNaN: true }),
+        fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 18, maxLength: 18 }),
+      )
+      .map(([count, shutOff, flowMax, shares]) => {
+        let head = shutOff;
+        return Array.from({ length: count }, (_, index) => {
+          head -= index === 0 ? 0 : (shutOff / count) * 0.9 * shares[index];
+          return { flow: (flowMax * (index + shares[index + 9] * 0.5)) / count, head };
+        });
+      });
+    fc.assert(
+      fc.property(pointSet, (points) => {
+        const fit = fitPumpCurve(points);
+        const span = fit.flowMax - fit.flowMin;
+        for (let step = 0; step < 100; step += 1) {
+          const q = fit.flowMin + (span * step) / 100;
+          if (polynomialValue(fit.headCoefficients, q + span / 100) > polynomialValue(fit.headCoefficients, q) + 1e-8 * points[0].head) return false;
+        }
+        return Number.isFinite(fit.statistics.rmsHead) && fit.headCoefficients.every(Number.isFinite);
+      }),
+      { numRuns: 300 },
+    );
   });
 
   describe('bad input -> HydraulicsInputError, never NaN', () => {

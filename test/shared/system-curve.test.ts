@@ -1,4 +1,5 @@
 import { expect } from 'chai';
+import fc from 'fast-check';
 import {
   HydraulicsInputError,
   compileSystemCurve,
@@ -142,6 +143,26 @@ describe('system curve', () => {
     const warnings = systemBreakdown(system, 1.55 * area).warnings;
     expect(warnings).to.have.length(1);
     expect(warnings[0]).to.match(/^segment 0: velocity 1\.55 m\/s/);
+  });
+
+  it('either throws HydraulicsInputError or evaluates to finite heads, whatever numbers it is given (property)', () => {
+    const anyNumber = fc.oneof(fc.double(), fc.constantFrom(0, -1, Number.NaN, Number.POSITIVE_INFINITY));
+    fc.assert(
+      fc.property(anyNumber, anyNumber, anyNumber, anyNumber, fc.constantFrom('hazen-williams', 'darcy-weisbach'), (staticHead, length, diameter, extraK, method) => {
+        let system;
+        try {
+          system = compileSystemCurve({
+            staticHead,
+            frictionMethod: method as 'hazen-williams' | 'darcy-weisbach',
+            segments: [{ length, insideDiameter: diameter, hazenWilliamsC: 140, roughness: 1e-5, extraK }],
+          });
+        } catch (error) {
+          return error instanceof HydraulicsInputError;
+        }
+        return [0, 1e-4, 1e-2, 1].every((flow) => Number.isFinite(system.evaluate(flow)) && Number.isFinite(systemBreakdown(system, flow).totalHead));
+      }),
+      { numRuns: 500 },
+    );
   });
 
   describe('bad input', () => {

@@ -4,6 +4,7 @@ import {
   waterDensity,
   waterDynamicViscosity,
   waterKinematicViscosity,
+  waterProperties,
   waterVapourPressure,
 } from '../../shared/hydraulics';
 
@@ -33,6 +34,15 @@ describe('water properties', () => {
       );
     });
   }
+
+  it('gathers the three properties for one temperature', () => {
+    expect(waterProperties(25)).to.deep.equal({
+      temperature: 25,
+      density: waterDensity(25),
+      kinematicViscosity: waterKinematicViscosity(25),
+      vapourPressure: waterVapourPressure(25),
+    });
+  });
 
   it('density peaks near 4 C and viscosity falls with temperature across 0-40 C', () => {
     expect(waterDensity(4)).to.be.greaterThan(waterDensity(0));
