@@ -167,3 +167,18 @@ export function specificSpeedUS(speedRpm: number, flow: number, head: number): n
   specificSpeedMetric(speedRpm, flow, head);
   return (speedRpm * Math.sqrt(flowFromSI(flow, 'gpm'))) / Math.pow(headFromSI(head, 'ft'), 0.75);
 }
+
+/**
+ * Specific speed of a fitted curve at its BEP, metric n_q and US N_s, for a
+ * pump running at `speedRpm`; null when the fit has no BEP (see
+ * PumpCurveFit.bepUnknownReason).
+ */
+export function specificSpeedAtBep(fit: Pick<PumpCurveFit, 'bep'>, speedRpm: number): { metric: number; us: number } | null {
+  if (!fit.bep) {
+    return null;
+  }
+  return {
+    metric: specificSpeedMetric(speedRpm, fit.bep.flow, fit.bep.head),
+    us: specificSpeedUS(speedRpm, fit.bep.flow, fit.bep.head),
+  };
+}

@@ -11,6 +11,7 @@ import {
   scaleByImpellerTrim,
   scaleBySpeed,
   solveOperatingPoint,
+  specificSpeedAtBep,
   specificSpeedMetric,
   specificSpeedUS,
   speedRatioForDutyPoint,
@@ -88,5 +89,8 @@ describe('affinity laws', () => {
     expect(specificSpeedUS(1750, flow, head)).to.be.closeTo((1750 * Math.sqrt(500)) / 100 ** 0.75, 1e-9);
     expect(specificSpeedUS(1750, flow, head) / specificSpeedMetric(1750, flow, head)).to.be.closeTo(51.65, 0.02);
     expect(() => specificSpeedMetric(1750, 0, head)).to.throw(HydraulicsInputError).with.property('field', '/flow');
+    const atBep = specificSpeedAtBep(fit, 2900);
+    expect(atBep?.metric).to.be.closeTo((2900 * Math.sqrt(0.005)) / (18 - 2e5 * 0.005 ** 2) ** 0.75, 1e-6);
+    expect(specificSpeedAtBep({ bep: null }, 2900)).to.equal(null);
   });
 });
