@@ -86,16 +86,20 @@ const TEST_WATER_DENSITY = waterDensity(20);
 /** Rise (fraction of the highest head) below which a fitted curve counts as non-increasing: round-off only. */
 const HEAD_RISE_TOLERANCE = 1e-9;
 
+/** Largest flow (m3/s), head (m) and power (W) a curve point may carry: far beyond any pump Riffle selects. */
+const POINT_LIMITS = Object.freeze({ flow: 100, head: 1e4, power: 1e9 });
+
 function validatePoints(points: readonly PumpCurvePoint[]): void {
   if (!Array.isArray(points) || points.length < 3) {
     throw new HydraulicsInputError('/points', `a pump curve needs at least three points, got ${Array.isArray(points) ? points.length : 0}`);
   }
   points.forEach((point, index) => {
     const field = `/points/${index}`;
-    requireNonNegative(point.flow, `${field}/flow`, 'flow');
+    requireInRange(point.flow, 0, POINT_LIMITS.flow, `${field}/flow`, 'flow (m3/s)');
     requirePositive(point.head, `${field}/head`, 'head');
+    requireInRange(point.head, 0, POINT_LIMITS.head, `${field}/head`, 'head (m)');
     if (point.power !== undefined) {
-      requireNonNegative(point.power, `${field}/power`, 'power');
+      requireInRange(point.power, 0, POINT_LIMITS.power, `${field}/power`, 'power (W)');
     }
     if (point.efficiency !== undefined) {
       requireInRange(point.efficiency, 0, 1, `${field}/efficiency`, 'efficiency (fraction)');
