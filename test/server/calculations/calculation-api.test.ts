@@ -5,8 +5,10 @@ import request from 'supertest';
 import type { OpenAPIV3_1 } from 'openapi-types';
 import { openApiDocument } from '../../../server/api/openapi-document';
 import { createApp } from '../../../server/app';
-import { createSequelize } from '../../../server/database/connection';
+import { Supplier } from '../../../server/database/models';
 import { createLogger } from '../../../server/logging';
+import { createApiToken, createUserWithSession } from '../../support/accounts';
+import { createScratchDatabase } from '../../support/test-database';
 import { DIAMETER_UNITS, FITTING_KINDS, FLOW_UNITS, HEAD_UNITS, LENGTH_UNITS, PIPE_MATERIALS } from '../../../shared/hydraulics';
 
 /*
@@ -20,7 +22,20 @@ import { DIAMETER_UNITS, FITTING_KINDS, FLOW_UNITS, HEAD_UNITS, LENGTH_UNITS, PI
  * - ASTM D1785 Table 1: 3" Schedule 40 has OD 3.500 in and minimum wall 0.216 in.
  */
 
-const app = createApp({ sequelize: createSequelize({ host: '127.0.0.1', port: 1, name: 'unused', user: 'root', password: '' }), logger: createLogger('silent') });
+let app: ReturnType<typeof createApp>;
+let scratch: Awaited<ReturnType<typeof createScratchDatabase>>;
+let designerToken: string;
+
+before(async function () {
+  this.timeout(60_000);
+  scratch = await createScratchDatabase('calculations');
+  app = createApp({ sequelize: scratch.sequelize, logger: createLogger('silent') });
+  designerToken = (await createUserWithSession(scratch.sequelize, 'designer')).token;
+});
+
+after(async () => {
+  await scratch?.drop();
+});
 
 const usUnits = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' } as const;
 const practitionerSystem = { staticHead: 14.5, frictionMethod: 'hazen-williams', segments: [{ length: 240, insideDiameter: 3.0, hazenWilliamsC: 150 }] };
@@ -59,8 +74,12 @@ function responseValidator(path: string, method: 'get' | 'post') {
   return ajv.compile(JSON.parse(JSON.stringify(schema), (key, value) => (key === '$ref' && String(value).startsWith('#/') ? `contract.json${value}` : value)));
 }
 
-function post(path: string, body: unknown) {
-  return request(app).post(`/api/v1${path}`).send(body as object);
+function post(path: string, body: unknown, token = designerToken) {
+  return request(app).post(`/api/v1${path}`).set('Authorization', `Bearer ${token}`).send(body as object);
+}
+
+function get(path: string, token = designerToken) {
+  return request(app).get(`/api/v1${path}`).set('Authorization', `Bearer ${token}`);
 }
 
 describe('the calculation contract', () => {
@@ -198,31 +217,59 @@ describe('POST /api/v1/calculations/operating-point', () => {
 
 describe('GET /api/v1/pipe-sizes and /api/v1/fittings', () => {
   it('lists 3" Schedule 40 PVC with the ASTM D1785 bore, in inches or millimetres', async () => {
-    const inches = await request(app).get('/api/v1/pipe-sizes').expect(200);
+    const inches = await get('/pipe-sizes').expect(200);
     const validate = responseValidator('/pipe-sizes', 'get');
     expect(validate(inches.body), JSON.stringify(validate.errors)).to.equal(true);
     const sizeIn = (body: { series: Array<{ sizes: Array<{ id: string; insideDiameter: number }> }> }) =>
       body.series.flatMap((series) => series.sizes).find((size) => size.id === 'pvc-sch40-3');
     expect(sizeIn(inches.body)?.insideDiameter).to.be.closeTo(3.5 - 2 * 0.216, 1e-9);
-    const millimetres = await request(app).get('/api/v1/pipe-sizes?diameter=mm').expect(200);
+    const millimetres = await get('/pipe-sizes?diameter=mm').expect(200);
     expect(sizeIn(millimetres.body)?.insideDiameter).to.be.closeTo((3.5 - 2 * 0.216) * 25.4, 1e-9);
   });
 
   it('refuses an unknown diameter unit naming the query field', async () => {
-    const response = await request(app).get('/api/v1/pipe-sizes?diameter=cubit').expect(400);
+    const response = await get('/pipe-sizes?diameter=cubit').expect(400);
     expect(response.body.pointer).to.equal('/query/diameter');
   });
 
   it('gives each Crane fitting its K for a bore: 30 f_T for a standard elbow in 3.068 in', async () => {
-    const response = await request(app).get('/api/v1/fittings?insideDiameter=3.068&diameter=in').expect(200);
+    const response = await get('/fittings?insideDiameter=3.068&diameter=in').expect(200);
     const validate = responseValidator('/fittings', 'get');
     expect(validate(response.body), JSON.stringify(validate.errors)).to.equal(true);
     const elbow = response.body.fittings.find((fitting: { kind: string }) => fitting.kind === 'elbow-90-standard');
     expect(elbow.k).to.be.closeTo(30 * (0.25 / Math.pow(Math.log10(0.0018 / (3.7 * 3.068)), 2)), 1e-9);
     const exit = response.body.fittings.find((fitting: { kind: string }) => fitting.kind === 'exit');
     expect(exit).to.include({ method: 'fixed', k: 1 });
-    const bare = await request(app).get('/api/v1/fittings').expect(200);
+    const bare = await get('/fittings').expect(200);
     expect(bare.body.fittings.find((fitting: { kind: string }) => fitting.kind === 'elbow-90-standard')).to.not.have.property('k');
+  });
+});
+
+describe('who may calculate', () => {
+  const body = { units: usUnits, system: practitionerSystem, flows: [100] };
+
+  it('asks for a token', async () => {
+    const response = await request(app).post('/api/v1/calculations/system-curve').send(body).expect(401);
+    expect(response.type).to.equal('application/problem+json');
+    await request(app).get('/api/v1/pipe-sizes').expect(401);
+  });
+
+  it('lets a supplier-admin read the catalogues but not run calculations', async () => {
+    const supplier = await Supplier.create({ code: 'CALC-TEST', name: 'Calculation Test Supplier (invented)' });
+    const { token } = await createUserWithSession(scratch.sequelize, 'supplier-admin', { supplierId: supplier.id });
+    await get('/pipe-sizes', token).expect(200);
+    await get('/fittings', token).expect(200);
+    await post('/calculations/system-curve', body, token).expect(403);
+  });
+
+  it('gives API tokens what their scopes allow', async () => {
+    const { user } = await createUserWithSession(scratch.sequelize, 'integrator');
+    const reader = await createApiToken(scratch.sequelize, user.id, ['catalog:read']);
+    const runner = await createApiToken(scratch.sequelize, user.id, ['calculations:run']);
+    await get('/pipe-sizes', reader).expect(200);
+    await post('/calculations/system-curve', body, reader).expect(403);
+    await post('/calculations/system-curve', body, runner).expect(200);
+    await get('/fittings', runner).expect(200);
   });
 });
 
