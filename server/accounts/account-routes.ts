@@ -22,7 +22,7 @@ export function createAccountHandlers(sequelize: Sequelize, dependencies: Accoun
  * `guardFor` of the route table: each operation's rate limit (`x-riffle-rate-limit`), then its
  * access guard (`security` and `x-riffle-access`), both read from the contract.
  */
-export function createOperationGuards(document: OpenAPIV3_1.Document, rateLimits: RateLimitSettings): (operation: ApiOperation) => RequestHandler | undefined {
+export function createOperationGuards(document: OpenAPIV3_1.Document, rateLimits: Partial<RateLimitSettings>): (operation: ApiOperation) => RequestHandler | undefined {
   const limiterFor = createRateLimiters(rateLimits);
   const accessGuardFor = createAccessGuards(document.security);
   return (operation) => {

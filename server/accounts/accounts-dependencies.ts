@@ -1,6 +1,6 @@
 import type { RiffleConfig } from '../config';
 import { createSmtpMailer, type Mailer } from '../mail/mailer';
-import { defaultRateLimits, type RateLimitSettings } from './rate-limits';
+import type { RateLimitSettings } from './rate-limits';
 
 /** What the account routes need from outside: mail, the address links point to, limits. */
 export interface AccountsDependencies {
@@ -9,7 +9,8 @@ export interface AccountsDependencies {
   publicUrl: string;
   /** The fake SMTP server's mailbox, listed to admins in demo mode; absent otherwise. */
   demoMailboxFolder?: string;
-  rateLimits: RateLimitSettings;
+  /** Limits that differ from `defaultRateLimits`. */
+  rateLimits: Partial<RateLimitSettings>;
 }
 
 export const lifetimes = {
@@ -23,6 +24,6 @@ export function accountsDependenciesFrom(config: RiffleConfig, given: Partial<Ac
     mailer: given.mailer ?? createSmtpMailer(config.mail),
     publicUrl: given.publicUrl ?? config.publicUrl,
     demoMailboxFolder: 'demoMailboxFolder' in given ? given.demoMailboxFolder : config.demo && config.mail.fake ? config.mail.mailboxFolder : undefined,
-    rateLimits: { ...defaultRateLimits, ...given.rateLimits },
+    rateLimits: given.rateLimits ?? {},
   };
 }

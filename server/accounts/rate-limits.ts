@@ -29,8 +29,9 @@ function rateLimitNameOf(operation: ApiOperation): RateLimitName | undefined {
   return name as RateLimitName;
 }
 
-/** One limiter (and one counter store) per named limit, shared by the operations that name it. */
-export function createRateLimiters(settings: RateLimitSettings): (operation: ApiOperation) => RequestHandler | undefined {
+/** One limiter (and one counter store) per named limit, shared by the operations that name it; `overrides` replace defaults. */
+export function createRateLimiters(overrides: Partial<RateLimitSettings> = {}): (operation: ApiOperation) => RequestHandler | undefined {
+  const settings: RateLimitSettings = { ...defaultRateLimits, ...overrides };
   const limiters = new Map<RateLimitName, RequestHandler>();
   const limiterFor = (name: RateLimitName): RequestHandler => {
     const { limit, windowMs } = settings[name];

@@ -587,6 +587,8 @@ export interface components {
         NewPassword: string;
         /** @description The token from the e-mailed link. */
         EmailLinkToken: string;
+        /** @description No angle brackets or control characters. */
+        PersonName: string;
         AccountUser: {
             id: number;
             email: string;
@@ -618,13 +620,13 @@ export interface components {
         };
         InvitationAcceptance: {
             token: components["schemas"]["EmailLinkToken"];
-            name: string;
+            name: components["schemas"]["PersonName"];
             password: components["schemas"]["NewPassword"];
         };
         ApiTokenSummary: {
             id: number;
             name: string;
-            /** @description The token's first characters */
+            /** @description The token's first characters, to tell tokens apart. */
             prefix: string;
             scopes: components["schemas"]["ApiScope"][];
             /** Format: date-time */
@@ -640,6 +642,7 @@ export interface components {
             tokens: components["schemas"]["ApiTokenSummary"][];
         };
         NewApiToken: {
+            /** @description A label of your own; no angle brackets or control characters. */
             name: string;
             scopes: components["schemas"]["ApiScope"][];
             /** @description Leave out for a token that does not expire. */
@@ -670,7 +673,7 @@ export interface components {
             suppliers: components["schemas"]["SupplierChoice"][];
         };
         UserChanges: {
-            name?: string;
+            name?: components["schemas"]["PersonName"];
             role?: components["schemas"]["Role"];
             supplierId?: number | null;
             disabled?: boolean;
@@ -702,7 +705,7 @@ export interface components {
                 action: string;
                 actorEmail: string | null;
                 subjectEmail: string | null;
-                /** @description The address given */
+                /** @description The address given, e.g. in a failed sign-in. */
                 email: string | null;
                 ip: string | null;
                 detail: string | null;

@@ -3,7 +3,9 @@ import type { ApiScope, Role } from '../../server/accounts/authenticated-user';
 import { hashPassword } from '../../server/accounts/passwords';
 import { openSession } from '../../server/accounts/sessions';
 import { newSecretToken } from '../../server/accounts/secret-tokens';
+import { normaliseEmail } from '../../server/accounts/user-views';
 import { ApiToken, User } from '../../server/database/models';
+import { readMailbox, type MailboxMessage } from '../../server/mail/mailbox';
 
 /** The password of every account these functions make. */
 export const testPassword = 'gravel-bed-weir-42';
@@ -22,9 +24,10 @@ export async function createUserWithSession(
 ): Promise<{ user: User; token: string }> {
   if (role === 'supplier-admin' && options.supplierId === undefined) throw new Error('a supplier-admin needs options.supplierId');
   testPasswordHash ??= hashPassword(testPassword);
+  const number = ++accountCount;
   const user = await User.create({
-    email: options.email ?? `${role}-${process.pid}-${++accountCount}@accounts.test`,
-    name: options.name ?? `Test ${role} ${accountCount}`,
+    email: normaliseEmail(options.email ?? `${role}-${process.pid}-${number}@accounts.test`),
+    name: options.name ?? `Test ${role} ${number}`,
     role,
     supplierId: role === 'supplier-admin' ? options.supplierId! : null,
     passwordHash: await testPasswordHash,
@@ -49,4 +52,37 @@ export async function createApiToken(
   const { token, hash, prefix } = newSecretToken('apiToken');
   await ApiToken.create({ userId, name: options.name ?? 'test token', tokenPrefix: prefix, tokenHash: hash, scopes: [...scopes], expiresAt: options.expiresAt ?? null });
   return token;
+}
+
+/** The folder where the fake SMTP server that `npm test` runs keeps received messages. */
+export function testMailboxFolder(): string {
+  const folder = process.env.RIFFLE_MAILBOX_FOLDER;
+  if (!folder) throw new Error('these suites need the fake SMTP server that `npm test` starts: run them with npm test');
+  return folder;
+}
+
+/** Waits for the first message to `to` that arrived after `since` (the fake server writes it before answering 250). */
+export async function waitForMail(to: string, since: Date, timeoutMs = 10_000): Promise<MailboxMessage> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    const message = readMailbox(testMailboxFolder()).find((candidate) => candidate.to.includes(to) && candidate.receivedAt >= since.toISOString());
+    if (message) return message;
+    await new Promise((resolve) => setTimeout(resolve, 50));
+  }
+  throw new Error(`no message to ${to} arrived within ${timeoutMs} ms`);
+}
+
+/** The single-use token in an e-mailed link. */
+export function linkTokenIn(message: MailboxMessage): string {
+  const token = /[?&]token=(rfl_[A-Za-z0-9_-]{43})\b/.exec(message.text)?.[1];
+  if (!token) throw new Error(`no link token in the message "${message.subject}"`);
+  return token;
+}
+
+/** One checksum per table, to show that a refused request wrote nothing. */
+export async function tableChecksums(sequelize: Sequelize, except: readonly string[] = []): Promise<Record<string, string>> {
+  const [listed] = await sequelize.query('SHOW TABLES');
+  const tables = (listed as Array<Record<string, string>>).map((row) => Object.values(row)[0]).filter((table) => !except.includes(table) && table !== 'schema_migrations');
+  const [rows] = await sequelize.query(`CHECKSUM TABLE ${tables.map((table) => `\`${table}\``).join(', ')} EXTENDED`);
+  return Object.fromEntries((rows as Array<{ Table: string; Checksum: string | number }>).map((row) => [row.Table.split('.').pop()!, String(row.Checksum)]));
 }
