@@ -15,6 +15,9 @@ import { createAccountHandlers, createOperationGuards } from './accounts/account
 import { accountsDependenciesFrom, type AccountsDependencies } from './accounts/accounts-dependencies';
 import { createCalculationHandlers } from './calculations/calculation-handlers';
 import { CatalogSnapshot } from './selection/catalog-snapshot';
+// catalog and curve imports
+import { createCatalogHandlers } from './catalog/catalog-handlers';
+import { createCurveImportHandlers } from './catalog/curve-import-handlers';
 
 export interface AppDependencies {
   sequelize: Sequelize;
@@ -58,6 +61,8 @@ export function createApp({ sequelize, logger, clientFolder, accounts }: AppDepe
     ...createHealthHandlers(sequelize, riffleVersion),
     ...createAccountHandlers(sequelize, accountsDependencies),
     ...createCalculationHandlers(catalogSnapshot),
+    ...createCatalogHandlers(sequelize),
+    ...createCurveImportHandlers(sequelize),
   };
   const guardFor = createOperationGuards(openApiDocument, accountsDependencies.rateLimits);
   app.use('/api/v1', createOperationRouter({ document: openApiDocument, handlers, guardFor }));

@@ -33,6 +33,28 @@ export type OperatingPointResponse = Schemas['OperatingPointResponse'];
 export type PipeSizesResponse = Schemas['PipeSizesResponse'];
 export type FittingsResponse = Schemas['FittingsResponse'];
 
+// Catalog and curve imports.
+export type PumpKind = Schemas['PumpKind'];
+export type SiUnits = Schemas['SiUnits'];
+export type SupplierRef = Schemas['SupplierRef'];
+export type SupplierList = Schemas['SupplierList'];
+export type FlowRange = Schemas['FlowRange'];
+export type BestEfficiencyPoint = Schemas['BestEfficiencyPoint'];
+export type PumpSummary = Schemas['PumpSummary'];
+export type PumpPage = Schemas['PumpPage'];
+export type CurvePointSi = Schemas['CurvePointSi'];
+export type DeclaredRanges = Schemas['DeclaredRanges'];
+export type StoredPumpCurveFit = Schemas['PumpCurveFit'];
+export type CurveFileUnits = Schemas['CurveFileUnits'];
+export type CurveRevisionSummary = Schemas['CurveRevisionSummary'];
+export type CurveRevisionDetail = Schemas['CurveRevisionDetail'];
+export type PumpDetail = Schemas['PumpDetail'];
+export type CurveImportIssue = Schemas['CurveImportIssue'];
+export type CurveImportPump = Schemas['CurveImportPump'];
+export type CurveImportReport = Schemas['CurveImportReport'];
+export type CurveImportRecord = Schemas['CurveImportRecord'];
+export type CurveImportList = Schemas['CurveImportList'];
+
 // Accounts and access.
 export type Role = Schemas['Role'];
 export type ApiScope = Schemas['ApiScope'];

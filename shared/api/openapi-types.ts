@@ -357,6 +357,97 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/suppliers": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The suppliers whose curve tables Riffle holds */
+        get: operations["listSuppliers"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/pumps": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Pumps of the catalog, filtered, sorted and one page at a time
+         * @description Flow and head filters keep the pumps whose published curve reaches into the range: a pump
+         *     passes `flowMin`/`flowMax` when its curve's flow range overlaps them, and `headMin`/`headMax`
+         *     when the heads between its run-out and its shut-off overlap them. Filter values are in
+         *     `flowUnit` and `headUnit`; every number in the answer is SI, as `units` says.
+         */
+        get: operations["listPumps"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/pumps/{pumpId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                pumpId: number;
+            };
+            cookie?: never;
+        };
+        /**
+         * One pump with a curve revision's points, declared ranges and fit
+         * @description The current revision unless `revision` names an older one; every revision stays readable. Numbers are SI, as `units` says.
+         */
+        get: operations["getPump"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/suppliers/{supplierId}/curve-imports": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                supplierId: number;
+            };
+            cookie?: never;
+        };
+        /** The supplier's past curve-table imports with their reports, newest first */
+        get: operations["listCurveImports"];
+        put?: never;
+        /**
+         * Check a curve-table CSV file (dry run) or load it into the catalog
+         * @description The file is a Riffle curve table (format in data-import/README.md). Every row and every
+         *     pump is checked and each curve fitted; with `dryRun` true nothing is written and the report
+         *     is the preview. Otherwise all the file's pumps are written in one transaction, or none:
+         *     a pump whose curve changed gets a new revision, an unchanged file writes nothing. A
+         *     supplier-admin may load files for its own supplier only. A file with errors is refused
+         *     with 422 problem details whose `errors` name each row and column, and whose `report`
+         *     is the full report.
+         */
+        post: operations["importCurveTable"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
 }
 export type webhooks = Record<string, never>;
 export interface components {
@@ -554,6 +645,263 @@ export interface components {
                 source: string;
             }[];
         };
+        /** @enum {string} */
+        PumpKind: "submersible" | "external-centrifugal" | "mixed-flow";
+        /** @description The units of every number in this answer (SI, as the engine works). */
+        SiUnits: {
+            /** @constant */
+            flow: "m3/s";
+            /** @constant */
+            head: "m";
+            /** @constant */
+            power: "W";
+            /** @constant */
+            efficiency: "fraction";
+            /** @constant */
+            size: "mm";
+        };
+        SupplierRef: {
+            id: number;
+            code: string;
+            name: string;
+        };
+        SupplierList: {
+            suppliers: {
+                id: number;
+                code: string;
+                name: string;
+                /** @description Active pumps with a curve. */
+                pumpCount: number;
+            }[];
+        };
+        FlowRange: {
+            /** @description m3/s */
+            flowMin: number;
+            /** @description m3/s */
+            flowMax: number;
+        };
+        BestEfficiencyPoint: {
+            /** @description m3/s */
+            flow: number;
+            /** @description m */
+            head: number;
+            /** @description fraction 0-1 */
+            efficiency: number;
+        };
+        PumpSummary: {
+            id: number;
+            supplier: components["schemas"]["SupplierRef"];
+            modelCode: string;
+            displayName: string;
+            kind: components["schemas"]["PumpKind"];
+            nominalSpeedRpm: number | null;
+            /** @description V */
+            voltage: number | null;
+            /** @enum {integer|null} */
+            phaseCount: 1 | 3 | null;
+            dischargeSizeMm: number | null;
+            /** @description Largest solid sphere the pump passes, mm. */
+            solidsHandlingMm: number | null;
+            listPrice: {
+                amount: number;
+                /** @description ISO 4217 code. */
+                currency: string;
+            } | null;
+            /** @enum {string} */
+            status: "active" | "retired";
+            currentRevisionNumber: number | null;
+            /** @description First published flow of the current curve, m3/s. */
+            flowMin: number | null;
+            /** @description Last published flow (run-out), m3/s. */
+            flowMax: number | null;
+            /** @description Head at the last published flow, m. */
+            headMin: number | null;
+            /** @description Highest published head (at or near shut-off), m. */
+            headMax: number | null;
+            bep: components["schemas"]["BestEfficiencyPoint"] | null;
+        };
+        PumpPage: {
+            units: components["schemas"]["SiUnits"];
+            total: number;
+            page: number;
+            pageSize: number;
+            items: components["schemas"]["PumpSummary"][];
+        };
+        /** @description One published point, SI (m3/s, m, W, fraction, m). */
+        CurvePointSi: {
+            flow: number;
+            head: number;
+            power?: number;
+            efficiency?: number;
+            npshRequired?: number;
+        };
+        /** @description The flow ranges the supplier declares, m3/s; null when the file gives none. */
+        DeclaredRanges: {
+            preferred: components["schemas"]["FlowRange"] | null;
+            allowable: components["schemas"]["FlowRange"] | null;
+        };
+        /** @description The engine's fit of a curve (shared/hydraulics/pump-curve-fit.ts), SI, coefficients in ascending powers of flow in m3/s. */
+        PumpCurveFit: {
+            /** @constant */
+            schemaVersion: 1;
+            /** @enum {integer} */
+            degree: 2 | 3;
+            headCoefficients: number[];
+            flowMin: number;
+            flowMax: number;
+            shutOffHead: number;
+            efficiencyCoefficients: number[] | null;
+            powerCoefficients: number[] | null;
+            /** @enum {string|null} */
+            powerBasis: "shaft" | "electrical" | null;
+            npshRequired: {
+                coefficients: number[];
+                flowMin: number;
+                flowMax: number;
+            } | null;
+            bep: components["schemas"]["BestEfficiencyPoint"] | null;
+            bepUnknownReason: string | null;
+            allowableRegion: components["schemas"]["FlowRange"] | null;
+            statistics: {
+                rmsHead: number;
+                worstResidual: number;
+                worstResidualFlow: number;
+                pointCount: number;
+            };
+            warnings: string[];
+        };
+        /** @description The units a curve-table file declared. */
+        CurveFileUnits: {
+            flow: components["schemas"]["FlowUnit"];
+            head: components["schemas"]["HeadUnit"];
+            power?: components["schemas"]["PowerUnit"];
+            /** @enum {string} */
+            efficiency?: "%" | "fraction";
+            npsh?: components["schemas"]["HeadUnit"];
+            /** @enum {string} */
+            size?: "mm" | "in";
+            currency?: string;
+            /** @enum {string} */
+            powerBasis?: "shaft" | "electrical";
+        };
+        CurveRevisionSummary: {
+            number: number;
+            current: boolean;
+            /** Format: date-time */
+            importedAt: string;
+            importedBy: string;
+            sourceFileName: string;
+            /** @description sha-256 of the source file, hex. */
+            sourceChecksum: string;
+            pointCount: number;
+        };
+        /** @description A revision's summary with its file units, notes, points, declared ranges and fit. */
+        CurveRevisionDetail: {
+            number: number;
+            current: boolean;
+            /** Format: date-time */
+            importedAt: string;
+            importedBy: string;
+            sourceFileName: string;
+            sourceChecksum: string;
+            pointCount: number;
+            fileUnits: components["schemas"]["CurveFileUnits"];
+            notes: string | null;
+            points: components["schemas"]["CurvePointSi"][];
+            declaredRanges: components["schemas"]["DeclaredRanges"];
+            fit: components["schemas"]["PumpCurveFit"];
+        };
+        PumpDetail: {
+            units: components["schemas"]["SiUnits"];
+            pump: components["schemas"]["PumpSummary"];
+            /** @description The revision asked for (the current one by default); null for a pump without a curve. */
+            revision: components["schemas"]["CurveRevisionDetail"] | null;
+            /** @description Newest first. */
+            revisions: components["schemas"]["CurveRevisionSummary"][];
+        };
+        /** @description An error or warning; `row` is the file's line number, `column` the column's name. */
+        CurveImportIssue: {
+            row: number | null;
+            column: string | null;
+            message: string;
+            expected?: string;
+        };
+        CurveImportPump: {
+            modelCode: string;
+            displayName: string;
+            kind: components["schemas"]["PumpKind"];
+            firstRow: number;
+            lastRow: number;
+            /**
+             * @description refused: the pump has errors (listed in the report's errors).
+             * @enum {string}
+             */
+            outcome: "new" | "changed" | "unchanged" | "refused";
+            /** @description curve: a new revision; details: name, kind, ratings or price. */
+            changes: ("curve" | "details")[];
+            /** @description The revision that is (or would be) current after the import. */
+            revisionNumber: number;
+            /** @description m; null when the pump was refused. */
+            rmsHead: number | null;
+            /** @description Published minus fitted head of largest magnitude, m. */
+            worstResidual: number | null;
+            bep: components["schemas"]["BestEfficiencyPoint"] | null;
+            bepUnknownReason: string | null;
+            declaredRanges: components["schemas"]["DeclaredRanges"];
+            /** @description The points as read, SI; left out of the stored history. */
+            points?: components["schemas"]["CurvePointSi"][];
+            /** @description The fit, left out of the stored history. */
+            fit?: components["schemas"]["PumpCurveFit"];
+            warnings: components["schemas"]["CurveImportIssue"][];
+        };
+        CurveImportReport: {
+            supplier: components["schemas"]["SupplierRef"];
+            fileName: string;
+            /** @description sha-256 of the file, hex. */
+            fileChecksum: string;
+            formatVersion: number | null;
+            fileUnits: components["schemas"]["CurveFileUnits"] | null;
+            units: components["schemas"]["SiUnits"];
+            dryRun: boolean;
+            /** @description True when the import wrote anything. */
+            committed: boolean;
+            importId: number | null;
+            /** @description Curve-point rows read. */
+            rowCount: number;
+            pumpCount: number;
+            counts: {
+                new: number;
+                changed: number;
+                unchanged: number;
+            };
+            pumps: components["schemas"]["CurveImportPump"][];
+            errors: components["schemas"]["CurveImportIssue"][];
+            /** @description Errors found beyond the first 200 listed. */
+            errorsOmitted: number;
+            /** @description Warnings about the file as a whole. */
+            warnings: components["schemas"]["CurveImportIssue"][];
+        };
+        CurveImportRecord: {
+            id: number;
+            /** Format: date-time */
+            importedAt: string;
+            importedBy: string;
+            /** @enum {string} */
+            channel: "api" | "command" | "demo-seed";
+            fileName: string;
+            fileChecksum: string;
+            rowCount: number;
+            pumpCount: number;
+            counts: {
+                new: number;
+                changed: number;
+                unchanged: number;
+            };
+            report: components["schemas"]["CurveImportReport"];
+        };
+        CurveImportList: {
+            imports: components["schemas"]["CurveImportRecord"][];
+        };
         Health: {
             /** @enum {string} */
             status: "ok" | "degraded";
@@ -735,6 +1083,33 @@ export interface components {
         };
         /** @description The thing named in the request does not exist. */
         NotFound: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description The caller may not touch this supplier's data (a supplier-admin of another supplier). */
+        Forbidden: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description The uploaded file is larger than the server accepts; `pointer` is /body/file. */
+        FileTooLarge: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description The file has errors and nothing was written; `errors` names each row and column (pointer /body/file/rows/LINE/COLUMN) and `report` is the full report. */
+        CurveTableRefused: {
             headers: {
                 [name: string]: unknown;
             };
@@ -1783,6 +2158,629 @@ export interface operations {
             };
             400: components["responses"]["BadRequest"];
             422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    listSuppliers: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Every supplier, by code, with its number of active pumps. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "suppliers": [
+                     *         {
+                     *           "id": 1,
+                     *           "code": "ALDERBROOK",
+                     *           "name": "Alderbrook Demo Pumps",
+                     *           "pumpCount": 22
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["SupplierList"];
+                };
+            };
+        };
+    };
+    listPumps: {
+        parameters: {
+            query?: {
+                kind?: components["schemas"]["PumpKind"];
+                supplierId?: number;
+                /** @description active (default), retired or all. */
+                status?: "active" | "retired" | "all";
+                /** @description Part of a model code or display name. */
+                search?: string;
+                flowMin?: number;
+                flowMax?: number;
+                headMin?: number;
+                headMax?: number;
+                /** @description Unit of flowMin and flowMax (default m3/h). */
+                flowUnit?: components["schemas"]["FlowUnit"];
+                /** @description Unit of headMin and headMax (default m). */
+                headUnit?: components["schemas"]["HeadUnit"];
+                sort?: "modelCode" | "displayName" | "kind" | "supplier" | "flowMax" | "headMax" | "bepEfficiency";
+                order?: "asc" | "desc";
+                page?: number;
+                pageSize?: number;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description One page of pumps and the number that pass the filters. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "units": {
+                     *         "flow": "m3/s",
+                     *         "head": "m",
+                     *         "power": "W",
+                     *         "efficiency": "fraction",
+                     *         "size": "mm"
+                     *       },
+                     *       "total": 1,
+                     *       "page": 1,
+                     *       "pageSize": 25,
+                     *       "items": [
+                     *         {
+                     *           "id": 14,
+                     *           "supplier": {
+                     *             "id": 1,
+                     *             "code": "ALDERBROOK",
+                     *             "name": "Alderbrook Demo Pumps"
+                     *           },
+                     *           "modelCode": "AB-SUB-40",
+                     *           "displayName": "Submersible 40",
+                     *           "kind": "submersible",
+                     *           "nominalSpeedRpm": 2850,
+                     *           "voltage": 230,
+                     *           "phaseCount": 1,
+                     *           "dischargeSizeMm": 38.1,
+                     *           "solidsHandlingMm": 10,
+                     *           "listPrice": {
+                     *             "amount": 412.5,
+                     *             "currency": "USD"
+                     *           },
+                     *           "status": "active",
+                     *           "currentRevisionNumber": 1,
+                     *           "flowMin": 0,
+                     *           "flowMax": 0.0028,
+                     *           "headMin": 1.9,
+                     *           "headMax": 6.1,
+                     *           "bep": {
+                     *             "flow": 0.0016,
+                     *             "head": 4.4,
+                     *             "efficiency": 0.41
+                     *           }
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["PumpPage"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+        };
+    };
+    getPump: {
+        parameters: {
+            query?: {
+                /** @description The revision number to read (default the current one). */
+                revision?: number;
+            };
+            header?: never;
+            path: {
+                pumpId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The pump, the revision asked for and the list of all its revisions. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "units": {
+                     *         "flow": "m3/s",
+                     *         "head": "m",
+                     *         "power": "W",
+                     *         "efficiency": "fraction",
+                     *         "size": "mm"
+                     *       },
+                     *       "pump": {
+                     *         "id": 14,
+                     *         "supplier": {
+                     *           "id": 1,
+                     *           "code": "ALDERBROOK",
+                     *           "name": "Alderbrook Demo Pumps"
+                     *         },
+                     *         "modelCode": "AB-SUB-40",
+                     *         "displayName": "Submersible 40",
+                     *         "kind": "submersible",
+                     *         "nominalSpeedRpm": 2850,
+                     *         "voltage": 230,
+                     *         "phaseCount": 1,
+                     *         "dischargeSizeMm": 38.1,
+                     *         "solidsHandlingMm": 10,
+                     *         "listPrice": null,
+                     *         "status": "active",
+                     *         "currentRevisionNumber": 2,
+                     *         "flowMin": 0,
+                     *         "flowMax": 0.0028,
+                     *         "headMin": 1.9,
+                     *         "headMax": 6.1,
+                     *         "bep": {
+                     *           "flow": 0.0016,
+                     *           "head": 4.4,
+                     *           "efficiency": 0.41
+                     *         }
+                     *       },
+                     *       "revision": {
+                     *         "number": 2,
+                     *         "current": true,
+                     *         "importedAt": "2026-12-01T09:30:00.000Z",
+                     *         "importedBy": "supplier.admin@example.test",
+                     *         "sourceFileName": "alderbrook-2026.csv",
+                     *         "sourceChecksum": "3f5a0c5e1f0a4e9c8b7d6a5b4c3d2e1f00112233445566778899aabbccddeeff",
+                     *         "pointCount": 3,
+                     *         "fileUnits": {
+                     *           "flow": "gph",
+                     *           "head": "ft",
+                     *           "power": "W"
+                     *         },
+                     *         "notes": null,
+                     *         "points": [
+                     *           {
+                     *             "flow": 0,
+                     *             "head": 6.1,
+                     *             "power": 210
+                     *           },
+                     *           {
+                     *             "flow": 0.0014,
+                     *             "head": 4.7,
+                     *             "power": 160
+                     *           },
+                     *           {
+                     *             "flow": 0.0028,
+                     *             "head": 1.9,
+                     *             "power": 120
+                     *           }
+                     *         ],
+                     *         "declaredRanges": {
+                     *           "preferred": {
+                     *             "flowMin": 0.0011,
+                     *             "flowMax": 0.0021
+                     *           },
+                     *           "allowable": null
+                     *         },
+                     *         "fit": {
+                     *           "schemaVersion": 1,
+                     *           "degree": 2,
+                     *           "headCoefficients": [
+                     *             6.1,
+                     *             -357.1,
+                     *             -653061.2
+                     *           ],
+                     *           "flowMin": 0,
+                     *           "flowMax": 0.0028,
+                     *           "shutOffHead": 6.1,
+                     *           "efficiencyCoefficients": [
+                     *             500.2,
+                     *             -150000.1
+                     *           ],
+                     *           "powerCoefficients": [
+                     *             210,
+                     *             -39285.7,
+                     *             2551020.4
+                     *           ],
+                     *           "powerBasis": "electrical",
+                     *           "npshRequired": null,
+                     *           "bep": {
+                     *             "flow": 0.0016,
+                     *             "head": 4.4,
+                     *             "efficiency": 0.41
+                     *           },
+                     *           "bepUnknownReason": null,
+                     *           "allowableRegion": null,
+                     *           "statistics": {
+                     *             "rmsHead": 0,
+                     *             "worstResidual": 0,
+                     *             "worstResidualFlow": 0,
+                     *             "pointCount": 3
+                     *           },
+                     *           "warnings": []
+                     *         }
+                     *       },
+                     *       "revisions": [
+                     *         {
+                     *           "number": 2,
+                     *           "current": true,
+                     *           "importedAt": "2026-12-01T09:30:00.000Z",
+                     *           "importedBy": "supplier.admin@example.test",
+                     *           "sourceFileName": "alderbrook-2026.csv",
+                     *           "sourceChecksum": "3f5a0c5e1f0a4e9c8b7d6a5b4c3d2e1f00112233445566778899aabbccddeeff",
+                     *           "pointCount": 3
+                     *         },
+                     *         {
+                     *           "number": 1,
+                     *           "current": false,
+                     *           "importedAt": "2026-11-02T08:00:00.000Z",
+                     *           "importedBy": "command line (riffle)",
+                     *           "sourceFileName": "alderbrook-2025.csv",
+                     *           "sourceChecksum": "0a1b2c3d4e5f60718293a4b5c6d7e8f900112233445566778899aabbccddeeff",
+                     *           "pointCount": 3
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["PumpDetail"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    listCurveImports: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                supplierId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Every committed import of the supplier (an unchanged file leaves no record). */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "imports": [
+                     *         {
+                     *           "id": 7,
+                     *           "importedAt": "2026-12-01T09:30:00.000Z",
+                     *           "importedBy": "supplier.admin@example.test",
+                     *           "channel": "api",
+                     *           "fileName": "alderbrook-2026.csv",
+                     *           "fileChecksum": "3f5a0c5e1f0a4e9c8b7d6a5b4c3d2e1f00112233445566778899aabbccddeeff",
+                     *           "rowCount": 3,
+                     *           "pumpCount": 1,
+                     *           "counts": {
+                     *             "new": 1,
+                     *             "changed": 0,
+                     *             "unchanged": 0
+                     *           },
+                     *           "report": {
+                     *             "supplier": {
+                     *               "id": 1,
+                     *               "code": "ALDERBROOK",
+                     *               "name": "Alderbrook Demo Pumps"
+                     *             },
+                     *             "fileName": "alderbrook-2026.csv",
+                     *             "fileChecksum": "3f5a0c5e1f0a4e9c8b7d6a5b4c3d2e1f00112233445566778899aabbccddeeff",
+                     *             "formatVersion": 1,
+                     *             "fileUnits": {
+                     *               "flow": "gph",
+                     *               "head": "ft"
+                     *             },
+                     *             "units": {
+                     *               "flow": "m3/s",
+                     *               "head": "m",
+                     *               "power": "W",
+                     *               "efficiency": "fraction",
+                     *               "size": "mm"
+                     *             },
+                     *             "dryRun": false,
+                     *             "committed": true,
+                     *             "importId": 7,
+                     *             "rowCount": 3,
+                     *             "pumpCount": 1,
+                     *             "counts": {
+                     *               "new": 1,
+                     *               "changed": 0,
+                     *               "unchanged": 0
+                     *             },
+                     *             "pumps": [
+                     *               {
+                     *                 "modelCode": "AB-SUB-40",
+                     *                 "displayName": "Submersible 40",
+                     *                 "kind": "submersible",
+                     *                 "firstRow": 12,
+                     *                 "lastRow": 14,
+                     *                 "outcome": "new",
+                     *                 "changes": [
+                     *                   "curve",
+                     *                   "details"
+                     *                 ],
+                     *                 "revisionNumber": 1,
+                     *                 "rmsHead": 0,
+                     *                 "worstResidual": 0,
+                     *                 "bep": null,
+                     *                 "bepUnknownReason": "the curve has no efficiency or power data",
+                     *                 "declaredRanges": {
+                     *                   "preferred": null,
+                     *                   "allowable": null
+                     *                 },
+                     *                 "warnings": []
+                     *               }
+                     *             ],
+                     *             "errors": [],
+                     *             "errorsOmitted": 0,
+                     *             "warnings": []
+                     *           }
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["CurveImportList"];
+                };
+            };
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    importCurveTable: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                supplierId: number;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": {
+                    /**
+                     * Format: binary
+                     * @description The CSV file, at most 16 MiB and 100,000 rows.
+                     */
+                    file: string;
+                    /**
+                     * @description true: check and preview only (default false).
+                     * @enum {string}
+                     */
+                    dryRun?: "true" | "false";
+                };
+            };
+        };
+        responses: {
+            /** @description The preview (dry run), or a commit that found nothing to change. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "supplier": {
+                     *         "id": 1,
+                     *         "code": "ALDERBROOK",
+                     *         "name": "Alderbrook Demo Pumps"
+                     *       },
+                     *       "fileName": "alderbrook-2026.csv",
+                     *       "fileChecksum": "3f5a0c5e1f0a4e9c8b7d6a5b4c3d2e1f00112233445566778899aabbccddeeff",
+                     *       "formatVersion": 1,
+                     *       "fileUnits": {
+                     *         "flow": "gph",
+                     *         "head": "ft",
+                     *         "power": "W"
+                     *       },
+                     *       "units": {
+                     *         "flow": "m3/s",
+                     *         "head": "m",
+                     *         "power": "W",
+                     *         "efficiency": "fraction",
+                     *         "size": "mm"
+                     *       },
+                     *       "dryRun": true,
+                     *       "committed": false,
+                     *       "importId": null,
+                     *       "rowCount": 3,
+                     *       "pumpCount": 1,
+                     *       "counts": {
+                     *         "new": 0,
+                     *         "changed": 1,
+                     *         "unchanged": 0
+                     *       },
+                     *       "pumps": [
+                     *         {
+                     *           "modelCode": "AB-SUB-40",
+                     *           "displayName": "Submersible 40",
+                     *           "kind": "submersible",
+                     *           "firstRow": 12,
+                     *           "lastRow": 14,
+                     *           "outcome": "changed",
+                     *           "changes": [
+                     *             "curve"
+                     *           ],
+                     *           "revisionNumber": 2,
+                     *           "rmsHead": 0,
+                     *           "worstResidual": 0,
+                     *           "bep": {
+                     *             "flow": 0.0016,
+                     *             "head": 4.4,
+                     *             "efficiency": 0.41
+                     *           },
+                     *           "bepUnknownReason": null,
+                     *           "declaredRanges": {
+                     *             "preferred": {
+                     *               "flowMin": 0.0011,
+                     *               "flowMax": 0.0021
+                     *             },
+                     *             "allowable": null
+                     *           },
+                     *           "points": [
+                     *             {
+                     *               "flow": 0,
+                     *               "head": 6.1,
+                     *               "power": 210
+                     *             },
+                     *             {
+                     *               "flow": 0.0014,
+                     *               "head": 4.7,
+                     *               "power": 160
+                     *             },
+                     *             {
+                     *               "flow": 0.0028,
+                     *               "head": 1.9,
+                     *               "power": 120
+                     *             }
+                     *           ],
+                     *           "fit": {
+                     *             "schemaVersion": 1,
+                     *             "degree": 2,
+                     *             "headCoefficients": [
+                     *               6.1,
+                     *               -357.1,
+                     *               -653061.2
+                     *             ],
+                     *             "flowMin": 0,
+                     *             "flowMax": 0.0028,
+                     *             "shutOffHead": 6.1,
+                     *             "efficiencyCoefficients": [
+                     *               500.2,
+                     *               -150000.1
+                     *             ],
+                     *             "powerCoefficients": [
+                     *               210,
+                     *               -39285.7,
+                     *               2551020.4
+                     *             ],
+                     *             "powerBasis": "electrical",
+                     *             "npshRequired": null,
+                     *             "bep": {
+                     *               "flow": 0.0016,
+                     *               "head": 4.4,
+                     *               "efficiency": 0.41
+                     *             },
+                     *             "bepUnknownReason": null,
+                     *             "allowableRegion": null,
+                     *             "statistics": {
+                     *               "rmsHead": 0,
+                     *               "worstResidual": 0,
+                     *               "worstResidualFlow": 0,
+                     *               "pointCount": 3
+                     *             },
+                     *             "warnings": []
+                     *           },
+                     *           "warnings": [
+                     *             {
+                     *               "row": 13,
+                     *               "column": "head",
+                     *               "message": "head rises from 4.6 ft to 4.7 ft (1.6 % of the highest head): flagged; the fit holds it at 4.6 ft",
+                     *               "expected": "head not rising with flow"
+                     *             }
+                     *           ]
+                     *         }
+                     *       ],
+                     *       "errors": [],
+                     *       "errorsOmitted": 0,
+                     *       "warnings": []
+                     *     }
+                     */
+                    "application/json": components["schemas"]["CurveImportReport"];
+                };
+            };
+            /** @description The file was written; the report says what changed and names the import record. */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "supplier": {
+                     *         "id": 1,
+                     *         "code": "ALDERBROOK",
+                     *         "name": "Alderbrook Demo Pumps"
+                     *       },
+                     *       "fileName": "alderbrook-2026.csv",
+                     *       "fileChecksum": "3f5a0c5e1f0a4e9c8b7d6a5b4c3d2e1f00112233445566778899aabbccddeeff",
+                     *       "formatVersion": 1,
+                     *       "fileUnits": {
+                     *         "flow": "gph",
+                     *         "head": "ft"
+                     *       },
+                     *       "units": {
+                     *         "flow": "m3/s",
+                     *         "head": "m",
+                     *         "power": "W",
+                     *         "efficiency": "fraction",
+                     *         "size": "mm"
+                     *       },
+                     *       "dryRun": false,
+                     *       "committed": true,
+                     *       "importId": 7,
+                     *       "rowCount": 3,
+                     *       "pumpCount": 1,
+                     *       "counts": {
+                     *         "new": 1,
+                     *         "changed": 0,
+                     *         "unchanged": 0
+                     *       },
+                     *       "pumps": [
+                     *         {
+                     *           "modelCode": "AB-SUB-40",
+                     *           "displayName": "Submersible 40",
+                     *           "kind": "submersible",
+                     *           "firstRow": 12,
+                     *           "lastRow": 14,
+                     *           "outcome": "new",
+                     *           "changes": [
+                     *             "curve",
+                     *             "details"
+                     *           ],
+                     *           "revisionNumber": 1,
+                     *           "rmsHead": 0,
+                     *           "worstResidual": 0,
+                     *           "bep": null,
+                     *           "bepUnknownReason": "the curve has no efficiency or power data",
+                     *           "declaredRanges": {
+                     *             "preferred": null,
+                     *             "allowable": null
+                     *           },
+                     *           "warnings": []
+                     *         }
+                     *       ],
+                     *       "errors": [],
+                     *       "errorsOmitted": 0,
+                     *       "warnings": []
+                     *     }
+                     */
+                    "application/json": components["schemas"]["CurveImportReport"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            413: components["responses"]["FileTooLarge"];
+            422: components["responses"]["CurveTableRefused"];
         };
     };
 }

@@ -7,6 +7,12 @@ import { Invitation } from './invitation';
 import { PasswordResetLink } from './password-reset-link';
 import { Session } from './session';
 import { User } from './user';
+// catalog
+import { CurveDeclaredRange } from './curve-declared-range';
+import { CurveImport } from './curve-import';
+import { CurvePoint } from './curve-point';
+import { CurveRevision } from './curve-revision';
+import { Pump } from './pump';
 
 /** Initialises every model and declares the associations, in one place. */
 export function initialiseModels(sequelize: Sequelize): void {
@@ -22,7 +28,20 @@ export function initialiseModels(sequelize: Sequelize): void {
     AuditEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorUserId' });
     AuditEvent.belongsTo(User, { as: 'subject', foreignKey: 'subjectUserId' });
   }
+  // catalog
+  for (const model of [Pump, CurveImport, CurveRevision, CurvePoint, CurveDeclaredRange]) model.initialise(sequelize);
+  if (!Pump.associations.supplier) {
+    Pump.belongsTo(Supplier, { as: 'supplier', foreignKey: 'supplierId' });
+    Supplier.hasMany(Pump, { as: 'pumps', foreignKey: 'supplierId' });
+    Pump.hasMany(CurveRevision, { as: 'revisions', foreignKey: 'pumpId' });
+    Pump.belongsTo(CurveRevision, { as: 'currentRevision', foreignKey: 'currentRevisionId', constraints: false });
+    CurveRevision.belongsTo(CurveImport, { as: 'import', foreignKey: 'importId' });
+    CurveRevision.hasMany(CurvePoint, { as: 'points', foreignKey: 'revisionId' });
+    CurveRevision.hasMany(CurveDeclaredRange, { as: 'declaredRanges', foreignKey: 'revisionId' });
+    CurveImport.belongsTo(Supplier, { as: 'supplier', foreignKey: 'supplierId' });
+  }
 }
 
 export { Supplier };
 export { ApiToken, AuditEvent, Invitation, PasswordResetLink, Session, User };
+export { CurveDeclaredRange, CurveImport, CurvePoint, CurveRevision, Pump };

@@ -1,0 +1,64 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
+import type { CurveRevision } from './curve-revision';
+import type { Supplier } from './supplier';
+
+export const pumpKinds = ['submersible', 'external-centrifugal', 'mixed-flow'] as const;
+export type PumpKind = (typeof pumpKinds)[number];
+export const pumpStatuses = ['active', 'retired'] as const;
+export type PumpStatus = (typeof pumpStatuses)[number];
+
+/** A supplier's pump model; its curves are the revisions, the current one named by currentRevisionId. */
+export class Pump extends Model<InferAttributes<Pump>, InferCreationAttributes<Pump>> {
+  declare id: CreationOptional<number>;
+  declare supplierId: ForeignKey<Supplier['id']>;
+  /** The supplier's own code for the model, unique per supplier. */
+  declare modelCode: string;
+  declare displayName: string;
+  declare kind: PumpKind;
+  declare nominalSpeedRpm: number | null;
+  declare voltageV: number | null;
+  declare phaseCount: number | null;
+  declare dischargeSizeMm: number | null;
+  declare solidsHandlingMm: number | null;
+  /** Decimal text as MariaDB returns DECIMAL, e.g. "412.50". */
+  declare listPrice: string | null;
+  declare priceCurrency: string | null;
+  declare status: CreationOptional<PumpStatus>;
+  declare currentRevisionId: ForeignKey<CurveRevision['id']> | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare supplier?: NonAttribute<Supplier>;
+  declare currentRevision?: NonAttribute<CurveRevision>;
+
+  static initialise(sequelize: Sequelize): void {
+    Pump.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        modelCode: { type: DataTypes.STRING(64), allowNull: false },
+        displayName: { type: DataTypes.STRING(160), allowNull: false },
+        kind: { type: DataTypes.ENUM(...pumpKinds), allowNull: false },
+        nominalSpeedRpm: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        voltageV: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: true },
+        phaseCount: { type: DataTypes.TINYINT.UNSIGNED, allowNull: true },
+        dischargeSizeMm: { type: DataTypes.DOUBLE, allowNull: true },
+        solidsHandlingMm: { type: DataTypes.DOUBLE, allowNull: true },
+        listPrice: { type: DataTypes.DECIMAL(12, 2), allowNull: true },
+        priceCurrency: { type: DataTypes.CHAR(3), allowNull: true },
+        status: { type: DataTypes.ENUM(...pumpStatuses), allowNull: false, defaultValue: 'active' },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'pumps' },
+    );
+  }
+}
