@@ -1,6 +1,13 @@
 import { Routes } from '@angular/router';
+import { roleGuard } from './core/role-guard';
+import { signedInGuard } from './core/signed-in-guard';
 
 export const appRoutes: Routes = [
   { path: '', pathMatch: 'full', title: 'Riffle', loadComponent: () => import('./home/home-page').then((m) => m.HomePage) },
+  // accounts and access
+  { path: 'accounts', loadChildren: () => import('./accounts/accounts.routes').then((m) => m.accountsRoutes) },
+  { path: 'account', title: 'Your account - Riffle', canActivate: [signedInGuard], loadComponent: () => import('./accounts/account-page').then((m) => m.AccountPage) },
+  { path: 'admin', canActivate: [roleGuard], data: { roles: ['admin'] }, loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
+  // end of accounts and access
   { path: '**', redirectTo: '' },
 ];

@@ -1,11 +1,13 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatToolbarModule } from '@angular/material/toolbar';
-import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { AuthApi } from './core/auth-api';
+import { SessionService } from './core/session-service';
 import { navigationLinks } from './navigation-links';
 
-/** The application shell: the toolbar with the product name and the pages that exist. */
+/** The application shell: the toolbar with the product name, the pages the signed-in role may use, and the account. */
 @Component({
   selector: 'rf-root',
   imports: [RouterOutlet, RouterLink, RouterLinkActive, MatToolbarModule, MatButtonModule, MatIconModule],
@@ -14,5 +16,16 @@ import { navigationLinks } from './navigation-links';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class App {
-  protected readonly links = navigationLinks;
+  private readonly authApi = inject(AuthApi);
+  private readonly router = inject(Router);
+  protected readonly session = inject(SessionService);
+  protected readonly links = computed(() => navigationLinks.filter((link) => this.session.hasRole(link.roles)));
+
+  protected signOut(): void {
+    const leave = () => {
+      this.session.end();
+      void this.router.navigateByUrl('/accounts/sign-in');
+    };
+    this.authApi.signOut().subscribe({ next: leave, error: leave });
+  }
 }

@@ -12,4 +12,9 @@ export interface NavigationLink {
 export const navigationLinks: readonly NavigationLink[] = [
   { label: 'Overview', icon: 'water', path: '/' },
   { label: 'API reference', icon: 'integration_instructions', path: '/api/docs', external: true },
+  // accounts and access
+  { label: 'Users', icon: 'group', path: '/admin/users', roles: ['admin'] },
+  { label: 'Audit log', icon: 'policy', path: '/admin/audit-log', roles: ['admin'] },
+  { label: 'Demo mailbox', icon: 'mail', path: '/admin/demo-mailbox', roles: ['admin'] },
+  // end of accounts and access
 ];

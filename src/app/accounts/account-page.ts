@@ -1,0 +1,59 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatDialog } from '@angular/material/dialog';
+import { MatIconModule } from '@angular/material/icon';
+import { MatTableModule } from '@angular/material/table';
+import type { ApiTokenSummary } from '../../../shared/api/api-schemas';
+import { roleLabel } from '../core/role-labels';
+import { SessionService } from '../core/session-service';
+import { AccountApi } from './account-api';
+import { ApiTokenDialog } from './api-token-dialog';
+
+/** Who is signed in, and their personal API tokens: create (shown once), list, revoke. */
+@Component({
+  selector: 'rf-account-page',
+  imports: [DatePipe, MatCardModule, MatTableModule, MatButtonModule, MatIconModule],
+  templateUrl: './account-page.html',
+  styleUrl: './account-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class AccountPage {
+  private readonly accountApi = inject(AccountApi);
+  private readonly dialog = inject(MatDialog);
+  protected readonly user = inject(SessionService).user;
+  protected readonly roleName = computed(() => roleLabel(this.user()?.role));
+
+  protected readonly tokens = signal<ApiTokenSummary[]>([]);
+  protected readonly loaded = signal(false);
+  protected readonly columns = ['name', 'prefix', 'scopes', 'createdAt', 'lastUsedAt', 'expiresAt', 'actions'];
+
+  constructor() {
+    this.reload();
+  }
+
+  protected isLive(token: ApiTokenSummary): boolean {
+    return token.revokedAt === null && (token.expiresAt === null || Date.parse(token.expiresAt) > Date.now());
+  }
+
+  protected openCreateDialog(): void {
+    this.dialog
+      .open(ApiTokenDialog, { width: '36rem', disableClose: true, autoFocus: 'first-tabbable' })
+      .afterClosed()
+      .subscribe((created) => {
+        if (created) this.reload();
+      });
+  }
+
+  protected revoke(token: ApiTokenSummary): void {
+    this.accountApi.revokeApiToken(token.id).subscribe(() => this.reload());
+  }
+
+  private reload(): void {
+    this.accountApi.listApiTokens().subscribe(({ tokens }) => {
+      this.tokens.set(tokens);
+      this.loaded.set(true);
+    });
+  }
+}

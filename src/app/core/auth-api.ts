@@ -1,0 +1,42 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable } from 'rxjs';
+import type {
+  AcceptedMessage,
+  AccountUser,
+  InvitationAcceptance,
+  NewPasswordRequest,
+  PasswordResetRequest,
+  SignInRequest,
+  SignInResponse,
+} from '../../../shared/api/api-schemas';
+
+/** Sign-in, sign-out and the e-mailed links: one method per endpoint. */
+@Injectable({ providedIn: 'root' })
+export class AuthApi {
+  private readonly http = inject(HttpClient);
+
+  signIn(request: SignInRequest): Observable<SignInResponse> {
+    return this.http.post<SignInResponse>('/api/v1/auth/sign-in', request);
+  }
+
+  signOut(): Observable<void> {
+    return this.http.post<void>('/api/v1/auth/sign-out', null);
+  }
+
+  getCurrentUser(): Observable<AccountUser> {
+    return this.http.get<AccountUser>('/api/v1/auth/me');
+  }
+
+  requestPasswordReset(request: PasswordResetRequest): Observable<AcceptedMessage> {
+    return this.http.post<AcceptedMessage>('/api/v1/auth/forgot-password', request);
+  }
+
+  resetPassword(request: NewPasswordRequest): Observable<void> {
+    return this.http.post<void>('/api/v1/auth/reset-password', request);
+  }
+
+  acceptInvitation(request: InvitationAcceptance): Observable<SignInResponse> {
+    return this.http.post<SignInResponse>('/api/v1/auth/accept-invitation', request);
+  }
+}
