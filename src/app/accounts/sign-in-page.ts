@@ -5,6 +5,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, RouterLink } from '@angular/router';
 import { AuthApi } from '../core/auth-api';
 import { describeHttpError } from '../core/problem-details';
@@ -22,6 +23,7 @@ export class SignInPage {
   private readonly authApi = inject(AuthApi);
   private readonly session = inject(SessionService);
   private readonly router = inject(Router);
+  private readonly snackBar = inject(MatSnackBar);
 
   /** Where to go after signing in (from the query string). */
   readonly returnTo = input<string>();
@@ -43,6 +45,8 @@ export class SignInPage {
     this.authApi.signIn(this.form.getRawValue()).subscribe({
       next: (signedIn) => {
         this.session.start(signedIn);
+        // The refused attempt's message has served its purpose once the user is in.
+        this.snackBar.dismiss();
         const target = this.returnTo();
         void this.router.navigateByUrl(target && target.startsWith('/') && !target.startsWith('//') ? target : '/');
       },
