@@ -128,19 +128,77 @@ function detectDelimiter(start: string): ';' | ',' {
   return semicolon >= 0 && (comma < 0 || semicolon < comma) ? ';' : ',';
 }
 
-/** Enough of the stream to see the format line, then the rest, untouched. */
-async function peekDelimiter(source: AsyncIterator<Buffer>): Promise<{ delimiter: ';' | ','; head: Buffer[] }> {
-  const head: Buffer[] = [];
-  let text = '';
+/** How far the reader looks for the header row before it treats the whole file as one part. */
+const preambleSearchBytes = 64 * 1024;
+
+interface SplitFile {
+  delimiter: ';' | ',';
+  /** The format and unit lines, up to the header row. */
+  preamble: Buffer;
+  /** From the header row on: what was read of it so far. */
+  rest: Buffer;
+  /** Lines in the preamble, to number the rest's lines as the file's. */
+  preambleLines: number;
+}
+
+/**
+ * Reads until the header row (a line starting with model_code) and splits there. The two parts
+ * are parsed apart so that csv-parse sees the header as its first record and every point row
+ * of the same length, the case its column checks are fast for.
+ */
+async function splitAtHeader(source: AsyncIterator<Buffer>): Promise<SplitFile> {
+  let buffer = Buffer.alloc(0);
+  let headerAt = -1;
   for (;;) {
+    // latin1 keeps one character per byte, so positions in the text are byte offsets.
+    const text = buffer.toString('latin1');
+    const match = /(^|\n)(\xEF\xBB\xBF)?[ \t]*"?model_code/.exec(text);
+    if (match) {
+      headerAt = match.index + match[1].length;
+      break;
+    }
+    if (buffer.length > preambleSearchBytes) break;
     const next = await source.next();
     if (next.done) break;
-    head.push(next.value);
-    text += next.value.toString('utf8');
-    const significant = text.split(/\r?\n/).filter((line) => line.trim() !== '' && !line.trimStart().startsWith('#'));
-    if (significant.length >= 2 || text.length > 64 * 1024) break;
+    buffer = Buffer.concat([buffer, next.value]);
   }
-  return { delimiter: detectDelimiter(text), head };
+  const preamble = headerAt >= 0 ? buffer.subarray(0, headerAt) : buffer;
+  const rest = headerAt >= 0 ? buffer.subarray(headerAt) : Buffer.alloc(0);
+  const preambleText = preamble.toString('utf8');
+  return {
+    delimiter: detectDelimiter(headerAt >= 0 ? preambleText : buffer.toString('utf8')),
+    preamble,
+    rest,
+    preambleLines: headerAt >= 0 ? (preambleText.match(/\n/g) ?? []).length : 0,
+  };
+}
+
+function csvParser(delimiter: ';' | ',') {
+  return parse({
+    bom: true,
+    delimiter,
+    relax_column_count: true,
+    skip_empty_lines: true,
+    skip_records_with_empty_values: true,
+    trim: true,
+    comment: '#',
+    comment_no_infix: true,
+    info: true,
+    max_record_size: curveTableLimits.maxRecordCharacters,
+  });
+}
+
+/** The records of a byte stream with the file's line numbers. */
+async function* csvRecords(chunks: AsyncIterable<Buffer>, delimiter: ';' | ',', lineOffset: number): AsyncGenerator<{ record: string[]; line: number }> {
+  const parser = pipeline(Readable.from(chunks), csvParser(delimiter), () => undefined);
+  try {
+    for await (const { record, info } of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
+      yield { record, line: info.lines + lineOffset };
+    }
+  } catch (error) {
+    if (error instanceof CsvError) Object.assign(error, { lines: ((error as CsvError & { lines?: number }).lines ?? 0) + lineOffset });
+    throw error;
+  }
 }
 
 const numberPattern = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
@@ -186,41 +244,26 @@ export async function readCurveTable(
 
   const errors = new IssueList();
   const state = new TableState(errors);
-  let delimiter: ';' | ',' = ',';
   try {
-    const peeked = await peekDelimiter(iterator);
-    delimiter = peeked.delimiter;
-    state.decimalComma = delimiter === ';';
-    async function* chunks(): AsyncGenerator<Buffer> {
-      yield* peeked.head;
+    const split = await splitAtHeader(iterator);
+    state.decimalComma = split.delimiter === ';';
+    async function* rest(): AsyncGenerator<Buffer> {
+      if (split.rest.length > 0) yield split.rest;
       for (;;) {
         const next = await iterator.next();
         if (next.done) return;
         yield next.value;
       }
     }
-    const parser = pipeline(
-      Readable.from(chunks()),
-      parse({
-        bom: true,
-        delimiter,
-        relax_column_count: true,
-        skip_empty_lines: true,
-        skip_records_with_empty_values: true,
-        trim: true,
-        comment: '#',
-        comment_no_infix: true,
-        info: true,
-        max_record_size: curveTableLimits.maxRecordCharacters,
-      }),
-      () => undefined,
-    );
-    for await (const { record, info } of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
-      state.take(record, info.lines);
-      if (state.pointRowCount > maxPointRows) {
-        errors.add(issue(info.lines, null, `the file has more than ${maxPointRows.toLocaleString('en')} curve-point rows`, `at most ${maxPointRows.toLocaleString('en')} rows; split the file`));
-        counter.destroy();
-        break;
+    const parts = [csvRecords(Readable.from([split.preamble]), split.delimiter, 0), csvRecords(rest(), split.delimiter, split.preambleLines)];
+    reading: for (const part of parts) {
+      for await (const { record, line } of part) {
+        state.take(record, line);
+        if (state.pointRowCount > maxPointRows) {
+          errors.add(issue(line, null, `the file has more than ${maxPointRows.toLocaleString('en')} curve-point rows`, `at most ${maxPointRows.toLocaleString('en')} rows; split the file`));
+          counter.destroy();
+          break reading;
+        }
       }
     }
   } catch (error) {
@@ -494,16 +537,18 @@ class TableState {
     const cell = values.cells[column];
     if (cell === undefined || cell === '') return undefined;
     const text = this.decimalComma ? cell.replace(',', '.') : cell;
-    const expected = [
-      range.integer ? 'a whole number' : 'a number',
-      what,
-      range.min !== undefined ? `from ${range.min}` : range.above !== undefined ? `above ${range.above}` : '',
-      range.max !== undefined ? `up to ${range.max}` : '',
-    ]
-      .filter(Boolean)
-      .join(' ');
+    // Built only for an error: this runs for every cell of a large file.
+    const expected = () =>
+      [
+        range.integer ? 'a whole number' : 'a number',
+        what,
+        range.min !== undefined ? `from ${range.min}` : range.above !== undefined ? `above ${range.above}` : '',
+        range.max !== undefined ? `up to ${range.max}` : '',
+      ]
+        .filter(Boolean)
+        .join(' ');
     if (!numberPattern.test(text)) {
-      this.errors.add(issue(values.row, column, `"${cell.slice(0, 40)}" is not a number`, `${expected}${this.decimalComma ? ' (decimal point or comma)' : ' (decimal point)'}`));
+      this.errors.add(issue(values.row, column, `"${cell.slice(0, 40)}" is not a number`, `${expected()}${this.decimalComma ? ' (decimal point or comma)' : ' (decimal point)'}`));
       return null;
     }
     const value = Number(text);
@@ -514,7 +559,7 @@ class TableState {
       (range.above !== undefined && value <= range.above) ||
       (range.max !== undefined && value > range.max);
     if (outOfRange) {
-      this.errors.add(issue(values.row, column, `${cell} is out of range`, expected));
+      this.errors.add(issue(values.row, column, `${cell} is out of range`, expected()));
       return null;
     }
     return value;
