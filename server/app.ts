@@ -11,6 +11,7 @@ import { createOperationRouter } from './api/operation-router';
 import { createProblemHandler, notFoundHandler } from './api/problem-details';
 import { loadConfig, projectRoot } from './config';
 import { createHealthHandlers } from './health/health-handlers';
+import { createSelectionHandlers } from './selection/selection-handlers';
 import { createAccountHandlers, createOperationGuards } from './accounts/account-routes';
 import { accountsDependenciesFrom, type AccountsDependencies } from './accounts/accounts-dependencies';
 import { createCalculationHandlers } from './calculations/calculation-handlers';
@@ -59,6 +60,7 @@ export function createApp({ sequelize, logger, clientFolder, accounts }: AppDepe
   const accountsDependencies = accountsDependenciesFrom(loadConfig(), accounts);
   const handlers = {
     ...createHealthHandlers(sequelize, riffleVersion),
+    ...createSelectionHandlers(catalogSnapshot),
     ...createAccountHandlers(sequelize, accountsDependencies),
     ...createCalculationHandlers(catalogSnapshot),
     ...createCatalogHandlers(sequelize),

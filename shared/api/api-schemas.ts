@@ -32,6 +32,13 @@ export type CurveFitSummary = Schemas['CurveFitSummary'];
 export type OperatingPointResponse = Schemas['OperatingPointResponse'];
 export type PipeSizesResponse = Schemas['PipeSizesResponse'];
 export type FittingsResponse = Schemas['FittingsResponse'];
+export type DutyBand = Schemas['DutyBand'];
+export type SelectionFilters = Schemas['SelectionFilters'];
+export type EnergyInputs = Schemas['EnergyInputs'];
+export type SelectionRequest = Schemas['SelectionRequest'];
+export type SelectionWarning = Schemas['SelectionWarning'];
+export type SelectionCandidate = Schemas['SelectionCandidate'];
+export type SelectionResponse = Schemas['SelectionResponse'];
 
 // Catalog and curve imports.
 export type PumpKind = Schemas['PumpKind'];

@@ -357,6 +357,34 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/selections": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Ranked catalog pumps, alone or several in parallel, for a system and a duty band
+         * @description Every active catalog pump (its current curve revision) in each requested arrangement
+         *     (1, 2 or 3 identical pumps in parallel, all running) is put on the system curve.
+         *     Candidates are ranked: in the duty band and in the preferred operating region (and, with
+         *     `requireOneFailed`, still at or above the band's minimum with one pump off) first, then
+         *     in band but outside the preferred region or failing the one-failed check, then outside
+         *     the band; within each group by annual energy. `reasons` says why each candidate sits
+         *     where it does. `curve` samples the combined curve and `preferredRange` its preferred
+         *     region, in total flow, for drawing. Results are design estimates: verify them against
+         *     the maker's data.
+         */
+        post: operations["searchSelections"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/suppliers": {
         parameters: {
             query?: never;
@@ -644,6 +672,82 @@ export interface components {
                 k?: number;
                 source: string;
             }[];
+        };
+        /** @description The flow the planned filtration needs, from its minimum to its maximum, in flow units. */
+        DutyBand: {
+            flowMin: number;
+            flowMax: number;
+        };
+        SelectionFilters: {
+            supplierIds?: number[];
+            kinds?: ("submersible" | "external-centrifugal" | "mixed-flow")[];
+            modelContains?: string;
+            /** @description In power units. */
+            maxInputPowerPerPump?: number;
+            /** @description Leave out candidates outside the preferred operating region. */
+            onlyPreferredRegion?: boolean;
+        };
+        EnergyInputs: {
+            hoursPerDay: number;
+            /** @description Currency per kWh; without it annualCost is null. */
+            tariffPerKWh?: number;
+            /** @description Percent, applied when the curve gives pump shaft power; default 100 (curve power taken as input power). */
+            motorEfficiency?: number;
+        };
+        SelectionRequest: {
+            units: components["schemas"]["CalculationUnits"];
+            system: components["schemas"]["PipeSystem"];
+            duty: components["schemas"]["DutyBand"];
+            /** @description Numbers of identical pumps in parallel to try; default [1, 2]. */
+            arrangements?: (1 | 2 | 3)[];
+            /** @description With one pump off, the rest must still deliver the band's minimum; default false. */
+            requireOneFailed?: boolean;
+            filters?: components["schemas"]["SelectionFilters"];
+            energy?: components["schemas"]["EnergyInputs"];
+            preferredBand?: components["schemas"]["PreferredBand"];
+            /** @description Most candidates to return; default 20. */
+            limit?: number;
+        };
+        /** @enum {string} */
+        SelectionWarning: "velocity" | "run-out" | "dead-head";
+        SelectionCandidate: {
+            rank: number;
+            pumpId: number;
+            supplier: string;
+            model: string;
+            modelCode: string;
+            arrangement: components["schemas"]["PumpArrangement"];
+            operatingPoint: components["schemas"]["OperatingPoint"];
+            /** @description The point with one pump off; null for a single pump or when the rest run past their curve. */
+            oneFailed: components["schemas"]["OperatingPoint"] | null;
+            inBand: boolean;
+            /** @description Null for a single pump. */
+            oneFailedMeetsMinimum: boolean | null;
+            region: components["schemas"]["OperatingRegion"];
+            annualKWh: number | null;
+            annualCost: number | null;
+            warnings: components["schemas"]["SelectionWarning"][];
+            reasons: string[];
+            /** @description The combined head curve of the running pumps, sampled over its published range. */
+            curve: {
+                flow: number;
+                head: number;
+            }[];
+            /** @description The preferred operating region of the combined curve, in total flow. */
+            preferredRange: {
+                flowMin: number;
+                flowMax: number;
+            } | null;
+        };
+        SelectionResponse: {
+            units: components["schemas"]["CalculationUnits"];
+            duty: components["schemas"]["DutyBand"];
+            /** @description Pump and arrangement pairs examined. */
+            considered: number;
+            /** @description Pairs whose operating point lies in the duty band. */
+            inBand: number;
+            candidates: components["schemas"]["SelectionCandidate"][];
+            warnings: string[];
         };
         /** @enum {string} */
         PumpKind: "submersible" | "external-centrifugal" | "mixed-flow";
@@ -2154,6 +2258,162 @@ export interface operations {
                      *     }
                      */
                     "application/json": components["schemas"]["FittingsResponse"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    searchSelections: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "units": {
+                 *         "flow": "gpm",
+                 *         "head": "ft",
+                 *         "length": "ft",
+                 *         "diameter": "in",
+                 *         "power": "kW"
+                 *       },
+                 *       "system": {
+                 *         "staticHead": 14.5,
+                 *         "frictionMethod": "hazen-williams",
+                 *         "segments": [
+                 *           {
+                 *             "length": 240,
+                 *             "pipe": "pvc-sch40-3",
+                 *             "fittings": [
+                 *               {
+                 *                 "kind": "elbow-90-standard",
+                 *                 "count": 4
+                 *               },
+                 *               {
+                 *                 "kind": "exit",
+                 *                 "count": 1
+                 *               }
+                 *             ]
+                 *           }
+                 *         ]
+                 *       },
+                 *       "duty": {
+                 *         "flowMin": 90,
+                 *         "flowMax": 130
+                 *       },
+                 *       "arrangements": [
+                 *         1,
+                 *         2
+                 *       ],
+                 *       "requireOneFailed": true,
+                 *       "filters": {
+                 *         "maxInputPowerPerPump": 1.5
+                 *       },
+                 *       "energy": {
+                 *         "hoursPerDay": 24,
+                 *         "tariffPerKWh": 0.18
+                 *       },
+                 *       "limit": 10
+                 *     }
+                 */
+                "application/json": components["schemas"]["SelectionRequest"];
+            };
+        };
+        responses: {
+            /** @description The ranked candidates. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "units": {
+                     *         "flow": "gpm",
+                     *         "head": "ft",
+                     *         "length": "ft",
+                     *         "diameter": "in",
+                     *         "power": "kW"
+                     *       },
+                     *       "duty": {
+                     *         "flowMin": 90,
+                     *         "flowMax": 130
+                     *       },
+                     *       "considered": 2,
+                     *       "inBand": 1,
+                     *       "candidates": [
+                     *         {
+                     *           "rank": 1,
+                     *           "pumpId": 12,
+                     *           "supplier": "Alderbrook Demo Pumps",
+                     *           "model": "Demo cascade 60",
+                     *           "modelCode": "AD-C60",
+                     *           "arrangement": {
+                     *             "installed": 2,
+                     *             "running": 2
+                     *           },
+                     *           "operatingPoint": {
+                     *             "flow": 118.2,
+                     *             "head": 24.1,
+                     *             "flowPerPump": 59.1,
+                     *             "percentOfBep": 98.5,
+                     *             "region": "preferred",
+                     *             "efficiency": 58.2,
+                     *             "inputPower": 0.93
+                     *           },
+                     *           "oneFailed": {
+                     *             "flow": 93.4,
+                     *             "head": 20.6,
+                     *             "flowPerPump": 93.4,
+                     *             "percentOfBep": 155.7,
+                     *             "region": "outside",
+                     *             "efficiency": 44.1,
+                     *             "inputPower": 0.81
+                     *           },
+                     *           "inBand": true,
+                     *           "oneFailedMeetsMinimum": true,
+                     *           "region": "preferred",
+                     *           "annualKWh": 8147,
+                     *           "annualCost": 1466.5,
+                     *           "warnings": [],
+                     *           "reasons": [
+                     *             "in the duty band",
+                     *             "in the preferred operating region (98 % of BEP)",
+                     *             "one failed: 93.4 gpm, still at or above the band minimum"
+                     *           ],
+                     *           "curve": [
+                     *             {
+                     *               "flow": 0,
+                     *               "head": 36
+                     *             },
+                     *             {
+                     *               "flow": 60,
+                     *               "head": 32.9
+                     *             },
+                     *             {
+                     *               "flow": 120,
+                     *               "head": 23.9
+                     *             },
+                     *             {
+                     *               "flow": 180,
+                     *               "head": 9
+                     *             }
+                     *           ],
+                     *           "preferredRange": {
+                     *             "flowMin": 84,
+                     *             "flowMax": 144
+                     *           }
+                     *         }
+                     *       ],
+                     *       "warnings": []
+                     *     }
+                     */
+                    "application/json": components["schemas"]["SelectionResponse"];
                 };
             };
             400: components["responses"]["BadRequest"];

@@ -9,5 +9,8 @@ export const appRoutes: Routes = [
   { path: 'account', title: 'Your account - Riffle', canActivate: [signedInGuard], loadComponent: () => import('./accounts/account-page').then((m) => m.AccountPage) },
   { path: 'admin', canActivate: [roleGuard], data: { roles: ['admin'] }, loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
   // end of accounts and access
+  // pump selection
+  { path: 'design', loadChildren: () => import('./selection/design.routes').then((m) => m.designRoutes) },
+  // end of pump selection
   { path: '**', redirectTo: '' },
 ];

@@ -12,6 +12,9 @@ export interface NavigationLink {
 export const navigationLinks: readonly NavigationLink[] = [
   { label: 'Overview', icon: 'water', path: '/' },
   { label: 'API reference', icon: 'integration_instructions', path: '/api/docs', external: true },
+  // pump selection
+  { label: 'Design', icon: 'tune', path: '/design', roles: ['designer', 'admin', 'integrator'] },
+  // end of pump selection
   // accounts and access
   { label: 'Users', icon: 'group', path: '/admin/users', roles: ['admin'] },
   { label: 'Audit log', icon: 'policy', path: '/admin/audit-log', roles: ['admin'] },

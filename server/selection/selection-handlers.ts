@@ -1,0 +1,100 @@
+import type { RequestHandler } from 'express';
+import type { SelectionCandidate, SelectionRequest, SelectionResponse } from '../../shared/api/api-schemas';
+import { flowToSI } from '../../shared/hydraulics';
+import { operatingPointSummary } from '../calculations/calculation-handlers';
+import { unprocessable } from '../calculations/engine-problem';
+import { preferredBandOf } from '../calculations/pump-request';
+import { answerUnits, echoedUnits, powerToSI, powerUnitOf } from '../calculations/request-units';
+import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
+import type { CatalogPump, CatalogSnapshot } from './catalog-snapshot';
+import { sampledCombinedCurve, searchCatalog, type RankedCandidate, type SelectionQuery } from './selection-search';
+
+const defaultArrangements = [1, 2];
+const defaultLimit = 20;
+/** Ponds and streams usually run around the clock. */
+const defaultHoursPerDay = 24;
+
+function pumpFilter(filters: SelectionRequest['filters']): (pump: CatalogPump) => boolean {
+  const suppliers = filters?.supplierIds?.length ? new Set(filters.supplierIds) : null;
+  const kinds = filters?.kinds?.length ? new Set<string>(filters.kinds) : null;
+  const text = filters?.modelContains?.trim().toLowerCase() || null;
+  return (pump) =>
+    (!suppliers || suppliers.has(pump.supplierId)) &&
+    (!kinds || kinds.has(pump.kind)) &&
+    (!text || pump.model.toLowerCase().includes(text) || pump.modelCode.toLowerCase().includes(text));
+}
+
+function candidateAnswer(candidate: RankedCandidate, rank: number, body: SelectionRequest): SelectionCandidate {
+  const to = answerUnits(body.units);
+  return {
+    rank,
+    pumpId: candidate.pump.pumpId,
+    supplier: candidate.pump.supplier,
+    model: candidate.pump.model,
+    modelCode: candidate.pump.modelCode,
+    arrangement: { installed: candidate.running, running: candidate.running },
+    operatingPoint: operatingPointSummary(candidate.point, body.units),
+    oneFailed: candidate.oneFailed ? operatingPointSummary(candidate.oneFailed, body.units) : null,
+    inBand: candidate.inBand,
+    oneFailedMeetsMinimum: candidate.oneFailedMeetsMinimum,
+    region: candidate.point.region,
+    annualKWh: candidate.annualKWh,
+    annualCost: candidate.annualCost,
+    warnings: candidate.warnings,
+    reasons: candidate.reasons,
+    curve: sampledCombinedCurve(candidate.pump, candidate.running).map((point) => ({ flow: to.flow(point.flow), head: to.head(point.head) })),
+    preferredRange: candidate.preferredRange ? { flowMin: to.flow(candidate.preferredRange.flowMin), flowMax: to.flow(candidate.preferredRange.flowMax) } : null,
+  };
+}
+
+/** The search's input in SI, every problem a 4xx pointing at the field. */
+function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnings: string[] } {
+  const { curve, density } = prepareSystem(body.units, body.system);
+  const flowMin = flowToSI(body.duty.flowMin, body.units.flow);
+  const flowMax = flowToSI(body.duty.flowMax, body.units.flow);
+  requirePlausibleFlow(flowMin, '/body/duty/flowMin');
+  requirePlausibleFlow(flowMax, '/body/duty/flowMax');
+  if (flowMin > flowMax) throw unprocessable('/body/duty/flowMax', `must not be less than flowMin (${body.duty.flowMin} ${body.units.flow})`);
+  const maxPower = body.filters?.maxInputPowerPerPump;
+  const warnings: string[] = [];
+  if (body.energy?.tariffPerKWh === undefined) warnings.push('no tariff given: annual cost is left out');
+  return {
+    query: {
+      system: curve,
+      density,
+      flowMin,
+      flowMax,
+      arrangements: body.arrangements ?? defaultArrangements,
+      requireOneFailed: body.requireOneFailed ?? false,
+      band: preferredBandOf(body.preferredBand),
+      hoursPerDay: body.energy?.hoursPerDay ?? defaultHoursPerDay,
+      tariffPerKWh: body.energy?.tariffPerKWh ?? null,
+      motorEfficiency: (body.energy?.motorEfficiency ?? 100) / 100,
+      maxInputPowerPerPump: maxPower === undefined ? null : powerToSI(maxPower, powerUnitOf(body.units)),
+      onlyPreferredRegion: body.filters?.onlyPreferredRegion ?? false,
+      accepts: pumpFilter(body.filters),
+      limit: body.limit ?? defaultLimit,
+    },
+    warnings,
+  };
+}
+
+export function createSelectionHandlers(catalog: CatalogSnapshot): Record<'searchSelections', RequestHandler> {
+  return {
+    searchSelections: async (request, response) => {
+      const body = request.body as SelectionRequest;
+      const { query, warnings } = selectionQuery(body);
+      const outcome = searchCatalog(await catalog.current(), query);
+      if (outcome.candidates.length === 0) warnings.push('no catalog pump meets this system in the arrangements asked for');
+      const answer: SelectionResponse = {
+        units: echoedUnits(body.units),
+        duty: body.duty,
+        considered: outcome.considered,
+        inBand: outcome.inBand,
+        candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body)),
+        warnings,
+      };
+      response.json(answer);
+    },
+  };
+}

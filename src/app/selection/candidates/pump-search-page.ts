@@ -1,0 +1,157 @@
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators, type AbstractControl, type ValidationErrors } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { MatSortModule, type Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
+import type { SelectionCandidate, SelectionRequest } from '../../../../shared/api/api-schemas';
+import { CalculationsApi } from '../calculations-api';
+import { candidateKey, maxCompared, SelectionDraft, type SearchSettings } from '../selection-draft';
+
+/** At least one arrangement must be ticked. */
+function someArrangement(group: AbstractControl): ValidationErrors | null {
+  return Object.values(group.value as Record<string, boolean>).some(Boolean) ? null : { noArrangement: true };
+}
+
+const sortValues: Record<string, (candidate: SelectionCandidate) => number | string> = {
+  rank: (candidate) => candidate.rank,
+  pump: (candidate) => `${candidate.supplier} ${candidate.model}`,
+  arrangement: (candidate) => candidate.arrangement.running,
+  flow: (candidate) => candidate.operatingPoint.flow,
+  head: (candidate) => candidate.operatingPoint.head,
+  bep: (candidate) => candidate.operatingPoint.percentOfBep ?? -1,
+  region: (candidate) => candidate.region,
+  power: (candidate) => candidate.operatingPoint.inputPower ?? Number.POSITIVE_INFINITY,
+  energy: (candidate) => candidate.annualKWh ?? Number.POSITIVE_INFINITY,
+  cost: (candidate) => candidate.annualCost ?? Number.POSITIVE_INFINITY,
+  oneFailed: (candidate) => candidate.oneFailed?.flow ?? -1,
+};
+
+/** Step 3: the search over the catalog and its ranked candidates. */
+@Component({
+  selector: 'rf-pump-search-page',
+  imports: [
+    DecimalPipe,
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSlideToggleModule,
+    MatSortModule,
+    MatTableModule,
+  ],
+  templateUrl: './pump-search-page.html',
+  styleUrls: ['../design-page.scss', './pump-search-page.scss'],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class PumpSearchPage {
+  private readonly formBuilder = inject(NonNullableFormBuilder);
+  private readonly api = inject(CalculationsApi);
+  protected readonly draft = inject(SelectionDraft);
+  protected readonly units = this.draft.units;
+  protected readonly maxCompared = maxCompared;
+  protected readonly searching = signal(false);
+  protected readonly failed = signal(false);
+  private readonly sort = signal<Sort>({ active: 'rank', direction: 'asc' });
+
+  protected readonly columns = ['compare', 'rank', 'pump', 'arrangement', 'flow', 'head', 'bep', 'region', 'power', 'energy', 'cost', 'oneFailed', 'warnings', 'reasons'];
+
+  private readonly settings = this.draft.search();
+  protected readonly form = this.formBuilder.group({
+    arrangements: this.formBuilder.group(
+      {
+        one: this.settings.arrangements.includes(1),
+        two: this.settings.arrangements.includes(2),
+        three: this.settings.arrangements.includes(3),
+      },
+      { validators: someArrangement },
+    ),
+    requireOneFailed: this.settings.requireOneFailed,
+    onlyPreferredRegion: this.settings.onlyPreferredRegion,
+    maxInputPowerPerPump: this.formBuilder.control<number | null>(this.settings.maxInputPowerPerPump, [Validators.min(0.001)]),
+    hoursPerDay: this.formBuilder.control(this.settings.hoursPerDay, [Validators.required, Validators.min(0), Validators.max(24)]),
+    tariffPerKWh: this.formBuilder.control<number | null>(this.settings.tariffPerKWh, [Validators.min(0)]),
+    limit: this.formBuilder.control(this.settings.limit, [Validators.required, Validators.min(1), Validators.max(200), Validators.pattern(/^\d+$/)]),
+  });
+
+  protected readonly rows = computed(() => {
+    const candidates = [...(this.draft.results()?.candidates ?? [])];
+    const { active, direction } = this.sort();
+    const value = sortValues[active];
+    if (!value || direction === '') return candidates;
+    const sign = direction === 'asc' ? 1 : -1;
+    return candidates.sort((a, b) => {
+      const [left, right] = [value(a), value(b)];
+      return sign * (typeof left === 'string' ? left.localeCompare(String(right)) : left - (right as number));
+    });
+  });
+
+  protected readonly compared = computed(() => new Set(this.draft.compared()));
+
+  protected key = candidateKey;
+
+  protected sortBy(sort: Sort): void {
+    this.sort.set(sort);
+  }
+
+  protected search(): void {
+    this.form.markAllAsTouched();
+    if (this.form.invalid) return;
+    const value = this.form.getRawValue();
+    const settings: SearchSettings = {
+      arrangements: [value.arrangements.one && 1, value.arrangements.two && 2, value.arrangements.three && 3].filter((count): count is 1 | 2 | 3 => typeof count === 'number'),
+      requireOneFailed: value.requireOneFailed,
+      onlyPreferredRegion: value.onlyPreferredRegion,
+      maxInputPowerPerPump: value.maxInputPowerPerPump || null,
+      hoursPerDay: value.hoursPerDay,
+      tariffPerKWh: value.tariffPerKWh ?? null,
+      limit: value.limit,
+    };
+    this.draft.setSearch(settings);
+    const body: SelectionRequest = {
+      units: this.units(),
+      system: this.draft.pipeSystem(),
+      duty: this.draft.band(),
+      arrangements: settings.arrangements,
+      requireOneFailed: settings.requireOneFailed,
+      filters: {
+        onlyPreferredRegion: settings.onlyPreferredRegion,
+        ...(settings.maxInputPowerPerPump ? { maxInputPowerPerPump: settings.maxInputPowerPerPump } : {}),
+      },
+      energy: { hoursPerDay: settings.hoursPerDay, ...(settings.tariffPerKWh === null ? {} : { tariffPerKWh: settings.tariffPerKWh }) },
+      limit: settings.limit,
+    };
+    this.searching.set(true);
+    this.failed.set(false);
+    this.api.searchSelections(body).subscribe({
+      next: (results) => {
+        this.draft.setResults(results);
+        this.searching.set(false);
+      },
+      error: () => {
+        this.failed.set(true);
+        this.searching.set(false);
+      },
+    });
+  }
+
+  protected toggle(candidate: SelectionCandidate): void {
+    this.draft.toggleCompared(candidateKey(candidate));
+  }
+
+  protected arrangementLabel(candidate: SelectionCandidate): string {
+    const running = candidate.arrangement.running;
+    return running === 1 ? 'single' : `${running} in parallel`;
+  }
+}

@@ -1,0 +1,47 @@
+import { chartSize } from './comparison-chart';
+
+/** The chart as a standalone SVG document. */
+export function svgText(element: SVGSVGElement): string {
+  const copy = element.cloneNode(true) as SVGSVGElement;
+  copy.setAttribute('width', String(chartSize.width));
+  copy.setAttribute('height', String(chartSize.height));
+  return `<?xml version="1.0" encoding="UTF-8"?>\n${new XMLSerializer().serializeToString(copy)}`;
+}
+
+function download(blob: Blob, fileName: string): void {
+  const url = URL.createObjectURL(blob);
+  const link = document.createElement('a');
+  link.href = url;
+  link.download = fileName;
+  link.click();
+  setTimeout(() => URL.revokeObjectURL(url), 1000);
+}
+
+export function downloadSvg(element: SVGSVGElement, fileName: string): void {
+  download(new Blob([svgText(element)], { type: 'image/svg+xml' }), fileName);
+}
+
+/** Renders the SVG onto a canvas at twice its size and downloads the PNG. */
+export async function downloadPng(element: SVGSVGElement, fileName: string): Promise<void> {
+  const url = URL.createObjectURL(new Blob([svgText(element)], { type: 'image/svg+xml' }));
+  try {
+    const image = new Image();
+    await new Promise<void>((resolve, reject) => {
+      image.onload = () => resolve();
+      image.onerror = () => reject(new Error('the chart could not be rendered as an image'));
+      image.src = url;
+    });
+    const canvas = document.createElement('canvas');
+    canvas.width = chartSize.width * 2;
+    canvas.height = chartSize.height * 2;
+    const context = canvas.getContext('2d');
+    if (!context) throw new Error('this browser cannot draw on a canvas');
+    context.scale(2, 2);
+    context.drawImage(image, 0, 0, chartSize.width, chartSize.height);
+    const blob = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/png'));
+    if (!blob) throw new Error('the PNG could not be made');
+    download(blob, fileName);
+  } finally {
+    URL.revokeObjectURL(url);
+  }
+}

@@ -1,0 +1,180 @@
+import { axisBottom, axisLeft, line, scaleLinear, select, symbol, type Selection, symbolCircle, symbolCross, symbolDiamond, symbolSquare, symbolStar, symbolTimes, symbolTriangle, symbolWye } from 'd3';
+
+/*
+ * The comparison chart, drawn with d3 into one SVG whose look lives in attributes (not page CSS),
+ * so the exported file looks the same as the page. Each candidate has its own colour, dash and
+ * mark, so the chart still reads printed in grey.
+ */
+
+export interface ChartPoint {
+  flow: number;
+  head: number;
+}
+
+export interface ChartCandidate {
+  key: string;
+  label: string;
+  curve: ChartPoint[];
+  preferredRange: { flowMin: number; flowMax: number } | null;
+  operatingPoint: ChartPoint;
+  oneFailed: ChartPoint | null;
+}
+
+export interface ChartModel {
+  systemCurve: ChartPoint[];
+  band: { flowMin: number; flowMax: number };
+  candidates: ChartCandidate[];
+  flowUnit: string;
+  headUnit: string;
+}
+
+export interface ChartStyle {
+  colour: string;
+  dash: string;
+  mark: string;
+}
+
+const colours = ['#12383d', '#b5643c', '#5b7f2a', '#7b3f6e', '#3d5a99', '#a07c12', '#9c3b2f', '#4f6d64'];
+const dashes = ['', '9 4', '2 3', '10 3 2 3', '5 5', '14 4 4 4', '1 5', '7 2'];
+const marks = [symbolCircle, symbolSquare, symbolTriangle, symbolDiamond, symbolCross, symbolStar, symbolWye, symbolTimes];
+const markNames = ['circle', 'square', 'triangle', 'diamond', 'cross', 'star', 'wye', 'times'];
+
+/** The style of the candidate at `index` (0-7), also used by the page's table headings. */
+export function chartStyle(index: number): ChartStyle {
+  return { colour: colours[index % colours.length], dash: dashes[index % dashes.length], mark: markNames[index % markNames.length] };
+}
+
+export const chartSize = { width: 900, height: 520 };
+const margin = { top: 20, right: 290, bottom: 50, left: 60 };
+const font = 'Lato, Helvetica, Arial, sans-serif';
+
+export interface ChartHandlers {
+  /** A candidate's point (or curve) was hovered or focused; null when it is left. */
+  focus: (key: string | null, which: 'operating' | 'one-failed') => void;
+}
+
+/** Draws the whole chart into `element`, replacing what was there. */
+export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, handlers: ChartHandlers): void {
+  const svg = select(element);
+  svg.selectAll('*').remove();
+  const { width, height } = chartSize;
+  svg
+    .attr('viewBox', `0 0 ${width} ${height}`)
+    .attr('xmlns', 'http://www.w3.org/2000/svg')
+    .attr('font-family', font)
+    .attr('font-size', 12)
+    .attr('role', 'img')
+    .attr('aria-label', `System curve, duty band and ${model.candidates.length} pump curves with their operating points`);
+  svg.append('rect').attr('width', width).attr('height', height).attr('fill', '#ffffff');
+
+  const maxFlow = Math.max(model.band.flowMax * 1.3, ...model.candidates.flatMap((candidate) => candidate.curve.map((point) => point.flow)));
+  const maxHead = Math.max(...model.candidates.flatMap((candidate) => candidate.curve.map((point) => point.head)), ...model.systemCurve.map((point) => point.head));
+  const x = scaleLinear().domain([0, maxFlow]).range([margin.left, width - margin.right]).nice();
+  const y = scaleLinear().domain([0, maxHead * 1.05]).range([height - margin.bottom, margin.top]).nice();
+  const path = line<ChartPoint>()
+    .x((point) => x(point.flow))
+    .y((point) => y(point.head));
+
+  const defs = svg.append('defs');
+  const hatch = defs.append('pattern').attr('id', 'rf-band-hatch').attr('width', 8).attr('height', 8).attr('patternUnits', 'userSpaceOnUse').attr('patternTransform', 'rotate(45)');
+  hatch.append('rect').attr('width', 8).attr('height', 8).attr('fill', '#edf3ef');
+  hatch.append('line').attr('x1', 0).attr('y1', 0).attr('x2', 0).attr('y2', 8).attr('stroke', '#9bb8aa').attr('stroke-width', 2);
+  defs.append('clipPath').attr('id', 'rf-plot-clip').append('rect').attr('x', margin.left).attr('y', margin.top).attr('width', width - margin.left - margin.right).attr('height', height - margin.top - margin.bottom);
+
+  svg
+    .append('rect')
+    .attr('class', 'rf-duty-band')
+    .attr('x', x(model.band.flowMin))
+    .attr('y', margin.top)
+    .attr('width', Math.max(1, x(model.band.flowMax) - x(model.band.flowMin)))
+    .attr('height', height - margin.top - margin.bottom)
+    .attr('fill', 'url(#rf-band-hatch)');
+  svg
+    .append('text')
+    .attr('x', (x(model.band.flowMin) + x(model.band.flowMax)) / 2)
+    .attr('y', margin.top + 14)
+    .attr('text-anchor', 'middle')
+    .attr('fill', '#33584a')
+    .attr('font-weight', 700)
+    .text('duty band');
+
+  svg.append('g').attr('transform', `translate(0,${height - margin.bottom})`).call(axisBottom(x).ticks(8));
+  svg.append('g').attr('transform', `translate(${margin.left},0)`).call(axisLeft(y).ticks(8));
+  svg.append('text').attr('x', (margin.left + width - margin.right) / 2).attr('y', height - 10).attr('text-anchor', 'middle').attr('font-weight', 700).text(`Flow (${model.flowUnit})`);
+  svg.append('text').attr('transform', `translate(16,${(margin.top + height - margin.bottom) / 2}) rotate(-90)`).attr('text-anchor', 'middle').attr('font-weight', 700).text(`Head (${model.headUnit})`);
+
+  const plot = svg.append('g').attr('clip-path', 'url(#rf-plot-clip)');
+  plot.append('path').attr('class', 'rf-system-curve').attr('d', path(model.systemCurve)).attr('fill', 'none').attr('stroke', '#1f2624').attr('stroke-width', 3.5);
+
+  model.candidates.forEach((candidate, index) => {
+    const style = chartStyle(index);
+    const group = plot.append('g').attr('data-candidate', candidate.key);
+    if (candidate.preferredRange) {
+      const { flowMin, flowMax } = candidate.preferredRange;
+      const inRange = candidate.curve.filter((point) => point.flow >= flowMin && point.flow <= flowMax);
+      group.append('path').attr('class', 'rf-preferred-band').attr('d', path(inRange)).attr('fill', 'none').attr('stroke', style.colour).attr('stroke-width', 9).attr('stroke-opacity', 0.28).attr('stroke-linecap', 'round');
+    }
+    group
+      .append('path')
+      .attr('class', 'rf-pump-curve')
+      .attr('d', path(candidate.curve))
+      .attr('fill', 'none')
+      .attr('stroke', style.colour)
+      .attr('stroke-width', 2.2)
+      .attr('stroke-dasharray', style.dash || null)
+      .on('mouseenter', () => handlers.focus(candidate.key, 'operating'))
+      .on('mouseleave', () => handlers.focus(null, 'operating'));
+  });
+
+  // Marks above every curve so no curve hides a point.
+  model.candidates.forEach((candidate, index) => {
+    const style = chartStyle(index);
+    const shape = symbol(marks[index % marks.length], 110);
+    const points: Array<[ChartPoint, 'operating' | 'one-failed']> = [[candidate.operatingPoint, 'operating']];
+    if (candidate.oneFailed) points.push([candidate.oneFailed, 'one-failed']);
+    for (const [point, which] of points) {
+      svg
+        .append('path')
+        .attr('class', which === 'operating' ? 'rf-operating-point' : 'rf-one-failed-point')
+        .attr('d', shape())
+        .attr('transform', `translate(${x(point.flow)},${y(point.head)})`)
+        .attr('fill', which === 'operating' ? style.colour : '#ffffff')
+        .attr('stroke', style.colour)
+        .attr('stroke-width', 2)
+        .attr('tabindex', 0)
+        .attr('role', 'button')
+        .attr(
+          'aria-label',
+          `${candidate.label}, ${which === 'operating' ? 'operating point' : 'with one pump failed'}: ${point.flow.toFixed(1)} ${model.flowUnit} at ${point.head.toFixed(1)} ${model.headUnit}`,
+        )
+        .on('mouseenter focus', () => handlers.focus(candidate.key, which))
+        .on('mouseleave blur', () => handlers.focus(null, which));
+    }
+  });
+
+  const legend = svg.append('g').attr('transform', `translate(${width - margin.right + 18},${margin.top})`);
+  type LegendRow = Selection<SVGGElement, unknown, null, undefined>;
+  const entries: Array<{ label: string; draw: (row: LegendRow) => void }> = [
+    { label: 'System curve', draw: (row) => row.append('line').attr('x2', 28).attr('stroke', '#1f2624').attr('stroke-width', 3.5) },
+    { label: 'Duty band', draw: (row) => row.append('rect').attr('y', -7).attr('width', 28).attr('height', 14).attr('fill', 'url(#rf-band-hatch)').attr('stroke', '#9bb8aa') },
+    ...model.candidates.map((candidate, index) => ({
+      label: candidate.label,
+      draw: (row: LegendRow) => {
+        const style = chartStyle(index);
+        row.append('line').attr('x2', 28).attr('stroke', style.colour).attr('stroke-width', 2.2).attr('stroke-dasharray', style.dash || null);
+        row.append('path').attr('d', symbol(marks[index % marks.length], 80)()).attr('transform', 'translate(14,0)').attr('fill', style.colour).attr('stroke', style.colour);
+      },
+    })),
+    { label: 'Preferred region (wide band)', draw: (row) => row.append('line').attr('x2', 28).attr('stroke', '#5f6b68').attr('stroke-width', 9).attr('stroke-opacity', 0.28) },
+    { label: 'Hollow mark: one pump failed', draw: (row) => row.append('circle').attr('cx', 14).attr('r', 5).attr('fill', '#ffffff').attr('stroke', '#1f2624').attr('stroke-width', 2) },
+  ];
+  entries.forEach((entry, index) => {
+    const row = legend.append('g').attr('class', 'rf-legend-entry').attr('transform', `translate(0,${index * 24})`);
+    entry.draw(row);
+    row
+      .append('text')
+      .attr('x', 36)
+      .attr('dy', '0.32em')
+      .text(entry.label.length > 36 ? `${entry.label.slice(0, 35)}…` : entry.label);
+  });
+}

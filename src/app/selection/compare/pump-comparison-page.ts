@@ -1,0 +1,131 @@
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, inject, signal, viewChild } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatIconModule } from '@angular/material/icon';
+import { RouterLink } from '@angular/router';
+import type { CalculationUnits, SelectionCandidate } from '../../../../shared/api/api-schemas';
+import { flowFromSI, flowToSI, headFromSI, headToSI } from '../../../../shared/hydraulics';
+import { candidateKey, SelectionDraft } from '../selection-draft';
+import { compileDraft } from '../system-draft';
+import { unitSystems, type UnitSystem } from '../unit-systems';
+import { downloadPng, downloadSvg } from './chart-export';
+import { chartStyle, drawComparisonChart, type ChartCandidate, type ChartModel, type ChartPoint } from './comparison-chart';
+
+const systemCurveSteps = 60;
+
+/** Step 4: up to eight candidates on one chart and side by side in a table. */
+@Component({
+  selector: 'rf-pump-comparison-page',
+  imports: [DecimalPipe, RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule],
+  templateUrl: './pump-comparison-page.html',
+  styleUrls: ['../design-page.scss', './pump-comparison-page.scss'],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class PumpComparisonPage {
+  protected readonly draft = inject(SelectionDraft);
+  private readonly chart = viewChild<ElementRef<SVGSVGElement>>('chart');
+
+  /** The chart's and table's units; the design itself keeps its own. */
+  protected readonly display = signal<UnitSystem>(this.draft.unitSystem());
+  protected readonly displayUnits = computed(() => unitSystems[this.display()].units);
+  protected readonly candidates = this.draft.comparedCandidates;
+  protected readonly focused = signal<{ key: string; which: 'operating' | 'one-failed' } | null>(null);
+  protected readonly styles = computed(() => this.candidates().map((_, index) => chartStyle(index)));
+
+  /** Converts a flow or head from the design's units to the display's. */
+  private readonly convert = computed(() => {
+    const from: CalculationUnits = this.draft.units();
+    const to = this.displayUnits();
+    return {
+      flow: (value: number) => flowFromSI(flowToSI(value, from.flow), to.flow),
+      head: (value: number) => headFromSI(headToSI(value, from.head), to.head),
+    };
+  });
+
+  protected readonly model = computed((): ChartModel | null => {
+    const candidates = this.candidates();
+    if (candidates.length === 0) return null;
+    const convert = this.convert();
+    const point = (value: ChartPoint): ChartPoint => ({ flow: convert.flow(value.flow), head: convert.head(value.head) });
+    const band = this.draft.band();
+    const designUnits = this.draft.units();
+    const system = compileDraft(this.draft.pipeSystem(), designUnits);
+    const topFlow = flowToSI(Math.max(band.flowMax * 1.3, ...candidates.flatMap((candidate) => candidate.curve.map((sample) => sample.flow))), designUnits.flow);
+    const to = this.displayUnits();
+    const systemCurve = Array.from({ length: systemCurveSteps + 1 }, (_, step) => {
+      const flow = (topFlow * step) / systemCurveSteps;
+      return { flow: flowFromSI(flow, to.flow), head: headFromSI(system.evaluate(flow), to.head) };
+    });
+    return {
+      systemCurve,
+      band: { flowMin: convert.flow(band.flowMin), flowMax: convert.flow(band.flowMax) },
+      flowUnit: to.flow,
+      headUnit: to.head,
+      candidates: candidates.map(
+        (candidate): ChartCandidate => ({
+          key: candidateKey(candidate),
+          label: this.label(candidate),
+          curve: candidate.curve.map(point),
+          preferredRange: candidate.preferredRange
+            ? { flowMin: convert.flow(candidate.preferredRange.flowMin), flowMax: convert.flow(candidate.preferredRange.flowMax) }
+            : null,
+          operatingPoint: point(candidate.operatingPoint),
+          oneFailed: candidate.oneFailed ? point(candidate.oneFailed) : null,
+        }),
+      ),
+    };
+  });
+
+  /** The hovered or focused point, told in words. */
+  protected readonly details = computed(() => {
+    const focused = this.focused();
+    if (!focused) return null;
+    const candidate = this.candidates().find((entry) => candidateKey(entry) === focused.key);
+    if (!candidate) return null;
+    const point = focused.which === 'operating' ? candidate.operatingPoint : candidate.oneFailed;
+    if (!point) return null;
+    const convert = this.convert();
+    const units = this.displayUnits();
+    return {
+      title: `${this.label(candidate)}${focused.which === 'one-failed' ? ', one pump failed' : ''}`,
+      text: `${convert.flow(point.flow).toFixed(1)} ${units.flow} at ${convert.head(point.head).toFixed(1)} ${units.head} TDH; ${
+        point.percentOfBep === null ? 'BEP unknown' : `${point.percentOfBep.toFixed(0)} % of BEP`
+      }, ${point.region}; ${point.inputPower === null ? 'input power unknown' : `${point.inputPower.toFixed(2)} ${this.draft.units().power} input`}.`,
+    };
+  });
+
+  constructor() {
+    effect(() => {
+      const element = this.chart()?.nativeElement;
+      const model = this.model();
+      if (!element || !model) return;
+      drawComparisonChart(element, model, {
+        focus: (key, which) => this.focused.set(key === null ? null : { key, which }),
+      });
+    });
+  }
+
+  protected label(candidate: SelectionCandidate): string {
+    const running = candidate.arrangement.running;
+    return `${candidate.model}${running > 1 ? ` x${running}` : ''}`;
+  }
+
+  protected flow(value: number): number {
+    return this.convert().flow(value);
+  }
+
+  protected head(value: number): number {
+    return this.convert().head(value);
+  }
+
+  protected exportSvg(): void {
+    const element = this.chart()?.nativeElement;
+    if (element) downloadSvg(element, 'riffle-pump-comparison.svg');
+  }
+
+  protected exportPng(): void {
+    const element = this.chart()?.nativeElement;
+    if (element) void downloadPng(element, 'riffle-pump-comparison.png');
+  }
+}

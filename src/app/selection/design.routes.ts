@@ -1,0 +1,16 @@
+import type { Routes } from '@angular/router';
+
+/** The four steps of a design, each its own lazily loaded page under the shell. */
+export const designRoutes: Routes = [
+  {
+    path: '',
+    loadComponent: () => import('./design-shell').then((m) => m.DesignShell),
+    children: [
+      { path: '', pathMatch: 'full', redirectTo: 'system' },
+      { path: 'system', title: 'Site & system - Riffle', loadComponent: () => import('./site-and-system/system-builder-page').then((m) => m.SystemBuilderPage) },
+      { path: 'band', title: 'Flow band - Riffle', loadComponent: () => import('./flow-band/flow-planner-page').then((m) => m.FlowPlannerPage) },
+      { path: 'candidates', title: 'Candidates - Riffle', loadComponent: () => import('./candidates/pump-search-page').then((m) => m.PumpSearchPage) },
+      { path: 'compare', title: 'Compare - Riffle', loadComponent: () => import('./compare/pump-comparison-page').then((m) => m.PumpComparisonPage) },
+    ],
+  },
+];

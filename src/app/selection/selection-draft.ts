@@ -1,0 +1,130 @@
+import { Injectable, computed, effect, signal } from '@angular/core';
+import type { DutyBand, SelectionCandidate, SelectionResponse } from '../../../shared/api/api-schemas';
+import { exampleDraft, toPipeSystem, type SystemDraft } from './system-draft';
+import { unitSystems, type UnitSystem } from './unit-systems';
+
+/** What the designer asks the search for, besides the system and the band. */
+export interface SearchSettings {
+  arrangements: Array<1 | 2 | 3>;
+  requireOneFailed: boolean;
+  onlyPreferredRegion: boolean;
+  maxInputPowerPerPump: number | null;
+  hoursPerDay: number;
+  tariffPerKWh: number | null;
+  limit: number;
+}
+
+interface StoredDraft {
+  unitSystem: UnitSystem;
+  system: SystemDraft;
+  band: DutyBand;
+  search: SearchSettings;
+  results: SelectionResponse | null;
+  compared: string[];
+}
+
+const storageKey = 'riffle.design-draft.v1';
+
+/** Most candidates one comparison chart shows. */
+export const maxCompared = 8;
+
+/** A candidate's key: the same pump in another arrangement is another candidate. */
+export function candidateKey(candidate: Pick<SelectionCandidate, 'pumpId' | 'arrangement'>): string {
+  return `${candidate.pumpId}x${candidate.arrangement.running}`;
+}
+
+function initialDraft(): StoredDraft {
+  return {
+    unitSystem: 'us',
+    system: exampleDraft(),
+    band: { flowMin: 90, flowMax: 130 },
+    search: { arrangements: [1, 2], requireOneFailed: true, onlyPreferredRegion: false, maxInputPowerPerPump: null, hoursPerDay: 24, tariffPerKWh: 0.18, limit: 20 },
+    results: null,
+    compared: [],
+  };
+}
+
+function readStored(): StoredDraft {
+  try {
+    const text = sessionStorage.getItem(storageKey);
+    return text ? { ...initialDraft(), ...(JSON.parse(text) as Partial<StoredDraft>) } : initialDraft();
+  } catch {
+    return initialDraft();
+  }
+}
+
+/**
+ * The design in progress, shared by the four steps (site and system, flow band, candidates,
+ * compare) and kept for the browser tab's session, so a reload or a step back loses nothing.
+ */
+@Injectable({ providedIn: 'root' })
+export class SelectionDraft {
+  private readonly stored = signal<StoredDraft>(readStored());
+
+  readonly unitSystem = computed(() => this.stored().unitSystem);
+  readonly units = computed(() => unitSystems[this.stored().unitSystem].units);
+  readonly system = computed(() => this.stored().system);
+  readonly pipeSystem = computed(() => toPipeSystem(this.stored().system));
+  readonly band = computed(() => this.stored().band);
+  readonly search = computed(() => this.stored().search);
+  readonly results = computed(() => this.stored().results);
+  readonly compared = computed(() => this.stored().compared);
+  readonly comparedCandidates = computed(() => {
+    const keys = new Set(this.compared());
+    return (this.results()?.candidates ?? []).filter((candidate) => keys.has(candidateKey(candidate)));
+  });
+
+  constructor() {
+    effect(() => {
+      try {
+        sessionStorage.setItem(storageKey, JSON.stringify(this.stored()));
+      } catch {
+        // A full or disabled storage only costs the reload memory.
+      }
+    });
+  }
+
+  /** A new unit system starts from the example again: numbers typed in one system mean nothing in the other. */
+  setUnitSystem(unitSystem: UnitSystem): void {
+    if (unitSystem === this.unitSystem()) return;
+    this.stored.set({ ...initialDraft(), unitSystem, system: unitSystem === 'us' ? exampleDraft() : metricExample() });
+  }
+
+  setSystem(system: SystemDraft): void {
+    this.stored.update((draft) => ({ ...draft, system, results: null, compared: [] }));
+  }
+
+  setBand(band: DutyBand): void {
+    this.stored.update((draft) => ({ ...draft, band, results: null, compared: [] }));
+  }
+
+  setSearch(search: SearchSettings): void {
+    this.stored.update((draft) => ({ ...draft, search }));
+  }
+
+  setResults(results: SelectionResponse): void {
+    this.stored.update((draft) => ({ ...draft, results, compared: [] }));
+  }
+
+  toggleCompared(key: string): void {
+    this.stored.update((draft) => {
+      const compared = draft.compared.includes(key)
+        ? draft.compared.filter((existing) => existing !== key)
+        : draft.compared.length < maxCompared
+          ? [...draft.compared, key]
+          : draft.compared;
+      return { ...draft, compared };
+    });
+  }
+}
+
+/** The example waterfall in metric: 4.42 m lift through 73 m of 3" pipe. Invented for the demo. */
+function metricExample(): SystemDraft {
+  const draft = exampleDraft();
+  return {
+    ...draft,
+    staticHead: 4.42,
+    dischargeLevel: 4.42,
+    segments: draft.segments.map((segment) => ({ ...segment, length: 73 })),
+  };
+}

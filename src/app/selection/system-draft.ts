@@ -1,0 +1,95 @@
+import type { CalculationUnits, PipeSystem } from '../../../shared/api/api-schemas';
+import { compileSystemCurve, headToSI, lengthToSI, type CompiledSystemCurve, type FrictionMethod } from '../../../shared/hydraulics';
+
+/** The system as the designer's form holds it, in the draft's unit system. */
+export interface SegmentDraft {
+  /** Pipe series id from the engine's catalogue, e.g. `pvc-sch40`. */
+  series: string;
+  /** Size id within the series, e.g. `pvc-sch40-3`. */
+  size: string;
+  length: number;
+  fittings: Array<{ kind: string; count: number }>;
+  /** Extra resistance coefficient: filter module, manifold, nozzle. */
+  extraK: number;
+}
+
+export interface SystemDraft {
+  staticMode: 'direct' | 'levels';
+  staticHead: number;
+  /** Measured elevation of the intake water surface. */
+  intakeLevel: number;
+  /** Measured elevation of the discharge surface or outlet. */
+  dischargeLevel: number;
+  outletPressureHead: number;
+  waterTemperatureC: number;
+  frictionMethod: FrictionMethod;
+  segments: SegmentDraft[];
+}
+
+/** Static head from the draft: entered directly, or the rise from the intake to the discharge level. */
+export function staticHeadOf(draft: SystemDraft): number {
+  return draft.staticMode === 'levels' ? draft.dischargeLevel - draft.intakeLevel : draft.staticHead;
+}
+
+/** The draft as the API's `system`. Fittings with a zero count are left out. */
+export function toPipeSystem(draft: SystemDraft): PipeSystem {
+  return {
+    staticHead: staticHeadOf(draft),
+    outletPressureHead: draft.outletPressureHead,
+    frictionMethod: draft.frictionMethod,
+    waterTemperatureC: draft.waterTemperatureC,
+    segments: draft.segments.map((segment) => ({
+      length: segment.length,
+      pipe: segment.size,
+      fittings: segment.fittings.filter((fitting) => fitting.count > 0) as PipeSystem['segments'][number]['fittings'],
+      minorLossK: segment.extraK,
+    })),
+  };
+}
+
+/**
+ * The same system compiled by the shared engine in the browser, for the live preview; the
+ * server stays the authority for every figure it answers.
+ */
+export function compileDraft(system: PipeSystem, units: CalculationUnits): CompiledSystemCurve {
+  return compileSystemCurve({
+    staticHead: headToSI(system.staticHead, units.head),
+    outletPressureHead: headToSI(system.outletPressureHead ?? 0, units.head),
+    frictionMethod: system.frictionMethod,
+    temperature: system.waterTemperatureC,
+    segments: system.segments.map((segment) => ({
+      length: lengthToSI(segment.length, units.length),
+      pipeSizeId: segment.pipe,
+      fittings: segment.fittings,
+      extraK: segment.minorLossK,
+    })),
+  });
+}
+
+/**
+ * A first system to edit: a waterfall lifting 14.5 ft through 240 ft of 3" Schedule 40 PVC
+ * with four standard elbows and the exit. Invented for the demo.
+ */
+export function exampleDraft(): SystemDraft {
+  return {
+    staticMode: 'direct',
+    staticHead: 14.5,
+    intakeLevel: 0,
+    dischargeLevel: 14.5,
+    outletPressureHead: 0,
+    waterTemperatureC: 20,
+    frictionMethod: 'hazen-williams',
+    segments: [
+      {
+        series: 'pvc-sch40',
+        size: 'pvc-sch40-3',
+        length: 240,
+        fittings: [
+          { kind: 'elbow-90-standard', count: 4 },
+          { kind: 'exit', count: 1 },
+        ],
+        extraK: 0,
+      },
+    ],
+  };
+}

@@ -1,0 +1,108 @@
+import { expect } from 'chai';
+import { readFileSync } from 'node:fs';
+import { openBrowser, saveScreenshot, type BrowserSession } from '../support/browser';
+import { createUserWithSession, testPassword } from '../support/accounts';
+import { createScratchDatabase } from '../support/test-database';
+import { startTestServer } from '../support/test-server';
+import { seedSyntheticCatalog, syntheticShapes } from '../server/selection/synthetic-catalog';
+
+/*
+ * The designer's whole flow in Chromium against the real server and database: sign in, build the
+ * system, plan the band from pond turnover, search, compare three candidates, export the chart.
+ */
+describe('pump selection in Chromium', function () {
+  this.timeout(120_000);
+  let scratch: Awaited<ReturnType<typeof createScratchDatabase>>;
+  let server: Awaited<ReturnType<typeof startTestServer>>;
+  let browser: BrowserSession;
+  let email: string;
+
+  before(async () => {
+    scratch = await createScratchDatabase('selection_browser');
+    await seedSyntheticCatalog(scratch.sequelize, syntheticShapes(400, 11), 'Browser Test Pumps');
+    email = (await createUserWithSession(scratch.sequelize, 'designer')).user.email;
+    server = await startTestServer(scratch.sequelize);
+    browser = await openBrowser();
+  });
+
+  after(async () => {
+    await browser?.close();
+    await server?.close();
+    await scratch?.drop();
+  });
+
+  it('signs the designer in', async () => {
+    const { page } = browser;
+    await page.goto(`${server.url}/accounts/sign-in`, { waitUntil: 'networkidle' });
+    await page.fill('input[name=email]', email);
+    await page.fill('input[name=password]', testPassword);
+    await page.click('button[type=submit]');
+    await page.locator('a', { hasText: 'Design' }).first().waitFor({ timeout: 10_000 });
+  });
+
+  it('builds the system from two measured levels and previews its curve', async () => {
+    const { page } = browser;
+    await page.goto(`${server.url}/design/system`, { waitUntil: 'networkidle' });
+    await page.getByText('From two measured water levels').click();
+    await page.fill('input[name=intakeLevel]', '100');
+    await page.fill('input[name=dischargeLevel]', '114.5');
+    await page.locator('.rf-derived', { hasText: 'Static head 14.5 ft' }).waitFor();
+    await page.fill('input[name=length-0]', '260');
+    // Hazen-Williams by hand would differ: the preview must move when the length does.
+    const before = await page.locator('[role=status]', { hasText: 'TDH' }).textContent();
+    await page.fill('input[name=length-0]', '240');
+    await page.waitForFunction((text) => document.querySelector('.rf-builder [role=status]')?.textContent !== text, before);
+    expect(await page.locator('rf-system-curve-preview svg path').count()).to.be.greaterThan(0);
+  });
+
+  it('plans the band from a pond turnover and finds candidates', async () => {
+    const { page } = browser;
+    await page.getByRole('link', { name: /Next: flow band/ }).click();
+    await page.getByText('Pond turnover').click();
+    await page.fill('input[name=volume]', '6000');
+    await page.fill('input[name=turnoversMin]', '1');
+    await page.fill('input[name=turnoversMax]', '1.3');
+    // 6,000 gal once an hour is 100 gpm (1 gpm = 60 gph)
+    await page.locator('.rf-suggestion', { hasText: '100 to 130 gpm' }).waitFor();
+    await page.getByRole('button', { name: /Use as the duty band/ }).click();
+    await page.getByRole('button', { name: /Next: find candidates/ }).click();
+    await page.waitForURL(/design\/candidates/);
+    await page.getByText('Three in parallel').click();
+    await page.getByRole('button', { name: /Find candidates/ }).click();
+    await page.locator('tr[data-candidate]').first().waitFor({ timeout: 15_000 });
+    expect(await page.locator('tr[data-candidate]').count()).to.be.greaterThan(3);
+    expect(await page.locator('.rf-results-head').textContent()).to.contain('in the band');
+  });
+
+  it('compares three candidates on one chart, in both unit systems, and exports it', async () => {
+    const { page } = browser;
+    const boxes = page.locator('tr[data-candidate] mat-checkbox input');
+    for (let index = 0; index < 3; index += 1) await boxes.nth(index).check();
+    await page.getByRole('link', { name: /Compare 3/ }).click();
+    await page.locator('svg.rf-chart path.rf-pump-curve').first().waitFor();
+    expect(await page.locator('svg.rf-chart path.rf-pump-curve').count()).to.equal(3);
+    expect(await page.locator('svg.rf-chart path.rf-system-curve').count()).to.equal(1);
+    expect(await page.locator('svg.rf-chart path.rf-operating-point').count()).to.equal(3);
+    expect(await page.locator('.rf-side thead th').count()).to.equal(4);
+
+    await page.locator('svg.rf-chart path.rf-operating-point').first().hover();
+    await page.locator('.rf-details', { hasText: 'TDH' }).waitFor();
+    await page.locator('svg.rf-chart path.rf-operating-point').nth(1).focus();
+    await page.locator('.rf-details', { hasText: 'gpm at' }).waitFor();
+
+    await page.getByRole('radio', { name: 'SI', exact: true }).click();
+    await page.locator('svg.rf-chart text', { hasText: 'Flow (L/min)' }).waitFor();
+    await page.getByRole('radio', { name: 'US', exact: true }).click();
+    await page.locator('svg.rf-chart text', { hasText: 'Flow (gpm)' }).waitFor();
+
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: /SVG/ }).click()]);
+    expect(download.suggestedFilename()).to.equal('riffle-pump-comparison.svg');
+    const exported = readFileSync(await download.path(), 'utf8');
+    expect(exported).to.match(/^<\?xml/);
+    expect(exported.match(/class="rf-pump-curve"/g)?.length).to.equal(3);
+    expect(exported).to.contain('class="rf-system-curve"');
+
+    await saveScreenshot(page, 'pump-comparison');
+    expect(browser.offLoopbackRequests).to.deep.equal([]);
+  });
+});
