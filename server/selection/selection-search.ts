@@ -182,7 +182,7 @@ class BandSystemTable {
  * The crossing of h(Q/m) and the system inside a bracket with h above the system at `low` and
  * below it at `high`: regula falsi to start, then Newton steps kept inside the shrinking bracket
  * and bisection when one would leave it (Press et al., Numerical Recipes, 3rd ed., 2007, section
- * 9.4, "rtsafe"), to 1e-10 of the bracket: enough to rank by, the ranked few are then solved by
+ * 9.4, "rtsafe"), to 1e-8 of the bracket: enough to rank by, the ranked few are then solved by
  * the engine itself.
  */
 function crossingInBracket(coefficients: Float64Array, offset: number, running: number, table: BandSystemTable, low: number, high: number): number {
@@ -193,7 +193,7 @@ function crossingInBracket(coefficients: Float64Array, offset: number, running: 
   const c1 = coefficients[offset + 1];
   const c2 = coefficients[offset + 2];
   const c3 = coefficients[offset + 3];
-  const tolerance = 1e-10 * high;
+  const tolerance = 1e-8 * high;
   let flow = low + ((high - low) * surplusLow) / (surplusLow - surplusHigh);
   for (let iteration = 0; iteration < 50; iteration += 1) {
     const x = flow / running;
@@ -289,6 +289,8 @@ export function searchCatalog(state: CatalogState, query: SelectionQuery): Selec
   const { coefficients, flowMin, flowMax } = packed;
   const { system, arrangements } = query;
   const table = new BandSystemTable(system, query.flowMin, query.flowMax);
+  const systemAtMin = table.head(query.flowMin);
+  const systemAtMax = table.head(query.flowMax);
   const accepted = new Uint8Array(state.pumps.length);
   const inBand = inBandBuffer(4 * state.pumps.length * arrangements.length);
   let inBandCount = 0;
@@ -304,8 +306,8 @@ export function searchCatalog(state: CatalogState, query: SelectionQuery): Selec
       const low = Math.max(query.flowMin, running * flowMin[index]);
       const high = Math.min(query.flowMax, running * flowMax[index]);
       if (low > high) continue;
-      if (cubicAt(coefficients, offset, low / running) < table.head(low)) continue;
-      if (cubicAt(coefficients, offset, high / running) > table.head(high)) continue;
+      if (cubicAt(coefficients, offset, low / running) < (low === query.flowMin ? systemAtMin : table.head(low))) continue;
+      if (cubicAt(coefficients, offset, high / running) > (high === query.flowMax ? systemAtMax : table.head(high))) continue;
       const at = 4 * inBandCount;
       inBand[at] = index;
       inBand[at + 1] = running;
@@ -315,14 +317,24 @@ export function searchCatalog(state: CatalogState, query: SelectionQuery): Selec
     }
   }
 
-  const ranking = new TopPairs(query.limit);
+  // Tiers first, by sign tests alone; pairs of a tier are solved only while the better tiers
+  // leave room in the answer, since a tier's every key ranks below the tier above it.
+  const tiers = tierBuffer(inBandCount);
   for (let pair = 0; pair < inBandCount; pair += 1) {
     const at = 4 * pair;
-    const index = inBand[at];
-    const running = inBand[at + 1];
-    const flow = crossingInBracket(coefficients, index * 4, running, table, inBand[at + 2], inBand[at + 3]);
-    const head = cubicAt(coefficients, index * 4, flow / running);
-    ranking.offer(index, running, screenPoint(packed, index, running, flow, head, query, table));
+    tiers[pair] = tierInBand(packed, inBand[at], inBand[at + 1], inBand[at + 2], inBand[at + 3], query, table);
+  }
+  const ranking = new TopPairs(query.limit);
+  for (let tier = 0; tier <= 1 && ranking.size < query.limit; tier += 1) {
+    for (let pair = 0; pair < inBandCount; pair += 1) {
+      if (tiers[pair] !== tier) continue;
+      const at = 4 * pair;
+      const index = inBand[at];
+      const running = inBand[at + 1];
+      const flow = crossingInBracket(coefficients, index * 4, running, table, inBand[at + 2], inBand[at + 3]);
+      const head = cubicAt(coefficients, index * 4, flow / running);
+      ranking.offer(index, running, screenPoint(packed, index, running, flow, head, query, table));
+    }
   }
   if (ranking.size < query.limit) nearMisses(state, query, accepted, 2 * (query.limit - ranking.size), ranking, table);
   const candidates = ranking
@@ -337,6 +349,31 @@ export function searchCatalog(state: CatalogState, query: SelectionQuery): Selec
 }
 
 let sharedInBand = new Float64Array(0);
+let sharedTiers = new Uint8Array(0);
+
+function tierBuffer(length: number): Uint8Array {
+  if (sharedTiers.length < length) sharedTiers = new Uint8Array(length);
+  return sharedTiers;
+}
+
+/**
+ * The tier of a pair known to run in band, without solving: preferred when the crossing lies
+ * inside the preferred region too (the same sign test on the region's flows clipped to the
+ * bracket), redundant by the one-failed sign test.
+ */
+function tierInBand(packed: PackedCurves, index: number, running: number, low: number, high: number, query: SelectionQuery, table: BandSystemTable): number {
+  if (query.requireOneFailed && !(running >= 2 && oneFailedReachesMinimum(packed, index, running, query, table))) return 1;
+  const declaredMin = packed.declaredMin[index];
+  const perPumpMin = declaredMin === declaredMin ? declaredMin : (packed.bepFlow[index] * query.band.minPercent) / 100;
+  const perPumpMax = declaredMin === declaredMin ? packed.declaredMax[index] : (packed.bepFlow[index] * query.band.maxPercent) / 100;
+  const preferredLow = Math.max(low, running * perPumpMin);
+  const preferredHigh = Math.min(high, running * perPumpMax);
+  if (!(preferredLow <= preferredHigh)) return 1;
+  const offset = index * 4;
+  const crossesAfterLow = cubicAt(packed.coefficients, offset, preferredLow / running) >= table.head(preferredLow);
+  const crossesBeforeHigh = cubicAt(packed.coefficients, offset, preferredHigh / running) <= table.head(preferredHigh);
+  return crossesAfterLow && crossesBeforeHigh ? 0 : 1;
+}
 
 /**
  * Pairs in band, four numbers each (pump index, number running, bracket of the crossing), in one
@@ -462,7 +499,7 @@ function screenPoint(packed: PackedCurves, index: number, running: number, flow:
 }
 
 /** The combined curve of `running` pumps sampled at `count` flows over its published range, SI. */
-export function sampledCombinedCurve(pump: CatalogPump, running: number, count = 25): Array<{ flow: number; head: number }> {
+export function sampledCombinedCurve(pump: CatalogPump, running: number, count = 17): Array<{ flow: number; head: number }> {
   const { fit } = pump;
   return Array.from({ length: count }, (_, step) => {
     const perPump = fit.flowMin + ((fit.flowMax - fit.flowMin) * step) / (count - 1);

@@ -12,5 +12,15 @@ export const appRoutes: Routes = [
   // pump selection
   { path: 'design', loadChildren: () => import('./selection/design.routes').then((m) => m.designRoutes) },
   // end of pump selection
+  // catalog and curve imports
+  { path: 'catalog', canActivate: [signedInGuard], loadChildren: () => import('./catalog/catalog.routes').then((m) => m.catalogRoutes) },
+  {
+    path: 'curve-imports',
+    title: 'Load curve tables - Riffle',
+    canActivate: [roleGuard],
+    data: { roles: ['supplier-admin', 'admin'] },
+    loadComponent: () => import('./curve-import/curve-import-page').then((m) => m.CurveImportPage),
+  },
+  // end of catalog and curve imports
   { path: '**', redirectTo: '' },
 ];

@@ -15,6 +15,10 @@ export const navigationLinks: readonly NavigationLink[] = [
   // pump selection
   { label: 'Design', icon: 'tune', path: '/design', roles: ['designer', 'admin', 'integrator'] },
   // end of pump selection
+  // catalog and curve imports
+  { label: 'Catalog', icon: 'inventory_2', path: '/catalog', roles: ['admin', 'supplier-admin', 'designer', 'integrator'] },
+  { label: 'Curve tables', icon: 'upload_file', path: '/curve-imports', roles: ['supplier-admin', 'admin'] },
+  // end of catalog and curve imports
   // accounts and access
   { label: 'Users', icon: 'group', path: '/admin/users', roles: ['admin'] },
   { label: 'Audit log', icon: 'policy', path: '/admin/audit-log', roles: ['admin'] },

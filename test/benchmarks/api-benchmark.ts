@@ -1,7 +1,9 @@
 /*
  * API benchmark: POST /api/v1/selections over a synthetic catalog of 10,000 invented pumps, on
  * loopback, 20 connections for 10 s, with GET /api/v1/health measured in the same run as the
- * baseline. Prints requests/s, p50/p95/p99 latency and the ratio; asserts nothing.
+ * baseline. Prints requests/s, p50/p95/p99 latency and the ratio; asserts nothing. A second
+ * baseline, GET /api/v1/fittings with the same bearer token (the guard's session lookup and a
+ * small answer), shows how much of a search's time is the search itself.
  * Every run starts a scratch MariaDB of its own in a temporary folder and removes it afterwards.
  * The server runs in a child process (this file with --serve), so the load generator does not
  * share its event loop.
@@ -146,8 +148,10 @@ async function main(): Promise<void> {
     // One search loads the catalog snapshot; warm both paths up before measuring.
     await measure({ url: `${url}/api/v1/selections`, method: 'POST', headers, body: selectionBody(14.5), duration: 2 });
     await measure({ url: `${url}/api/v1/health`, duration: 2 });
+    await measure({ url: `${url}/api/v1/fittings`, headers, duration: 2 });
 
     const health = await measure({ url: `${url}/api/v1/health` });
+    const guarded = await measure({ url: `${url}/api/v1/fittings`, headers });
     let next = 0;
     const selections = await measure({
       url: `${url}/api/v1/selections`,
@@ -158,8 +162,10 @@ async function main(): Promise<void> {
 
     console.log(`\n${CONNECTIONS} connections, ${DURATION_S} s each, loopback, ${PUMP_COUNT} pumps x 3 arrangements per search`);
     report('GET /api/v1/health', health);
+    report('GET /api/v1/fittings (token)', guarded);
     report('POST /api/v1/selections', selections);
     console.log(`selections / health requests per second: ${(selections.requestsPerSecond / health.requestsPerSecond).toFixed(3)}`);
+    console.log(`selections / fittings (same guard) requests per second: ${(selections.requestsPerSecond / guarded.requestsPerSecond).toFixed(3)}`);
     console.log(`target p95 < 150 ms: ${selections.p95 < 150 ? 'met' : 'not met'} (${selections.p95.toFixed(1)} ms)`);
   } finally {
     if (server && server.exitCode === null) {

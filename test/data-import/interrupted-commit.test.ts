@@ -21,27 +21,27 @@ import { largeCurveTable } from './large-curve-table';
 
 type DatabaseAddress = { host: string; port: number; user: string; password: string; name: string };
 
+/** A connection that reads dirty (READ UNCOMMITTED): it sees the rows of transactions still open. */
+async function openDirtyReader(database: DatabaseAddress): Promise<mariadb.Connection> {
+  const connection = await mariadb.createConnection({ host: database.host, port: database.port, user: database.user, password: database.password, database: database.name, connectTimeout: 10_000 });
+  await connection.query('SET SESSION TRANSACTION ISOLATION LEVEL READ UNCOMMITTED');
+  return connection;
+}
+
 /**
- * Waits until the number of curve points that a dirty read (READ UNCOMMITTED) sees passes the
- * test: it counts the rows of transactions that are still open.
+ * Waits until the number of curve points a dirty reader sees passes the test.
  * @returns the count that passed
  */
-async function waitForDirtyPointCount(database: DatabaseAddress, passes: (count: number) => boolean, timeoutMs = 120_000): Promise<number> {
-  const connection = await mariadb.createConnection({ host: database.host, port: database.port, user: database.user, password: database.password, database: database.name });
-  try {
-    await connection.query('SET SESSION TRANSACTION ISOLATION LEVEL READ UNCOMMITTED');
-    const deadline = Date.now() + timeoutMs;
-    let count = -1;
-    while (Date.now() < deadline) {
-      const [row] = (await connection.query('SELECT COUNT(*) AS n FROM curve_points')) as Array<{ n: bigint | number }>;
-      count = Number(row.n);
-      if (passes(count)) return count;
-      await new Promise((resolve) => setTimeout(resolve, 5));
-    }
-    throw new Error(`the dirty count of curve points stayed at ${count} for ${timeoutMs} ms`);
-  } finally {
-    await connection.end();
+async function waitForDirtyPointCount(reader: mariadb.Connection, passes: (count: number) => boolean, timeoutMs = 120_000): Promise<number> {
+  const deadline = Date.now() + timeoutMs;
+  let count = -1;
+  while (Date.now() < deadline) {
+    const [row] = (await reader.query('SELECT COUNT(*) AS n FROM curve_points')) as Array<{ n: bigint | number }>;
+    count = Number(row.n);
+    if (passes(count)) return count;
+    await new Promise((resolve) => setTimeout(resolve, 5));
   }
+  throw new Error(`the dirty count of curve points stayed at ${count} for ${timeoutMs} ms`);
 }
 
 describe('an interrupted commit leaves no partial revision', function () {
@@ -71,8 +71,8 @@ describe('an interrupted commit leaves no partial revision', function () {
       child.stdout.on('data', (chunk: Buffer) => (output += chunk.toString()));
       child.stderr.on('data', (chunk: Buffer) => (output += chunk.toString()));
       const exited = new Promise<string | null>((resolve) => child.once('exit', (_code, signal) => resolve(signal)));
-      const address = { ...testDatabaseConfig(), name: sequelize.config.database! };
-      const rowsWritten = await waitForDirtyPointCount(address, (count) => count >= 4000).catch((error: Error) => {
+      const reader = await openDirtyReader({ ...testDatabaseConfig(), name: sequelize.config.database! });
+      const rowsWritten = await waitForDirtyPointCount(reader, (count) => count >= 4000).catch((error: Error) => {
         child.kill('SIGKILL');
         throw new Error(`${error.message}; the command said: ${output}`);
       });
@@ -80,7 +80,8 @@ describe('an interrupted commit leaves no partial revision', function () {
       expect(await exited).to.equal('SIGKILL');
       expect(rowsWritten).to.be.within(4000, 23_999);
       // The server rolls back a transaction whose connection died; wait until it has.
-      await waitForDirtyPointCount(address, (count) => count === before.curve_points);
+      await waitForDirtyPointCount(reader, (count) => count === before.curve_points);
+      await reader.end();
       expect(await catalogRowCounts(sequelize)).to.deep.equal(before);
     } finally {
       await drop();
@@ -99,12 +100,15 @@ describe('an interrupted commit leaves no partial revision', function () {
       await createMigrator(sequelize).up();
       const supplier = await Supplier.create({ code: 'BULKTEST', name: 'Bulk Test Supply (invented)' });
       const before = await catalogRowCounts(sequelize);
+      // Connected before the import starts: while it reads and fits, this process has little time to connect.
+      const reader = await openDirtyReader(config);
       const commit = importText(sequelize, supplier, largeCurveTable(2000, 12)).then(
         () => 'finished',
         (error: Error) => error.message,
       );
-      const rowsWritten = await waitForDirtyPointCount(config, (count) => count >= 4000);
+      const rowsWritten = await waitForDirtyPointCount(reader, (count) => count >= 4000);
       process.kill(database.pid, 'SIGKILL');
+      await reader.end().catch(() => undefined);
       expect(rowsWritten).to.be.within(4000, 23_999);
       expect(await commit).to.not.equal('finished');
       await sequelize.close().catch(() => undefined);

@@ -1,0 +1,21 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import type { Observable } from 'rxjs';
+import type { CurveImportList, CurveImportReport } from '../../../shared/api/api-schemas';
+
+/** The curve-import operations, one method each. */
+@Injectable({ providedIn: 'root' })
+export class CurveImportApi {
+  private readonly http = inject(HttpClient);
+
+  importCurveTable(supplierId: number, file: File, dryRun: boolean): Observable<CurveImportReport> {
+    const body = new FormData();
+    body.append('dryRun', String(dryRun));
+    body.append('file', file, file.name);
+    return this.http.post<CurveImportReport>(`/api/v1/suppliers/${supplierId}/curve-imports`, body);
+  }
+
+  listCurveImports(supplierId: number): Observable<CurveImportList> {
+    return this.http.get<CurveImportList>(`/api/v1/suppliers/${supplierId}/curve-imports`);
+  }
+}

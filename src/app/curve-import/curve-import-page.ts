@@ -1,0 +1,138 @@
+import { HttpErrorResponse } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatSelectModule } from '@angular/material/select';
+import { MatTableModule } from '@angular/material/table';
+import { catchError, map, of } from 'rxjs';
+import type { CurveImportIssue, CurveImportRecord, CurveImportReport } from '../../../shared/api/api-schemas';
+import { CatalogApi } from '../catalog/catalog-api';
+import { displayUnitChoices, kindLabels, showFlow, showHead } from '../catalog/display-units';
+import { PumpCurveChart } from '../catalog/pump-curve-chart';
+import { SessionService } from '../core/session-service';
+import { CurveImportApi } from './curve-import-api';
+
+const outcomeLabels: Record<string, string> = { new: 'New pump', changed: 'Changed', unchanged: 'Unchanged', refused: 'Refused' };
+
+/** For supplier admins: check a curve-table file, preview every pump with its fit, commit it, and see past imports. */
+@Component({
+  selector: 'rf-curve-import-page',
+  imports: [MatButtonModule, MatIconModule, MatSelectModule, MatTableModule, PumpCurveChart],
+  templateUrl: './curve-import-page.html',
+  styleUrl: './curve-import-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CurveImportPage {
+  private readonly api = inject(CurveImportApi);
+  private readonly session = inject(SessionService);
+
+  protected readonly unitChoices = displayUnitChoices;
+  protected readonly unitIndex = signal(0);
+  protected readonly units = computed(() => displayUnitChoices[this.unitIndex()]);
+  protected readonly kindLabels = kindLabels;
+  protected readonly outcomeLabels = outcomeLabels;
+  protected readonly showFlow = showFlow;
+  protected readonly showHead = showHead;
+  protected readonly pumpColumns = ['curve', 'pump', 'outcome', 'fit', 'bep', 'warnings'];
+  protected readonly historyColumns = ['importedAt', 'importedBy', 'fileName', 'counts'];
+  protected readonly formatExample = [
+    'riffle-curve-table,1',
+    'flow-unit,m3/h',
+    'head-unit,m',
+    'efficiency-unit,%',
+    'model_code,display_name,kind,preferred_flow_min,preferred_flow_max,flow,head,efficiency',
+    'FS-40,Stream pump 40,submersible,3,5,0,7.5,0',
+    'FS-40,,,,,2,7.1,38',
+    'FS-40,,,,,4,6.0,52',
+    'FS-40,,,,,6,4.1,49',
+  ].join('\n');
+
+  protected readonly isAdmin = computed(() => this.session.role() === 'admin');
+  protected readonly suppliers = toSignal(
+    inject(CatalogApi)
+      .listSuppliers()
+      .pipe(
+        map((list) => list.suppliers),
+        catchError(() => of([])),
+      ),
+    { initialValue: [] },
+  );
+  private readonly chosenSupplierId = signal<number | null>(null);
+  /** A supplier admin's own supplier; an admin picks one. */
+  protected readonly supplierId = computed(() => this.session.user()?.supplierId ?? this.chosenSupplierId() ?? this.suppliers()[0]?.id ?? null);
+  protected readonly supplierName = computed(() => this.suppliers().find((supplier) => supplier.id === this.supplierId())?.name ?? '');
+
+  protected readonly file = signal<File | null>(null);
+  protected readonly report = signal<CurveImportReport | null>(null);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly busy = signal(false);
+  protected readonly history = signal<CurveImportRecord[]>([]);
+
+  protected readonly errors = computed<CurveImportIssue[]>(() => this.report()?.errors ?? []);
+  protected readonly warningCount = computed(() => {
+    const report = this.report();
+    return report ? report.warnings.length + report.pumps.reduce((sum, pump) => sum + pump.warnings.length, 0) : 0;
+  });
+  protected readonly canCommit = computed(() => {
+    const report = this.report();
+    return !!report && report.dryRun && report.errors.length === 0 && report.counts.new + report.counts.changed > 0 && !this.busy();
+  });
+
+  constructor() {
+    effect(() => {
+      const supplierId = this.supplierId();
+      if (supplierId !== null) this.loadHistory(supplierId);
+    });
+  }
+
+  protected chooseSupplier(supplierId: number): void {
+    this.chosenSupplierId.set(supplierId);
+    this.report.set(null);
+  }
+
+  protected fileChosen(event: Event): void {
+    const input = event.target as HTMLInputElement;
+    this.file.set(input.files?.[0] ?? null);
+    this.report.set(null);
+    this.problem.set(null);
+    if (this.file()) this.send(true);
+  }
+
+  protected commit(): void {
+    this.send(false);
+  }
+
+  protected describe(issue: CurveImportIssue): string {
+    const where = [issue.row !== null ? `Row ${issue.row}` : null, issue.column ? `column ${issue.column}` : null].filter(Boolean).join(', ');
+    return `${where || 'File'}: ${issue.message}${issue.expected ? ` (expected ${issue.expected})` : ''}`;
+  }
+
+  private send(dryRun: boolean): void {
+    const file = this.file();
+    const supplierId = this.supplierId();
+    if (!file || supplierId === null) return;
+    this.busy.set(true);
+    this.problem.set(null);
+    this.api.importCurveTable(supplierId, file, dryRun).subscribe({
+      next: (report) => {
+        this.report.set(report);
+        this.busy.set(false);
+        if (!dryRun) this.loadHistory(supplierId);
+      },
+      error: (error: HttpErrorResponse) => {
+        this.busy.set(false);
+        const refused = (error.error as { report?: CurveImportReport } | null)?.report;
+        if (refused) this.report.set(refused);
+        else this.problem.set((error.error as { detail?: string } | null)?.detail ?? 'The file could not be sent.');
+      },
+    });
+  }
+
+  private loadHistory(supplierId: number): void {
+    this.api.listCurveImports(supplierId).subscribe({
+      next: (list) => this.history.set(list.imports),
+      error: () => this.history.set([]),
+    });
+  }
+}
