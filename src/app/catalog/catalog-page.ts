@@ -41,6 +41,12 @@ export class CatalogPage {
   protected readonly kindLabels = kindLabels;
   protected readonly showFlow = showFlow;
   protected readonly showHead = showHead;
+  protected readonly rangeFields = [
+    { name: 'flowMin', label: 'Flow from', quantity: 'flow' },
+    { name: 'flowMax', label: 'Flow to', quantity: 'flow' },
+    { name: 'headMin', label: 'Head from', quantity: 'head' },
+    { name: 'headMax', label: 'Head to', quantity: 'head' },
+  ] as const;
   protected readonly columns = ['modelCode', 'displayName', 'kind', 'supplier', 'flowMax', 'headMax', 'bepEfficiency'];
   protected readonly suppliers = toSignal(
     this.api.listSuppliers().pipe(
