@@ -168,13 +168,24 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
     { label: 'Preferred region (wide band)', draw: (row) => row.append('line').attr('x2', 28).attr('stroke', '#5f6b68').attr('stroke-width', 9).attr('stroke-opacity', 0.28) },
     { label: 'Hollow mark: one pump failed', draw: (row) => row.append('circle').attr('cx', 14).attr('r', 5).attr('fill', '#ffffff').attr('stroke', '#1f2624').attr('stroke-width', 2) },
   ];
-  entries.forEach((entry, index) => {
-    const row = legend.append('g').attr('class', 'rf-legend-entry').attr('transform', `translate(0,${index * 24})`);
+  let top = 0;
+  for (const entry of entries) {
+    const lines = wrapLabel(entry.label);
+    const row = legend.append('g').attr('class', 'rf-legend-entry').attr('transform', `translate(0,${top})`);
     entry.draw(row);
-    row
-      .append('text')
-      .attr('x', 36)
-      .attr('dy', '0.32em')
-      .text(entry.label.length > 36 ? `${entry.label.slice(0, 35)}…` : entry.label);
-  });
+    const text = row.append('text');
+    lines.forEach((line, lineIndex) => text.append('tspan').attr('x', 36).attr('dy', lineIndex === 0 ? '0.32em' : '1.2em').text(line));
+    top += 10 + 14 * lines.length;
+  }
+}
+
+/** A legend label in lines of at most 30 characters, broken between words; two lines at most. */
+function wrapLabel(label: string): string[] {
+  const lines: string[] = [];
+  for (const word of label.split(' ')) {
+    const last = lines.at(-1);
+    if (last !== undefined && `${last} ${word}`.length <= 30) lines[lines.length - 1] = `${last} ${word}`;
+    else lines.push(word);
+  }
+  return lines.length <= 2 ? lines : [lines[0], `${lines.slice(1).join(' ').slice(0, 29)}…`];
 }
