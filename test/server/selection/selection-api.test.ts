@@ -79,46 +79,48 @@ describe('POST /api/v1/selections', function () {
     }
   });
 
-  it('finds the same pairs in band as putting every pump on the system with the engine', async () => {
-    const response = await post('/selections', search).expect(200);
-    const body = response.body as SelectionResponse;
-    const rows = await scratch.sequelize.query<{ pump_id: number; fit: string | PumpCurveFit }>(
-      'SELECT p.id AS pump_id, r.fit FROM pumps p JOIN curve_revisions r ON r.id = p.current_revision_id',
-      { type: QueryTypes.SELECT },
-    );
-    const compiled = compileSystemCurve({
-      staticHead: headToSI(14.5, 'ft'),
-      frictionMethod: 'hazen-williams',
-      segments: [{ length: lengthToSI(240, 'ft'), pipeSizeId: 'pvc-sch40-3', fittings: system.segments[0].fittings }],
-    });
-    const [low, high] = [flowToSI(duty.flowMin, 'gpm'), flowToSI(duty.flowMax, 'gpm')];
-    const density = waterDensity(20);
-    let inBand = 0;
-    let best: { pumpId: number; running: number; energy: number } | null = null;
-    for (const row of rows) {
-      const fit = (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as PumpCurveFit;
-      for (const running of [1, 2, 3]) {
-        const point = solveParallelIdentical(fit, compiled, running, running);
-        if (!point.ok || point.totalFlow < low || point.totalFlow > high) continue;
-        inBand += 1;
-        const perPump = point.totalFlow / running;
-        const failed = running > 1 ? solveParallelIdentical(fit, compiled, running - 1, running - 1) : null;
-        const redundant = failed !== null && failed.ok && failed.totalFlow >= low;
-        if (classifyOperatingRegion(fit, perPump, DEFAULT_PREFERRED_BAND).region !== 'preferred' || !redundant) continue;
-        const energy = powerAtOperatingPoint(fit, perPump, point.head, density).electrical! * running;
-        if (!best || energy < best.energy) best = { pumpId: row.pump_id, running, energy };
+  for (const frictionMethod of ['hazen-williams', 'darcy-weisbach'] as const) {
+    it(`finds the same pairs in band as putting every pump on the system with the engine (${frictionMethod})`, async () => {
+      const response = await post('/selections', { ...search, system: { ...system, frictionMethod } }).expect(200);
+      const body = response.body as SelectionResponse;
+      const rows = await scratch.sequelize.query<{ pump_id: number; fit: string | PumpCurveFit }>(
+        'SELECT p.id AS pump_id, r.fit FROM pumps p JOIN curve_revisions r ON r.id = p.current_revision_id',
+        { type: QueryTypes.SELECT },
+      );
+      const compiled = compileSystemCurve({
+        staticHead: headToSI(14.5, 'ft'),
+        frictionMethod,
+        segments: [{ length: lengthToSI(240, 'ft'), pipeSizeId: 'pvc-sch40-3', fittings: system.segments[0].fittings }],
+      });
+      const [low, high] = [flowToSI(duty.flowMin, 'gpm'), flowToSI(duty.flowMax, 'gpm')];
+      const density = waterDensity(20);
+      let inBand = 0;
+      let best: { pumpId: number; running: number; energy: number } | null = null;
+      for (const row of rows) {
+        const fit = (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as PumpCurveFit;
+        for (const running of [1, 2, 3]) {
+          const point = solveParallelIdentical(fit, compiled, running, running);
+          if (!point.ok || point.totalFlow < low || point.totalFlow > high) continue;
+          inBand += 1;
+          const perPump = point.totalFlow / running;
+          const failed = running > 1 ? solveParallelIdentical(fit, compiled, running - 1, running - 1) : null;
+          const redundant = failed !== null && failed.ok && failed.totalFlow >= low;
+          if (classifyOperatingRegion(fit, perPump, DEFAULT_PREFERRED_BAND).region !== 'preferred' || !redundant) continue;
+          const energy = powerAtOperatingPoint(fit, perPump, point.head, density).electrical! * running;
+          if (!best || energy < best.energy) best = { pumpId: row.pump_id, running, energy };
+        }
       }
-    }
-    expect(body.considered).to.equal(rows.length * 3);
-    expect(body.inBand).to.equal(inBand);
-    expect(inBand, 'the synthetic catalog should put some pumps in this band').to.be.greaterThan(5);
-    expect(best, 'some pair should be in band, preferred and redundant').to.not.equal(null);
-    expect(body.candidates[0]).to.include({ pumpId: best!.pumpId });
-    expect(body.candidates[0].arrangement.running).to.equal(best!.running);
-    // annual energy: input power x 24 h x 365 d
-    expect(body.candidates[0].annualKWh).to.be.closeTo((best!.energy * 24 * 365) / 1000, 1e-3);
-    expect(body.candidates[0].annualCost).to.be.closeTo(body.candidates[0].annualKWh! * 0.2, 1e-6);
-  });
+      expect(body.considered).to.equal(rows.length * 3);
+      expect(body.inBand).to.equal(inBand);
+      expect(inBand, 'the synthetic catalog should put some pumps in this band').to.be.greaterThan(5);
+      expect(best, 'some pair should be in band, preferred and redundant').to.not.equal(null);
+      expect(body.candidates[0]).to.include({ pumpId: best!.pumpId });
+      expect(body.candidates[0].arrangement.running).to.equal(best!.running);
+      // annual energy: input power x 24 h x 365 d
+      expect(body.candidates[0].annualKWh).to.be.closeTo((best!.energy * 24 * 365) / 1000, 1e-3);
+      expect(body.candidates[0].annualCost).to.be.closeTo(body.candidates[0].annualKWh! * 0.2, 1e-6);
+    });
+  }
 
   it('ranks in band and preferred first, then by annual energy, and says why', async () => {
     const body = (await post('/selections', search).expect(200)).body as SelectionResponse;
