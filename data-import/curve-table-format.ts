@@ -1,4 +1,4 @@
-import { FLOW_UNITS, HEAD_UNITS } from '../shared/hydraulics';
+import { FLOW_UNITS, HEAD_UNITS, POWER_UNITS, type PowerUnit } from '../shared/hydraulics';
 import type { PumpKind, PumpStatus } from '../server/database/models/pump';
 
 /*
@@ -20,12 +20,13 @@ export const curveTableLimits = {
   maxErrorsListed: 200,
 } as const;
 
-export const powerUnits = ['W', 'kW', 'hp'] as const;
+/** The engine's power units (W, kW, mechanical hp). */
+export const powerUnits = POWER_UNITS;
 export const efficiencyUnits = ['%', 'fraction'] as const;
 export const sizeUnits = ['mm', 'in'] as const;
 export const powerBases = ['shaft', 'electrical'] as const;
 
-export type PowerUnitName = (typeof powerUnits)[number];
+export type PowerUnitName = PowerUnit;
 export type EfficiencyUnitName = (typeof efficiencyUnits)[number];
 export type SizeUnitName = (typeof sizeUnits)[number];
 

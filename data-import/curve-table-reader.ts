@@ -1,8 +1,7 @@
 import { createHash } from 'node:crypto';
 import { Readable, Transform, pipeline, type TransformCallback } from 'node:stream';
 import { parse, CsvError } from 'csv-parse';
-import { unit } from 'mathjs';
-import { diameterToSI, flowToSI, headToSI, type FlowUnit, type HeadUnit } from '../shared/hydraulics';
+import { diameterToSI, flowToSI, headToSI, powerToSI, type FlowUnit, type HeadUnit } from '../shared/hydraulics';
 import type { CurveFileUnits, CurveImportIssue } from '../shared/api/api-schemas';
 import type { PumpKind, PumpStatus } from '../server/database/models/pump';
 import {
@@ -86,9 +85,6 @@ export interface ReadOptions {
   /** Called as bytes are read, for a progress bar. */
   onBytes?: (bytesRead: number) => void;
 }
-
-/** Mechanical horsepower and kilowatt in watts, from mathjs's unit definitions (hp = 745.699872 W, NIST SP 811, 2008, Appendix B.8). */
-const wattsPer: Readonly<Record<PowerUnitName, number>> = { W: 1, kW: 1000, hp: unit(1, 'hp').toNumber('W') };
 
 class FileTooLargeError extends Error {}
 
@@ -641,7 +637,7 @@ class TableState {
       row: values.row,
       flow: flowToSI(flow, flowUnit),
       head: headToSI(head, headUnit),
-      ...(power !== undefined && powerUnit ? { power: power * wattsPer[powerUnit] } : {}),
+      ...(power !== undefined && powerUnit ? { power: powerToSI(power, powerUnit) } : {}),
       ...(efficiency !== undefined ? { efficiency: efficiencyUnit === '%' ? efficiency / 100 : efficiency } : {}),
       ...(npsh !== undefined && npshUnit ? { npshRequired: headToSI(npsh, npshUnit) } : {}),
     };

@@ -16,7 +16,6 @@ import { createAccountHandlers, createOperationGuards } from './accounts/account
 import { accountsDependenciesFrom, type AccountsDependencies } from './accounts/accounts-dependencies';
 import { createCalculationHandlers } from './calculations/calculation-handlers';
 import { CatalogSnapshot } from './selection/catalog-snapshot';
-// catalog and curve imports
 import { createCatalogHandlers } from './catalog/catalog-handlers';
 import { createCurveImportHandlers } from './catalog/curve-import-handlers';
 

@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { projectRoot } from '../server/config';
 import { createSequelize } from '../server/database/connection';
-import { seedDemoDataWhenEmpty } from '../server/database/demo-seed';
+import { seedMissingDemoData } from '../server/database/demo-seed';
 import { createMigrator } from '../server/database/migrator';
 import { initialiseModels } from '../server/database/models';
 import { PrivateMariaDb } from '../server/database/private-mariadb';
@@ -84,7 +84,7 @@ async function main(): Promise<number> {
     const sequelize = createSequelize(databaseConfig);
     initialiseModels(sequelize);
     await createMigrator(sequelize).up();
-    await seedDemoDataWhenEmpty(sequelize);
+    await seedMissingDemoData(sequelize);
     await sequelize.close();
 
     await ensureClientBuilt(say);

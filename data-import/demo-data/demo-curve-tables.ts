@@ -2,6 +2,7 @@ import { flowFromSI, headFromSI, STANDARD_GRAVITY, waterDensity, type FlowUnit, 
 import type { PumpKind } from '../../server/database/models/pump';
 import type { CurveTableColumn } from '../curve-table-format';
 import { formatCurveTable, type CurveTableDraft } from '../curve-table-writer';
+import { seededRandom } from './seeded-random';
 
 /*
  * The demo catalog: invented pumps of invented suppliers, generated from parametric curve shapes
@@ -40,11 +41,11 @@ const kindShapes: Record<PumpKind, KindShape> = {
   submersible: {
     kind: 'submersible',
     label: 'pond submersible',
-    shutOff: [1.6, 8.5],
-    runOut: [1.8, 32],
+    shutOff: [1.6, 12],
+    runOut: [1.8, 44],
     peakEfficiency: [0.22, 0.52],
-    slope: -0.12,
-    endRatio: 0.12,
+    slope: -0.05,
+    endRatio: 0.3,
     speedRpm: 2850,
     npsh: null,
     discharge: [19, 50],
@@ -106,18 +107,6 @@ const supplierPlans: SupplierPlan[] = [
   { code: 'QUILLWATER', prefix: 'QW', delimiter: ';', flowUnit: 'm3/h', headUnit: 'm', curveData: 'power-kW', powerBasis: 'shaft', sizeUnit: 'mm', currency: 'EUR', sizes: { submersible: 8, 'external-centrifugal': 8, 'mixed-flow': 6 }, seed: 23 },
   { code: 'STONETARN', prefix: 'ST', delimiter: ',', flowUnit: 'L/min', headUnit: 'm', curveData: 'efficiency', powerBasis: 'electrical', sizeUnit: 'mm', currency: null, sizes: { submersible: 9, 'external-centrifugal': 7, 'mixed-flow': 5 }, seed: 37 },
 ];
-
-/** mulberry32, a small seeded generator (public-domain, T. Ettinger): the same numbers on every run. */
-function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Geometric steps between the smallest and the largest size, as pump ranges are usually spaced. */
 function between([low, high]: [number, number], share: number): number {

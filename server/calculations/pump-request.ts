@@ -5,11 +5,12 @@ import {
   fitPumpCurve,
   flowToSI,
   headToSI,
+  powerToSI,
   type PreferredBand,
   type PumpCurveFit,
 } from '../../shared/hydraulics';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
-import { answerUnits, powerToSI, powerUnitOf } from './request-units';
+import { answerUnits, powerUnitOf } from './request-units';
 import { plausibleLimits } from './system-request';
 
 /** Highest pump head Riffle accepts on a curve, m: beyond any water-feature pump (a typing slip). */

@@ -1,8 +1,7 @@
 import type { Sequelize } from 'sequelize';
+import { seedDemoCurvesWhenNone } from '../../data-import/demo-data/demo-curve-seed';
 import { seedDemoAccountsWhenNone } from '../accounts/demo-accounts';
 import { Supplier } from './models';
-// catalog
-import { seedDemoCurvesWhenNone } from '../../data-import/demo-data/demo-curve-seed';
 
 /** Invented suppliers for the demo; no real maker or distributor is meant. */
 export const demoSuppliers = [
@@ -11,20 +10,21 @@ export const demoSuppliers = [
   { code: 'STONETARN', name: 'Stonetarn Demo Hydraulics' },
 ] as const;
 
-/** Fills an empty database with the demo data; a database that holds anything is left alone. */
-export async function seedDemoDataWhenEmpty(sequelize: Sequelize): Promise<boolean> {
-  if ((await Supplier.count()) > 0) {
-    // Demo accounts: a database seeded before accounts existed gets them too.
-    await sequelize.transaction((transaction) => seedDemoAccountsWhenNone(transaction));
-    // catalog: a database seeded before the catalog existed gets the demo pumps too.
-    await seedDemoCurvesWhenNone(sequelize);
-    return false;
-  }
-  await sequelize.transaction(async (transaction) => {
-    await Supplier.bulkCreate([...demoSuppliers], { transaction });
-    await seedDemoAccountsWhenNone(transaction);
-  });
-  // catalog: the demo curve tables, through the same import path as the command and the API.
-  await seedDemoCurvesWhenNone(sequelize);
+async function seedDemoSuppliersWhenNone(): Promise<boolean> {
+  if ((await Supplier.count()) > 0) return false;
+  await Supplier.bulkCreate([...demoSuppliers]);
   return true;
+}
+
+/**
+ * Fills in the demo data, each part only where none of its kind exists yet, so a database made
+ * before a part existed gets it too and nothing a user entered is touched. Suppliers first: the
+ * demo accounts and curve tables name them. The curves go through the same import path as the
+ * command and the API. Returns whether anything was added.
+ */
+export async function seedMissingDemoData(sequelize: Sequelize): Promise<boolean> {
+  const suppliersAdded = await seedDemoSuppliersWhenNone();
+  const accountsAdded = await sequelize.transaction((transaction) => seedDemoAccountsWhenNone(transaction));
+  const pumpsAdded = (await seedDemoCurvesWhenNone(sequelize)) > 0;
+  return suppliersAdded || accountsAdded || pumpsAdded;
 }

@@ -6,7 +6,7 @@ import type { Sequelize } from 'sequelize';
 import { createApp, defaultClientFolder } from '../app';
 import { ConfigError, loadConfig } from '../config';
 import { createSequelize } from '../database/connection';
-import { seedDemoDataWhenEmpty } from '../database/demo-seed';
+import { seedMissingDemoData } from '../database/demo-seed';
 import { createMigrator } from '../database/migrator';
 import { initialiseModels } from '../database/models';
 import { MariaDbStartError, PrivateMariaDb } from '../database/private-mariadb';
@@ -90,7 +90,7 @@ async function main(): Promise<void> {
     initialiseModels(sequelize);
     const applied = await createMigrator(sequelize).up();
     if (applied.length > 0) say(`applied ${applied.length} migration(s)`);
-    if (config.demo && (await seedDemoDataWhenEmpty(sequelize))) say('loaded the demo data (invented suppliers and pumps)');
+    if (config.demo && (await seedMissingDemoData(sequelize))) say('loaded the demo data (invented suppliers and pumps)');
 
     // Mail: the loopback fake SMTP server unless a relay is configured.
     let mailPort = config.mail.port;

@@ -1,10 +1,10 @@
 import type { RequestHandler } from 'express';
 import type { SelectionCandidate, SelectionRequest, SelectionResponse } from '../../shared/api/api-schemas';
-import { flowToSI } from '../../shared/hydraulics';
+import { flowToSI, powerToSI } from '../../shared/hydraulics';
 import { operatingPointSummary } from '../calculations/calculation-handlers';
 import { unprocessable } from '../calculations/engine-problem';
 import { preferredBandOf } from '../calculations/pump-request';
-import { answerUnits, echoedUnits, powerToSI, powerUnitOf } from '../calculations/request-units';
+import { answerUnits, echoedUnits, powerUnitOf } from '../calculations/request-units';
 import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
 import type { CatalogPump, CatalogSnapshot } from './catalog-snapshot';
 import { sampledCombinedCurve, searchCatalog, type RankedCandidate, type SelectionQuery } from './selection-search';

@@ -21,12 +21,15 @@ export const LENGTH_UNITS = ['m', 'ft'] as const;
 export const DIAMETER_UNITS = ['mm', 'in', 'm'] as const;
 /** Pressure units accepted at the API edge (gauge or absolute as the caller states). */
 export const PRESSURE_UNITS = ['Pa', 'kPa', 'bar', 'psi'] as const;
+/** Power units accepted at the API edge and in curve tables (hp is mechanical horsepower, 745.699872 W). */
+export const POWER_UNITS = ['W', 'kW', 'hp'] as const;
 
 export type FlowUnit = (typeof FLOW_UNITS)[number];
 export type HeadUnit = (typeof HEAD_UNITS)[number];
 export type LengthUnit = (typeof LENGTH_UNITS)[number];
 export type DiameterUnit = (typeof DIAMETER_UNITS)[number];
 export type PressureUnit = (typeof PRESSURE_UNITS)[number];
+export type PowerUnit = (typeof POWER_UNITS)[number];
 
 function factorsToSI<U extends string>(
   mathjsNames: Record<U, string>,
@@ -53,6 +56,7 @@ const FLOW_FACTORS = factorsToSI<FlowUnit>(
 const LENGTH_FACTORS = factorsToSI<LengthUnit>({ m: 'm', ft: 'ft' }, 'm');
 const DIAMETER_FACTORS = factorsToSI<DiameterUnit>({ mm: 'mm', in: 'inch', m: 'm' }, 'm');
 const PRESSURE_FACTORS = factorsToSI<PressureUnit>({ Pa: 'Pa', kPa: 'kPa', bar: 'bar', psi: 'psi' }, 'Pa');
+const POWER_FACTORS = factorsToSI<PowerUnit>({ W: 'W', kW: 'kW', hp: 'hp' }, 'W');
 
 /** A pair of conversions between `U` and the SI unit of one quantity. */
 interface Conversion<U extends string> {
@@ -86,6 +90,7 @@ const HEAD = conversion(LENGTH_FACTORS, HEAD_UNITS, 'head', '/headUnit');
 const LENGTH = conversion(LENGTH_FACTORS, LENGTH_UNITS, 'length', '/lengthUnit');
 const DIAMETER = conversion(DIAMETER_FACTORS, DIAMETER_UNITS, 'diameter', '/diameterUnit');
 const PRESSURE = conversion(PRESSURE_FACTORS, PRESSURE_UNITS, 'pressure', '/pressureUnit');
+const POWER = conversion(POWER_FACTORS, POWER_UNITS, 'power', '/powerUnit');
 
 /** Flow in `unitName` to m3/s. Unknown unit -> HydraulicsInputError listing FLOW_UNITS. */
 export const flowToSI = FLOW.toSI;
@@ -107,6 +112,10 @@ export const diameterFromSI = DIAMETER.fromSI;
 export const pressureToSI = PRESSURE.toSI;
 /** Pressure in Pa to `unitName`. */
 export const pressureFromSI = PRESSURE.fromSI;
+/** Power in `unitName` to W. */
+export const powerToSI = POWER.toSI;
+/** Power in W to `unitName`. */
+export const powerFromSI = POWER.fromSI;
 
 /**
  * Pressure to the equivalent column of water: h = p / (rho g).

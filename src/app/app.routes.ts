@@ -4,15 +4,10 @@ import { signedInGuard } from './core/signed-in-guard';
 
 export const appRoutes: Routes = [
   { path: '', pathMatch: 'full', title: 'Riffle', loadComponent: () => import('./home/home-page').then((m) => m.HomePage) },
-  // accounts and access
   { path: 'accounts', loadChildren: () => import('./accounts/accounts.routes').then((m) => m.accountsRoutes) },
   { path: 'account', title: 'Your account - Riffle', canActivate: [signedInGuard], loadComponent: () => import('./accounts/account-page').then((m) => m.AccountPage) },
   { path: 'admin', canActivate: [roleGuard], data: { roles: ['admin'] }, loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
-  // end of accounts and access
-  // pump selection
   { path: 'design', loadChildren: () => import('./selection/design.routes').then((m) => m.designRoutes) },
-  // end of pump selection
-  // catalog and curve imports
   { path: 'catalog', canActivate: [signedInGuard], loadChildren: () => import('./catalog/catalog.routes').then((m) => m.catalogRoutes) },
   {
     path: 'curve-imports',
@@ -21,6 +16,5 @@ export const appRoutes: Routes = [
     data: { roles: ['supplier-admin', 'admin'] },
     loadComponent: () => import('./curve-import/curve-import-page').then((m) => m.CurveImportPage),
   },
-  // end of catalog and curve imports
   { path: '**', redirectTo: '' },
 ];

@@ -12,16 +12,10 @@ export interface NavigationLink {
 export const navigationLinks: readonly NavigationLink[] = [
   { label: 'Overview', icon: 'water', path: '/' },
   { label: 'API reference', icon: 'integration_instructions', path: '/api/docs', external: true },
-  // pump selection
   { label: 'Design', icon: 'tune', path: '/design', roles: ['designer', 'admin', 'integrator'] },
-  // end of pump selection
-  // catalog and curve imports
   { label: 'Catalog', icon: 'inventory_2', path: '/catalog', roles: ['admin', 'supplier-admin', 'designer', 'integrator'] },
   { label: 'Curve tables', icon: 'upload_file', path: '/curve-imports', roles: ['supplier-admin', 'admin'] },
-  // end of catalog and curve imports
-  // accounts and access
   { label: 'Users', icon: 'group', path: '/admin/users', roles: ['admin'] },
   { label: 'Audit log', icon: 'policy', path: '/admin/audit-log', roles: ['admin'] },
   { label: 'Demo mailbox', icon: 'mail', path: '/admin/demo-mailbox', roles: ['admin'] },
-  // end of accounts and access
 ];

@@ -18,23 +18,12 @@ import {
   type PumpCurveFit,
   type SystemCurveInput,
 } from '../../shared/hydraulics';
+import { seededRandom } from '../../data-import/demo-data/seeded-random';
 
 const PUMP_COUNT = 10_000;
 const WARM_UP_ROUNDS = 30;
 const MEASURED_ROUNDS = 40;
 const HOURS_PER_DAY = 24;
-
-/** Deterministic PRNG (mulberry32) so every run measures the same pumps. */
-function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Synthetic pond and waterfall pumps: 2-25 m shut-off, 1-40 m3/h, six published points with efficiency. */
 function syntheticStoredFits(count: number): PumpCurveFit[] {
