@@ -60,6 +60,11 @@ async function runAngularSpecs(env: NodeJS.ProcessEnv, workFolder: string): Prom
   return { name: 'angular (vitest)', passed: report.numPassedTests, failed: report.numFailedTests || (exitCode === 0 ? 0 : 1) };
 }
 
+async function runTypeCheck(env: NodeJS.ProcessEnv): Promise<SuiteResult> {
+  const exitCode = await runChild(process.execPath, [join(projectRoot, 'node_modules', 'typescript', 'bin', 'tsc'), '--noEmit', '-p', 'tsconfig.json'], env);
+  return { name: 'type check (tsc)', passed: exitCode === 0 ? 1 : 0, failed: exitCode === 0 ? 0 : 1 };
+}
+
 async function main(): Promise<number> {
   const workFolder = mkdtempSync(join(tmpdir(), 'riffle-test-'));
   const databasePort = await freeLoopbackPort();
@@ -106,6 +111,8 @@ async function main(): Promise<number> {
       RIFFLE_SMTP_PORT: String(smtp.port),
       RIFFLE_MAILBOX_FOLDER: mailboxFolder,
     };
+    say('type check');
+    results.push(await runTypeCheck(env));
     say('mocha suites');
     results.push(await runMocha(env, workFolder));
     say('Angular unit tests');

@@ -9,7 +9,8 @@ export function createSequelize(database: RiffleConfig['database']): Sequelize {
     port: database.port,
     logging: false,
     pool: { max: 10, min: 0, idle: 10_000, acquire: 10_000 },
-    dialectOptions: { connectTimeout: 3000, timezone: 'Etc/GMT0' },
+    timezone: '+00:00',
+    dialectOptions: { connectTimeout: 3000 },
     define: { underscored: true },
   });
 }
