@@ -1,4 +1,5 @@
 import { expect } from 'chai';
+import { quadraticSystem } from './quadratic-system';
 import {
   compileSystemCurve,
   diameterToSI,
@@ -6,6 +7,7 @@ import {
   flowFromSI,
   flowToSI,
   headFromSI,
+  headLossDarcyWeisbach,
   headToSI,
   hydraulicPower,
   pumpCurveAtSpeed,
@@ -42,10 +44,16 @@ import {
  * [UNLV] University of Nevada, Las Vegas, CEM 350 Facilities Design I,
  *   Module 7 Piping Equipment and Systems, calculation examples 2 and 3.
  *   Read at courses.online.unlv.edu/courses/CEM/CEM350/module-7-accordion.
+ * [EM] E. P. Maurer, R package "hydraulics" 0.7.0 (CRAN), vignette
+ *   "hydraulics_vignette", section 6.0 "Pump Curve and Operating Points",
+ *   printed output. Read at github.com/EdM44/hydraulics,
+ *   docs/articles/hydraulics_vignette.html, with R/pumpcurve.R (the fit) and
+ *   R/darcy_weisbach.R (g = 32.2 ft/s2 in US units).
  */
 
 const gpm = (value: number) => flowToSI(value, 'gpm');
 const ft = (value: number) => headToSI(value, 'ft');
+const CUBIC_FOOT = 0.3048 ** 3; // m3, from the international foot (NIST SP 811)
 const WATER_HORSEPOWER_WATTS = 745.69987; // 1 hp = 550 ft lbf/s (NIST SP 811)
 
 describe('published worked examples', () => {
@@ -104,6 +112,45 @@ describe('published worked examples', () => {
         if (!point.ok) throw new Error(point.message);
         expect(flowFromSI(point.flow, 'gpm')).to.be.closeTo(190.6, 0.5);
       });
+    });
+  });
+
+  describe('[EM] operating point of a pump given as three points on a 20 in pipeline with 30 ft of static head', () => {
+    // Given: K = h_f at 1 ft3/s through 3884 ft of 20 in pipe, ks 0.0005 ft, nu 1.23e-5 ft2/s (Colebrook),
+    // held constant as h = 30 + K Q^2 (Q in ft3/s); printed "Coefficient K: 0.160".
+    // Pump points 0, 5000, 7850 gpm at 81, 60, 20 ft, fitted as h = a + c Q^2 by least squares.
+    // Stated: "Operating Point: Q = 12.051, h = 53.285" (ft3/s, ft).
+    const diameter = ft(20 / 12);
+    const length = ft(3884);
+    const kinematicViscosity = 1.23e-5 * 0.3048 ** 2;
+    const lossAtOneCfs = headLossDarcyWeisbach(length, CUBIC_FOOT, diameter, ft(0.0005), kinematicViscosity);
+
+    it('has the stated system coefficient 0.160 ft per (ft3/s)^2 (3 decimals)', () => {
+      expect(headFromSI(lossAtOneCfs, 'ft')).to.be.closeTo(0.16, 0.0005);
+    });
+
+    it('operates at the stated 12.051 ft3/s and 53.285 ft', () => {
+      // the source's fit form, h = a + c Q^2 by least squares (R: lm(h ~ I(Q^2))), here in SI
+      const points = [
+        [gpm(0), ft(81)],
+        [gpm(5000), ft(60)],
+        [gpm(7850), ft(20)],
+      ];
+      const squares = points.map(([q]) => q * q);
+      const mean = (values: number[]) => values.reduce((sum, value) => sum + value, 0) / values.length;
+      const meanSquare = mean(squares);
+      const meanHead = mean(points.map(([, h]) => h));
+      const c =
+        points.reduce((sum, [, h], i) => sum + (squares[i] - meanSquare) * (h - meanHead), 0) /
+        squares.reduce((sum, square) => sum + (square - meanSquare) ** 2, 0);
+      const pump = { headCoefficients: [meanHead - c * meanSquare, 0, c], flowMin: 0, flowMax: gpm(7850) };
+      const system = quadraticSystem(ft(30), lossAtOneCfs / CUBIC_FOOT ** 2);
+      const point = solveOperatingPoint(pump, system);
+      if (!point.ok) throw new Error(point.message);
+      // The source stops Colebrook and the intersection at R's default tolerance (about 1e-4) and takes
+      // g = 32.2 ft/s2 against the engine's 9.80665 m/s2: together about 0.003 ft3/s and 0.01 ft here.
+      expect(point.flow / CUBIC_FOOT).to.be.closeTo(12.051, 0.005);
+      expect(headFromSI(point.head, 'ft')).to.be.closeTo(53.285, 0.015);
     });
   });
 
