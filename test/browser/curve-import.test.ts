@@ -2,11 +2,10 @@ import { expect } from 'chai';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { QueryTypes } from 'sequelize';
 import { createUserWithSession, testPassword } from '../support/accounts';
-import { openBrowser, saveScreenshot, type BrowserSession } from '../support/browser';
-import { createScratchDatabase } from '../support/test-database';
-import { startTestServer } from '../support/test-server';
+import { scratchDatabase, useAppInChromium } from '../support/app-in-chromium';
+import { saveScreenshot } from '../support/browser';
 import { seedDemoCatalog } from '../data-import/catalog-fixtures';
 
 /** Head at the second point rises a little (1.3 % of shut-off head): flagged as a warning, not refused. */
@@ -27,62 +26,53 @@ const fileWithWarning = [
 
 describe('a supplier admin loads a curve table in Chromium', function () {
   this.timeout(120_000);
-  let sequelize: Sequelize;
-  let drop: () => Promise<void>;
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: BrowserSession;
+  const app = useAppInChromium(scratchDatabase('curve_import_browser'));
   let email: string;
   const folder = mkdtempSync(join(tmpdir(), 'riffle-curve-upload-'));
   const file = join(folder, 'browser-test-curves.csv');
 
   before(async () => {
-    ({ sequelize, drop } = await createScratchDatabase('curve_import_browser'));
-    const [alderbrook] = await seedDemoCatalog(sequelize);
-    ({ user: { email } } = await createUserWithSession(sequelize, 'supplier-admin', { supplierId: alderbrook.id, name: 'Browser Supplier Admin' }));
+    const [alderbrook] = await seedDemoCatalog(app.sequelize);
+    ({ user: { email } } = await createUserWithSession(app.sequelize, 'supplier-admin', { supplierId: alderbrook.id, name: 'Browser Supplier Admin' }));
     writeFileSync(file, fileWithWarning);
-    server = await startTestServer(sequelize);
-    browser = await openBrowser();
   });
 
-  after(async () => {
-    await browser?.close();
-    await server?.close();
-    await drop?.();
+  after(() => {
     rmSync(folder, { recursive: true, force: true });
   });
 
   it('signs in and reaches the import page for its own supplier', async () => {
-    const { page } = browser;
-    await page.goto(`${server.url}/curve-imports`, { waitUntil: 'networkidle' });
+    const { page } = app;
+    await page.goto(`${app.url}/curve-imports`, { waitUntil: 'networkidle' });
     await page.waitForURL(/\/accounts\/sign-in/);
     await page.getByLabel('E-mail address').fill(email);
     await page.getByLabel('Password').fill(testPassword);
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.url}/curve-imports`);
+    await page.waitForURL(`${app.url}/curve-imports`);
     await page.locator('.rf-supplier', { hasText: 'Alderbrook Demo Pumps' }).waitFor();
     await page.locator('.rf-history', { hasText: 'demo seed' }).waitFor();
   });
 
   it('uploads a file and sees the preview with the head-rise warning; nothing is saved yet', async () => {
-    const { page } = browser;
+    const { page } = app;
     await page.locator('input[type=file]').setInputFiles(file);
     await page.locator('.rf-summary', { hasText: 'Preview: nothing is saved yet' }).waitFor();
     const row = page.locator('table.rf-preview tr', { hasText: 'BRW-7' });
     expect(await row.innerText()).to.contain('New pump');
     expect(await row.locator('.rf-pump-warnings').innerText()).to.match(/Row 8, column head: head rises by 1\.3 %/);
     expect(await row.locator('rf-pump-curve-chart svg circle').count()).to.equal(6);
-    const [stored] = await sequelize.query<{ n: number }>("SELECT COUNT(*) AS n FROM pumps WHERE model_code = 'BRW-7'", { type: QueryTypes.SELECT });
+    const [stored] = await app.sequelize.query<{ n: number }>("SELECT COUNT(*) AS n FROM pumps WHERE model_code = 'BRW-7'", { type: QueryTypes.SELECT });
     expect(Number(stored.n)).to.equal(0);
     await saveScreenshot(page, 'curve-import-preview');
   });
 
   it('commits, and the pump appears in the catalog with its curve', async () => {
-    const { page } = browser;
+    const { page } = app;
     await page.getByRole('button', { name: /Commit 1 pump/ }).click();
     await page.locator('.rf-summary', { hasText: 'Saved as import' }).waitFor();
     await page.locator('.rf-history', { hasText: 'browser-test-curves.csv' }).waitFor();
 
-    await page.goto(`${server.url}/catalog`, { waitUntil: 'networkidle' });
+    await page.goto(`${app.url}/catalog`, { waitUntil: 'networkidle' });
     await page.getByLabel('Model or name').fill('BRW');
     await page.getByRole('button', { name: 'Show pumps' }).click();
     // The unfiltered first page goes; the filtered one has the new pump alone.
@@ -95,6 +85,6 @@ describe('a supplier admin loads a curve table in Chromium', function () {
     expect(await page.locator('rf-pump-curve-chart svg circle').count()).to.equal(6);
     expect(await page.locator('.rf-revisions').innerText()).to.contain('browser-test-curves.csv');
     await saveScreenshot(page, 'catalog-pump-page');
-    expect(browser.offLoopbackRequests).to.deep.equal([]);
+    expect(app.browser.offLoopbackRequests).to.deep.equal([]);
   });
 });

@@ -1,9 +1,8 @@
 import { expect } from 'chai';
 import { readFileSync } from 'node:fs';
-import { openBrowser, saveScreenshot, type BrowserSession } from '../support/browser';
+import { scratchDatabase, useAppInChromium } from '../support/app-in-chromium';
+import { saveScreenshot } from '../support/browser';
 import { createUserWithSession, testPassword } from '../support/accounts';
-import { createScratchDatabase } from '../support/test-database';
-import { startTestServer } from '../support/test-server';
 import { seedSyntheticCatalog, syntheticShapes } from '../server/selection/synthetic-catalog';
 
 /*
@@ -12,28 +11,17 @@ import { seedSyntheticCatalog, syntheticShapes } from '../server/selection/synth
  */
 describe('pump selection in Chromium', function () {
   this.timeout(120_000);
-  let scratch: Awaited<ReturnType<typeof createScratchDatabase>>;
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: BrowserSession;
+  const app = useAppInChromium(scratchDatabase('selection_browser'));
   let email: string;
 
   before(async () => {
-    scratch = await createScratchDatabase('selection_browser');
-    await seedSyntheticCatalog(scratch.sequelize, syntheticShapes(400, 11), 'Browser Test Pumps');
-    email = (await createUserWithSession(scratch.sequelize, 'designer')).user.email;
-    server = await startTestServer(scratch.sequelize);
-    browser = await openBrowser();
-  });
-
-  after(async () => {
-    await browser?.close();
-    await server?.close();
-    await scratch?.drop();
+    await seedSyntheticCatalog(app.sequelize, syntheticShapes(400, 11), 'Browser Test Pumps');
+    email = (await createUserWithSession(app.sequelize, 'designer')).user.email;
   });
 
   it('signs the designer in', async () => {
-    const { page } = browser;
-    await page.goto(`${server.url}/accounts/sign-in`, { waitUntil: 'networkidle' });
+    const { page } = app;
+    await page.goto(`${app.url}/accounts/sign-in`, { waitUntil: 'networkidle' });
     await page.fill('input[name=email]', email);
     await page.fill('input[name=password]', testPassword);
     await page.click('button[type=submit]');
@@ -41,8 +29,8 @@ describe('pump selection in Chromium', function () {
   });
 
   it('builds the system from two measured levels and previews its curve', async () => {
-    const { page } = browser;
-    await page.goto(`${server.url}/design/system`, { waitUntil: 'networkidle' });
+    const { page } = app;
+    await page.goto(`${app.url}/design/system`, { waitUntil: 'networkidle' });
     await page.getByText('From two measured water levels').click();
     await page.fill('input[name=intakeLevel]', '100');
     await page.fill('input[name=dischargeLevel]', '114.5');
@@ -56,7 +44,7 @@ describe('pump selection in Chromium', function () {
   });
 
   it('plans the band from a pond turnover and finds candidates', async () => {
-    const { page } = browser;
+    const { page } = app;
     await page.getByRole('link', { name: /Next: flow band/ }).click();
     await page.getByText('Pond turnover').click();
     await page.fill('input[name=volume]', '6000');
@@ -75,7 +63,7 @@ describe('pump selection in Chromium', function () {
   });
 
   it('compares three candidates on one chart, in both unit systems, and exports it', async () => {
-    const { page } = browser;
+    const { page } = app;
     const boxes = page.locator('tr[data-candidate] mat-checkbox input');
     for (let index = 0; index < 3; index += 1) await boxes.nth(index).check();
     await page.getByRole('link', { name: /Compare 3/ }).click();
@@ -103,6 +91,6 @@ describe('pump selection in Chromium', function () {
     expect(exported).to.contain('class="rf-system-curve"');
 
     await saveScreenshot(page, 'pump-comparison');
-    expect(browser.offLoopbackRequests).to.deep.equal([]);
+    expect(app.browser.offLoopbackRequests).to.deep.equal([]);
   });
 });
