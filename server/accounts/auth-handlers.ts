@@ -1,6 +1,6 @@
 import type { Request, RequestHandler } from 'express';
 import { Op, type Sequelize } from 'sequelize';
-import type { InvitationAcceptance, NewPasswordRequest, PasswordResetRequest, SignInRequest } from '../../shared/api/api-schemas';
+import type { InvitationAcceptance, NewPasswordRequest, PasswordChange, PasswordResetRequest, SignInRequest } from '../../shared/api/api-schemas';
 import { ProblemError } from '../api/problem-details';
 import { Invitation, PasswordResetLink, User } from '../database/models';
 import { passwordResetMessage } from './account-mail';
@@ -20,12 +20,12 @@ function linkGone(): ProblemError {
   ], 'link-gone');
 }
 
-function refuseWeakPassword(password: string, email: string): void {
+function refuseWeakPassword(password: string, email: string, pointer = '/body/password'): void {
   const weakness = passwordWeakness(password, email);
-  if (weakness) throw new ProblemError(422, 'Password too weak', `The password ${weakness}`, [{ pointer: '/body/password', detail: weakness }], 'weak-password');
+  if (weakness) throw new ProblemError(422, 'Password too weak', `The password ${weakness}`, [{ pointer, detail: weakness }], 'weak-password');
 }
 
-/** Sign-in, sign-out, who-am-I, and the two e-mailed links: password reset and invitation. */
+/** Sign-in, sign-out, who-am-I, a password change, and the two e-mailed links: password reset and invitation. */
 export function createAuthHandlers(sequelize: Sequelize, dependencies: AccountsDependencies): Record<string, RequestHandler> {
   const sendResetLink = async (request: Request, email: string): Promise<void> => {
     const user = await User.findOne({ where: { email, disabled: false } });
@@ -62,6 +62,24 @@ export function createAuthHandlers(sequelize: Sequelize, dependencies: AccountsD
 
     getCurrentUser: async (request, response) => {
       response.set('Cache-Control', 'no-store').json(toAccountUser(currentUser(request)));
+    },
+
+    changePassword: async (request, response) => {
+      const body = request.body as PasswordChange;
+      const { id } = currentUser(request);
+      const user = await User.findByPk(id, { rejectOnEmpty: true });
+      if (!(await verifyPassword(user.passwordHash, body.currentPassword))) {
+        await recordAuditEvent(request, { action: 'password-change-failed', subjectUserId: user.id, email: user.email, detail: 'wrong current password' });
+        throw new ProblemError(422, 'Wrong current password', 'The current password is not right', [{ pointer: '/body/currentPassword', detail: 'is not right' }], 'wrong-current-password');
+      }
+      refuseWeakPassword(body.newPassword, user.email, '/body/newPassword');
+      const passwordHash = await hashPassword(body.newPassword);
+      await sequelize.transaction(async (transaction) => {
+        await User.update({ passwordHash }, { where: { id: user.id }, transaction });
+        await revokeAllSessions(user.id, transaction, new Date(), presentedToken(request));
+        await recordAuditEvent(request, { action: 'password-changed', actorUserId: user.id, subjectUserId: user.id, email: user.email }, transaction);
+      });
+      response.status(204).end();
     },
 
     requestPasswordReset: async (request, response) => {

@@ -23,7 +23,11 @@ export async function revokeSession(token: string, userId: number, now = new Dat
   await Session.update({ revokedAt: now }, { where: { tokenHash: hashSecretToken(token), userId, revokedAt: null } });
 }
 
-/** Signs a user out everywhere, as after a password reset or when the account is disabled. */
-export async function revokeAllSessions(userId: number, transaction?: Transaction, now = new Date()): Promise<void> {
-  await Session.update({ revokedAt: now }, { where: { userId, revokedAt: null, expiresAt: { [Op.gt]: now } }, transaction });
+/**
+ * Signs a user out everywhere, as after a password reset or when the account is disabled; a
+ * password change keeps the session it was made from (`keptToken`).
+ */
+export async function revokeAllSessions(userId: number, transaction?: Transaction, now = new Date(), keptToken?: string): Promise<void> {
+  const kept = keptToken === undefined ? {} : { tokenHash: { [Op.ne]: hashSecretToken(keptToken) } };
+  await Session.update({ revokedAt: now }, { where: { userId, revokedAt: null, expiresAt: { [Op.gt]: now }, ...kept }, transaction });
 }

@@ -71,6 +71,7 @@ export type SignInResponse = Schemas['SignInResponse'];
 export type PasswordResetRequest = Schemas['PasswordResetRequest'];
 export type AcceptedMessage = Schemas['AcceptedMessage'];
 export type NewPasswordRequest = Schemas['NewPasswordRequest'];
+export type PasswordChange = Schemas['PasswordChange'];
 export type InvitationAcceptance = Schemas['InvitationAcceptance'];
 export type ApiTokenSummary = Schemas['ApiTokenSummary'];
 export type ApiTokenList = Schemas['ApiTokenList'];

@@ -171,6 +171,28 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/account/password": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        /**
+         * Change my password, giving the current one
+         * @description For a signed-in session, not for API tokens. Every other session of the account is
+         *     signed out; this one stays. Personal API tokens keep working until they are revoked.
+         *     A wrong current password counts towards the same limit as failed sign-ins (429).
+         */
+        put: operations["changePassword"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/admin/users": {
         parameters: {
             query?: never;
@@ -1070,6 +1092,10 @@ export interface components {
             token: components["schemas"]["EmailLinkToken"];
             password: components["schemas"]["NewPassword"];
         };
+        PasswordChange: {
+            currentPassword: string;
+            newPassword: components["schemas"]["NewPassword"];
+        };
         InvitationAcceptance: {
             token: components["schemas"]["EmailLinkToken"];
             name: components["schemas"]["PersonName"];
@@ -1270,6 +1296,15 @@ export interface components {
         };
         /** @description The new password is too short, too common or contains the e-mail address. */
         WeakPassword: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description The current password is not right, or the new one is too weak; the problem's errors point at the field. */
+        PasswordNotChanged: {
             headers: {
                 [name: string]: unknown;
             };
@@ -1668,6 +1703,39 @@ export interface operations {
             401: components["responses"]["Unauthorized"];
             403: components["responses"]["NotAllowed"];
             404: components["responses"]["NotFound"];
+        };
+    };
+    changePassword: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "currentPassword": "riffle-demo",
+                 *       "newPassword": "gravel-bed-weir-42"
+                 *     }
+                 */
+                "application/json": components["schemas"]["PasswordChange"];
+            };
+        };
+        responses: {
+            /** @description The password is changed and the other sessions are signed out. */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            422: components["responses"]["PasswordNotChanged"];
+            429: components["responses"]["TooManyRequests"];
         };
     };
     listUsers: {

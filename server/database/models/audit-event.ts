@@ -24,6 +24,8 @@ export const auditActions = [
   'invitation-accepted',
   'password-reset-requested',
   'password-reset',
+  'password-changed',
+  'password-change-failed',
 ] as const;
 export type AuditAction = (typeof auditActions)[number];
 

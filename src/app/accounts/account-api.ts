@@ -1,9 +1,10 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { ApiTokenList, CreatedApiToken, NewApiToken } from '../../../shared/api/api-schemas';
+import type { ApiTokenList, CreatedApiToken, NewApiToken, PasswordChange } from '../../../shared/api/api-schemas';
+import { problemShownByCaller } from '../core/problem-details-interceptor';
 
-/** The signed-in user's personal API tokens: one method per endpoint. */
+/** The signed-in user's own account: password and personal API tokens, one method per endpoint. */
 @Injectable({ providedIn: 'root' })
 export class AccountApi {
   private readonly http = inject(HttpClient);
@@ -13,10 +14,14 @@ export class AccountApi {
   }
 
   createApiToken(request: NewApiToken): Observable<CreatedApiToken> {
-    return this.http.post<CreatedApiToken>('/api/v1/account/api-tokens', request);
+    return this.http.post<CreatedApiToken>('/api/v1/account/api-tokens', request, problemShownByCaller());
   }
 
   revokeApiToken(tokenId: number): Observable<void> {
     return this.http.delete<void>(`/api/v1/account/api-tokens/${tokenId}`);
+  }
+
+  changePassword(request: PasswordChange): Observable<void> {
+    return this.http.put<void>('/api/v1/account/password', request, problemShownByCaller());
   }
 }

@@ -10,11 +10,12 @@ import { roleLabel } from '../core/role-labels';
 import { SessionService } from '../core/session-service';
 import { AccountApi } from './account-api';
 import { ApiTokenDialog } from './api-token-dialog';
+import { ChangePasswordForm } from './change-password-form';
 
-/** Who is signed in, and their personal API tokens: create (shown once), list, revoke. */
+/** Who is signed in, a password change, and their personal API tokens: create (shown once), list, revoke. */
 @Component({
   selector: 'rf-account-page',
-  imports: [DatePipe, MatCardModule, MatTableModule, MatButtonModule, MatIconModule],
+  imports: [DatePipe, MatCardModule, MatTableModule, MatButtonModule, MatIconModule, ChangePasswordForm],
   templateUrl: './account-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -2,6 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import type { AdminUser, AdminUserList, AuditEventList, DemoMailbox, InvitationList, InvitationSummary, NewInvitation, UserChanges } from '../../../shared/api/api-schemas';
+import { problemShownByCaller } from '../core/problem-details-interceptor';
 
 /** Site-admin endpoints: one method per endpoint. */
 @Injectable({ providedIn: 'root' })
@@ -13,7 +14,7 @@ export class AdminApi {
   }
 
   updateUser(userId: number, changes: UserChanges): Observable<AdminUser> {
-    return this.http.patch<AdminUser>(`/api/v1/admin/users/${userId}`, changes);
+    return this.http.patch<AdminUser>(`/api/v1/admin/users/${userId}`, changes, problemShownByCaller());
   }
 
   listInvitations(): Observable<InvitationList> {
@@ -21,7 +22,7 @@ export class AdminApi {
   }
 
   inviteUser(invitation: NewInvitation): Observable<InvitationSummary> {
-    return this.http.post<InvitationSummary>('/api/v1/admin/invitations', invitation);
+    return this.http.post<InvitationSummary>('/api/v1/admin/invitations', invitation, problemShownByCaller());
   }
 
   listAuditEvents(limit = 200): Observable<AuditEventList> {

@@ -10,14 +10,15 @@ import type {
   SignInRequest,
   SignInResponse,
 } from '../../../shared/api/api-schemas';
+import { problemShownByCaller } from './problem-details-interceptor';
 
-/** Sign-in, sign-out and the e-mailed links: one method per endpoint. */
+/** Sign-in, sign-out and the e-mailed links: one method per endpoint; the forms show their own problems. */
 @Injectable({ providedIn: 'root' })
 export class AuthApi {
   private readonly http = inject(HttpClient);
 
   signIn(request: SignInRequest): Observable<SignInResponse> {
-    return this.http.post<SignInResponse>('/api/v1/auth/sign-in', request);
+    return this.http.post<SignInResponse>('/api/v1/auth/sign-in', request, problemShownByCaller());
   }
 
   signOut(): Observable<void> {
@@ -29,14 +30,14 @@ export class AuthApi {
   }
 
   requestPasswordReset(request: PasswordResetRequest): Observable<AcceptedMessage> {
-    return this.http.post<AcceptedMessage>('/api/v1/auth/forgot-password', request);
+    return this.http.post<AcceptedMessage>('/api/v1/auth/forgot-password', request, problemShownByCaller());
   }
 
   resetPassword(request: NewPasswordRequest): Observable<void> {
-    return this.http.post<void>('/api/v1/auth/reset-password', request);
+    return this.http.post<void>('/api/v1/auth/reset-password', request, problemShownByCaller());
   }
 
   acceptInvitation(request: InvitationAcceptance): Observable<SignInResponse> {
-    return this.http.post<SignInResponse>('/api/v1/auth/accept-invitation', request);
+    return this.http.post<SignInResponse>('/api/v1/auth/accept-invitation', request, problemShownByCaller());
   }
 }

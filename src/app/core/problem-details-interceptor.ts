@@ -1,15 +1,23 @@
-import { HttpErrorResponse, HttpInterceptorFn } from '@angular/common/http';
+import { HttpContext, HttpContextToken, HttpErrorResponse, HttpInterceptorFn } from '@angular/common/http';
 import { inject } from '@angular/core';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { catchError, throwError } from 'rxjs';
 import { describeHttpError } from './problem-details';
+
+/** Set on requests whose caller shows the problem next to the form, so it is not said twice. */
+export const PROBLEM_SHOWN_BY_CALLER = new HttpContextToken<boolean>(() => false);
+
+/** The context for a form's request: its problem appears in the form, not in a snack bar. */
+export function problemShownByCaller(): { context: HttpContext } {
+  return { context: new HttpContext().set(PROBLEM_SHOWN_BY_CALLER, true) };
+}
 
 /** Shows the server's problem details to the user, then lets the caller handle the error too. */
 export const problemDetailsInterceptor: HttpInterceptorFn = (request, next) => {
   const snackBar = inject(MatSnackBar);
   return next(request).pipe(
     catchError((error: unknown) => {
-      if (error instanceof HttpErrorResponse) {
+      if (error instanceof HttpErrorResponse && !request.context.get(PROBLEM_SHOWN_BY_CALLER)) {
         snackBar.open(describeHttpError(error), 'Dismiss', { duration: 8000, panelClass: 'rf-problem-snack' });
       }
       return throwError(() => error);
