@@ -2,7 +2,7 @@
  * API benchmark: POST /api/v1/selections over a synthetic catalog of 10,000 invented pumps, on
  * loopback, 20 connections for 10 s, with GET /api/v1/health measured in the same run as the
  * baseline. Prints requests/s, p50/p95/p99 latency and the ratio; asserts nothing. A second
- * baseline, GET /api/v1/fittings with the same bearer token (the guard's session lookup and a
+ * baseline, GET /api/v1/fittings with the same bearer token (the guard, with its remembered token, and a
  * small answer), shows how much of a search's time is the search itself.
  * Every run starts a scratch MariaDB of its own in a temporary folder and removes it afterwards.
  * The server runs in a child process (this file with --serve), so the load generator does not

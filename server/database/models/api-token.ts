@@ -10,6 +10,7 @@ import {
 } from 'sequelize';
 import type { ApiScope } from '../../accounts/authenticated-user';
 import type { User } from './user';
+import { credentialChangeHooks } from './credential-changes';
 
 /** A personal API token: its name, shown prefix, scopes and the SHA-256 of the token itself. */
 export class ApiToken extends Model<InferAttributes<ApiToken>, InferCreationAttributes<ApiToken>> {
@@ -51,7 +52,7 @@ export class ApiToken extends Model<InferAttributes<ApiToken>, InferCreationAttr
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'api_tokens' },
+      { sequelize, tableName: 'api_tokens', hooks: credentialChangeHooks },
     );
   }
 }

@@ -9,6 +9,7 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type { User } from './user';
+import { credentialChangeHooks } from './credential-changes';
 
 /** A signed-in browser or client: the SHA-256 of its opaque bearer token, until it expires or is revoked. */
 export class Session extends Model<InferAttributes<Session>, InferCreationAttributes<Session>> {
@@ -34,7 +35,7 @@ export class Session extends Model<InferAttributes<Session>, InferCreationAttrib
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'sessions' },
+      { sequelize, tableName: 'sessions', hooks: credentialChangeHooks },
     );
   }
 }

@@ -9,6 +9,7 @@ import {
 } from 'sequelize';
 import { roles, type Role } from '../../accounts/authenticated-user';
 import type { Supplier } from './supplier';
+import { credentialChangeHooks } from './credential-changes';
 
 /** Someone who signs in: a site admin, a supplier admin, a designer or an integrator. */
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
@@ -38,7 +39,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'users' },
+      { sequelize, tableName: 'users', hooks: credentialChangeHooks },
     );
   }
 }

@@ -5,6 +5,7 @@ import request from 'supertest';
 import { createApp } from '../../../server/app';
 import { ApiToken, Session, User } from '../../../server/database/models';
 import { createLogger } from '../../../server/logging';
+import { newSecretToken } from '../../../server/accounts/secret-tokens';
 import { createApiToken, createUserWithSession, testPassword } from '../../support/accounts';
 import { createScratchDatabase } from '../../support/test-database';
 
@@ -138,6 +139,42 @@ describe('bearer tokens: sessions and personal API tokens', function () {
       expect(response.headers['www-authenticate']).to.equal('Bearer realm="riffle"');
     });
   }
+
+  it('remembers a live session briefly: repeated requests do not look it up again', async () => {
+    const { token } = await createUserWithSession(scratch.sequelize, 'designer');
+    const findOne = Session.findOne;
+    let lookups = 0;
+    Session.findOne = ((...args: Parameters<typeof findOne>) => {
+      lookups += 1;
+      return findOne.apply(Session, args);
+    }) as typeof findOne;
+    try {
+      for (let call = 0; call < 5; call += 1) await me(token).expect(200);
+    } finally {
+      Session.findOne = findOne;
+    }
+    expect(lookups).to.equal(1);
+  });
+
+  it('never trusts a remembered session past its own expiry', async () => {
+    const { user } = await createUserWithSession(scratch.sequelize, 'designer');
+    const { token, hash } = newSecretToken('session');
+    // whole seconds, as the column keeps them
+    await Session.create({ userId: user.id, tokenHash: hash, expiresAt: new Date(Date.now() + 2000) });
+    await me(token).expect(200);
+    await new Promise((resolve) => setTimeout(resolve, 2100));
+    await me(token).expect(401);
+  });
+
+  it('applies a role change by an admin to a session at once, though the session was just used', async () => {
+    const { token: adminToken } = await createUserWithSession(scratch.sequelize, 'admin');
+    const { user, token } = await createUserWithSession(scratch.sequelize, 'designer');
+    const users = () => request(app).get('/api/v1/admin/users').set('Authorization', `Bearer ${token}`);
+    await users().expect(403);
+    await request(app).patch(`/api/v1/admin/users/${user.id}`).set('Authorization', `Bearer ${adminToken}`).send({ role: 'admin' }).expect(200);
+    await users().expect(200);
+    expect((await me(token).expect(200)).body.role).to.equal('admin');
+  });
 
   it('refuses a token in the address rather than the header', async () => {
     const { token } = await createUserWithSession(scratch.sequelize, 'designer');
