@@ -1,4 +1,5 @@
 import { expect } from 'chai';
+import { leastSquaresPolynomial } from '../../shared/hydraulics/least-squares';
 import { quadraticSystem } from './quadratic-system';
 import {
   compileSystemCurve,
@@ -130,20 +131,10 @@ describe('published worked examples', () => {
     });
 
     it('operates at the stated 12.051 ft3/s and 53.285 ft', () => {
-      // the source's fit form, h = a + c Q^2 by least squares (R: lm(h ~ I(Q^2))), here in SI
-      const points = [
-        [gpm(0), ft(81)],
-        [gpm(5000), ft(60)],
-        [gpm(7850), ft(20)],
-      ];
-      const squares = points.map(([q]) => q * q);
-      const mean = (values: number[]) => values.reduce((sum, value) => sum + value, 0) / values.length;
-      const meanSquare = mean(squares);
-      const meanHead = mean(points.map(([, h]) => h));
-      const c =
-        points.reduce((sum, [, h], i) => sum + (squares[i] - meanSquare) * (h - meanHead), 0) /
-        squares.reduce((sum, square) => sum + (square - meanSquare) ** 2, 0);
-      const pump = { headCoefficients: [meanHead - c * meanSquare, 0, c], flowMin: 0, flowMax: gpm(7850) };
+      // the source's fit form, h = a + c Q^2 by least squares (R: lm(h ~ I(Q^2))), with the engine's routine
+      const flows = [gpm(0), gpm(5000), gpm(7850)];
+      const heads = [ft(81), ft(60), ft(20)];
+      const pump = { headCoefficients: leastSquaresPolynomial(flows, heads, [0, 2]), flowMin: 0, flowMax: gpm(7850) };
       const system = quadraticSystem(ft(30), lossAtOneCfs / CUBIC_FOOT ** 2);
       const point = solveOperatingPoint(pump, system);
       if (!point.ok) throw new Error(point.message);
