@@ -43,6 +43,18 @@ describe('pump selection in Chromium', function () {
     expect(await page.locator('rf-system-curve-preview svg path').count()).to.be.greaterThan(0);
   });
 
+  it('keeps the measured system when the design switches to metric and back', async () => {
+    const { page } = app;
+    const value = (name: string) => page.locator(`input[name=${name}]`).inputValue();
+    await page.getByRole('radio', { name: 'Metric (L/min, m, mm)' }).click();
+    // 1 ft = 0.3048 m exactly
+    await page.locator('.rf-derived', { hasText: 'Static head 4.42 m' }).waitFor();
+    expect([await value('intakeLevel'), await value('dischargeLevel'), await value('length-0')]).to.deep.equal(['30.48', '34.8996', '73.152']);
+    await page.getByRole('radio', { name: 'US (gpm, ft, in)' }).click();
+    await page.locator('.rf-derived', { hasText: 'Static head 14.5 ft' }).waitFor();
+    expect([await value('intakeLevel'), await value('dischargeLevel'), await value('length-0')]).to.deep.equal(['100', '114.5', '240']);
+  });
+
   it('plans the band from a pond turnover and finds candidates', async () => {
     const { page } = app;
     await page.getByRole('link', { name: /Next: flow band/ }).click();

@@ -42,7 +42,10 @@ interface DesignStep {
         </a>
       }
     </nav>
-    <router-outlet />
+    <!-- A step's form is built from the draft: a change of units builds it again, in the new units. -->
+    @for (units of [draft.unitSystem()]; track units) {
+      <router-outlet />
+    }
     <rf-cautions-panel />
   `,
   styles: `
@@ -96,7 +99,6 @@ export class DesignShell {
   ];
 
   protected setUnits(unitSystem: UnitSystem): void {
-    if (unitSystem !== this.draft.unitSystem() && !confirm('Switching units starts the design again from the example. Continue?')) return;
     this.draft.setUnitSystem(unitSystem);
   }
 }

@@ -1,6 +1,7 @@
 import { Injectable, computed, effect, signal } from '@angular/core';
 import type { DutyBand, SelectionCandidate, SelectionResponse } from '../../../shared/api/api-schemas';
-import { exampleDraft, toPipeSystem, type SystemDraft } from './system-draft';
+import { flowFromSI, flowToSI } from '../../../shared/hydraulics';
+import { convertSystemDraft, exampleDraft, toPipeSystem, type SystemDraft } from './system-draft';
 import { unitSystems, type UnitSystem } from './unit-systems';
 
 /** What the designer asks the search for, besides the system and the band. */
@@ -84,10 +85,24 @@ export class SelectionDraft {
     });
   }
 
-  /** A new unit system starts from the example again: numbers typed in one system mean nothing in the other. */
+  /**
+   * The same design in other units: the system and the band are converted; the search answered
+   * in the old units is dropped, to be run again.
+   */
   setUnitSystem(unitSystem: UnitSystem): void {
     if (unitSystem === this.unitSystem()) return;
-    this.stored.set({ ...initialDraft(), unitSystem, system: unitSystem === 'us' ? exampleDraft() : metricExample() });
+    const from = this.units();
+    const to = unitSystems[unitSystem].units;
+    // a band is a design target: four figures say it (90 gpm is 340.7 L/min, and back)
+    const flow = (value: number) => Number(flowFromSI(flowToSI(value, from.flow), to.flow).toPrecision(4));
+    this.stored.update((draft) => ({
+      ...draft,
+      unitSystem,
+      system: convertSystemDraft(draft.system, from, to),
+      band: { ...draft.band, flowMin: flow(draft.band.flowMin), flowMax: flow(draft.band.flowMax) },
+      results: null,
+      compared: [],
+    }));
   }
 
   setSystem(system: SystemDraft): void {
@@ -116,15 +131,4 @@ export class SelectionDraft {
       return { ...draft, compared };
     });
   }
-}
-
-/** The example waterfall in metric: 4.42 m lift through 73 m of 3" pipe. Invented for the demo. */
-function metricExample(): SystemDraft {
-  const draft = exampleDraft();
-  return {
-    ...draft,
-    staticHead: 4.42,
-    dischargeLevel: 4.42,
-    segments: draft.segments.map((segment) => ({ ...segment, length: 73 })),
-  };
 }

@@ -1,4 +1,4 @@
-import { compileDraft, exampleDraft, staticHeadOf, toPipeSystem } from './system-draft';
+import { compileDraft, convertSystemDraft, exampleDraft, staticHeadOf, toPipeSystem } from './system-draft';
 
 describe('system draft', () => {
   it('takes the static head from two measured levels', () => {
@@ -21,5 +21,21 @@ describe('system draft', () => {
     // 14.5 ft in metres (1 ft = 0.3048 m exactly)
     expect(curve.evaluate(0)).toBeCloseTo(14.5 * 0.3048, 9);
     expect(curve.evaluate(0.006)).toBeGreaterThan(curve.evaluate(0.003));
+  });
+
+  it('converts the measured system to metric and back to the numbers typed', () => {
+    const us = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' } as const;
+    const si = { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm' } as const;
+    const draft = { ...exampleDraft(), staticMode: 'levels' as const, intakeLevel: 335.794, dischargeLevel: 350.294, outletPressureHead: 2.31 };
+    const metric = convertSystemDraft(draft, us, si);
+    // 1 ft = 0.3048 m exactly
+    expect(metric.staticHead).toBe(4.4196);
+    expect(metric.segments[0].length).toBe(73.152);
+    expect(metric.intakeLevel).toBe(102.35);
+    expect(metric.dischargeLevel).toBe(106.7696);
+    expect(staticHeadOf(metric)).toBeCloseTo(14.5 * 0.3048, 9);
+    expect(metric.segments[0].size).toBe('pvc-sch40-3');
+    expect(metric.segments[0].fittings).toEqual(draft.segments[0].fittings);
+    expect(convertSystemDraft(metric, si, us)).toEqual(draft);
   });
 });

@@ -1,5 +1,5 @@
 import type { CalculationUnits, PipeSystem } from '../../../shared/api/api-schemas';
-import { compileSystemCurve, headToSI, lengthToSI, type CompiledSystemCurve, type FrictionMethod } from '../../../shared/hydraulics';
+import { compileSystemCurve, headFromSI, headToSI, lengthFromSI, lengthToSI, type CompiledSystemCurve, type FrictionMethod } from '../../../shared/hydraulics';
 
 /** The system as the designer's form holds it, in the draft's unit system. */
 export interface SegmentDraft {
@@ -64,6 +64,25 @@ export function compileDraft(system: PipeSystem, units: CalculationUnits): Compi
       extraK: segment.minorLossK,
     })),
   });
+}
+
+/** Seven significant figures: survey levels keep well under a millimetre, and switching back gives the typed numbers again. */
+export function roundConverted(value: number): number {
+  return Number(value.toPrecision(7));
+}
+
+/** The same measured system in other units: levels, heads and lengths converted, the rest as it was. */
+export function convertSystemDraft(draft: SystemDraft, from: CalculationUnits, to: CalculationUnits): SystemDraft {
+  const head = (value: number) => roundConverted(headFromSI(headToSI(value, from.head), to.head));
+  const length = (value: number) => roundConverted(lengthFromSI(lengthToSI(value, from.length), to.length));
+  return {
+    ...draft,
+    staticHead: head(draft.staticHead),
+    intakeLevel: head(draft.intakeLevel),
+    dischargeLevel: head(draft.dischargeLevel),
+    outletPressureHead: head(draft.outletPressureHead),
+    segments: draft.segments.map((segment) => ({ ...segment, length: length(segment.length) })),
+  };
 }
 
 /**

@@ -11,10 +11,19 @@ import { MatSelectModule } from '@angular/material/select';
 import { Router } from '@angular/router';
 import { map, startWith } from 'rxjs';
 import { SelectionDraft } from '../selection-draft';
-import { unitSystems } from '../unit-systems';
+import { unitSystems, type UnitSystem } from '../unit-systems';
 import { bandFromModules, bandFromTurnover, bandFromWeir, weirSheets, type FlowBand } from './flow-plans';
 
 type PlanMethod = 'modules' | 'turnover' | 'weir';
+
+/**
+ * Where the planner's fields start, in each unit system's own numbers (invented, roughly the same
+ * small pond in both): per-module flow, pond volume, weir width.
+ */
+const planStarts: Readonly<Record<UnitSystem, { perModuleMin: number; perModuleMax: number; volume: number; weirWidth: number }>> = {
+  us: { perModuleMin: 30, perModuleMax: 45, volume: 6000, weirWidth: 36 },
+  si: { perModuleMin: 115, perModuleMax: 170, volume: 23, weirWidth: 900 },
+};
 
 /** The band's minimum may not exceed its maximum. */
 function bandInOrder(group: AbstractControl): ValidationErrors | null {
@@ -42,15 +51,17 @@ export class FlowPlannerPage {
     { control: 'sheetMax', label: 'Sheet, most' },
   ] as const;
 
+  private readonly starts = planStarts[this.draft.unitSystem()];
+
   protected readonly plan = this.formBuilder.group({
     method: this.formBuilder.control<PlanMethod>('modules'),
     moduleCount: this.formBuilder.control(3, [Validators.required, Validators.min(1), Validators.max(200), Validators.pattern(/^\d+$/)]),
-    perModuleMin: this.formBuilder.control(30, [Validators.required, Validators.min(0.01)]),
-    perModuleMax: this.formBuilder.control(45, [Validators.required, Validators.min(0.01)]),
-    volume: this.formBuilder.control(6000, [Validators.required, Validators.min(0.01)]),
+    perModuleMin: this.formBuilder.control(this.starts.perModuleMin, [Validators.required, Validators.min(0.01)]),
+    perModuleMax: this.formBuilder.control(this.starts.perModuleMax, [Validators.required, Validators.min(0.01)]),
+    volume: this.formBuilder.control(this.starts.volume, [Validators.required, Validators.min(0.01)]),
     turnoversMin: this.formBuilder.control(1, [Validators.required, Validators.min(0.1), Validators.max(12)]),
     turnoversMax: this.formBuilder.control(2, [Validators.required, Validators.min(0.1), Validators.max(12)]),
-    weirWidth: this.formBuilder.control(36, [Validators.required, Validators.min(0.01)]),
+    weirWidth: this.formBuilder.control(this.starts.weirWidth, [Validators.required, Validators.min(0.01)]),
     sheetMin: this.formBuilder.control<string>('average'),
     sheetMax: this.formBuilder.control<string>('heavy'),
   });
