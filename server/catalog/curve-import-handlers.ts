@@ -4,14 +4,15 @@ import multer from 'multer';
 import type { Sequelize } from 'sequelize';
 import type { CurveImportIssue, CurveImportList, CurveImportReport } from '../../shared/api/api-schemas';
 import { describeIssue, importCurveTable } from '../../data-import/curve-import';
+import { exportCurveTable } from '../../data-import/curve-table-export';
 import { curveTableLimits } from '../../data-import/curve-table-format';
 import { currentUser } from '../accounts/authenticated-user';
 import { ProblemError, type FieldProblem } from '../api/problem-details';
 import { CurveImport, Supplier } from '../database/models';
 
 /*
- * Curve-table uploads for one supplier: a dry run (the preview) or a commit, and the history of
- * committed imports. A supplier-admin may touch only its own supplier; that is checked here,
+ * Curve-table uploads for one supplier: a dry run (the preview) or a commit, the history of
+ * committed imports, and the current curves written back as a curve table. A supplier-admin may touch only its own supplier; that is checked here,
  * before the upload is read, so a refused caller costs nothing and writes nothing.
  */
 
@@ -113,5 +114,15 @@ export function createCurveImportHandlers(sequelize: Sequelize) {
     response.json(answer);
   };
 
-  return { importCurveTable: importCurveTableHandler, listCurveImports };
+  const exportCurveTableHandler: RequestHandler = async (request, response) => {
+    const supplier = await supplierFor(request);
+    const { text } = await exportCurveTable(supplier);
+    response
+      .type('text/csv; charset=utf-8')
+      .set('Content-Disposition', `attachment; filename="${supplier.code}-curve-table.csv"`)
+      .set('Cache-Control', 'no-store')
+      .send(text);
+  };
+
+  return { importCurveTable: importCurveTableHandler, listCurveImports, exportCurveTable: exportCurveTableHandler };
 }

@@ -498,6 +498,31 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/suppliers/{supplierId}/curve-table": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                supplierId: number;
+            };
+            cookie?: never;
+        };
+        /**
+         * The supplier's current curves as a curve-table CSV file, to keep, edit and load again
+         * @description Every pump of the supplier with its current curve revision, retired ones with their status,
+         *     in Riffle's curve-table format. Each quantity is in the unit most of the pumps' own files
+         *     used. Loaded again unchanged, the file changes nothing. Text cells that a spreadsheet would
+         *     run as a formula start with an apostrophe, which the import drops again.
+         */
+        get: operations["exportCurveTable"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
 }
 export type webhooks = Record<string, never>;
 export interface components {
@@ -3109,6 +3134,43 @@ export interface operations {
             404: components["responses"]["NotFound"];
             413: components["responses"]["FileTooLarge"];
             422: components["responses"]["CurveTableRefused"];
+        };
+    };
+    exportCurveTable: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                supplierId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The curve table, as a download. */
+            200: {
+                headers: {
+                    /** @description attachment; filename="<supplier code>-curve-table.csv" */
+                    "Content-Disposition"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example # Curve table of Alderbrook Demo Pumps (ALDERBROOK), written by Riffle. Loaded again unchanged, it changes nothing.
+                     *     riffle-curve-table,1
+                     *     flow-unit,gph
+                     *     head-unit,ft
+                     *     power-basis,shaft
+                     *     model_code,display_name,kind,speed_rpm,voltage,phases,status,notes,flow,head
+                     *     AB-SUB-40,Submersible 40,submersible,,,,active,,0,14.5
+                     *     AB-SUB-40,,,,,,,,600,12
+                     *     AB-SUB-40,,,,,,,,1200,6
+                     */
+                    "text/csv": string;
+                };
+            };
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
         };
     };
 }

@@ -1,5 +1,5 @@
 import { expect } from 'chai';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { QueryTypes } from 'sequelize';
@@ -66,11 +66,17 @@ describe('a supplier admin loads a curve table in Chromium', function () {
     await saveScreenshot(page, 'curve-import-preview');
   });
 
-  it('commits, and the pump appears in the catalog with its curve', async () => {
+  it('commits, downloads the current table with the new pump, and the pump appears in the catalog with its curve', async () => {
     const { page } = app;
     await page.getByRole('button', { name: /Commit 1 pump/ }).click();
     await page.locator('.rf-summary', { hasText: 'Saved as import' }).waitFor();
     await page.locator('.rf-history', { hasText: 'browser-test-curves.csv' }).waitFor();
+
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download the current table' }).click()]);
+    expect(download.suggestedFilename()).to.equal('ALDERBROOK-curve-table.csv');
+    const table = readFileSync(await download.path(), 'utf8');
+    expect(table).to.match(/^# Curve table of .+\nriffle-curve-table,1\nflow-unit,/);
+    expect(table).to.contain('BRW-7,Browser test fountain pump 7,submersible,');
 
     await page.goto(`${app.url}/catalog`, { waitUntil: 'networkidle' });
     await page.getByLabel('Model or name').fill('BRW');

@@ -1,4 +1,4 @@
-import { HttpClient } from '@angular/common/http';
+import { HttpClient, type HttpResponse } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
 import type { CurveImportList, CurveImportReport } from '../../../shared/api/api-schemas';
@@ -17,5 +17,9 @@ export class CurveImportApi {
 
   listCurveImports(supplierId: number): Observable<CurveImportList> {
     return this.http.get<CurveImportList>(`/api/v1/suppliers/${supplierId}/curve-imports`);
+  }
+
+  exportCurveTable(supplierId: number): Observable<HttpResponse<Blob>> {
+    return this.http.get(`/api/v1/suppliers/${supplierId}/curve-table`, { responseType: 'blob', observe: 'response' });
   }
 }

@@ -10,12 +10,13 @@ import type { CurveImportIssue, CurveImportRecord, CurveImportReport } from '../
 import { CatalogApi } from '../catalog/catalog-api';
 import { displayUnitChoices, kindLabels, showFlow, showHead } from '../catalog/display-units';
 import { PumpCurveChart } from '../catalog/pump-curve-chart';
+import { attachmentFileName, saveFile } from '../core/file-download';
 import { SessionService } from '../core/session-service';
 import { CurveImportApi } from './curve-import-api';
 
 const outcomeLabels: Record<string, string> = { new: 'New pump', changed: 'Changed', unchanged: 'Unchanged', refused: 'Refused' };
 
-/** For supplier admins: check a curve-table file, preview every pump with its fit, commit it, and see past imports. */
+/** For supplier admins: check a curve-table file, preview every pump with its fit, commit it, see past imports, download the current table. */
 @Component({
   selector: 'rf-curve-import-page',
   imports: [MatButtonModule, MatIconModule, MatSelectModule, MatTableModule, PumpCurveChart],
@@ -101,6 +102,15 @@ export class CurveImportPage {
 
   protected commit(): void {
     this.send(false);
+  }
+
+  /** The supplier's current curves as a curve table, to keep, edit and load again. */
+  protected downloadCurrent(): void {
+    const supplierId = this.supplierId();
+    if (supplierId === null) return;
+    this.api.exportCurveTable(supplierId).subscribe((response) => {
+      if (response.body) saveFile(response.body, attachmentFileName(response.headers.get('Content-Disposition'), 'curve-table.csv'));
+    });
   }
 
   protected describe(issue: CurveImportIssue): string {

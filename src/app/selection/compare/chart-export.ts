@@ -1,3 +1,4 @@
+import { saveFile } from '../../core/file-download';
 import { chartSize } from './comparison-chart';
 
 /** The chart as a standalone SVG document. */
@@ -8,17 +9,9 @@ export function svgText(element: SVGSVGElement): string {
   return `<?xml version="1.0" encoding="UTF-8"?>\n${new XMLSerializer().serializeToString(copy)}`;
 }
 
-function download(blob: Blob, fileName: string): void {
-  const url = URL.createObjectURL(blob);
-  const link = document.createElement('a');
-  link.href = url;
-  link.download = fileName;
-  link.click();
-  setTimeout(() => URL.revokeObjectURL(url), 1000);
-}
 
 export function downloadSvg(element: SVGSVGElement, fileName: string): void {
-  download(new Blob([svgText(element)], { type: 'image/svg+xml' }), fileName);
+  saveFile(new Blob([svgText(element)], { type: 'image/svg+xml' }), fileName);
 }
 
 /** Renders the SVG onto a canvas at twice its size and downloads the PNG. */
@@ -40,7 +33,7 @@ export async function downloadPng(element: SVGSVGElement, fileName: string): Pro
     context.drawImage(image, 0, 0, chartSize.width, chartSize.height);
     const blob = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/png'));
     if (!blob) throw new Error('the PNG could not be made');
-    download(blob, fileName);
+    saveFile(blob, fileName);
   } finally {
     URL.revokeObjectURL(url);
   }
