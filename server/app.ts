@@ -40,7 +40,13 @@ export function createApp({ sequelize, logger, clientFolder, accounts }: AppDepe
   app.use(
     helmet({
       contentSecurityPolicy: {
-        directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null },
+        // fonts, icons and styles ship with the app: nothing is loaded from another origin
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'upgrade-insecure-requests': null,
+        },
       },
       crossOriginEmbedderPolicy: false,
     }),

@@ -37,6 +37,15 @@ describe('GET /api/v1/health', function () {
     expect(response.body).to.deep.equal({ status: 'ok', database: 'up', version: riffleVersion });
   });
 
+  it('sends a content security policy that allows this origin only for scripts, styles and fonts', async () => {
+    const policy = (await request(app).get('/api/v1/health')).headers['content-security-policy'] as string;
+    const directive = (name: string) => policy.split(';').find((part) => part.trim().startsWith(`${name} `))?.trim();
+    expect(directive('script-src')).to.equal("script-src 'self'");
+    expect(directive('font-src')).to.equal("font-src 'self' data:");
+    expect(directive('style-src')).to.equal("style-src 'self' 'unsafe-inline'");
+    expect(policy).not.to.match(/https:/);
+  });
+
   it('answers 503 when the database is down, and recovers by itself when it is back', async () => {
     await database.stop();
     const down = await request(app).get('/api/v1/health').expect(503);
