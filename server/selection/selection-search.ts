@@ -35,6 +35,8 @@ export interface SelectionQuery {
   flowMax: number;
   arrangements: readonly number[];
   requireOneFailed: boolean;
+  /** One more pump installed idle per arrangement, taking over when a running one fails. */
+  standby: boolean;
   band: PreferredBand;
   hoursPerDay: number;
   tariffPerKWh: number | null;
@@ -245,7 +247,12 @@ function rankCandidate(pump: CatalogPump, running: number, point: DutyPoint, que
 
   let oneFailed: DutyPoint | null = null;
   let oneFailedMeetsMinimum: boolean | null = null;
-  if (running >= 2) {
+  if (query.standby) {
+    // the standby starts in the failed pump's place: the arrangement runs on at the same point
+    oneFailed = point;
+    oneFailedMeetsMinimum = point.flow >= query.flowMin * (1 - 1e-9);
+    reasons.push(oneFailedMeetsMinimum ? 'one failed: the standby takes over at the same point' : 'below the band minimum even with the standby');
+  } else if (running >= 2) {
     const failed: DutyOutcome = dutyOfParallelPumps(pump, query.system, running - 1, query.band, query.density, query.motorEfficiency);
     if (failed.ok) {
       oneFailed = failed.point;
@@ -362,7 +369,7 @@ function tierBuffer(length: number): Uint8Array {
  * bracket), redundant by the one-failed sign test.
  */
 function tierInBand(packed: PackedCurves, index: number, running: number, low: number, high: number, query: SelectionQuery, table: BandSystemTable): number {
-  if (query.requireOneFailed && !(running >= 2 && oneFailedReachesMinimum(packed, index, running, query, table))) return 1;
+  if (!redundancyMetBySignTest(packed, index, running, query, table)) return 1;
   const declaredMin = packed.declaredMin[index];
   const perPumpMin = declaredMin === declaredMin ? declaredMin : (packed.bepFlow[index] * query.band.minPercent) / 100;
   const perPumpMax = declaredMin === declaredMin ? packed.declaredMax[index] : (packed.bepFlow[index] * query.band.maxPercent) / 100;
@@ -459,6 +466,11 @@ function nearMisses(state: CatalogState, query: SelectionQuery, accepted: Uint8A
 /** Rank keys are tier x TIER_SPAN + annual kWh: no water-feature pump uses 1e12 kWh a year. */
 const TIER_SPAN = 1e12;
 
+/** Redundancy as asked: none needed, a standby that takes over, or the rest reaching the band's minimum with one off. */
+function redundancyMetBySignTest(packed: PackedCurves, index: number, running: number, query: SelectionQuery, table: BandSystemTable): boolean {
+  return !query.requireOneFailed || query.standby || (running >= 2 && oneFailedReachesMinimum(packed, index, running, query, table));
+}
+
 /** With one pump off, do the rest still reach the band's minimum? The sign test at Qmin with running - 1 pumps. */
 function oneFailedReachesMinimum(packed: PackedCurves, index: number, running: number, query: SelectionQuery, table: BandSystemTable): boolean {
   const remaining = running - 1;
@@ -493,7 +505,7 @@ function screenPoint(packed: PackedCurves, index: number, running: number, flow:
   }
   if (query.maxInputPowerPerPump !== null && power > query.maxInputPowerPerPump) return null;
   const inBand = flow >= query.flowMin * (1 - 1e-9) && flow <= query.flowMax * (1 + 1e-9);
-  const redundancyMet = !query.requireOneFailed || (running >= 2 && oneFailedReachesMinimum(packed, index, running, query, table));
+  const redundancyMet = redundancyMetBySignTest(packed, index, running, query, table);
   const energy = power === power ? Math.min((power * running * query.hoursPerDay * 365) / 1000, TIER_SPAN - 1) : TIER_SPAN - 1;
   return tierOf(inBand, preferred, redundancyMet) * TIER_SPAN + energy;
 }

@@ -391,7 +391,8 @@ export interface paths {
         /**
          * Ranked catalog pumps, alone or several in parallel, for a system and a duty band
          * @description Every active catalog pump (its current curve revision) in each requested arrangement
-         *     (1, 2 or 3 identical pumps in parallel, all running) is put on the system curve.
+         *     (1, 2 or 3 identical pumps in parallel, all running; with `standby`, one more installed
+         *     idle to take over from a failed one) is put on the system curve.
          *     Candidates are ranked: in the duty band and in the preferred operating region (and, with
          *     `requireOneFailed`, still at or above the band's minimum with one pump off) first, then
          *     in band but outside the preferred region or failing the one-failed check, then outside
@@ -749,6 +750,8 @@ export interface components {
             arrangements?: (1 | 2 | 3)[];
             /** @description With one pump off, the rest must still deliver the band's minimum; default false. */
             requireOneFailed?: boolean;
+            /** @description Each arrangement gets one more identical pump, installed idle, that takes over when a running one fails (duty and standby); default false. */
+            standby?: boolean;
             filters?: components["schemas"]["SelectionFilters"];
             energy?: components["schemas"]["EnergyInputs"];
             preferredBand?: components["schemas"]["PreferredBand"];

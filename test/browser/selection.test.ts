@@ -105,4 +105,16 @@ describe('pump selection in Chromium', function () {
     await saveScreenshot(page, 'pump-comparison');
     expect(app.browser.offLoopbackRequests).to.deep.equal([]);
   });
+
+  it('searches again with a standby pump, and every candidate says so', async () => {
+    const { page } = app;
+    await page.getByRole('link', { name: /Candidates/ }).click();
+    await page.waitForURL(/design\/candidates/);
+    await page.getByRole('switch', { name: /Plus one standby pump/ }).click();
+    await page.getByRole('button', { name: /Find candidates/ }).click();
+    await page.locator('tr[data-candidate] td', { hasText: '+ standby' }).first().waitFor({ timeout: 15_000 });
+    const labels = await page.locator('tr[data-candidate] td.mat-column-arrangement').allInnerTexts();
+    expect(labels.length).to.be.greaterThan(3);
+    expect(labels.every((label) => label.endsWith('+ standby'))).to.equal(true);
+  });
 });

@@ -8,6 +8,8 @@ import { unitSystems, type UnitSystem } from './unit-systems';
 export interface SearchSettings {
   arrangements: Array<1 | 2 | 3>;
   requireOneFailed: boolean;
+  /** One more pump installed idle, taking over when a running one fails. */
+  standby: boolean;
   onlyPreferredRegion: boolean;
   maxInputPowerPerPump: number | null;
   hoursPerDay: number;
@@ -39,7 +41,7 @@ function initialDraft(): StoredDraft {
     unitSystem: 'us',
     system: exampleDraft(),
     band: { flowMin: 90, flowMax: 130 },
-    search: { arrangements: [1, 2], requireOneFailed: true, onlyPreferredRegion: false, maxInputPowerPerPump: null, hoursPerDay: 24, tariffPerKWh: 0.18, limit: 20 },
+    search: { arrangements: [1, 2], requireOneFailed: true, standby: false, onlyPreferredRegion: false, maxInputPowerPerPump: null, hoursPerDay: 24, tariffPerKWh: 0.18, limit: 20 },
     results: null,
     compared: [],
   };

@@ -122,6 +122,41 @@ describe('POST /api/v1/selections', function () {
     });
   }
 
+  it('with a standby pump: one more installed, the same point when one fails, and the least-energy pair in band and preferred leads', async () => {
+    const body = (await post('/selections', { ...search, standby: true }).expect(200)).body as SelectionResponse;
+    const rows = await scratch.sequelize.query<{ pump_id: number; fit: string | PumpCurveFit }>(
+      'SELECT p.id AS pump_id, r.fit FROM pumps p JOIN curve_revisions r ON r.id = p.current_revision_id',
+      { type: QueryTypes.SELECT },
+    );
+    const compiled = compileSystemCurve({
+      staticHead: headToSI(14.5, 'ft'),
+      frictionMethod: 'hazen-williams',
+      segments: [{ length: lengthToSI(240, 'ft'), pipeSizeId: 'pvc-sch40-3', fittings: system.segments[0].fittings }],
+    });
+    const [low, high] = [flowToSI(duty.flowMin, 'gpm'), flowToSI(duty.flowMax, 'gpm')];
+    let best: { pumpId: number; running: number; energy: number } | null = null;
+    for (const row of rows) {
+      const fit = (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as PumpCurveFit;
+      for (const running of [1, 2, 3]) {
+        const point = solveParallelIdentical(fit, compiled, running, running);
+        if (!point.ok || point.totalFlow < low || point.totalFlow > high) continue;
+        const perPump = point.totalFlow / running;
+        if (classifyOperatingRegion(fit, perPump, DEFAULT_PREFERRED_BAND).region !== 'preferred') continue;
+        const energy = powerAtOperatingPoint(fit, perPump, point.head, waterDensity(20)).electrical! * running;
+        if (!best || energy < best.energy) best = { pumpId: row.pump_id, running, energy };
+      }
+    }
+    expect(best).to.not.equal(null);
+    expect(body.candidates[0]).to.include({ pumpId: best!.pumpId });
+    expect(body.candidates[0].arrangement).to.deep.equal({ installed: best!.running + 1, running: best!.running });
+    for (const candidate of body.candidates) {
+      expect(candidate.arrangement.installed).to.equal(candidate.arrangement.running + 1);
+      expect(candidate.oneFailed).to.deep.equal(candidate.operatingPoint);
+      expect(candidate.oneFailedMeetsMinimum).to.equal(candidate.operatingPoint.flow >= duty.flowMin * (1 - 1e-9));
+      if (candidate.inBand) expect(candidate.reasons).to.include('one failed: the standby takes over at the same point');
+    }
+  });
+
   it('ranks in band and preferred first, then by annual energy, and says why', async () => {
     const body = (await post('/selections', search).expect(200)).body as SelectionResponse;
     const candidates = body.candidates;

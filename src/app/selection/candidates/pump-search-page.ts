@@ -78,6 +78,7 @@ export class PumpSearchPage {
       { validators: someArrangement },
     ),
     requireOneFailed: this.settings.requireOneFailed,
+    standby: this.settings.standby ?? false,
     onlyPreferredRegion: this.settings.onlyPreferredRegion,
     maxInputPowerPerPump: this.formBuilder.control<number | null>(this.settings.maxInputPowerPerPump, [Validators.min(0.001)]),
     hoursPerDay: this.formBuilder.control(this.settings.hoursPerDay, [Validators.required, Validators.min(0), Validators.max(24)]),
@@ -112,6 +113,7 @@ export class PumpSearchPage {
     const settings: SearchSettings = {
       arrangements: [value.arrangements.one && 1, value.arrangements.two && 2, value.arrangements.three && 3].filter((count): count is 1 | 2 | 3 => typeof count === 'number'),
       requireOneFailed: value.requireOneFailed,
+      standby: value.standby,
       onlyPreferredRegion: value.onlyPreferredRegion,
       maxInputPowerPerPump: value.maxInputPowerPerPump || null,
       hoursPerDay: value.hoursPerDay,
@@ -125,6 +127,7 @@ export class PumpSearchPage {
       duty: this.draft.band(),
       arrangements: settings.arrangements,
       requireOneFailed: settings.requireOneFailed,
+      standby: settings.standby,
       filters: {
         onlyPreferredRegion: settings.onlyPreferredRegion,
         ...(settings.maxInputPowerPerPump ? { maxInputPowerPerPump: settings.maxInputPowerPerPump } : {}),
@@ -151,7 +154,7 @@ export class PumpSearchPage {
   }
 
   protected arrangementLabel(candidate: SelectionCandidate): string {
-    const running = candidate.arrangement.running;
-    return running === 1 ? 'single' : `${running} in parallel`;
+    const { running, installed } = candidate.arrangement;
+    return `${running === 1 ? 'single' : `${running} in parallel`}${installed > running ? ' + standby' : ''}`;
   }
 }

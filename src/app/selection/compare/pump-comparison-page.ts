@@ -107,8 +107,8 @@ export class PumpComparisonPage {
   }
 
   protected label(candidate: SelectionCandidate): string {
-    const running = candidate.arrangement.running;
-    return `${candidate.model}${running > 1 ? ` x${running}` : ''}`;
+    const { running, installed } = candidate.arrangement;
+    return `${candidate.model}${running > 1 ? ` x${running}` : ''}${installed > running ? ' + standby' : ''}`;
   }
 
   protected flow(value: number): number {
