@@ -52,6 +52,42 @@ describe('POST /api/v1/selections', function () {
     return (bearer ? call.set('Authorization', `Bearer ${bearer}`) : call).send(body as object);
   };
 
+  /**
+   * Every pump of the catalog on the system with the engine's own solver (no shortcut): the pairs
+   * tried, those in band, and the least-energy pair in band, preferred and redundant (the rest
+   * reaching the band's minimum with one off, or a standby taking over).
+   */
+  async function bruteForce(frictionMethod: 'hazen-williams' | 'darcy-weisbach', redundancy: 'one failed' | 'standby') {
+    const rows = await scratch.sequelize.query<{ pump_id: number; fit: string | PumpCurveFit }>(
+      'SELECT p.id AS pump_id, r.fit FROM pumps p JOIN curve_revisions r ON r.id = p.current_revision_id',
+      { type: QueryTypes.SELECT },
+    );
+    const compiled = compileSystemCurve({
+      staticHead: headToSI(14.5, 'ft'),
+      frictionMethod,
+      segments: [{ length: lengthToSI(240, 'ft'), pipeSizeId: 'pvc-sch40-3', fittings: system.segments[0].fittings }],
+    });
+    const [low, high] = [flowToSI(duty.flowMin, 'gpm'), flowToSI(duty.flowMax, 'gpm')];
+    const density = waterDensity(20);
+    let inBand = 0;
+    let best: { pumpId: number; running: number; energy: number } | null = null;
+    for (const row of rows) {
+      const fit = (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as PumpCurveFit;
+      for (const running of [1, 2, 3]) {
+        const point = solveParallelIdentical(fit, compiled, running, running);
+        if (!point.ok || point.totalFlow < low || point.totalFlow > high) continue;
+        inBand += 1;
+        const perPump = point.totalFlow / running;
+        const failed = running > 1 ? solveParallelIdentical(fit, compiled, running - 1, running - 1) : null;
+        const redundant = redundancy === 'standby' || (failed !== null && failed.ok && failed.totalFlow >= low);
+        if (classifyOperatingRegion(fit, perPump, DEFAULT_PREFERRED_BAND).region !== 'preferred' || !redundant) continue;
+        const energy = powerAtOperatingPoint(fit, perPump, point.head, density).electrical! * running;
+        if (!best || energy < best.energy) best = { pumpId: row.pump_id, running, energy };
+      }
+    }
+    return { pairs: rows.length * 3, inBand, best };
+  }
+
   before(async () => {
     scratch = await createScratchDatabase('selection');
     await seedSyntheticCatalog(scratch.sequelize, syntheticShapes(400, 11));
@@ -83,34 +119,8 @@ describe('POST /api/v1/selections', function () {
     it(`finds the same pairs in band as putting every pump on the system with the engine (${frictionMethod})`, async () => {
       const response = await post('/selections', { ...search, system: { ...system, frictionMethod } }).expect(200);
       const body = response.body as SelectionResponse;
-      const rows = await scratch.sequelize.query<{ pump_id: number; fit: string | PumpCurveFit }>(
-        'SELECT p.id AS pump_id, r.fit FROM pumps p JOIN curve_revisions r ON r.id = p.current_revision_id',
-        { type: QueryTypes.SELECT },
-      );
-      const compiled = compileSystemCurve({
-        staticHead: headToSI(14.5, 'ft'),
-        frictionMethod,
-        segments: [{ length: lengthToSI(240, 'ft'), pipeSizeId: 'pvc-sch40-3', fittings: system.segments[0].fittings }],
-      });
-      const [low, high] = [flowToSI(duty.flowMin, 'gpm'), flowToSI(duty.flowMax, 'gpm')];
-      const density = waterDensity(20);
-      let inBand = 0;
-      let best: { pumpId: number; running: number; energy: number } | null = null;
-      for (const row of rows) {
-        const fit = (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as PumpCurveFit;
-        for (const running of [1, 2, 3]) {
-          const point = solveParallelIdentical(fit, compiled, running, running);
-          if (!point.ok || point.totalFlow < low || point.totalFlow > high) continue;
-          inBand += 1;
-          const perPump = point.totalFlow / running;
-          const failed = running > 1 ? solveParallelIdentical(fit, compiled, running - 1, running - 1) : null;
-          const redundant = failed !== null && failed.ok && failed.totalFlow >= low;
-          if (classifyOperatingRegion(fit, perPump, DEFAULT_PREFERRED_BAND).region !== 'preferred' || !redundant) continue;
-          const energy = powerAtOperatingPoint(fit, perPump, point.head, density).electrical! * running;
-          if (!best || energy < best.energy) best = { pumpId: row.pump_id, running, energy };
-        }
-      }
-      expect(body.considered).to.equal(rows.length * 3);
+      const { pairs, inBand, best } = await bruteForce(frictionMethod, 'one failed');
+      expect(body.considered).to.equal(pairs);
       expect(body.inBand).to.equal(inBand);
       expect(inBand, 'the synthetic catalog should put some pumps in this band').to.be.greaterThan(5);
       expect(best, 'some pair should be in band, preferred and redundant').to.not.equal(null);
@@ -124,28 +134,7 @@ describe('POST /api/v1/selections', function () {
 
   it('with a standby pump: one more installed, the same point when one fails, and the least-energy pair in band and preferred leads', async () => {
     const body = (await post('/selections', { ...search, standby: true }).expect(200)).body as SelectionResponse;
-    const rows = await scratch.sequelize.query<{ pump_id: number; fit: string | PumpCurveFit }>(
-      'SELECT p.id AS pump_id, r.fit FROM pumps p JOIN curve_revisions r ON r.id = p.current_revision_id',
-      { type: QueryTypes.SELECT },
-    );
-    const compiled = compileSystemCurve({
-      staticHead: headToSI(14.5, 'ft'),
-      frictionMethod: 'hazen-williams',
-      segments: [{ length: lengthToSI(240, 'ft'), pipeSizeId: 'pvc-sch40-3', fittings: system.segments[0].fittings }],
-    });
-    const [low, high] = [flowToSI(duty.flowMin, 'gpm'), flowToSI(duty.flowMax, 'gpm')];
-    let best: { pumpId: number; running: number; energy: number } | null = null;
-    for (const row of rows) {
-      const fit = (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as PumpCurveFit;
-      for (const running of [1, 2, 3]) {
-        const point = solveParallelIdentical(fit, compiled, running, running);
-        if (!point.ok || point.totalFlow < low || point.totalFlow > high) continue;
-        const perPump = point.totalFlow / running;
-        if (classifyOperatingRegion(fit, perPump, DEFAULT_PREFERRED_BAND).region !== 'preferred') continue;
-        const energy = powerAtOperatingPoint(fit, perPump, point.head, waterDensity(20)).electrical! * running;
-        if (!best || energy < best.energy) best = { pumpId: row.pump_id, running, energy };
-      }
-    }
+    const { best } = await bruteForce('hazen-williams', 'standby');
     expect(best).to.not.equal(null);
     expect(body.candidates[0]).to.include({ pumpId: best!.pumpId });
     expect(body.candidates[0].arrangement).to.deep.equal({ installed: best!.running + 1, running: best!.running });
