@@ -42,6 +42,20 @@ describe('signing in and out in Chromium', function () {
     await saveScreenshot(page, 'sign-in-designer');
   });
 
+  it('fits a phone held upright: no sideways scrolling, and the links keep their names', async () => {
+    const { page } = app;
+    await page.setViewportSize({ width: 390, height: 844 });
+    try {
+      await page.goto(`${app.url}/design/system`, { waitUntil: 'networkidle' });
+      await page.getByRole('heading', { name: 'Pump selection' }).waitFor();
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).to.be.at.most(390);
+      for (const name of ['Overview', 'Design', 'Catalog', 'Sign out']) expect(await page.getByRole(name === 'Sign out' ? 'button' : 'link', { name, exact: true }).isVisible(), name).to.equal(true);
+      await saveScreenshot(page, 'design-on-a-phone');
+    } finally {
+      await page.setViewportSize({ width: 1280, height: 900 });
+    }
+  });
+
   it('keeps admin pages from the designer', async () => {
     await app.page.goto(`${app.url}/admin/users`, { waitUntil: 'networkidle' });
     await app.page.waitForURL(`${app.url}/`);
