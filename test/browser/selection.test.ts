@@ -106,6 +106,30 @@ describe('pump selection in Chromium', function () {
     expect(app.browser.offLoopbackRequests).to.deep.equal([]);
   });
 
+  it('puts the system, the band, the compared pumps, the chart and the cautions in a printable report', async () => {
+    const { page } = app;
+    await page.getByRole('link', { name: /Next: the report/ }).click();
+    await page.waitForURL(/design\/report/);
+    await page.getByRole('heading', { name: 'Pump selection report' }).waitFor();
+    const report = page.locator('article.rf-report');
+    expect(await report.innerText()).to.contain('Static head');
+    expect(await report.getByRole('region', { name: 'Site and system' }).innerText()).to.contain('PVC Schedule 40, 3"');
+    expect(await report.getByRole('region', { name: 'Duty band' }).innerText()).to.match(/100 to 130 gpm; the system needs [\d.]+ to [\d.]+ ft of total dynamic head/);
+    expect(await report.getByRole('heading', { name: 'Pumps compared' }).count()).to.equal(1);
+    expect(await report.locator('tr.rf-reasons-row').count()).to.equal(3);
+    expect(await report.locator('svg.rf-chart path.rf-pump-curve').count()).to.equal(3);
+    await page.emulateMedia({ media: 'print' });
+    try {
+      expect(await page.locator('.rf-toolbar').isVisible()).to.equal(false);
+      expect(await page.locator('.rf-design-steps').isVisible()).to.equal(false);
+      expect(await page.getByRole('button', { name: /Print or save as PDF/ }).isVisible()).to.equal(false);
+      expect(await page.locator('rf-cautions-panel').isVisible()).to.equal(true);
+      await saveScreenshot(page, 'selection-report-print');
+    } finally {
+      await page.emulateMedia({ media: 'screen' });
+    }
+  });
+
   it('searches again with a standby pump, and every candidate says so', async () => {
     const { page } = app;
     await page.getByRole('link', { name: /Candidates/ }).click();

@@ -12,7 +12,7 @@ interface DesignStep {
   icon: string;
 }
 
-/** The designer's flow in one place: four steps over one draft, with the cautions always in view. */
+/** The designer's flow in one place: five steps over one draft, with the cautions always in view. */
 @Component({
   selector: 'rf-design-shell',
   imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatButtonToggleModule, CautionsPanel],
@@ -84,6 +84,13 @@ interface DesignStep {
     .rf-step-number {
       font-weight: 700;
     }
+    /* on paper: the report and the cautions, not the controls */
+    @media print {
+      .rf-design-head,
+      .rf-design-steps {
+        display: none;
+      }
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -96,6 +103,7 @@ export class DesignShell {
     { path: 'band', label: 'Flow band', icon: 'waves' },
     { path: 'candidates', label: 'Candidates', icon: 'format_list_numbered' },
     { path: 'compare', label: 'Compare', icon: 'stacked_line_chart' },
+    { path: 'report', label: 'Report', icon: 'description' },
   ];
 
   protected setUnits(unitSystem: UnitSystem): void {

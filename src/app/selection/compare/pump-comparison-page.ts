@@ -4,15 +4,11 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import type { CalculationUnits, SelectionCandidate } from '../../../../shared/api/api-schemas';
-import { flowFromSI, flowToSI, headFromSI, headToSI } from '../../../../shared/hydraulics';
 import { candidateKey, SelectionDraft } from '../selection-draft';
-import { compileDraft } from '../system-draft';
 import { unitSystems, type UnitSystem } from '../unit-systems';
 import { downloadPng, downloadSvg } from './chart-export';
-import { chartStyle, drawComparisonChart, type ChartCandidate, type ChartModel, type ChartPoint } from './comparison-chart';
-
-const systemCurveSteps = 60;
+import { chartStyle, drawComparisonChart, type ChartModel } from './comparison-chart';
+import { candidateLabel, comparisonModel, unitConverter } from './comparison-model';
 
 /** Step 4: up to eight candidates on one chart and side by side in a table. */
 @Component({
@@ -34,48 +30,11 @@ export class PumpComparisonPage {
   protected readonly styles = computed(() => this.candidates().map((_, index) => chartStyle(index)));
 
   /** Converts a flow or head from the design's units to the display's. */
-  private readonly convert = computed(() => {
-    const from: CalculationUnits = this.draft.units();
-    const to = this.displayUnits();
-    return {
-      flow: (value: number) => flowFromSI(flowToSI(value, from.flow), to.flow),
-      head: (value: number) => headFromSI(headToSI(value, from.head), to.head),
-    };
-  });
+  private readonly convert = computed(() => unitConverter(this.draft.units(), this.displayUnits()));
 
-  protected readonly model = computed((): ChartModel | null => {
-    const candidates = this.candidates();
-    if (candidates.length === 0) return null;
-    const convert = this.convert();
-    const point = (value: ChartPoint): ChartPoint => ({ flow: convert.flow(value.flow), head: convert.head(value.head) });
-    const band = this.draft.band();
-    const designUnits = this.draft.units();
-    const system = compileDraft(this.draft.pipeSystem(), designUnits);
-    const topFlow = flowToSI(Math.max(band.flowMax * 1.3, ...candidates.flatMap((candidate) => candidate.curve.map((sample) => sample.flow))), designUnits.flow);
-    const to = this.displayUnits();
-    const systemCurve = Array.from({ length: systemCurveSteps + 1 }, (_, step) => {
-      const flow = (topFlow * step) / systemCurveSteps;
-      return { flow: flowFromSI(flow, to.flow), head: headFromSI(system.evaluate(flow), to.head) };
-    });
-    return {
-      systemCurve,
-      band: { flowMin: convert.flow(band.flowMin), flowMax: convert.flow(band.flowMax) },
-      flowUnit: to.flow,
-      headUnit: to.head,
-      candidates: candidates.map(
-        (candidate): ChartCandidate => ({
-          key: candidateKey(candidate),
-          label: this.label(candidate),
-          curve: candidate.curve.map(point),
-          preferredRange: candidate.preferredRange
-            ? { flowMin: convert.flow(candidate.preferredRange.flowMin), flowMax: convert.flow(candidate.preferredRange.flowMax) }
-            : null,
-          operatingPoint: point(candidate.operatingPoint),
-          oneFailed: candidate.oneFailed ? point(candidate.oneFailed) : null,
-        }),
-      ),
-    };
-  });
+  protected readonly model = computed((): ChartModel | null =>
+    comparisonModel({ system: this.draft.pipeSystem(), band: this.draft.band(), units: this.draft.units() }, this.candidates(), this.displayUnits()),
+  );
 
   /** The hovered or focused point, told in words. */
   protected readonly details = computed(() => {
@@ -106,10 +65,7 @@ export class PumpComparisonPage {
     });
   }
 
-  protected label(candidate: SelectionCandidate): string {
-    const { running, installed } = candidate.arrangement;
-    return `${candidate.model}${running > 1 ? ` x${running}` : ''}${installed > running ? ' + standby' : ''}`;
-  }
+  protected readonly label = candidateLabel;
 
   protected flow(value: number): number {
     return this.convert().flow(value);

@@ -1,0 +1,80 @@
+import { DatePipe, DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, inject, viewChild } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { RouterLink } from '@angular/router';
+import type { SelectionCandidate } from '../../../../shared/api/api-schemas';
+import { FITTINGS, PIPE_SERIES, flowToSI, headFromSI } from '../../../../shared/hydraulics';
+import { SessionService } from '../../core/session-service';
+import { drawComparisonChart } from '../compare/comparison-chart';
+import { candidateLabel, comparisonModel } from '../compare/comparison-model';
+import { SelectionDraft } from '../selection-draft';
+import { compileDraft, staticHeadOf } from '../system-draft';
+
+/** Candidates a report shows when none were ticked for comparison: the first few of the search. */
+const reportedWithoutComparison = 3;
+
+/**
+ * Step 5: the design on paper for the client and the crew: the measured system, the band, the
+ * chosen candidates with their points, the chart and the cautions. Printed from the browser.
+ */
+@Component({
+  selector: 'rf-selection-report-page',
+  imports: [DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule],
+  templateUrl: './selection-report-page.html',
+  styleUrls: ['../design-page.scss', './selection-report-page.scss'],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SelectionReportPage {
+  protected readonly draft = inject(SelectionDraft);
+  protected readonly user = inject(SessionService).user;
+  protected readonly units = this.draft.units;
+  protected readonly preparedAt = new Date();
+  private readonly chart = viewChild<ElementRef<SVGSVGElement>>('chart');
+
+  protected readonly candidates = computed((): SelectionCandidate[] => {
+    const compared = this.draft.comparedCandidates();
+    return compared.length > 0 ? compared : (this.draft.results()?.candidates ?? []).slice(0, reportedWithoutComparison);
+  });
+  protected readonly fromComparison = computed(() => this.draft.comparedCandidates().length > 0);
+  protected readonly staticHead = computed(() => staticHeadOf(this.draft.system()));
+
+  /** Each pipe segment in words: series, size, length and fittings. */
+  protected readonly segments = computed(() =>
+    this.draft.system().segments.map((segment) => {
+      const series = PIPE_SERIES.find((candidate) => candidate.id === segment.series);
+      const size = series?.sizes.find((candidate) => candidate.id === segment.size);
+      const fittings = segment.fittings
+        .filter((fitting) => fitting.count > 0)
+        .map((fitting) => `${fitting.count} × ${FITTINGS.find((entry) => entry.kind === fitting.kind)?.label ?? fitting.kind}`);
+      return { pipe: `${series?.label ?? segment.series}, ${size?.nominalLabel ?? segment.size}`, length: segment.length, fittings, extraK: segment.extraK };
+    }),
+  );
+
+  /** Total dynamic head the system needs at the band's ends, in the design's units. */
+  protected readonly headAtBand = computed(() => {
+    const units = this.units();
+    const band = this.draft.band();
+    try {
+      const curve = compileDraft(this.draft.pipeSystem(), units);
+      const at = (flow: number) => headFromSI(curve.evaluate(flowToSI(flow, units.flow)), units.head);
+      return { min: at(band.flowMin), max: at(band.flowMax) };
+    } catch {
+      return null;
+    }
+  });
+
+  protected readonly label = candidateLabel;
+
+  constructor() {
+    effect(() => {
+      const element = this.chart()?.nativeElement;
+      const model = comparisonModel({ system: this.draft.pipeSystem(), band: this.draft.band(), units: this.units() }, this.candidates(), this.units());
+      if (element && model) drawComparisonChart(element, model, { focus: () => undefined });
+    });
+  }
+
+  protected print(): void {
+    window.print();
+  }
+}
