@@ -57,7 +57,7 @@ export function createApp({ sequelize, logger, clientFolder, accounts }: AppDepe
   app.get('/api/v1/openapi.yaml', (_request, response) => {
     response.type('application/yaml').send(openApiText);
   });
-  app.use('/api/docs', swaggerUi.serve, swaggerUi.setup(undefined, { swaggerOptions: { url: '/api/v1/openapi.yaml' }, customSiteTitle: 'Riffle API' }));
+  app.use('/api/docs', swaggerUi.serve, swaggerUi.setup(undefined, { swaggerOptions: { url: '/api/v1/openapi.yaml' }, customSiteTitle: 'Riffle API', customCss: '.swagger-ui .topbar { display: none }' }));
 
   // Calculations and selection: one in-memory view of the catalog's current curves.
   const catalogSnapshot = new CatalogSnapshot(sequelize);
