@@ -17,6 +17,7 @@ import { accountsDependenciesFrom, type AccountsDependencies } from './accounts/
 import { createCalculationHandlers } from './calculations/calculation-handlers';
 import { CatalogSnapshot } from './selection/catalog-snapshot';
 import { createCatalogHandlers } from './catalog/catalog-handlers';
+import { createProjectHandlers } from './projects/project-handlers';
 import { createCurveImportHandlers } from './catalog/curve-import-handlers';
 
 export interface AppDependencies {
@@ -70,6 +71,7 @@ export function createApp({ sequelize, logger, clientFolder, accounts }: AppDepe
     ...createCalculationHandlers(catalogSnapshot),
     ...createCatalogHandlers(sequelize),
     ...createCurveImportHandlers(sequelize),
+    ...createProjectHandlers(),
   };
   const guardFor = createOperationGuards(openApiDocument, accountsDependencies.rateLimits);
   app.use('/api/v1', createOperationRouter({ document: openApiDocument, handlers, guardFor }));

@@ -87,3 +87,10 @@ export type AuditEventList = Schemas['AuditEventList'];
 export type AuditEventView = AuditEventList['events'][number];
 export type DemoMailbox = Schemas['DemoMailbox'];
 export type DemoMailMessage = DemoMailbox['messages'][number];
+// projects
+export type DesignDraft = Schemas['DesignDraft'];
+export type DesignSystem = Schemas['DesignSystem'];
+export type DesignSearch = Schemas['DesignSearch'];
+export type ProjectInput = Schemas['ProjectInput'];
+export type Project = Schemas['Project'];
+export type ProjectList = Schemas['ProjectList'];

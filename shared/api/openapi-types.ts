@@ -524,6 +524,48 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/projects": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** My saved designs, most recently changed first */
+        get: operations["listProjects"];
+        put?: never;
+        /**
+         * Save a design as a new project
+         * @description Pipe sizes and fittings must be ones the catalogues know; a 422 names the field otherwise.
+         */
+        post: operations["createProject"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        /** One of my projects with its design */
+        get: operations["getProject"];
+        /** Save my project again, with a new name or design */
+        put: operations["updateProject"];
+        post?: never;
+        /** Delete one of my projects */
+        delete: operations["deleteProject"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
 }
 export type webhooks = Record<string, never>;
 export interface components {
@@ -1078,6 +1120,76 @@ export interface components {
                 pointer: string;
                 detail: string;
             }[];
+        };
+        DesignSegment: {
+            /** @description A pipe series id from GET /pipe-sizes. */
+            series: string;
+            /** @description A size id of that series. */
+            size: string;
+            /** @description In the design's length unit. */
+            length: number;
+            fittings: components["schemas"]["FittingCount"][];
+            extraK: number;
+        };
+        /** @description The measured system as the design form holds it, in the design's units. */
+        DesignSystem: {
+            /**
+             * @description direct: staticHead as typed; levels: dischargeLevel - intakeLevel.
+             * @enum {string}
+             */
+            staticMode: "direct" | "levels";
+            staticHead: number;
+            intakeLevel: number;
+            dischargeLevel: number;
+            outletPressureHead: number;
+            waterTemperatureC: number;
+            /** @enum {string} */
+            frictionMethod: "hazen-williams" | "darcy-weisbach";
+            segments: components["schemas"]["DesignSegment"][];
+        };
+        DesignSearch: {
+            arrangements: (1 | 2 | 3)[];
+            requireOneFailed: boolean;
+            standby?: boolean;
+            onlyPreferredRegion: boolean;
+            maxInputPowerPerPump: number | null;
+            hoursPerDay: number;
+            tariffPerKWh: number | null;
+            limit: number;
+        };
+        /** @description A whole design as the design pages keep it; numbers are in the units of `unitSystem` (us - gpm, ft, in; si - L/min, m, mm). */
+        DesignDraft: {
+            /** @enum {string} */
+            unitSystem: "us" | "si";
+            system: components["schemas"]["DesignSystem"];
+            band: components["schemas"]["DutyBand"];
+            search: components["schemas"]["DesignSearch"];
+        };
+        ProjectInput: {
+            name: components["schemas"]["ProjectName"];
+            design: components["schemas"]["DesignDraft"];
+        };
+        /** @description No angle brackets or control characters. */
+        ProjectName: string;
+        ProjectSummary: {
+            id: number;
+            name: string;
+            /** Format: date-time */
+            createdAt: string;
+            /** Format: date-time */
+            updatedAt: string;
+        };
+        Project: {
+            id: number;
+            name: string;
+            /** Format: date-time */
+            createdAt: string;
+            /** Format: date-time */
+            updatedAt: string;
+            design: components["schemas"]["DesignDraft"];
+        };
+        ProjectList: {
+            projects: components["schemas"]["ProjectSummary"][];
         };
         /** @enum {string} */
         Role: "admin" | "supplier-admin" | "designer" | "integrator";
@@ -3173,6 +3285,418 @@ export interface operations {
                 };
             };
             403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    listProjects: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The caller's own projects, without their designs. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "projects": [
+                     *         {
+                     *           "id": 4,
+                     *           "name": "Hillside cascade",
+                     *           "createdAt": "2026-11-20T09:00:00.000Z",
+                     *           "updatedAt": "2026-12-01T15:30:00.000Z"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ProjectList"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+        };
+    };
+    createProject: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "name": "Hillside cascade",
+                 *       "design": {
+                 *         "unitSystem": "us",
+                 *         "system": {
+                 *           "staticMode": "levels",
+                 *           "staticHead": 14.5,
+                 *           "intakeLevel": 100,
+                 *           "dischargeLevel": 114.5,
+                 *           "outletPressureHead": 0,
+                 *           "waterTemperatureC": 20,
+                 *           "frictionMethod": "hazen-williams",
+                 *           "segments": [
+                 *             {
+                 *               "series": "pvc-sch40",
+                 *               "size": "pvc-sch40-3",
+                 *               "length": 240,
+                 *               "fittings": [
+                 *                 {
+                 *                   "kind": "elbow-90-standard",
+                 *                   "count": 4
+                 *                 },
+                 *                 {
+                 *                   "kind": "exit",
+                 *                   "count": 1
+                 *                 }
+                 *               ],
+                 *               "extraK": 0
+                 *             }
+                 *           ]
+                 *         },
+                 *         "band": {
+                 *           "flowMin": 90,
+                 *           "flowMax": 130
+                 *         },
+                 *         "search": {
+                 *           "arrangements": [
+                 *             1,
+                 *             2
+                 *           ],
+                 *           "requireOneFailed": true,
+                 *           "standby": false,
+                 *           "onlyPreferredRegion": false,
+                 *           "maxInputPowerPerPump": null,
+                 *           "hoursPerDay": 24,
+                 *           "tariffPerKWh": 0.18,
+                 *           "limit": 20
+                 *         }
+                 *       }
+                 *     }
+                 */
+                "application/json": components["schemas"]["ProjectInput"];
+            };
+        };
+        responses: {
+            /** @description The saved project. */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "id": 4,
+                     *       "name": "Hillside cascade",
+                     *       "createdAt": "2026-12-01T15:30:00.000Z",
+                     *       "updatedAt": "2026-12-01T15:30:00.000Z",
+                     *       "design": {
+                     *         "unitSystem": "us",
+                     *         "system": {
+                     *           "staticMode": "levels",
+                     *           "staticHead": 14.5,
+                     *           "intakeLevel": 100,
+                     *           "dischargeLevel": 114.5,
+                     *           "outletPressureHead": 0,
+                     *           "waterTemperatureC": 20,
+                     *           "frictionMethod": "hazen-williams",
+                     *           "segments": [
+                     *             {
+                     *               "series": "pvc-sch40",
+                     *               "size": "pvc-sch40-3",
+                     *               "length": 240,
+                     *               "fittings": [
+                     *                 {
+                     *                   "kind": "elbow-90-standard",
+                     *                   "count": 4
+                     *                 },
+                     *                 {
+                     *                   "kind": "exit",
+                     *                   "count": 1
+                     *                 }
+                     *               ],
+                     *               "extraK": 0
+                     *             }
+                     *           ]
+                     *         },
+                     *         "band": {
+                     *           "flowMin": 90,
+                     *           "flowMax": 130
+                     *         },
+                     *         "search": {
+                     *           "arrangements": [
+                     *             1,
+                     *             2
+                     *           ],
+                     *           "requireOneFailed": true,
+                     *           "standby": false,
+                     *           "onlyPreferredRegion": false,
+                     *           "maxInputPowerPerPump": null,
+                     *           "hoursPerDay": 24,
+                     *           "tariffPerKWh": 0.18,
+                     *           "limit": 20
+                     *         }
+                     *       }
+                     *     }
+                     */
+                    "application/json": components["schemas"]["Project"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    getProject: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The project. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "id": 4,
+                     *       "name": "Hillside cascade",
+                     *       "createdAt": "2026-12-01T15:30:00.000Z",
+                     *       "updatedAt": "2026-12-01T15:30:00.000Z",
+                     *       "design": {
+                     *         "unitSystem": "us",
+                     *         "system": {
+                     *           "staticMode": "levels",
+                     *           "staticHead": 14.5,
+                     *           "intakeLevel": 100,
+                     *           "dischargeLevel": 114.5,
+                     *           "outletPressureHead": 0,
+                     *           "waterTemperatureC": 20,
+                     *           "frictionMethod": "hazen-williams",
+                     *           "segments": [
+                     *             {
+                     *               "series": "pvc-sch40",
+                     *               "size": "pvc-sch40-3",
+                     *               "length": 240,
+                     *               "fittings": [
+                     *                 {
+                     *                   "kind": "elbow-90-standard",
+                     *                   "count": 4
+                     *                 },
+                     *                 {
+                     *                   "kind": "exit",
+                     *                   "count": 1
+                     *                 }
+                     *               ],
+                     *               "extraK": 0
+                     *             }
+                     *           ]
+                     *         },
+                     *         "band": {
+                     *           "flowMin": 90,
+                     *           "flowMax": 130
+                     *         },
+                     *         "search": {
+                     *           "arrangements": [
+                     *             1,
+                     *             2
+                     *           ],
+                     *           "requireOneFailed": true,
+                     *           "standby": false,
+                     *           "onlyPreferredRegion": false,
+                     *           "maxInputPowerPerPump": null,
+                     *           "hoursPerDay": 24,
+                     *           "tariffPerKWh": 0.18,
+                     *           "limit": 20
+                     *         }
+                     *       }
+                     *     }
+                     */
+                    "application/json": components["schemas"]["Project"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    updateProject: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "name": "Hillside cascade",
+                 *       "design": {
+                 *         "unitSystem": "us",
+                 *         "system": {
+                 *           "staticMode": "levels",
+                 *           "staticHead": 14.5,
+                 *           "intakeLevel": 100,
+                 *           "dischargeLevel": 114.5,
+                 *           "outletPressureHead": 0,
+                 *           "waterTemperatureC": 20,
+                 *           "frictionMethod": "hazen-williams",
+                 *           "segments": [
+                 *             {
+                 *               "series": "pvc-sch40",
+                 *               "size": "pvc-sch40-3",
+                 *               "length": 240,
+                 *               "fittings": [
+                 *                 {
+                 *                   "kind": "elbow-90-standard",
+                 *                   "count": 4
+                 *                 },
+                 *                 {
+                 *                   "kind": "exit",
+                 *                   "count": 1
+                 *                 }
+                 *               ],
+                 *               "extraK": 0
+                 *             }
+                 *           ]
+                 *         },
+                 *         "band": {
+                 *           "flowMin": 90,
+                 *           "flowMax": 130
+                 *         },
+                 *         "search": {
+                 *           "arrangements": [
+                 *             1,
+                 *             2
+                 *           ],
+                 *           "requireOneFailed": true,
+                 *           "standby": false,
+                 *           "onlyPreferredRegion": false,
+                 *           "maxInputPowerPerPump": null,
+                 *           "hoursPerDay": 24,
+                 *           "tariffPerKWh": 0.18,
+                 *           "limit": 20
+                 *         }
+                 *       }
+                 *     }
+                 */
+                "application/json": components["schemas"]["ProjectInput"];
+            };
+        };
+        responses: {
+            /** @description The saved project. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "id": 4,
+                     *       "name": "Hillside cascade",
+                     *       "createdAt": "2026-12-01T15:30:00.000Z",
+                     *       "updatedAt": "2026-12-01T15:30:00.000Z",
+                     *       "design": {
+                     *         "unitSystem": "us",
+                     *         "system": {
+                     *           "staticMode": "levels",
+                     *           "staticHead": 14.5,
+                     *           "intakeLevel": 100,
+                     *           "dischargeLevel": 114.5,
+                     *           "outletPressureHead": 0,
+                     *           "waterTemperatureC": 20,
+                     *           "frictionMethod": "hazen-williams",
+                     *           "segments": [
+                     *             {
+                     *               "series": "pvc-sch40",
+                     *               "size": "pvc-sch40-3",
+                     *               "length": 240,
+                     *               "fittings": [
+                     *                 {
+                     *                   "kind": "elbow-90-standard",
+                     *                   "count": 4
+                     *                 },
+                     *                 {
+                     *                   "kind": "exit",
+                     *                   "count": 1
+                     *                 }
+                     *               ],
+                     *               "extraK": 0
+                     *             }
+                     *           ]
+                     *         },
+                     *         "band": {
+                     *           "flowMin": 90,
+                     *           "flowMax": 130
+                     *         },
+                     *         "search": {
+                     *           "arrangements": [
+                     *             1,
+                     *             2
+                     *           ],
+                     *           "requireOneFailed": true,
+                     *           "standby": false,
+                     *           "onlyPreferredRegion": false,
+                     *           "maxInputPowerPerPump": null,
+                     *           "hoursPerDay": 24,
+                     *           "tariffPerKWh": 0.18,
+                     *           "limit": 20
+                     *         }
+                     *       }
+                     *     }
+                     */
+                    "application/json": components["schemas"]["Project"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    deleteProject: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Deleted. */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
             404: components["responses"]["NotFound"];
         };
     };

@@ -13,6 +13,8 @@ import { CurveImport } from './curve-import';
 import { CurvePoint } from './curve-point';
 import { CurveRevision } from './curve-revision';
 import { Pump } from './pump';
+// projects
+import { Project } from './project';
 
 /** Initialises every model and declares the associations, in one place. */
 export function initialiseModels(sequelize: Sequelize): void {
@@ -40,8 +42,11 @@ export function initialiseModels(sequelize: Sequelize): void {
     CurveRevision.hasMany(CurveDeclaredRange, { as: 'declaredRanges', foreignKey: 'revisionId' });
     CurveImport.belongsTo(Supplier, { as: 'supplier', foreignKey: 'supplierId' });
   }
+  // projects
+  Project.initialise(sequelize);
 }
 
 export { Supplier };
 export { ApiToken, AuditEvent, Invitation, PasswordResetLink, Session, User };
 export { CurveDeclaredRange, CurveImport, CurvePoint, CurveRevision, Pump };
+export { Project };
