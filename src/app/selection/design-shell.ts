@@ -1,8 +1,15 @@
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { HttpErrorResponse } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { describeHttpError } from '../core/problem-details';
+import { SessionService } from '../core/session-service';
 import { CautionsPanel } from './cautions-panel';
+import { ProjectsApi } from './projects/projects-api';
+import { SaveProjectDialog } from './projects/save-project-dialog';
 import { SelectionDraft } from './selection-draft';
 import { unitSystems, type UnitSystem } from './unit-systems';
 
@@ -12,10 +19,10 @@ interface DesignStep {
   icon: string;
 }
 
-/** The designer's flow in one place: five steps over one draft, with the cautions always in view. */
+/** The designer's flow in one place: five steps over one draft, saved as a project, with the cautions always in view. */
 @Component({
   selector: 'rf-design-shell',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatButtonToggleModule, CautionsPanel],
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatButtonModule, MatButtonToggleModule, CautionsPanel],
   template: `
     <header class="rf-design-head">
       <h1>Pump selection</h1>
@@ -30,6 +37,19 @@ interface DesignStep {
         }
       </mat-button-toggle-group>
     </header>
+    @if (canSave()) {
+    <div class="rf-project-bar">
+      <span class="rf-project-name"><mat-icon aria-hidden="true">folder</mat-icon> {{ draft.project()?.name ?? 'Unsaved design' }}</span>
+      <button mat-stroked-button type="button" (click)="save()"><mat-icon>save</mat-icon> Save</button>
+      @if (draft.project()) {
+        <button mat-button type="button" (click)="saveAsNew()">Save as new</button>
+      }
+      <a mat-button routerLink="projects" routerLinkActive="rf-step-active"><mat-icon>folder_open</mat-icon> Projects</a>
+      @if (saveNote(); as note) {
+        <span class="rf-save-note" role="status">{{ note }}</span>
+      }
+    </div>
+    }
     <nav class="rf-design-steps" aria-label="Design steps">
       @for (step of steps; track step.path; let index = $index) {
         <a [routerLink]="step.path" routerLinkActive="rf-step-active" ariaCurrentWhenActive="step">
@@ -84,9 +104,28 @@ interface DesignStep {
     .rf-step-number {
       font-weight: 700;
     }
+    .rf-project-bar {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      gap: 0.5rem;
+      margin-top: 0.75rem;
+    }
+    .rf-project-name {
+      display: inline-flex;
+      align-items: center;
+      gap: 0.35rem;
+      font-weight: 700;
+      color: var(--rf-water-deep);
+      margin-right: 0.5rem;
+    }
+    .rf-save-note {
+      color: #3f5f2a;
+    }
     /* on paper: the report and the cautions, not the controls */
     @media print {
       .rf-design-head,
+      .rf-project-bar,
       .rf-design-steps {
         display: none;
       }
@@ -106,7 +145,45 @@ export class DesignShell {
     { path: 'report', label: 'Report', icon: 'description' },
   ];
 
+  private readonly projectsApi = inject(ProjectsApi);
+  private readonly session = inject(SessionService);
+  /** Projects are kept for the roles that design: designers, integrators and admins. */
+  protected readonly canSave = computed(() => this.session.signedIn() && this.session.hasRole(['designer', 'integrator', 'admin']));
+  private readonly dialog = inject(MatDialog);
+  /** What the last save did, or why it failed. */
+  protected readonly saveNote = signal<string | null>(null);
+
+  constructor() {
+    // a note about the last save is old news once the design changes
+    effect(() => {
+      this.draft.design();
+      this.saveNote.set(null);
+    });
+  }
+
   protected setUnits(unitSystem: UnitSystem): void {
     this.draft.setUnitSystem(unitSystem);
+  }
+
+  /** Saves the design again into its project, or as a new one when it has none. */
+  protected save(): void {
+    const project = this.draft.project();
+    if (!project) {
+      this.saveAsNew();
+      return;
+    }
+    this.projectsApi.updateProject(project.id, { name: project.name, design: this.draft.design() }).subscribe({
+      next: (saved) => this.saveNote.set(`Saved at ${new Date(saved.updatedAt).toLocaleTimeString()}.`),
+      error: (error: HttpErrorResponse) => this.saveNote.set(describeHttpError(error)),
+    });
+  }
+
+  protected saveAsNew(): void {
+    this.dialog
+      .open(SaveProjectDialog, { width: '32rem', data: this.draft.project()?.name ?? '', autoFocus: 'first-tabbable' })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (saved) this.saveNote.set(`Saved as "${saved.name}".`);
+      });
   }
 }

@@ -1,23 +1,20 @@
 import { Injectable, computed, effect, signal } from '@angular/core';
-import type { DutyBand, SelectionCandidate, SelectionResponse } from '../../../shared/api/api-schemas';
+import type { DesignDraft, DesignSearch, DutyBand, Project, SelectionCandidate, SelectionResponse } from '../../../shared/api/api-schemas';
 import { flowFromSI, flowToSI } from '../../../shared/hydraulics';
 import { convertSystemDraft, exampleDraft, toPipeSystem, type SystemDraft } from './system-draft';
 import { unitSystems, type UnitSystem } from './unit-systems';
 
-/** What the designer asks the search for, besides the system and the band. */
-export interface SearchSettings {
-  arrangements: Array<1 | 2 | 3>;
-  requireOneFailed: boolean;
-  /** One more pump installed idle, taking over when a running one fails. */
-  standby: boolean;
-  onlyPreferredRegion: boolean;
-  maxInputPowerPerPump: number | null;
-  hoursPerDay: number;
-  tariffPerKWh: number | null;
-  limit: number;
+/** What the designer asks the search for, besides the system and the band (the contract's DesignSearch). */
+export type SearchSettings = DesignSearch;
+
+/** The saved project the draft came from or was saved as. */
+export interface ProjectRef {
+  id: number;
+  name: string;
 }
 
 interface StoredDraft {
+  project: ProjectRef | null;
   unitSystem: UnitSystem;
   system: SystemDraft;
   band: DutyBand;
@@ -38,6 +35,7 @@ export function candidateKey(candidate: Pick<SelectionCandidate, 'pumpId' | 'arr
 
 function initialDraft(): StoredDraft {
   return {
+    project: null,
     unitSystem: 'us',
     system: exampleDraft(),
     band: { flowMin: 90, flowMax: 130 },
@@ -64,6 +62,12 @@ function readStored(): StoredDraft {
 export class SelectionDraft {
   private readonly stored = signal<StoredDraft>(readStored());
 
+  readonly project = computed(() => this.stored().project);
+  /** The design as a project saves it. */
+  readonly design = computed((): DesignDraft => {
+    const { unitSystem, system, band, search } = this.stored();
+    return { unitSystem, system, band, search };
+  });
   readonly unitSystem = computed(() => this.stored().unitSystem);
   readonly units = computed(() => unitSystems[this.stored().unitSystem].units);
   readonly system = computed(() => this.stored().system);
@@ -105,6 +109,22 @@ export class SelectionDraft {
       results: null,
       compared: [],
     }));
+  }
+
+  /** Opens a saved project: its design replaces the draft, and the search is to run again. */
+  openProject(project: Project): void {
+    const { unitSystem, system, band, search } = project.design;
+    this.stored.set({ project: { id: project.id, name: project.name }, unitSystem, system, band, search, results: null, compared: [] });
+  }
+
+  /** The draft now is the saved project `project`. */
+  savedAs(project: Pick<Project, 'id' | 'name'>): void {
+    this.stored.update((draft) => ({ ...draft, project: { id: project.id, name: project.name } }));
+  }
+
+  /** The saved project is gone (deleted): the draft stays, as an unsaved design. */
+  forgetProject(): void {
+    this.stored.update((draft) => ({ ...draft, project: null }));
   }
 
   setSystem(system: SystemDraft): void {

@@ -1,30 +1,9 @@
-import type { CalculationUnits, PipeSystem } from '../../../shared/api/api-schemas';
-import { compileSystemCurve, headFromSI, headToSI, lengthFromSI, lengthToSI, type CompiledSystemCurve, type FrictionMethod } from '../../../shared/hydraulics';
+import type { CalculationUnits, DesignSystem, PipeSystem } from '../../../shared/api/api-schemas';
+import { compileSystemCurve, headFromSI, headToSI, lengthFromSI, lengthToSI, type CompiledSystemCurve } from '../../../shared/hydraulics';
 
-/** The system as the designer's form holds it, in the draft's unit system. */
-export interface SegmentDraft {
-  /** Pipe series id from the engine's catalogue, e.g. `pvc-sch40`. */
-  series: string;
-  /** Size id within the series, e.g. `pvc-sch40-3`. */
-  size: string;
-  length: number;
-  fittings: Array<{ kind: string; count: number }>;
-  /** Extra resistance coefficient: filter module, manifold, nozzle. */
-  extraK: number;
-}
-
-export interface SystemDraft {
-  staticMode: 'direct' | 'levels';
-  staticHead: number;
-  /** Measured elevation of the intake water surface. */
-  intakeLevel: number;
-  /** Measured elevation of the discharge surface or outlet. */
-  dischargeLevel: number;
-  outletPressureHead: number;
-  waterTemperatureC: number;
-  frictionMethod: FrictionMethod;
-  segments: SegmentDraft[];
-}
+/** The system as the designer's form holds it, in the draft's unit system (the contract's DesignSystem). */
+export type SystemDraft = DesignSystem;
+export type SegmentDraft = DesignSystem['segments'][number];
 
 /** Static head from the draft: entered directly, or the rise from the intake to the discharge level. */
 export function staticHeadOf(draft: SystemDraft): number {
