@@ -62,6 +62,8 @@ const POWER_FACTORS = factorsToSI<PowerUnit>({ W: 'W', kW: 'kW', hp: 'hp' }, 'W'
 interface Conversion<U extends string> {
   toSI(value: number, unitName: U, field?: string): number;
   fromSI(value: number, unitName: U, field?: string): number;
+  /** From one accepted unit straight to another, through SI. */
+  between(value: number, from: U, to: U, field?: string): number;
 }
 
 function conversion<U extends string>(
@@ -79,10 +81,9 @@ function conversion<U extends string>(
     }
     return factors[unitName as U];
   };
-  return {
-    toSI: (value, unitName, field = defaultField) => requireFinite(value, field, quantity) * factorFor(unitName, field),
-    fromSI: (value, unitName, field = defaultField) => requireFinite(value, field, quantity) / factorFor(unitName, field),
-  };
+  const toSI = (value: number, unitName: U, field = defaultField) => requireFinite(value, field, quantity) * factorFor(unitName, field);
+  const fromSI = (value: number, unitName: U, field = defaultField) => requireFinite(value, field, quantity) / factorFor(unitName, field);
+  return { toSI, fromSI, between: (value, from, to, field = defaultField) => fromSI(toSI(value, from, field), to, field) };
 }
 
 const FLOW = conversion(FLOW_FACTORS, FLOW_UNITS, 'flow', '/flowUnit');
@@ -96,14 +97,20 @@ const POWER = conversion(POWER_FACTORS, POWER_UNITS, 'power', '/powerUnit');
 export const flowToSI = FLOW.toSI;
 /** Flow in m3/s to `unitName`. */
 export const flowFromSI = FLOW.fromSI;
+/** Flow from one unit to another, e.g. gpm to L/min. */
+export const convertFlow = FLOW.between;
 /** Head in `unitName` to m. */
 export const headToSI = HEAD.toSI;
 /** Head in m to `unitName`. */
 export const headFromSI = HEAD.fromSI;
+/** Head from one unit to another. */
+export const convertHead = HEAD.between;
 /** Pipe length in `unitName` to m. */
 export const lengthToSI = LENGTH.toSI;
 /** Pipe length in m to `unitName`. */
 export const lengthFromSI = LENGTH.fromSI;
+/** Pipe length from one unit to another. */
+export const convertLength = LENGTH.between;
 /** Diameter in `unitName` to m. */
 export const diameterToSI = DIAMETER.toSI;
 /** Diameter in m to `unitName`. */

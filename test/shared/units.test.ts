@@ -1,6 +1,9 @@
 import { expect } from 'chai';
 import fc from 'fast-check';
 import {
+  convertFlow,
+  convertHead,
+  convertLength,
   DIAMETER_UNITS,
   FLOW_UNITS,
   HEAD_UNITS,
@@ -72,6 +75,14 @@ describe('units', () => {
         }),
       );
     }
+  });
+
+  it('converts straight from one unit to another (1 gpm = 3.785411784 L/min; 1 ft = 0.3048 m, NIST SP 811)', () => {
+    expect(convertFlow(100, 'gpm', 'L/min')).to.be.closeTo(378.5411784, 1e-9);
+    expect(convertFlow(6000, 'gph', 'gpm')).to.be.closeTo(100, 1e-12);
+    expect(convertHead(14.5, 'ft', 'm')).to.be.closeTo(4.4196, 1e-12);
+    expect(convertLength(73.152, 'm', 'ft')).to.be.closeTo(240, 1e-12);
+    expect(() => convertFlow(1, 'gpm', 'cfs' as never)).to.throw(/accepted units: gpm, gph/);
   });
 
   it('names the accepted units when a unit is unknown', () => {

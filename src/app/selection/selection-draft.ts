@@ -1,6 +1,6 @@
 import { Injectable, computed, effect, signal } from '@angular/core';
 import type { DesignDraft, DesignSearch, DutyBand, Project, SelectionCandidate, SelectionResponse } from '../../../shared/api/api-schemas';
-import { flowFromSI, flowToSI } from '../../../shared/hydraulics';
+import { convertFlow } from '../../../shared/hydraulics';
 import { convertSystemDraft, exampleDraft, toPipeSystem, type SystemDraft } from './system-draft';
 import { unitSystems, type UnitSystem } from './unit-systems';
 
@@ -100,7 +100,7 @@ export class SelectionDraft {
     const from = this.units();
     const to = unitSystems[unitSystem].units;
     // a band is a design target: four figures say it (90 gpm is 340.7 L/min, and back)
-    const flow = (value: number) => Number(flowFromSI(flowToSI(value, from.flow), to.flow).toPrecision(4));
+    const flow = (value: number) => Number(convertFlow(value, from.flow, to.flow).toPrecision(4));
     this.stored.update((draft) => ({
       ...draft,
       unitSystem,

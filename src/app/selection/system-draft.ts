@@ -1,5 +1,5 @@
 import type { CalculationUnits, DesignSystem, PipeSystem } from '../../../shared/api/api-schemas';
-import { compileSystemCurve, headFromSI, headToSI, lengthFromSI, lengthToSI, type CompiledSystemCurve } from '../../../shared/hydraulics';
+import { compileSystemCurve, convertHead, convertLength, headToSI, lengthToSI, type CompiledSystemCurve } from '../../../shared/hydraulics';
 
 /** The system as the designer's form holds it, in the draft's unit system (the contract's DesignSystem). */
 export type SystemDraft = DesignSystem;
@@ -46,14 +46,14 @@ export function compileDraft(system: PipeSystem, units: CalculationUnits): Compi
 }
 
 /** Seven significant figures: survey levels keep well under a millimetre, and switching back gives the typed numbers again. */
-export function roundConverted(value: number): number {
+function roundConverted(value: number): number {
   return Number(value.toPrecision(7));
 }
 
 /** The same measured system in other units: levels, heads and lengths converted, the rest as it was. */
 export function convertSystemDraft(draft: SystemDraft, from: CalculationUnits, to: CalculationUnits): SystemDraft {
-  const head = (value: number) => roundConverted(headFromSI(headToSI(value, from.head), to.head));
-  const length = (value: number) => roundConverted(lengthFromSI(lengthToSI(value, from.length), to.length));
+  const head = (value: number) => roundConverted(convertHead(value, from.head, to.head));
+  const length = (value: number) => roundConverted(convertLength(value, from.length, to.length));
   return {
     ...draft,
     staticHead: head(draft.staticHead),

@@ -1,5 +1,5 @@
 import type { CalculationUnits, DutyBand, PipeSystem, SelectionCandidate } from '../../../../shared/api/api-schemas';
-import { flowFromSI, flowToSI, headFromSI, headToSI } from '../../../../shared/hydraulics';
+import { convertFlow, convertHead, flowFromSI, flowToSI, headFromSI } from '../../../../shared/hydraulics';
 import { candidateKey } from '../selection-draft';
 import { compileDraft } from '../system-draft';
 import type { ChartCandidate, ChartModel, ChartPoint } from './comparison-chart';
@@ -22,8 +22,8 @@ export interface ComparedDesign {
 /** Converts flows and heads from the design's units to the shown ones. */
 export function unitConverter(from: CalculationUnits, to: CalculationUnits) {
   return {
-    flow: (value: number) => flowFromSI(flowToSI(value, from.flow), to.flow),
-    head: (value: number) => headFromSI(headToSI(value, from.head), to.head),
+    flow: (value: number) => convertFlow(value, from.flow, to.flow),
+    head: (value: number) => convertHead(value, from.head, to.head),
   };
 }
 
