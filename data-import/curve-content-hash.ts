@@ -2,7 +2,13 @@ import { createHash } from 'node:crypto';
 import type { PowerBasis } from '../shared/hydraulics';
 
 export interface CurveContent {
-  points: ReadonlyArray<{ flow: number; head: number; power?: number | null; efficiency?: number | null; npshRequired?: number | null }>;
+  points: ReadonlyArray<{
+    flow: number;
+    head: number;
+    power?: number | null;
+    efficiency?: number | null;
+    npshRequired?: number | null;
+  }>;
   preferred: { flowMin: number; flowMax: number } | null;
   allowable: { flowMin: number; flowMax: number } | null;
   powerBasis: PowerBasis;
@@ -16,9 +22,12 @@ function canonical(value: number | null | undefined): string | null {
 
 /** sha-256 (hex) of a curve as Riffle stores it: equal hashes mean an unchanged curve. */
 export function curveContentHash(content: CurveContent): string {
-  const range = (value: CurveContent['preferred']) => (value ? [canonical(value.flowMin), canonical(value.flowMax)] : null);
+  const range = (value: CurveContent['preferred']) =>
+    value ? [canonical(value.flowMin), canonical(value.flowMax)] : null;
   const text = JSON.stringify({
-    points: content.points.map((point) => [point.flow, point.head, point.power, point.efficiency, point.npshRequired].map(canonical)),
+    points: content.points.map((point) =>
+      [point.flow, point.head, point.power, point.efficiency, point.npshRequired].map(canonical),
+    ),
     preferred: range(content.preferred),
     allowable: range(content.allowable),
     powerBasis: content.powerBasis,

@@ -62,7 +62,8 @@ interface PlannedPump {
 const pointRowsPerInsert = 4000;
 
 function sameDetails(a: ReadPumpDetails, b: ReadPumpDetails): boolean {
-  const near = (x: number | null, y: number | null) => (x === null || y === null ? x === y : Math.abs(x - y) <= 1e-6 * Math.max(1, Math.abs(x)));
+  const near = (x: number | null, y: number | null) =>
+    x === null || y === null ? x === y : Math.abs(x - y) <= 1e-6 * Math.max(1, Math.abs(x));
   return (
     a.displayName === b.displayName &&
     a.kind === b.kind &&
@@ -77,7 +78,11 @@ function sameDetails(a: ReadPumpDetails, b: ReadPumpDetails): boolean {
   );
 }
 
-async function loadExistingPumps(sequelize: Sequelize, supplierId: number, transaction?: Transaction): Promise<Map<string, ExistingPump>> {
+async function loadExistingPumps(
+  sequelize: Sequelize,
+  supplierId: number,
+  transaction?: Transaction,
+): Promise<Map<string, ExistingPump>> {
   const rows = await sequelize.query<{
     id: number;
     model_code: string;
@@ -128,9 +133,19 @@ async function loadExistingPumps(sequelize: Sequelize, supplierId: number, trans
   );
 }
 
-function planPumps(pumps: ReadonlyArray<{ read: ReadPump; checked: CheckedPump }>, existing: Map<string, ExistingPump>, powerBasis: PowerBasis): PlannedPump[] {
+function planPumps(
+  pumps: ReadonlyArray<{ read: ReadPump; checked: CheckedPump }>,
+  existing: Map<string, ExistingPump>,
+  powerBasis: PowerBasis,
+): PlannedPump[] {
   return pumps.map(({ read, checked }) => {
-    const contentHash = curveContentHash({ points: read.points, preferred: read.preferred, allowable: read.allowable, powerBasis, notes: read.details.notes });
+    const contentHash = curveContentHash({
+      points: read.points,
+      preferred: read.preferred,
+      allowable: read.allowable,
+      powerBasis,
+      notes: read.details.notes,
+    });
     const known = existing.get(read.modelCode);
     if (checked.errors.length > 0 || !checked.fit) {
       return { read, checked, contentHash, outcome: 'refused', changes: [], revisionNumber: known?.currentNumber ?? 0 };
@@ -184,7 +199,9 @@ export function storedReport(report: CurveImportReport): CurveImportReport {
 
 /** One line for a person: where the issue is, what is wrong, what is expected. */
 export function describeIssue(issue: CurveImportIssue): string {
-  const where = [issue.row !== null ? `row ${issue.row}` : null, issue.column ? `column ${issue.column}` : null].filter(Boolean).join(', ');
+  const where = [issue.row !== null ? `row ${issue.row}` : null, issue.column ? `column ${issue.column}` : null]
+    .filter(Boolean)
+    .join(', ');
   return `${where || 'file'}: ${issue.message}${issue.expected ? ` (expected ${issue.expected})` : ''}`;
 }
 
@@ -246,7 +263,10 @@ export async function importCurveTable(options: CurveImportOptions): Promise<Cur
 
   return sequelize.transaction(async (transaction) => {
     // One import per supplier at a time: the plan below is made under this lock.
-    await sequelize.query('SELECT id FROM suppliers WHERE id = ? FOR UPDATE', { replacements: [supplier.id], transaction });
+    await sequelize.query('SELECT id FROM suppliers WHERE id = ? FOR UPDATE', {
+      replacements: [supplier.id],
+      transaction,
+    });
     const existing = await loadExistingPumps(sequelize, supplier.id, transaction);
     const plan = planPumps(checkedPumps, existing, powerBasis);
     const toWrite = plan.filter((pump) => pump.outcome === 'new' || pump.outcome === 'changed');
@@ -271,7 +291,16 @@ export async function importCurveTable(options: CurveImportOptions): Promise<Cur
       },
       { transaction },
     );
-    await writePumps(sequelize, { supplierId: supplier.id, importId: record.id, plan: toWrite, fileName: options.fileName, fileChecksum: read.fileChecksum, fileUnits: read.fileUnits ?? {}, transaction, onProgress });
+    await writePumps(sequelize, {
+      supplierId: supplier.id,
+      importId: record.id,
+      plan: toWrite,
+      fileName: options.fileName,
+      fileChecksum: read.fileChecksum,
+      fileUnits: read.fileUnits ?? {},
+      transaction,
+      onProgress,
+    });
     return { ...draft, importId: record.id };
   });
 }
@@ -299,11 +328,29 @@ async function writePumps(sequelize: Sequelize, options: WriteOptions): Promise<
     await Pump.bulkCreate(
       detailRows.map(({ read }) => {
         const { notes: _notes, ...details } = read.details;
-        return { supplierId, modelCode: read.modelCode, ...details, listPrice: details.listPrice === null ? null : details.listPrice.toFixed(2), currentRevisionId: null };
+        return {
+          supplierId,
+          modelCode: read.modelCode,
+          ...details,
+          listPrice: details.listPrice === null ? null : details.listPrice.toFixed(2),
+          currentRevisionId: null,
+        };
       }),
       {
         transaction,
-        updateOnDuplicate: ['displayName', 'kind', 'nominalSpeedRpm', 'voltageV', 'phaseCount', 'dischargeSizeMm', 'solidsHandlingMm', 'listPrice', 'priceCurrency', 'status', 'updatedAt'],
+        updateOnDuplicate: [
+          'displayName',
+          'kind',
+          'nominalSpeedRpm',
+          'voltageV',
+          'phaseCount',
+          'dischargeSizeMm',
+          'solidsHandlingMm',
+          'listPrice',
+          'priceCurrency',
+          'status',
+          'updatedAt',
+        ],
       },
     );
   }
@@ -313,11 +360,14 @@ async function writePumps(sequelize: Sequelize, options: WriteOptions): Promise<
   if (curveRows.length === 0) return;
   const pumpIds = new Map(
     (
-      await sequelize.query<{ id: number; model_code: string }>('SELECT id, model_code FROM pumps WHERE supplier_id = ?', {
-        replacements: [supplierId],
-        type: QueryTypes.SELECT,
-        transaction,
-      })
+      await sequelize.query<{ id: number; model_code: string }>(
+        'SELECT id, model_code FROM pumps WHERE supplier_id = ?',
+        {
+          replacements: [supplierId],
+          type: QueryTypes.SELECT,
+          transaction,
+        },
+      )
     ).map((row) => [row.model_code, row.id]),
   );
   await queryInterface.bulkInsert(
@@ -350,11 +400,14 @@ async function writePumps(sequelize: Sequelize, options: WriteOptions): Promise<
   );
   const revisionIds = new Map(
     (
-      await sequelize.query<{ id: number; pump_id: number }>('SELECT id, pump_id FROM curve_revisions WHERE import_id = ?', {
-        replacements: [importId],
-        type: QueryTypes.SELECT,
-        transaction,
-      })
+      await sequelize.query<{ id: number; pump_id: number }>(
+        'SELECT id, pump_id FROM curve_revisions WHERE import_id = ?',
+        {
+          replacements: [importId],
+          type: QueryTypes.SELECT,
+          transaction,
+        },
+      )
     ).map((row) => [row.pump_id, row.id]),
   );
 
@@ -382,7 +435,8 @@ async function writePumps(sequelize: Sequelize, options: WriteOptions): Promise<
       ['preferred', read.preferred],
       ['allowable', read.allowable],
     ] as const) {
-      if (range) rangeRows.push({ revision_id: revisionId, region, flow_min_m3s: range.flowMin, flow_max_m3s: range.flowMax });
+      if (range)
+        rangeRows.push({ revision_id: revisionId, region, flow_min_m3s: range.flowMin, flow_max_m3s: range.flowMax });
     }
     written += 1;
     if (pointRows.length >= pointRowsPerInsert) {

@@ -1,5 +1,12 @@
 import type { CurveFileUnits } from '../shared/api/api-schemas';
-import { flowFromSI, headFromSI, powerFromSI, type FlowUnit, type HeadUnit, type PowerUnit } from '../shared/hydraulics';
+import {
+  flowFromSI,
+  headFromSI,
+  powerFromSI,
+  type FlowUnit,
+  type HeadUnit,
+  type PowerUnit,
+} from '../shared/hydraulics';
 import { CurveDeclaredRange, CurvePoint, CurveRevision, Pump, type Supplier } from '../server/database/models';
 import { pointColumns, pumpColumns, type CurveTableColumn } from './curve-table-format';
 import { formatCurveTable, type CurveTableDraft } from './curve-table-writer';
@@ -51,16 +58,41 @@ export async function exportCurveTable(supplier: Supplier): Promise<CurveTableEx
   });
   const declared = pumps.map((pump) => (pump.currentRevision?.fileUnits ?? {}) as Partial<CurveFileUnits>);
   const units: CurveFileUnits = {
-    flow: mostCommon<FlowUnit>(declared.map((file) => file.flow), 'm3/h'),
-    head: mostCommon<HeadUnit>(declared.map((file) => file.head), 'm'),
-    power: mostCommon<PowerUnit>(declared.map((file) => file.power), 'kW'),
-    efficiency: mostCommon<'%' | 'fraction'>(declared.map((file) => file.efficiency), '%'),
-    npsh: mostCommon<HeadUnit>(declared.map((file) => file.npsh), 'm'),
-    size: mostCommon<'mm' | 'in'>(declared.map((file) => file.size), 'mm'),
-    powerBasis: mostCommon<'shaft' | 'electrical'>(declared.map((file) => file.powerBasis), 'shaft'),
+    flow: mostCommon<FlowUnit>(
+      declared.map((file) => file.flow),
+      'm3/h',
+    ),
+    head: mostCommon<HeadUnit>(
+      declared.map((file) => file.head),
+      'm',
+    ),
+    power: mostCommon<PowerUnit>(
+      declared.map((file) => file.power),
+      'kW',
+    ),
+    efficiency: mostCommon<'%' | 'fraction'>(
+      declared.map((file) => file.efficiency),
+      '%',
+    ),
+    npsh: mostCommon<HeadUnit>(
+      declared.map((file) => file.npsh),
+      'm',
+    ),
+    size: mostCommon<'mm' | 'in'>(
+      declared.map((file) => file.size),
+      'mm',
+    ),
+    powerBasis: mostCommon<'shaft' | 'electrical'>(
+      declared.map((file) => file.powerBasis),
+      'shaft',
+    ),
   };
-  const currency = mostCommon<string>(pumps.map((pump) => pump.priceCurrency ?? undefined), 'USD');
-  const size = (millimetres: number | null) => (millimetres === null ? null : exact(units.size === 'in' ? millimetres / 25.4 : millimetres));
+  const currency = mostCommon<string>(
+    pumps.map((pump) => pump.priceCurrency ?? undefined),
+    'USD',
+  );
+  const size = (millimetres: number | null) =>
+    millimetres === null ? null : exact(units.size === 'in' ? millimetres / 25.4 : millimetres);
   const points = pumps.flatMap((pump) => pump.currentRevision?.points ?? []);
   const ranges = pumps.flatMap((pump) => pump.currentRevision?.declaredRanges ?? []);
   const has = {
@@ -70,15 +102,22 @@ export async function exportCurveTable(supplier: Supplier): Promise<CurveTableEx
     size: pumps.some((pump) => pump.dischargeSizeMm !== null || pump.solidsHandlingMm !== null),
     price: pumps.some((pump) => pump.listPrice !== null),
   };
-  const comments = [`Curve table of ${supplier.name} (${supplier.code}), written by Riffle. Loaded again unchanged, it changes nothing.`];
-  const otherCurrency = pumps.filter((pump) => pump.listPrice !== null && pump.priceCurrency !== currency).map((pump) => pump.modelCode);
-  if (otherCurrency.length > 0) comments.push(`Prices in other currencies than ${currency} are left out: ${otherCurrency.join(', ')}.`);
+  const comments = [
+    `Curve table of ${supplier.name} (${supplier.code}), written by Riffle. Loaded again unchanged, it changes nothing.`,
+  ];
+  const otherCurrency = pumps
+    .filter((pump) => pump.listPrice !== null && pump.priceCurrency !== currency)
+    .map((pump) => pump.modelCode);
+  if (otherCurrency.length > 0)
+    comments.push(`Prices in other currencies than ${currency} are left out: ${otherCurrency.join(', ')}.`);
 
   // the format's own column order, less the optional columns no pump has anything for
   const unused = new Set<CurveTableColumn>([
     ...(has.size ? [] : (['discharge_size', 'solids_size'] as const)),
     ...(has.price ? [] : (['list_price'] as const)),
-    ...(ranges.length > 0 ? [] : (['preferred_flow_min', 'preferred_flow_max', 'allowable_flow_min', 'allowable_flow_max'] as const)),
+    ...(ranges.length > 0
+      ? []
+      : (['preferred_flow_min', 'preferred_flow_max', 'allowable_flow_min', 'allowable_flow_max'] as const)),
     ...(has.power ? [] : (['power'] as const)),
     ...(has.efficiency ? [] : (['efficiency'] as const)),
     ...(has.npsh ? [] : (['npsh_required'] as const)),
@@ -87,7 +126,8 @@ export async function exportCurveTable(supplier: Supplier): Promise<CurveTableEx
   const flow = (value: number) => exact(flowFromSI(value, units.flow));
   const rows: Row[] = pumps.flatMap((pump) => {
     const revision = pump.currentRevision!;
-    const range = (region: 'preferred' | 'allowable') => revision.declaredRanges?.find((candidate) => candidate.region === region);
+    const range = (region: 'preferred' | 'allowable') =>
+      revision.declaredRanges?.find((candidate) => candidate.region === region);
     const preferred = range('preferred');
     const allowable = range('allowable');
     const details: Row = {
@@ -112,7 +152,8 @@ export async function exportCurveTable(supplier: Supplier): Promise<CurveTableEx
       flow: flow(point.flowM3s),
       head: exact(headFromSI(point.headM, units.head)),
       power: point.powerW === null ? null : exact(powerFromSI(point.powerW, units.power!)),
-      efficiency: point.efficiency === null ? null : exact(units.efficiency === '%' ? point.efficiency * 100 : point.efficiency),
+      efficiency:
+        point.efficiency === null ? null : exact(units.efficiency === '%' ? point.efficiency * 100 : point.efficiency),
       npsh_required: point.npshRequiredM === null ? null : exact(headFromSI(point.npshRequiredM, units.npsh!)),
     }));
   });
@@ -132,5 +173,9 @@ export async function exportCurveTable(supplier: Supplier): Promise<CurveTableEx
     columns,
     rows,
   };
-  return { text: formatCurveTable(draft), pumpCount: pumps.length, units: { ...units, ...(has.price ? { currency } : {}) } };
+  return {
+    text: formatCurveTable(draft),
+    pumpCount: pumps.length,
+    units: { ...units, ...(has.price ? { currency } : {}) },
+  };
 }

@@ -103,7 +103,11 @@ class CountingHash extends Transform {
   override _transform(chunk: Buffer, _encoding: BufferEncoding, callback: TransformCallback): void {
     this.bytes += chunk.length;
     if (this.bytes > this.limit) {
-      callback(new FileTooLargeError(`the file is larger than ${Math.round(this.limit / 1024 / 1024)} MiB; split it into smaller files`));
+      callback(
+        new FileTooLargeError(
+          `the file is larger than ${Math.round(this.limit / 1024 / 1024)} MiB; split it into smaller files`,
+        ),
+      );
       return;
     }
     this.hash.update(chunk);
@@ -185,14 +189,19 @@ function csvParser(delimiter: ';' | ',') {
 }
 
 /** The records of a byte stream with the file's line numbers. */
-async function* csvRecords(chunks: AsyncIterable<Buffer>, delimiter: ';' | ',', lineOffset: number): AsyncGenerator<{ record: string[]; line: number }> {
+async function* csvRecords(
+  chunks: AsyncIterable<Buffer>,
+  delimiter: ';' | ',',
+  lineOffset: number,
+): AsyncGenerator<{ record: string[]; line: number }> {
   const parser = pipeline(Readable.from(chunks), csvParser(delimiter), () => undefined);
   try {
     for await (const { record, info } of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
       yield { record, line: info.lines + lineOffset };
     }
   } catch (error) {
-    if (error instanceof CsvError) Object.assign(error, { lines: ((error as CsvError & { lines?: number }).lines ?? 0) + lineOffset });
+    if (error instanceof CsvError)
+      Object.assign(error, { lines: ((error as CsvError & { lines?: number }).lines ?? 0) + lineOffset });
     throw error;
   }
 }
@@ -251,22 +260,40 @@ export async function readCurveTable(
         yield next.value;
       }
     }
-    const parts = [csvRecords(Readable.from([split.preamble]), split.delimiter, 0), csvRecords(rest(), split.delimiter, split.preambleLines)];
+    const parts = [
+      csvRecords(Readable.from([split.preamble]), split.delimiter, 0),
+      csvRecords(rest(), split.delimiter, split.preambleLines),
+    ];
     reading: for (const part of parts) {
       for await (const { record, line } of part) {
         state.take(record, line);
         if (state.pointRowCount > maxPointRows) {
-          errors.add(issue(line, null, `the file has more than ${maxPointRows.toLocaleString('en')} curve-point rows`, `at most ${maxPointRows.toLocaleString('en')} rows; split the file`));
+          errors.add(
+            issue(
+              line,
+              null,
+              `the file has more than ${maxPointRows.toLocaleString('en')} curve-point rows`,
+              `at most ${maxPointRows.toLocaleString('en')} rows; split the file`,
+            ),
+          );
           counter.destroy();
           break reading;
         }
       }
     }
   } catch (error) {
-    if (error instanceof FileTooLargeError) errors.add(issue(null, null, error.message, `at most ${maxFileBytes} bytes`));
+    if (error instanceof FileTooLargeError)
+      errors.add(issue(null, null, error.message, `at most ${maxFileBytes} bytes`));
     else if (error instanceof CsvError) {
       const line = (error as CsvError & { lines?: number }).lines ?? null;
-      errors.add(issue(line, null, `the file is not valid CSV here: ${csvProblem(error)}`, 'quotes that open and close around a field, and records shorter than 64 KiB'));
+      errors.add(
+        issue(
+          line,
+          null,
+          `the file is not valid CSV here: ${csvProblem(error)}`,
+          'quotes that open and close around a field, and records shorter than 64 KiB',
+        ),
+      );
     } else throw error;
   }
   state.finish();
@@ -307,7 +334,11 @@ class TableState {
   private phase: 'format' | 'directives' | 'rows' | 'refused' = 'format';
   private readonly directives = new Map<string, { value: string; row: number }>();
   private header: (CurveTableColumn | null)[] = [];
-  private current: { pump: ReadPump; values: Partial<Record<PumpColumn, string>>; valueRows: Partial<Record<PumpColumn, number>> } | null = null;
+  private current: {
+    pump: ReadPump;
+    values: Partial<Record<PumpColumn, string>>;
+    valueRows: Partial<Record<PumpColumn, number>>;
+  } | null = null;
   private readonly seen = new Map<string, ReadPump>();
 
   constructor(private readonly errors: IssueList) {}
@@ -324,13 +355,27 @@ class TableState {
   private takeFormatLine(record: string[], row: number): void {
     const expected = `the format line "${curveTableFormatName},${curveTableFormatVersion}" first`;
     if (record[0] !== curveTableFormatName) {
-      this.errors.add(issue(row, null, `this is not a Riffle curve table: the first line is "${record.join(',').slice(0, 60)}"`, expected));
+      this.errors.add(
+        issue(
+          row,
+          null,
+          `this is not a Riffle curve table: the first line is "${record.join(',').slice(0, 60)}"`,
+          expected,
+        ),
+      );
       this.phase = 'refused';
       return;
     }
     const version = Number(record[1]);
     if (!Number.isInteger(version) || version !== curveTableFormatVersion) {
-      this.errors.add(issue(row, 'version', `format version "${record[1] ?? ''}" is not one this Riffle reads`, `version ${curveTableFormatVersion}`));
+      this.errors.add(
+        issue(
+          row,
+          'version',
+          `format version "${record[1] ?? ''}" is not one this Riffle reads`,
+          `version ${curveTableFormatVersion}`,
+        ),
+      );
       this.phase = 'refused';
       return;
     }
@@ -342,7 +387,14 @@ class TableState {
     const [name, value = '', ...rest] = record;
     const known = [...Object.keys(unitDirectives), ...freeDirectives];
     if (!known.includes(name)) {
-      this.errors.add(issue(row, name, `"${name}" is not a unit line this format knows, and the header row (starting with model_code) has not come yet`, `one of ${known.join(', ')}, or the header row`));
+      this.errors.add(
+        issue(
+          row,
+          name,
+          `"${name}" is not a unit line this format knows, and the header row (starting with model_code) has not come yet`,
+          `one of ${known.join(', ')}, or the header row`,
+        ),
+      );
       return;
     }
     if (rest.some((cell) => cell !== '')) {
@@ -351,18 +403,29 @@ class TableState {
     }
     if (name === 'note') return;
     if (this.directives.has(name)) {
-      this.errors.add(issue(row, name, `${name} is given twice (first on row ${this.directives.get(name)!.row})`, 'each unit line once'));
+      this.errors.add(
+        issue(
+          row,
+          name,
+          `${name} is given twice (first on row ${this.directives.get(name)!.row})`,
+          'each unit line once',
+        ),
+      );
       return;
     }
     if (name === 'currency') {
       if (!/^[A-Z]{3}$/.test(value)) {
-        this.errors.add(issue(row, name, `"${value}" is not a currency code`, 'a three-letter ISO 4217 code such as USD or EUR'));
+        this.errors.add(
+          issue(row, name, `"${value}" is not a currency code`, 'a three-letter ISO 4217 code such as USD or EUR'),
+        );
         return;
       }
     } else {
       const accepted = unitDirectives[name as UnitDirective] as readonly string[];
       if (!accepted.includes(value)) {
-        this.errors.add(issue(row, name, `"${value}" is not a unit Riffle knows for ${name}`, `one of ${accepted.join(', ')}`));
+        this.errors.add(
+          issue(row, name, `"${value}" is not a unit Riffle knows for ${name}`, `one of ${accepted.join(', ')}`),
+        );
         return;
       }
     }
@@ -375,7 +438,14 @@ class TableState {
     const seen = new Set<string>();
     this.header = record.map((name) => {
       if (!known.includes(name)) {
-        this.errors.add(issue(row, name || '(blank)', `"${name}" is not a column of this format`, `columns among ${known.join(', ')}`));
+        this.errors.add(
+          issue(
+            row,
+            name || '(blank)',
+            `"${name}" is not a column of this format`,
+            `columns among ${known.join(', ')}`,
+          ),
+        );
         return null;
       }
       if (seen.has(name)) {
@@ -386,17 +456,35 @@ class TableState {
       return name as CurveTableColumn;
     });
     for (const name of requiredColumns) {
-      if (!seen.has(name)) this.errors.add(issue(row, name, `the header has no ${name} column`, `the columns ${requiredColumns.join(', ')}`));
+      if (!seen.has(name))
+        this.errors.add(
+          issue(row, name, `the header has no ${name} column`, `the columns ${requiredColumns.join(', ')}`),
+        );
     }
     for (const [directive, where] of [
       ['flow-unit', 'flow'],
       ['head-unit', 'head'],
     ] as const) {
-      if (!this.directives.has(directive)) this.errors.add(issue(row, where, `no ${directive} line is given above the header`, `a line "${directive},..." with one of ${unitDirectives[directive].join(', ')}`));
+      if (!this.directives.has(directive))
+        this.errors.add(
+          issue(
+            row,
+            where,
+            `no ${directive} line is given above the header`,
+            `a line "${directive},..." with one of ${unitDirectives[directive].join(', ')}`,
+          ),
+        );
     }
     for (const [column, directive] of Object.entries(columnUnitDirective)) {
       if (seen.has(column) && !this.directives.has(directive)) {
-        this.errors.add(issue(row, column, `the ${column} column needs a ${directive} line above the header`, `a line "${directive},..."`));
+        this.errors.add(
+          issue(
+            row,
+            column,
+            `the ${column} column needs a ${directive} line above the header`,
+            `a line "${directive},..."`,
+          ),
+        );
       }
     }
     if (this.errors.count > 0) this.phase = 'refused';
@@ -418,7 +506,11 @@ class TableState {
       currency: this.unitOf('currency'),
       powerBasis: this.unitOf('power-basis'),
     };
-    return { flow, head, ...Object.fromEntries(Object.entries(optional).filter(([, value]) => value !== undefined)) } as CurveFileUnits;
+    return {
+      flow,
+      head,
+      ...Object.fromEntries(Object.entries(optional).filter(([, value]) => value !== undefined)),
+    } as CurveFileUnits;
   }
 
   private takeRow(record: string[], row: number): void {
@@ -432,7 +524,15 @@ class TableState {
     record.forEach((cell, index) => {
       const column = this.header[index];
       if (index >= this.header.length) {
-        if (cell !== '') this.errors.add(issue(row, `column ${index + 1}`, `the row has a value ("${cell.slice(0, 40)}") beyond the header's ${this.header.length} columns`, 'no more cells than the header'));
+        if (cell !== '')
+          this.errors.add(
+            issue(
+              row,
+              `column ${index + 1}`,
+              `the row has a value ("${cell.slice(0, 40)}") beyond the header's ${this.header.length} columns`,
+              'no more cells than the header',
+            ),
+          );
         return;
       }
       if (column) values.cells[column] = cell;
@@ -441,7 +541,12 @@ class TableState {
     const modelCode = values.cells.model_code ?? '';
     if (!/^[A-Za-z0-9][A-Za-z0-9 ._/-]{0,63}$/.test(modelCode)) {
       this.errors.add(
-        issue(row, 'model_code', modelCode === '' ? 'the model code is blank' : `"${modelCode.slice(0, 70)}" is not a model code`, 'a code of 1-64 letters, digits, spaces and . _ / - starting with a letter or digit'),
+        issue(
+          row,
+          'model_code',
+          modelCode === '' ? 'the model code is blank' : `"${modelCode.slice(0, 70)}" is not a model code`,
+          'a code of 1-64 letters, digits, spaces and . _ / - starting with a letter or digit',
+        ),
       );
       return;
     }
@@ -452,7 +557,14 @@ class TableState {
     const point = this.readPoint(values);
     if (point) {
       if (current.pump.points.length >= curveTableLimits.maxPointsPerPump) {
-        this.errors.add(issue(row, 'flow', `pump ${modelCode} has more than ${curveTableLimits.maxPointsPerPump} points`, `at most ${curveTableLimits.maxPointsPerPump} points per pump`));
+        this.errors.add(
+          issue(
+            row,
+            'flow',
+            `pump ${modelCode} has more than ${curveTableLimits.maxPointsPerPump} points`,
+            `at most ${curveTableLimits.maxPointsPerPump} points per pump`,
+          ),
+        );
       } else current.pump.points.push(point);
     }
   }
@@ -461,7 +573,12 @@ class TableState {
     const earlier = this.seen.get(modelCode);
     if (earlier) {
       this.errors.add(
-        issue(values.row, 'model_code', `pump ${modelCode} appears again; its rows ${earlier.firstRow}-${earlier.lastRow} came earlier`, "each pump once, with all of its rows together"),
+        issue(
+          values.row,
+          'model_code',
+          `pump ${modelCode} appears again; its rows ${earlier.firstRow}-${earlier.lastRow} came earlier`,
+          'each pump once, with all of its rows together',
+        ),
       );
     }
     const details = this.readDetails(values);
@@ -480,7 +597,9 @@ class TableState {
       const text = values.cells[column] ?? '';
       const lead = formulaLeadCharacters.find((character) => text.startsWith(character));
       if (lead) {
-        pump.warnings.push(issue(values.row, column, `the text starts with "${lead}": Riffle keeps it as text and never evaluates it`));
+        pump.warnings.push(
+          issue(values.row, column, `the text starts with "${lead}": Riffle keeps it as text and never evaluates it`),
+        );
       }
     }
     if (!earlier) this.seen.set(modelCode, pump);
@@ -503,22 +622,37 @@ class TableState {
       const first = current.values[column] ?? '';
       if (cell !== first) {
         this.errors.add(
-          issue(values.row, column, `"${cell.slice(0, 60)}" differs from "${first.slice(0, 60)}" on row ${current.pump.firstRow}, the pump's first row`, `blank, or the value of row ${current.pump.firstRow}`),
+          issue(
+            values.row,
+            column,
+            `"${cell.slice(0, 60)}" differs from "${first.slice(0, 60)}" on row ${current.pump.firstRow}, the pump's first row`,
+            `blank, or the value of row ${current.pump.firstRow}`,
+          ),
         );
       }
     }
   }
 
   /** A text cell; a leading apostrophe before a formula character (as Riffle writes them) is dropped. */
-  private text(values: RowValues, column: 'display_name' | 'notes', maxLength: number, required: boolean): string | null {
+  private text(
+    values: RowValues,
+    column: 'display_name' | 'notes',
+    maxLength: number,
+    required: boolean,
+  ): string | null {
     let text = values.cells[column] ?? '';
     if (text.startsWith("'") && formulaLeadCharacters.some((character) => text[1] === character)) text = text.slice(1);
     if (text === '') {
-      if (required) this.errors.add(issue(values.row, column, `the ${column} is blank on the pump's first row`, 'a name of 1-160 characters'));
+      if (required)
+        this.errors.add(
+          issue(values.row, column, `the ${column} is blank on the pump's first row`, 'a name of 1-160 characters'),
+        );
       return null;
     }
     if (text.length > maxLength) {
-      this.errors.add(issue(values.row, column, `the text is ${text.length} characters long`, `at most ${maxLength} characters`));
+      this.errors.add(
+        issue(values.row, column, `the text is ${text.length} characters long`, `at most ${maxLength} characters`),
+      );
       return null;
     }
     if (/[\u0000-\u0008\u000B\u000C\u000E-\u001F]/.test(text)) {
@@ -529,7 +663,12 @@ class TableState {
   }
 
   /** A number cell, or undefined when blank; an issue (and null) when it is not a number in range. */
-  number(values: RowValues, column: CurveTableColumn, what: string, range: { min?: number; above?: number; max?: number; integer?: boolean }): number | null | undefined {
+  number(
+    values: RowValues,
+    column: CurveTableColumn,
+    what: string,
+    range: { min?: number; above?: number; max?: number; integer?: boolean },
+  ): number | null | undefined {
     const cell = values.cells[column];
     if (cell === undefined || cell === '') return undefined;
     const text = this.decimalComma ? cell.replace(',', '.') : cell;
@@ -544,7 +683,14 @@ class TableState {
         .filter(Boolean)
         .join(' ');
     if (!numberPattern.test(text)) {
-      this.errors.add(issue(values.row, column, `"${cell.slice(0, 40)}" is not a number`, `${expected()}${this.decimalComma ? ' (decimal point or comma)' : ' (decimal point)'}`));
+      this.errors.add(
+        issue(
+          values.row,
+          column,
+          `"${cell.slice(0, 40)}" is not a number`,
+          `${expected()}${this.decimalComma ? ' (decimal point or comma)' : ' (decimal point)'}`,
+        ),
+      );
       return null;
     }
     const value = Number(text);
@@ -561,11 +707,25 @@ class TableState {
     return value;
   }
 
-  private choice<T extends string>(values: RowValues, column: CurveTableColumn, choices: readonly T[], fallback?: T): T | null {
+  private choice<T extends string>(
+    values: RowValues,
+    column: CurveTableColumn,
+    choices: readonly T[],
+    fallback?: T,
+  ): T | null {
     const cell = values.cells[column] ?? '';
     if (cell === '' && fallback) return fallback;
     if (!(choices as readonly string[]).includes(cell)) {
-      this.errors.add(issue(values.row, column, cell === '' ? `the ${column} is blank on the pump's first row` : `"${cell.slice(0, 40)}" is not a ${column} Riffle knows`, `one of ${choices.join(', ')}`));
+      this.errors.add(
+        issue(
+          values.row,
+          column,
+          cell === ''
+            ? `the ${column} is blank on the pump's first row`
+            : `"${cell.slice(0, 40)}" is not a ${column} Riffle knows`,
+          `one of ${choices.join(', ')}`,
+        ),
+      );
       return null;
     }
     return cell as T;
@@ -577,7 +737,10 @@ class TableState {
       const value = this.number(values, column, `in ${sizeUnit}`, { above: 0, max: sizeUnit === 'in' ? 40 : 1000 });
       return typeof value === 'number' ? diameterToSI(value, sizeUnit) * 1000 : null;
     };
-    const price = this.number(values, 'list_price', `in ${this.unitOf('currency') ?? 'the currency line'}`, { min: 0, max: 1e9 });
+    const price = this.number(values, 'list_price', `in ${this.unitOf('currency') ?? 'the currency line'}`, {
+      min: 0,
+      max: 1e9,
+    });
     const phases = this.number(values, 'phases', '(1 or 3)', { integer: true, min: 1, max: 3 });
     if (phases === 2) this.errors.add(issue(values.row, 'phases', '2 is not a supply Riffle knows', '1 or 3'));
     return {
@@ -605,11 +768,25 @@ class TableState {
     if (min === undefined && max === undefined) return null;
     if (min === undefined || max === undefined) {
       const missing = min === undefined ? minColumn : maxColumn;
-      this.errors.add(issue(values.row, missing, `the ${region} range has only one end`, `both ${minColumn} and ${maxColumn}, or neither`));
+      this.errors.add(
+        issue(
+          values.row,
+          missing,
+          `the ${region} range has only one end`,
+          `both ${minColumn} and ${maxColumn}, or neither`,
+        ),
+      );
       return null;
     }
     if (!(max > min)) {
-      this.errors.add(issue(values.row, maxColumn, `the ${region} range ends (${max}) before it starts (${min})`, `${maxColumn} greater than ${minColumn}`));
+      this.errors.add(
+        issue(
+          values.row,
+          maxColumn,
+          `the ${region} range ends (${max}) before it starts (${min})`,
+          `${maxColumn} greater than ${minColumn}`,
+        ),
+      );
       return null;
     }
     return { flowMin: flowToSI(min, flowUnit), flowMax: flowToSI(max, flowUnit) };
@@ -624,15 +801,24 @@ class TableState {
       ['flow', flow],
       ['head', head],
     ] as const) {
-      if (value === undefined) this.errors.add(issue(values.row, column, `the ${column} is blank`, `a number in ${column === 'flow' ? flowUnit : headUnit}`));
+      if (value === undefined)
+        this.errors.add(
+          issue(values.row, column, `the ${column} is blank`, `a number in ${column === 'flow' ? flowUnit : headUnit}`),
+        );
     }
     const powerUnit = this.unitOf('power-unit') as PowerUnitName | undefined;
     const power = this.number(values, 'power', `in ${powerUnit}`, { min: 0 });
     const efficiencyUnit = this.unitOf('efficiency-unit');
-    const efficiency = this.number(values, 'efficiency', efficiencyUnit === '%' ? 'in % (0-100)' : 'as a fraction (0-1)', { min: 0, max: efficiencyUnit === '%' ? 100 : 1 });
+    const efficiency = this.number(
+      values,
+      'efficiency',
+      efficiencyUnit === '%' ? 'in % (0-100)' : 'as a fraction (0-1)',
+      { min: 0, max: efficiencyUnit === '%' ? 100 : 1 },
+    );
     const npshUnit = this.unitOf('npsh-unit') as HeadUnit | undefined;
     const npsh = this.number(values, 'npsh_required', `in ${npshUnit}`, { above: 0 });
-    if (typeof flow !== 'number' || typeof head !== 'number' || power === null || efficiency === null || npsh === null) return null;
+    if (typeof flow !== 'number' || typeof head !== 'number' || power === null || efficiency === null || npsh === null)
+      return null;
     return {
       row: values.row,
       flow: flowToSI(flow, flowUnit),
@@ -646,13 +832,34 @@ class TableState {
   finish(): void {
     // After an error the reader may have stopped early (bad CSV, too large): what it did not reach is not missing.
     const complete = this.errors.count === 0;
-    if (complete && this.phase === 'format') this.errors.add(issue(null, null, 'the file is empty', `the format line "${curveTableFormatName},${curveTableFormatVersion}", unit lines, a header and point rows`));
-    if (complete && this.phase === 'directives') this.errors.add(issue(null, 'model_code', 'the file has no header row', 'a header row starting with model_code'));
-    if (complete && this.phase === 'rows' && this.pumps.length === 0) this.errors.add(issue(null, null, 'the file has a header but no curve points', 'at least one pump with three or more points'));
+    if (complete && this.phase === 'format')
+      this.errors.add(
+        issue(
+          null,
+          null,
+          'the file is empty',
+          `the format line "${curveTableFormatName},${curveTableFormatVersion}", unit lines, a header and point rows`,
+        ),
+      );
+    if (complete && this.phase === 'directives')
+      this.errors.add(issue(null, 'model_code', 'the file has no header row', 'a header row starting with model_code'));
+    if (complete && this.phase === 'rows' && this.pumps.length === 0)
+      this.errors.add(
+        issue(null, null, 'the file has a header but no curve points', 'at least one pump with three or more points'),
+      );
     if (this.unitOf('efficiency-unit') === '%') {
-      const values = this.pumps.flatMap((pump) => pump.points.map((point) => point.efficiency)).filter((value) => value !== undefined);
+      const values = this.pumps
+        .flatMap((pump) => pump.points.map((point) => point.efficiency))
+        .filter((value) => value !== undefined);
       if (values.length > 0 && values.every((value) => value <= 0.01)) {
-        this.fileWarnings.push(issue(this.directives.get('efficiency-unit')!.row, 'efficiency-unit', 'efficiency-unit is % but every efficiency is 1 % or less: are these fractions?', 'efficiency-unit,fraction for values 0-1'));
+        this.fileWarnings.push(
+          issue(
+            this.directives.get('efficiency-unit')!.row,
+            'efficiency-unit',
+            'efficiency-unit is % but every efficiency is 1 % or less: are these fractions?',
+            'efficiency-unit,fraction for values 0-1',
+          ),
+        );
       }
     }
   }

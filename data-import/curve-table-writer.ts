@@ -31,7 +31,9 @@ function cell(value: string | number | null | undefined, column: CurveTableColum
   let text = typeof value === 'number' ? Number(value.toPrecision(6)).toString() : value;
   if (typeof value === 'number' && delimiter === ';') text = text.replace('.', ',');
   if (typeof value === 'string' && textColumns.has(column)) text = spreadsheetSafeText(text);
-  return /["\r\n]/.test(text) || text.includes(delimiter) || text !== text.trim() ? `"${text.replaceAll('"', '""')}"` : text;
+  return /["\r\n]/.test(text) || text.includes(delimiter) || text !== text.trim()
+    ? `"${text.replaceAll('"', '""')}"`
+    : text;
 }
 
 /** The text of a curve-table file (format version 1, see README.md). */

@@ -20,8 +20,12 @@ const progressBarFromBytes = 256 * 1024;
 
 function printSummary(report: CurveImportReport): void {
   const warnings = report.warnings.length + report.pumps.reduce((sum, pump) => sum + pump.warnings.length, 0);
-  console.log(`${report.fileName}: ${report.rowCount} point rows, ${report.pumpCount} pumps for ${report.supplier.code}`);
-  console.log(`  new ${report.counts.new}, changed ${report.counts.changed}, unchanged ${report.counts.unchanged}, warnings ${warnings}, errors ${report.errors.length + report.errorsOmitted}`);
+  console.log(
+    `${report.fileName}: ${report.rowCount} point rows, ${report.pumpCount} pumps for ${report.supplier.code}`,
+  );
+  console.log(
+    `  new ${report.counts.new}, changed ${report.counts.changed}, unchanged ${report.counts.unchanged}, warnings ${warnings}, errors ${report.errors.length + report.errorsOmitted}`,
+  );
   for (const pump of report.pumps) {
     for (const warning of pump.warnings) console.log(`  warning, ${pump.modelCode}: ${describeIssue(warning)}`);
   }
@@ -33,7 +37,10 @@ function printSummary(report: CurveImportReport): void {
 async function main(): Promise<number> {
   let parsed;
   try {
-    parsed = parseArgs({ options: { supplier: { type: 'string' }, 'dry-run': { type: 'boolean', default: false } }, allowPositionals: true });
+    parsed = parseArgs({
+      options: { supplier: { type: 'string' }, 'dry-run': { type: 'boolean', default: false } },
+      allowPositionals: true,
+    });
   } catch (error) {
     console.error(`${(error as Error).message}\n${usage}`);
     return 2;
@@ -53,10 +60,19 @@ async function main(): Promise<number> {
   }
 
   const config = loadConfig();
-  const database = await PrivateMariaDb.startOrReuse({ folder: join(config.varDir, 'mariadb'), port: config.database.port });
+  const database = await PrivateMariaDb.startOrReuse({
+    folder: join(config.varDir, 'mariadb'),
+    port: config.database.port,
+  });
   await database.ensureDatabase(config.database.name);
   const sequelize = createSequelize(config.database);
-  const bar = size >= progressBarFromBytes && process.stdout.isTTY ? new cliProgress.SingleBar({ format: '{phase} [{bar}] {percentage}% | {value}/{total}' }, cliProgress.Presets.shades_classic) : undefined;
+  const bar =
+    size >= progressBarFromBytes && process.stdout.isTTY
+      ? new cliProgress.SingleBar(
+          { format: '{phase} [{bar}] {percentage}% | {value}/{total}' },
+          cliProgress.Presets.shades_classic,
+        )
+      : undefined;
   try {
     initialiseModels(sequelize);
     await createMigrator(sequelize).up();

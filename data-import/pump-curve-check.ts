@@ -1,4 +1,10 @@
-import { fitPumpCurve, HydraulicsInputError, type PumpCurveFit, type PumpCurvePoint, type PowerBasis } from '../shared/hydraulics';
+import {
+  fitPumpCurve,
+  HydraulicsInputError,
+  type PumpCurveFit,
+  type PumpCurvePoint,
+  type PowerBasis,
+} from '../shared/hydraulics';
 import type { CurveImportIssue } from '../shared/api/api-schemas';
 import { headRiseToleratedFraction } from './curve-table-format';
 import type { ReadPump } from './curve-table-reader';
@@ -19,7 +25,13 @@ export interface CheckedPump {
 /** The fit's RMS residual above this fraction of the highest head is worth a warning (our own threshold). */
 const poorFitFraction = 0.03;
 
-const pointFields = { flow: 'flow', head: 'head', power: 'power', efficiency: 'efficiency', npshRequired: 'npsh_required' } as const;
+const pointFields = {
+  flow: 'flow',
+  head: 'head',
+  power: 'power',
+  efficiency: 'efficiency',
+  npshRequired: 'npsh_required',
+} as const;
 
 function fmt(value: number): string {
   return Number(value.toPrecision(4)).toString();
@@ -30,9 +42,14 @@ function engineIssue(pump: ReadPump, error: HydraulicsInputError): CurveImportIs
   const match = /^\/points\/(\d+)\/(\w+)$/.exec(error.field);
   if (match) {
     const point = pump.points[Number(match[1])];
-    return { row: point?.row ?? pump.firstRow, column: pointFields[match[2] as keyof typeof pointFields] ?? match[2], message: error.message };
+    return {
+      row: point?.row ?? pump.firstRow,
+      column: pointFields[match[2] as keyof typeof pointFields] ?? match[2],
+      message: error.message,
+    };
   }
-  if (error.field.startsWith('/allowableRegion')) return { row: pump.firstRow, column: 'allowable_flow_max', message: error.message };
+  if (error.field.startsWith('/allowableRegion'))
+    return { row: pump.firstRow, column: 'allowable_flow_max', message: error.message };
   return { row: pump.firstRow, column: 'head', message: `pump ${pump.modelCode}: ${error.message}` };
 }
 
@@ -42,7 +59,12 @@ export function checkPumpCurve(pump: ReadPump, powerBasis: PowerBasis): CheckedP
   const points = pump.points;
   if (pump.hasRowErrors) return { fit: null, errors, warnings };
   if (points.length < 3) {
-    errors.push({ row: pump.firstRow, column: 'flow', message: `pump ${pump.modelCode} has ${points.length} usable point(s)`, expected: 'at least three points per pump' });
+    errors.push({
+      row: pump.firstRow,
+      column: 'flow',
+      message: `pump ${pump.modelCode} has ${points.length} usable point(s)`,
+      expected: 'at least three points per pump',
+    });
     return { fit: null, errors, warnings };
   }
   const highest = Math.max(...points.map((point) => point.head));
@@ -51,7 +73,12 @@ export function checkPumpCurve(pump: ReadPump, powerBasis: PowerBasis): CheckedP
   points.forEach((point, index) => {
     const previous = points[index - 1];
     if (previous && !(point.flow > previous.flow)) {
-      errors.push({ row: point.row, column: 'flow', message: `the flow does not exceed the flow of row ${previous.row}`, expected: 'flows strictly increasing down the rows of a pump' });
+      errors.push({
+        row: point.row,
+        column: 'flow',
+        message: `the flow does not exceed the flow of row ${previous.row}`,
+        expected: 'flows strictly increasing down the rows of a pump',
+      });
     }
     if (previous && point.head > level) {
       const share = (point.head - level) / highest;
@@ -84,12 +111,22 @@ export function checkPumpCurve(pump: ReadPump, powerBasis: PowerBasis): CheckedP
     const given = points.filter((point) => point[key] !== undefined).length;
     if (given > 0 && given < points.length) {
       const missing = points.find((point) => point[key] === undefined)!;
-      errors.push({ row: missing.row, column: key, message: `pump ${pump.modelCode} gives ${key} on ${given} of its ${points.length} points`, expected: `${key} on every point of the pump, or on none` });
+      errors.push({
+        row: missing.row,
+        column: key,
+        message: `pump ${pump.modelCode} gives ${key} on ${given} of its ${points.length} points`,
+        expected: `${key} on every point of the pump, or on none`,
+      });
     }
   }
   const npshPoints = points.filter((point) => point.npshRequired !== undefined);
   if (npshPoints.length > 0 && npshPoints.length < 3) {
-    errors.push({ row: npshPoints[0].row, column: 'npsh_required', message: `pump ${pump.modelCode} gives NPSH required on ${npshPoints.length} point(s)`, expected: 'NPSH required on at least three points, or on none' });
+    errors.push({
+      row: npshPoints[0].row,
+      column: 'npsh_required',
+      message: `pump ${pump.modelCode} gives NPSH required on ${npshPoints.length} point(s)`,
+      expected: 'NPSH required on at least three points, or on none',
+    });
   }
   if (errors.length > 0) return { fit: null, errors, warnings };
 
@@ -101,16 +138,25 @@ export function checkPumpCurve(pump: ReadPump, powerBasis: PowerBasis): CheckedP
     throw error;
   }
   for (const warning of fit.warnings) warnings.push({ row: pump.firstRow, column: null, message: warning });
-  if (!fit.bep && fit.bepUnknownReason) warnings.push({ row: pump.firstRow, column: 'efficiency', message: `BEP unknown: ${fit.bepUnknownReason}` });
+  if (!fit.bep && fit.bepUnknownReason)
+    warnings.push({ row: pump.firstRow, column: 'efficiency', message: `BEP unknown: ${fit.bepUnknownReason}` });
   if (fit.statistics.rmsHead > poorFitFraction * highest) {
-    warnings.push({ row: pump.firstRow, column: 'head', message: `the fitted curve misses the points by ${fmt(fit.statistics.rmsHead)} m RMS (worst ${fmt(fit.statistics.worstResidual)} m): check the data` });
+    warnings.push({
+      row: pump.firstRow,
+      column: 'head',
+      message: `the fitted curve misses the points by ${fmt(fit.statistics.rmsHead)} m RMS (worst ${fmt(fit.statistics.worstResidual)} m): check the data`,
+    });
   }
   for (const [region, range] of [
     ['preferred', pump.preferred],
     ['allowable', pump.allowable],
   ] as const) {
     if (range && (range.flowMin < fit.flowMin - 1e-12 || range.flowMax > fit.flowMax + 1e-12)) {
-      warnings.push({ row: pump.firstRow, column: `${region}_flow_max`, message: `the ${region} range reaches beyond the published points` });
+      warnings.push({
+        row: pump.firstRow,
+        column: `${region}_flow_max`,
+        message: `the ${region} range reaches beyond the published points`,
+      });
     }
   }
   return { fit, errors, warnings };

@@ -29,7 +29,9 @@ export interface AppDependencies {
   accounts?: Partial<AccountsDependencies>;
 }
 
-export const riffleVersion = (JSON.parse(readFileSync(join(projectRoot, 'package.json'), 'utf8')) as { version: string }).version;
+export const riffleVersion = (
+  JSON.parse(readFileSync(join(projectRoot, 'package.json'), 'utf8')) as { version: string }
+).version;
 
 export const defaultClientFolder = join(projectRoot, 'dist', 'riffle', 'browser');
 
@@ -58,7 +60,15 @@ export function createApp({ sequelize, logger, clientFolder, accounts }: AppDepe
   app.get('/api/v1/openapi.yaml', (_request, response) => {
     response.type('application/yaml').send(openApiText);
   });
-  app.use('/api/docs', swaggerUi.serve, swaggerUi.setup(undefined, { swaggerOptions: { url: '/api/v1/openapi.yaml' }, customSiteTitle: 'Riffle API', customCss: '.swagger-ui .topbar { display: none }' }));
+  app.use(
+    '/api/docs',
+    swaggerUi.serve,
+    swaggerUi.setup(undefined, {
+      swaggerOptions: { url: '/api/v1/openapi.yaml' },
+      customSiteTitle: 'Riffle API',
+      customCss: '.swagger-ui .topbar { display: none }',
+    }),
+  );
 
   // Calculations and selection: one in-memory view of the catalog's current curves.
   const catalogSnapshot = new CatalogSnapshot(sequelize);

@@ -93,7 +93,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): RiffleConfig {
   const mode = readChoice(env, 'NODE_ENV', ['development', 'production', 'test'] as const, 'development');
   const demo = readChoice(env, 'RIFFLE_DEMO', ['yes', 'no'] as const, mode === 'production' ? 'no' : 'yes') === 'yes';
   if (demo && mode === 'production') {
-    throw new ConfigError('RIFFLE_DEMO=yes is refused when NODE_ENV=production: demo accounts must never reach production');
+    throw new ConfigError(
+      'RIFFLE_DEMO=yes is refused when NODE_ENV=production: demo accounts must never reach production',
+    );
   }
   const httpHost = env.RIFFLE_HTTP_HOST || '127.0.0.1';
   const httpPort = readPort(env, 'PORT', 8080);

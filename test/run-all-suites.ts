@@ -40,28 +40,50 @@ async function runMocha(env: NodeJS.ProcessEnv, workFolder: string): Promise<Sui
   const countsFile = join(workFolder, 'mocha-counts.json');
   const exitCode = await runChild(
     process.execPath,
-    [join(projectRoot, 'node_modules', 'mocha', 'bin', 'mocha.js'), '--reporter', join(projectRoot, 'test', 'support', 'counting-reporter.cjs')],
+    [
+      join(projectRoot, 'node_modules', 'mocha', 'bin', 'mocha.js'),
+      '--reporter',
+      join(projectRoot, 'test', 'support', 'counting-reporter.cjs'),
+    ],
     { ...env, RIFFLE_TEST_COUNTS_FILE: countsFile },
   );
   const counts = readJson<{ passed: number; failed: number }>(countsFile);
   if (!counts) return { name: 'mocha', passed: 0, failed: 1 };
-  return { name: 'mocha (shared, server, data-import, browser)', passed: counts.passed, failed: counts.failed || (exitCode === 0 ? 0 : 1) };
+  return {
+    name: 'mocha (shared, server, data-import, browser)',
+    passed: counts.passed,
+    failed: counts.failed || (exitCode === 0 ? 0 : 1),
+  };
 }
 
 async function runAngularSpecs(env: NodeJS.ProcessEnv, workFolder: string): Promise<SuiteResult> {
   const reportFile = join(workFolder, 'angular-unit.json');
   const exitCode = await runChild(
     process.execPath,
-    [join(projectRoot, 'node_modules', '@angular', 'cli', 'bin', 'ng.js'), 'test', '--reporters=json', `--output-file=${reportFile}`, '--reporters=default'],
+    [
+      join(projectRoot, 'node_modules', '@angular', 'cli', 'bin', 'ng.js'),
+      'test',
+      '--reporters=json',
+      `--output-file=${reportFile}`,
+      '--reporters=default',
+    ],
     { ...env, NG_CLI_ANALYTICS: 'false' },
   );
   const report = readJson<{ numPassedTests: number; numFailedTests: number }>(reportFile);
   if (!report) return { name: 'angular', passed: 0, failed: 1 };
-  return { name: 'angular (vitest)', passed: report.numPassedTests, failed: report.numFailedTests || (exitCode === 0 ? 0 : 1) };
+  return {
+    name: 'angular (vitest)',
+    passed: report.numPassedTests,
+    failed: report.numFailedTests || (exitCode === 0 ? 0 : 1),
+  };
 }
 
 async function runTypeCheck(env: NodeJS.ProcessEnv): Promise<SuiteResult> {
-  const exitCode = await runChild(process.execPath, [join(projectRoot, 'node_modules', 'typescript', 'bin', 'tsc'), '--noEmit', '-p', 'tsconfig.json'], env);
+  const exitCode = await runChild(
+    process.execPath,
+    [join(projectRoot, 'node_modules', 'typescript', 'bin', 'tsc'), '--noEmit', '-p', 'tsconfig.json'],
+    env,
+  );
   return { name: 'type check (tsc)', passed: exitCode === 0 ? 1 : 0, failed: exitCode === 0 ? 0 : 1 };
 }
 

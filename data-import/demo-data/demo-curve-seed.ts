@@ -25,7 +25,9 @@ export async function seedDemoCurvesWhenNone(sequelize: Sequelize): Promise<numb
       actor: { userId: null, label: 'demo seed', channel: 'demo-seed' },
     });
     if (report.errors.length > 0) {
-      throw new Error(`the demo curve table ${fileName} has errors, first: row ${report.errors[0].row}: ${report.errors[0].message}`);
+      throw new Error(
+        `the demo curve table ${fileName} has errors, first: row ${report.errors[0].row}: ${report.errors[0].message}`,
+      );
     }
     loaded += report.counts.new;
   }

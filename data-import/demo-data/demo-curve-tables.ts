@@ -1,4 +1,11 @@
-import { flowFromSI, headFromSI, STANDARD_GRAVITY, waterDensity, type FlowUnit, type HeadUnit } from '../../shared/hydraulics';
+import {
+  flowFromSI,
+  headFromSI,
+  STANDARD_GRAVITY,
+  waterDensity,
+  type FlowUnit,
+  type HeadUnit,
+} from '../../shared/hydraulics';
 import type { PumpKind } from '../../server/database/models/pump';
 import type { CurveTableColumn } from '../curve-table-format';
 import { formatCurveTable, type CurveTableDraft } from '../curve-table-writer';
@@ -103,9 +110,45 @@ interface SupplierPlan {
 }
 
 const supplierPlans: SupplierPlan[] = [
-  { code: 'ALDERBROOK', prefix: 'AB', delimiter: ',', flowUnit: 'gph', headUnit: 'ft', curveData: 'power-W', powerBasis: 'electrical', sizeUnit: 'in', currency: 'USD', sizes: { submersible: 10, 'external-centrifugal': 6, 'mixed-flow': 5 }, seed: 11 },
-  { code: 'QUILLWATER', prefix: 'QW', delimiter: ';', flowUnit: 'm3/h', headUnit: 'm', curveData: 'power-kW', powerBasis: 'shaft', sizeUnit: 'mm', currency: 'EUR', sizes: { submersible: 8, 'external-centrifugal': 8, 'mixed-flow': 6 }, seed: 23 },
-  { code: 'STONETARN', prefix: 'ST', delimiter: ',', flowUnit: 'L/min', headUnit: 'm', curveData: 'efficiency', powerBasis: 'electrical', sizeUnit: 'mm', currency: null, sizes: { submersible: 9, 'external-centrifugal': 7, 'mixed-flow': 5 }, seed: 37 },
+  {
+    code: 'ALDERBROOK',
+    prefix: 'AB',
+    delimiter: ',',
+    flowUnit: 'gph',
+    headUnit: 'ft',
+    curveData: 'power-W',
+    powerBasis: 'electrical',
+    sizeUnit: 'in',
+    currency: 'USD',
+    sizes: { submersible: 10, 'external-centrifugal': 6, 'mixed-flow': 5 },
+    seed: 11,
+  },
+  {
+    code: 'QUILLWATER',
+    prefix: 'QW',
+    delimiter: ';',
+    flowUnit: 'm3/h',
+    headUnit: 'm',
+    curveData: 'power-kW',
+    powerBasis: 'shaft',
+    sizeUnit: 'mm',
+    currency: 'EUR',
+    sizes: { submersible: 8, 'external-centrifugal': 8, 'mixed-flow': 6 },
+    seed: 23,
+  },
+  {
+    code: 'STONETARN',
+    prefix: 'ST',
+    delimiter: ',',
+    flowUnit: 'L/min',
+    headUnit: 'm',
+    curveData: 'efficiency',
+    powerBasis: 'electrical',
+    sizeUnit: 'mm',
+    currency: null,
+    sizes: { submersible: 9, 'external-centrifugal': 7, 'mixed-flow': 5 },
+    seed: 37,
+  },
 ];
 
 /** Geometric steps between the smallest and the largest size, as pump ranges are usually spaced. */
@@ -121,7 +164,13 @@ const density = waterDensity(20);
 const inchesPerMm = 1 / 25.4;
 
 /** The rows of one invented pump, in the supplier's file units. */
-function pumpRows(plan: SupplierPlan, shape: KindShape, size: number, sizes: number, random: () => number): Array<Partial<Record<CurveTableColumn, string | number | null>>> {
+function pumpRows(
+  plan: SupplierPlan,
+  shape: KindShape,
+  size: number,
+  sizes: number,
+  random: () => number,
+): Array<Partial<Record<CurveTableColumn, string | number | null>>> {
   const share = sizes === 1 ? 0 : size / (sizes - 1);
   const shutOff = between(shape.shutOff, share);
   const runOutM3s = between(shape.runOut, share) / 3600;
@@ -139,7 +188,8 @@ function pumpRows(plan: SupplierPlan, shape: KindShape, size: number, sizes: num
   return Array.from({ length: pointCount }, (_, index) => {
     const x = startsAtShutOff ? index / (pointCount - 1) : 0.08 + (0.92 * index) / (pointCount - 1);
     const flow = x * runOutM3s;
-    const head = shutOff * (1 + shape.slope * x - (1 + shape.slope - shape.endRatio) * x * x) * (1 + 0.006 * (random() - 0.5));
+    const head =
+      shutOff * (1 + shape.slope * x - (1 + shape.slope - shape.endRatio) * x * x) * (1 + 0.006 * (random() - 0.5));
     const efficiency = peak * (1 - ((x - bepShare) / bepShare) ** 2);
     const hydraulicPower = density * STANDARD_GRAVITY * flow * head;
     // At shut-off the efficiency is zero; the power drawn there is taken as half of that near the BEP.
@@ -159,14 +209,23 @@ function pumpRows(plan: SupplierPlan, shape: KindShape, size: number, sizes: num
       solids_size: first ? sizeIn(between(shape.solids, share)) : null,
       list_price: first && plan.currency ? round(basePrice * (0.95 + 0.1 * random()), 0) : null,
       status: first ? (size === sizes - 1 && shape.kind === 'submersible' ? 'retired' : 'active') : null,
-      preferred_flow_min: first && declaresRanges && withCurveData ? round(flowFromSI(0.75 * bepFlow, plan.flowUnit), 3) : null,
-      preferred_flow_max: first && declaresRanges && withCurveData ? round(flowFromSI(1.15 * bepFlow, plan.flowUnit), 3) : null,
-      allowable_flow_min: first && declaresRanges && withCurveData ? round(flowFromSI(0.4 * bepFlow, plan.flowUnit), 3) : null,
-      allowable_flow_max: first && declaresRanges && withCurveData ? round(flowFromSI(Math.min(1.3 * bepFlow, runOutM3s), plan.flowUnit), 3) : null,
+      preferred_flow_min:
+        first && declaresRanges && withCurveData ? round(flowFromSI(0.75 * bepFlow, plan.flowUnit), 3) : null,
+      preferred_flow_max:
+        first && declaresRanges && withCurveData ? round(flowFromSI(1.15 * bepFlow, plan.flowUnit), 3) : null,
+      allowable_flow_min:
+        first && declaresRanges && withCurveData ? round(flowFromSI(0.4 * bepFlow, plan.flowUnit), 3) : null,
+      allowable_flow_max:
+        first && declaresRanges && withCurveData
+          ? round(flowFromSI(Math.min(1.3 * bepFlow, runOutM3s), plan.flowUnit), 3)
+          : null,
       notes: first ? 'Invented demo pump; not a real product.' : null,
       flow: round(flowFromSI(flow, plan.flowUnit), 3),
       head: round(headFromSI(head, plan.headUnit), 3),
-      power: withCurveData && plan.curveData !== 'efficiency' ? round(plan.curveData === 'power-kW' ? power / 1000 : power, plan.curveData === 'power-kW' ? 4 : 1) : null,
+      power:
+        withCurveData && plan.curveData !== 'efficiency'
+          ? round(plan.curveData === 'power-kW' ? power / 1000 : power, plan.curveData === 'power-kW' ? 4 : 1)
+          : null,
       efficiency: withCurveData && plan.curveData === 'efficiency' ? round(100 * Math.max(efficiency, 0), 2) : null,
       npsh_required: npsh === null ? null : round(headFromSI(npsh, plan.headUnit), 2),
     };
@@ -183,14 +242,19 @@ export interface DemoCurveTable extends DemoCurveFile {
 }
 
 /** Where each supplier's demo file is kept, beside this module. */
-export const demoCurveFiles: readonly DemoCurveFile[] = supplierPlans.map((plan) => ({ supplierCode: plan.code, fileName: `${plan.code.toLowerCase()}-demo-curves.csv` }));
+export const demoCurveFiles: readonly DemoCurveFile[] = supplierPlans.map((plan) => ({
+  supplierCode: plan.code,
+  fileName: `${plan.code.toLowerCase()}-demo-curves.csv`,
+}));
 
 /** The three demo files, the same on every call. */
 export function demoCurveTables(): DemoCurveTable[] {
   return supplierPlans.map((plan, index) => {
     const random = seededRandom(plan.seed);
     const rows = (Object.keys(plan.sizes) as PumpKind[]).flatMap((kind) =>
-      Array.from({ length: plan.sizes[kind] }, (_, size) => pumpRows(plan, kindShapes[kind], size, plan.sizes[kind], random)).flat(),
+      Array.from({ length: plan.sizes[kind] }, (_, size) =>
+        pumpRows(plan, kindShapes[kind], size, plan.sizes[kind], random),
+      ).flat(),
     );
     const curveColumn: CurveTableColumn = plan.curveData === 'efficiency' ? 'efficiency' : 'power';
     const draft: CurveTableDraft = {
@@ -202,7 +266,9 @@ export function demoCurveTables(): DemoCurveTable[] {
       units: {
         'flow-unit': plan.flowUnit,
         'head-unit': plan.headUnit,
-        ...(plan.curveData === 'efficiency' ? { 'efficiency-unit': '%' } : { 'power-unit': plan.curveData === 'power-kW' ? 'kW' : 'W' }),
+        ...(plan.curveData === 'efficiency'
+          ? { 'efficiency-unit': '%' }
+          : { 'power-unit': plan.curveData === 'power-kW' ? 'kW' : 'W' }),
         'npsh-unit': plan.headUnit,
         'size-unit': plan.sizeUnit,
         'power-basis': plan.powerBasis,

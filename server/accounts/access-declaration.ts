@@ -38,8 +38,10 @@ export function readAccessDeclaration(operation: ApiOperation, documentSecurity?
     throw new Error(`${operationId} in openapi.yaml: the only security scheme is bearer`);
   }
   const access = (operation.definition as { 'x-riffle-access'?: RawAccess })['x-riffle-access'];
-  if (!access) throw new Error(`${operationId} in openapi.yaml needs x-riffle-access naming the roles that may call it`);
+  if (!access)
+    throw new Error(`${operationId} in openapi.yaml needs x-riffle-access naming the roles that may call it`);
   const allowedRoles = listOf(access.roles, roles, 'roles', operationId);
-  if (allowedRoles.length === 0) throw new Error(`${operationId} in openapi.yaml: x-riffle-access.roles must name at least one role`);
+  if (allowedRoles.length === 0)
+    throw new Error(`${operationId} in openapi.yaml: x-riffle-access.roles must name at least one role`);
   return { public: false, roles: allowedRoles, scopes: listOf(access.scopes, apiScopes, 'scopes', operationId) };
 }

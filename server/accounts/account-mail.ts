@@ -13,7 +13,13 @@ function hours(ms: number): string {
   return value >= 48 ? `${Math.round(value / 24)} days` : value === 1 ? '1 hour' : `${value} hours`;
 }
 
-export function invitationMessage(options: { to: string; role: Role; link: string; validForMs: number; invitedBy: string }): OutgoingMessage {
+export function invitationMessage(options: {
+  to: string;
+  role: Role;
+  link: string;
+  validForMs: number;
+  invitedBy: string;
+}): OutgoingMessage {
   return {
     to: options.to,
     subject: 'You are invited to Riffle',

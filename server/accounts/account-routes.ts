@@ -10,7 +10,10 @@ import { createAuthHandlers } from './auth-handlers';
 import type { RateLimitSettings } from './rate-limits';
 import { createRateLimiters } from './rate-limits';
 
-export function createAccountHandlers(sequelize: Sequelize, dependencies: AccountsDependencies): Record<string, RequestHandler> {
+export function createAccountHandlers(
+  sequelize: Sequelize,
+  dependencies: AccountsDependencies,
+): Record<string, RequestHandler> {
   return {
     ...createAuthHandlers(sequelize, dependencies),
     ...createApiTokenHandlers(sequelize),
@@ -22,11 +25,16 @@ export function createAccountHandlers(sequelize: Sequelize, dependencies: Accoun
  * `guardFor` of the route table: each operation's rate limit (`x-riffle-rate-limit`), then its
  * access guard (`security` and `x-riffle-access`), both read from the contract.
  */
-export function createOperationGuards(document: OpenAPIV3_1.Document, rateLimits: Partial<RateLimitSettings>): (operation: ApiOperation) => RequestHandler | undefined {
+export function createOperationGuards(
+  document: OpenAPIV3_1.Document,
+  rateLimits: Partial<RateLimitSettings>,
+): (operation: ApiOperation) => RequestHandler | undefined {
   const limiterFor = createRateLimiters(rateLimits);
   const accessGuardFor = createAccessGuards(document.security);
   return (operation) => {
-    const chain = [limiterFor(operation), accessGuardFor(operation)].filter((handler): handler is RequestHandler => handler !== undefined);
+    const chain = [limiterFor(operation), accessGuardFor(operation)].filter(
+      (handler): handler is RequestHandler => handler !== undefined,
+    );
     if (chain.length <= 1) return chain[0];
     return (request, response, next) => {
       chain[0](request, response, (error?: unknown) => (error ? next(error) : chain[1](request, response, next)));

@@ -19,11 +19,19 @@ export const lifetimes = {
   resetLinkMs: 3600_000,
 };
 
-export function accountsDependenciesFrom(config: RiffleConfig, given: Partial<AccountsDependencies> = {}): AccountsDependencies {
+export function accountsDependenciesFrom(
+  config: RiffleConfig,
+  given: Partial<AccountsDependencies> = {},
+): AccountsDependencies {
   return {
     mailer: given.mailer ?? createSmtpMailer(config.mail),
     publicUrl: given.publicUrl ?? config.publicUrl,
-    demoMailboxFolder: 'demoMailboxFolder' in given ? given.demoMailboxFolder : config.demo && config.mail.fake ? config.mail.mailboxFolder : undefined,
+    demoMailboxFolder:
+      'demoMailboxFolder' in given
+        ? given.demoMailboxFolder
+        : config.demo && config.mail.fake
+          ? config.mail.mailboxFolder
+          : undefined,
     rateLimits: given.rateLimits ?? {},
   };
 }

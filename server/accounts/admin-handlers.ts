@@ -19,11 +19,13 @@ function unprocessable(pointer: string, detail: string): ProblemError {
 /** A supplier-admin is bound to an existing supplier; every other role to none. */
 async function checkSupplierBinding(role: Role, supplierId: number | null, transaction?: Transaction): Promise<void> {
   if (role !== 'supplier-admin') {
-    if (supplierId !== null) throw unprocessable('/body/supplierId', `only a supplier-admin is bound to a supplier, not a ${role}`);
+    if (supplierId !== null)
+      throw unprocessable('/body/supplierId', `only a supplier-admin is bound to a supplier, not a ${role}`);
     return;
   }
   if (supplierId === null) throw unprocessable('/body/supplierId', 'a supplier-admin needs the supplier it manages');
-  if (!(await Supplier.findByPk(supplierId, { transaction }))) throw unprocessable('/body/supplierId', `there is no supplier ${supplierId}`);
+  if (!(await Supplier.findByPk(supplierId, { transaction })))
+    throw unprocessable('/body/supplierId', `there is no supplier ${supplierId}`);
 }
 
 function toInvitationSummary(invitation: Invitation): InvitationSummary {
@@ -38,14 +40,20 @@ function toInvitationSummary(invitation: Invitation): InvitationSummary {
 }
 
 /** Site admin work: accounts, roles, invitations, the audit log and the demo mailbox. */
-export function createAdminHandlers(sequelize: Sequelize, dependencies: AccountsDependencies): Record<string, RequestHandler> {
+export function createAdminHandlers(
+  sequelize: Sequelize,
+  dependencies: AccountsDependencies,
+): Record<string, RequestHandler> {
   return {
     listUsers: async (_request, response) => {
       const [users, suppliers] = await Promise.all([
         User.findAll({ order: [['email', 'ASC']] }),
         Supplier.findAll({ order: [['name', 'ASC']], attributes: ['id', 'code', 'name'] }),
       ]);
-      response.json({ users: users.map(toAdminUser), suppliers: suppliers.map(({ id, code, name }) => ({ id, code, name })) });
+      response.json({
+        users: users.map(toAdminUser),
+        suppliers: suppliers.map(({ id, code, name }) => ({ id, code, name })),
+      });
     },
 
     updateUser: async (request, response) => {
@@ -54,19 +62,34 @@ export function createAdminHandlers(sequelize: Sequelize, dependencies: Accounts
       const changes = request.body as UserChanges;
       const updated = await sequelize.transaction(async (transaction) => {
         const user = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
-        if (!user) throw new ProblemError(404, 'Not found', `There is no user ${userId}`, [{ pointer: '/path/userId', detail: 'is not a user' }]);
+        if (!user)
+          throw new ProblemError(404, 'Not found', `There is no user ${userId}`, [
+            { pointer: '/path/userId', detail: 'is not a user' },
+          ]);
         const role = changes.role ?? user.role;
         // Leaving the supplier-admin role drops the supplier unless the request names one.
-        const supplierId = changes.supplierId !== undefined ? changes.supplierId : role === 'supplier-admin' ? (user.supplierId ?? null) : null;
+        const supplierId =
+          changes.supplierId !== undefined
+            ? changes.supplierId
+            : role === 'supplier-admin'
+              ? (user.supplierId ?? null)
+              : null;
         const disabled = changes.disabled ?? user.disabled;
-        if (user.id === admin.id && role !== 'admin') throw unprocessable('/body/role', 'you cannot take the admin role from yourself');
-        if (user.id === admin.id && disabled) throw unprocessable('/body/disabled', 'you cannot disable your own account');
+        if (user.id === admin.id && role !== 'admin')
+          throw unprocessable('/body/role', 'you cannot take the admin role from yourself');
+        if (user.id === admin.id && disabled)
+          throw unprocessable('/body/disabled', 'you cannot disable your own account');
         await checkSupplierBinding(role, supplierId, transaction);
 
         const events: AuditEntry[] = [];
         const about = { actorUserId: admin.id, subjectUserId: user.id, email: user.email };
         if (role !== user.role) events.push({ ...about, action: 'role-changed', detail: `${user.role} -> ${role}` });
-        if (supplierId !== (user.supplierId ?? null)) events.push({ ...about, action: 'supplier-changed', detail: `${user.supplierId ?? 'none'} -> ${supplierId ?? 'none'}` });
+        if (supplierId !== (user.supplierId ?? null))
+          events.push({
+            ...about,
+            action: 'supplier-changed',
+            detail: `${user.supplierId ?? 'none'} -> ${supplierId ?? 'none'}`,
+          });
         if (disabled !== user.disabled) events.push({ ...about, action: disabled ? 'user-disabled' : 'user-enabled' });
         await user.update({ name: changes.name?.trim() ?? user.name, role, supplierId, disabled }, { transaction });
         if (disabled) await revokeAllSessions(user.id, transaction);
@@ -77,7 +100,14 @@ export function createAdminHandlers(sequelize: Sequelize, dependencies: Accounts
     },
 
     listInvitations: async (_request, response) => {
-      const invitations = await Invitation.findAll({ where: { acceptedAt: null }, order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: 200 });
+      const invitations = await Invitation.findAll({
+        where: { acceptedAt: null },
+        order: [
+          ['createdAt', 'DESC'],
+          ['id', 'DESC'],
+        ],
+        limit: 200,
+      });
       response.json({ invitations: invitations.map(toInvitationSummary) });
     },
 
@@ -88,18 +118,38 @@ export function createAdminHandlers(sequelize: Sequelize, dependencies: Accounts
       const supplierId = body.supplierId ?? null;
       await checkSupplierBinding(body.role, supplierId);
       if (await User.count({ where: { email } })) {
-        throw new ProblemError(409, 'Account exists', `${email} already has an account`, [{ pointer: '/body/email', detail: 'already has an account' }], 'account-exists');
+        throw new ProblemError(
+          409,
+          'Account exists',
+          `${email} already has an account`,
+          [{ pointer: '/body/email', detail: 'already has an account' }],
+          'account-exists',
+        );
       }
       const { token, hash } = newSecretToken('emailLink');
       const now = new Date();
       const invitation = await sequelize.transaction(async (transaction) => {
         // Only the newest invitation to an address works.
-        await Invitation.update({ expiresAt: now }, { where: { email, acceptedAt: null, expiresAt: { [Op.gt]: now } }, transaction });
+        await Invitation.update(
+          { expiresAt: now },
+          { where: { email, acceptedAt: null, expiresAt: { [Op.gt]: now } }, transaction },
+        );
         const created = await Invitation.create(
-          { email, role: body.role, supplierId, invitedByUserId: admin.id, tokenHash: hash, expiresAt: new Date(now.getTime() + lifetimes.invitationMs) },
+          {
+            email,
+            role: body.role,
+            supplierId,
+            invitedByUserId: admin.id,
+            tokenHash: hash,
+            expiresAt: new Date(now.getTime() + lifetimes.invitationMs),
+          },
           { transaction },
         );
-        await recordAuditEvent(request, { action: 'invitation-sent', actorUserId: admin.id, email, detail: `role ${body.role}` }, transaction);
+        await recordAuditEvent(
+          request,
+          { action: 'invitation-sent', actorUserId: admin.id, email, detail: `role ${body.role}` },
+          transaction,
+        );
         try {
           await dependencies.mailer.send(
             invitationMessage({
@@ -112,7 +162,13 @@ export function createAdminHandlers(sequelize: Sequelize, dependencies: Accounts
           );
         } catch (error) {
           request.log.error({ err: error }, 'invitation not sent');
-          throw new ProblemError(503, 'Mail not sent', 'The invitation could not be e-mailed; nothing was saved. Try again later', [], 'mail-not-sent');
+          throw new ProblemError(
+            503,
+            'Mail not sent',
+            'The invitation could not be e-mailed; nothing was saved. Try again later',
+            [],
+            'mail-not-sent',
+          );
         }
         return created;
       });
@@ -144,8 +200,15 @@ export function createAdminHandlers(sequelize: Sequelize, dependencies: Accounts
     },
 
     listDemoMail: async (_request, response) => {
-      if (!dependencies.demoMailboxFolder) throw new ProblemError(404, 'Not found', 'The demo mailbox exists only in demo mode with the built-in mail server');
-      response.set('Cache-Control', 'no-store').json({ messages: readMailbox(dependencies.demoMailboxFolder).slice(0, 200) });
+      if (!dependencies.demoMailboxFolder)
+        throw new ProblemError(
+          404,
+          'Not found',
+          'The demo mailbox exists only in demo mode with the built-in mail server',
+        );
+      response
+        .set('Cache-Control', 'no-store')
+        .json({ messages: readMailbox(dependencies.demoMailboxFolder).slice(0, 200) });
     },
   };
 }

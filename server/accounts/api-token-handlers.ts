@@ -26,7 +26,13 @@ function toSummary(apiToken: ApiToken): ApiTokenSummary {
 export function createApiTokenHandlers(sequelize: Sequelize): Record<string, RequestHandler> {
   return {
     listApiTokens: async (request, response) => {
-      const tokens = await ApiToken.findAll({ where: { userId: currentUser(request).id }, order: [['createdAt', 'DESC'], ['id', 'DESC']] });
+      const tokens = await ApiToken.findAll({
+        where: { userId: currentUser(request).id },
+        order: [
+          ['createdAt', 'DESC'],
+          ['id', 'DESC'],
+        ],
+      });
       response.set('Cache-Control', 'no-store').json({ tokens: tokens.map(toSummary) });
     },
 
@@ -46,7 +52,16 @@ export function createApiTokenHandlers(sequelize: Sequelize): Record<string, Req
           },
           { transaction },
         );
-        await recordAuditEvent(request, { action: 'api-token-created', actorUserId: user.id, subjectUserId: user.id, detail: `${prefix} "${apiToken.name}" scopes ${body.scopes.join(' ')}` }, transaction);
+        await recordAuditEvent(
+          request,
+          {
+            action: 'api-token-created',
+            actorUserId: user.id,
+            subjectUserId: user.id,
+            detail: `${prefix} "${apiToken.name}" scopes ${body.scopes.join(' ')}`,
+          },
+          transaction,
+        );
         return apiToken;
       });
       const answer: CreatedApiToken = { token, apiToken: toSummary(created) };
@@ -58,11 +73,27 @@ export function createApiTokenHandlers(sequelize: Sequelize): Record<string, Req
       const tokenId = Number(request.params.tokenId);
       await sequelize.transaction(async (transaction) => {
         // Someone else's token is as absent as one that never existed.
-        const apiToken = await ApiToken.findOne({ where: { id: tokenId, userId: user.id }, transaction, lock: transaction.LOCK.UPDATE });
-        if (!apiToken) throw new ProblemError(404, 'Not found', `You have no API token ${tokenId}`, [{ pointer: '/path/tokenId', detail: 'is not one of your tokens' }]);
+        const apiToken = await ApiToken.findOne({
+          where: { id: tokenId, userId: user.id },
+          transaction,
+          lock: transaction.LOCK.UPDATE,
+        });
+        if (!apiToken)
+          throw new ProblemError(404, 'Not found', `You have no API token ${tokenId}`, [
+            { pointer: '/path/tokenId', detail: 'is not one of your tokens' },
+          ]);
         if (apiToken.revokedAt) return;
         await apiToken.update({ revokedAt: new Date() }, { transaction });
-        await recordAuditEvent(request, { action: 'api-token-revoked', actorUserId: user.id, subjectUserId: user.id, detail: `${apiToken.tokenPrefix} "${apiToken.name}"` }, transaction);
+        await recordAuditEvent(
+          request,
+          {
+            action: 'api-token-revoked',
+            actorUserId: user.id,
+            subjectUserId: user.id,
+            detail: `${apiToken.tokenPrefix} "${apiToken.name}"`,
+          },
+          transaction,
+        );
       });
       response.status(204).end();
     },

@@ -23,7 +23,13 @@ credentialChanges.on('changed', () => {
   cache.clear();
 });
 
-function remember(tokenHash: string, user: AuthenticatedUser, now: Date, expiresAt: Date | null, readIn: number): AuthenticatedUser {
+function remember(
+  tokenHash: string,
+  user: AuthenticatedUser,
+  now: Date,
+  expiresAt: Date | null,
+  readIn: number,
+): AuthenticatedUser {
   if (readIn !== generation) return user;
   if (cache.size >= maxCachedTokens) cache.delete(cache.keys().next().value as string);
   const until = Math.min(now.getTime() + trustedForMs, expiresAt?.getTime() ?? Number.POSITIVE_INFINITY);
@@ -32,7 +38,15 @@ function remember(tokenHash: string, user: AuthenticatedUser, now: Date, expires
 }
 
 function toAuthenticatedUser(user: User, via: AuthenticatedUser['via'], scopes: string[]): AuthenticatedUser {
-  return { id: user.id, email: user.email, name: user.name, role: user.role, supplierId: user.supplierId ?? null, via, scopes };
+  return {
+    id: user.id,
+    email: user.email,
+    name: user.name,
+    role: user.role,
+    supplierId: user.supplierId ?? null,
+    via,
+    scopes,
+  };
 }
 
 function isStale(lastUsedAt: Date | null, now: Date): boolean {
@@ -64,5 +78,11 @@ export async function userForBearerToken(token: string, now = new Date()): Promi
   });
   if (!apiToken?.user) return undefined;
   if (isStale(apiToken.lastUsedAt, now)) await apiToken.update({ lastUsedAt: now }, { silent: true });
-  return remember(tokenHash, toAuthenticatedUser(apiToken.user, 'api-token', apiToken.scopes), now, apiToken.expiresAt, readIn);
+  return remember(
+    tokenHash,
+    toAuthenticatedUser(apiToken.user, 'api-token', apiToken.scopes),
+    now,
+    apiToken.expiresAt,
+    readIn,
+  );
 }

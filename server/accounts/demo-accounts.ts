@@ -20,9 +20,14 @@ export async function seedDemoAccountsWhenNone(transaction?: Transaction): Promi
   if ((await User.count({ transaction })) > 0) return false;
   const passwordHash = await hashPassword(demoPassword);
   for (const account of demoAccounts) {
-    const supplier = account.supplierCode ? await Supplier.findOne({ where: { code: account.supplierCode }, transaction }) : null;
+    const supplier = account.supplierCode
+      ? await Supplier.findOne({ where: { code: account.supplierCode }, transaction })
+      : null;
     if (account.supplierCode && !supplier) throw new Error(`demo supplier ${account.supplierCode} is missing`);
-    await User.create({ email: account.email, name: account.name, role: account.role, supplierId: supplier?.id ?? null, passwordHash }, { transaction });
+    await User.create(
+      { email: account.email, name: account.name, role: account.role, supplierId: supplier?.id ?? null, passwordHash },
+      { transaction },
+    );
   }
   return true;
 }

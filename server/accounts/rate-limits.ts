@@ -24,13 +24,17 @@ function rateLimitNameOf(operation: ApiOperation): RateLimitName | undefined {
   const name = (operation.definition as { 'x-riffle-rate-limit'?: unknown })['x-riffle-rate-limit'];
   if (name === undefined) return undefined;
   if (!(rateLimitNames as readonly unknown[]).includes(name)) {
-    throw new Error(`${operation.operationId} in openapi.yaml: x-riffle-rate-limit must be one of ${rateLimitNames.join(', ')}`);
+    throw new Error(
+      `${operation.operationId} in openapi.yaml: x-riffle-rate-limit must be one of ${rateLimitNames.join(', ')}`,
+    );
   }
   return name as RateLimitName;
 }
 
 /** One limiter (and one counter store) per named limit, shared by the operations that name it; `overrides` replace defaults. */
-export function createRateLimiters(overrides: Partial<RateLimitSettings> = {}): (operation: ApiOperation) => RequestHandler | undefined {
+export function createRateLimiters(
+  overrides: Partial<RateLimitSettings> = {},
+): (operation: ApiOperation) => RequestHandler | undefined {
   const settings: RateLimitSettings = { ...defaultRateLimits, ...overrides };
   const limiters = new Map<RateLimitName, RequestHandler>();
   const limiterFor = (name: RateLimitName): RequestHandler => {

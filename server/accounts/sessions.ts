@@ -27,7 +27,15 @@ export async function revokeSession(token: string, userId: number, now = new Dat
  * Signs a user out everywhere, as after a password reset or when the account is disabled; a
  * password change keeps the session it was made from (`keptToken`).
  */
-export async function revokeAllSessions(userId: number, transaction?: Transaction, now = new Date(), keptToken?: string): Promise<void> {
+export async function revokeAllSessions(
+  userId: number,
+  transaction?: Transaction,
+  now = new Date(),
+  keptToken?: string,
+): Promise<void> {
   const kept = keptToken === undefined ? {} : { tokenHash: { [Op.ne]: hashSecretToken(keptToken) } };
-  await Session.update({ revokedAt: now }, { where: { userId, revokedAt: null, expiresAt: { [Op.gt]: now }, ...kept }, transaction });
+  await Session.update(
+    { revokedAt: now },
+    { where: { userId, revokedAt: null, expiresAt: { [Op.gt]: now }, ...kept }, transaction },
+  );
 }

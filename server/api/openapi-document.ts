@@ -32,7 +32,8 @@ export function listOperations(document: OpenAPIV3_1.Document = openApiDocument)
     for (const method of httpMethods) {
       const definition = pathItem[method];
       if (!definition) continue;
-      if (!definition.operationId) throw new Error(`${method.toUpperCase()} ${path} in openapi.yaml has no operationId`);
+      if (!definition.operationId)
+        throw new Error(`${method.toUpperCase()} ${path} in openapi.yaml has no operationId`);
       operations.push({ operationId: definition.operationId, method, path, definition, pathItem });
     }
   }

@@ -27,10 +27,14 @@ export function createOperationRouter({ document, handlers, guardFor }: Operatio
   const router = Router();
   const validators = new RequestValidatorFactory(document);
   const operations = listOperations(document);
-  const missing = operations.filter((operation) => !handlers[operation.operationId]).map((operation) => operation.operationId);
+  const missing = operations
+    .filter((operation) => !handlers[operation.operationId])
+    .map((operation) => operation.operationId);
   const unknown = Object.keys(handlers).filter((id) => !operations.some((operation) => operation.operationId === id));
   if (missing.length > 0 || unknown.length > 0) {
-    throw new Error(`route table and openapi.yaml disagree: no handler for [${missing.join(', ')}]; no operation for [${unknown.join(', ')}]`);
+    throw new Error(
+      `route table and openapi.yaml disagree: no handler for [${missing.join(', ')}]; no operation for [${unknown.join(', ')}]`,
+    );
   }
   for (const operation of operations) {
     const chain = [guardFor?.(operation), validators.forOperation(operation), handlers[operation.operationId]].filter(

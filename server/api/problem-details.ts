@@ -41,7 +41,13 @@ function slugOf(title: string): string {
 }
 
 export const notFoundHandler: RequestHandler = (request, _response, next) => {
-  next(new ProblemError(404, 'Not found', `No API operation answers ${request.method} ${request.originalUrl.split("?")[0]}`));
+  next(
+    new ProblemError(
+      404,
+      'Not found',
+      `No API operation answers ${request.method} ${request.originalUrl.split('?')[0]}`,
+    ),
+  );
 };
 
 /** The one error handler: known problems as they are, malformed bodies as 400, the rest as a logged 500. */
@@ -61,7 +67,9 @@ function toProblemError(error: unknown): ProblemError {
   if (error instanceof ProblemError) return error;
   const httpError = error as { status?: number; type?: string; message?: string };
   if (httpError?.type === 'entity.parse.failed') {
-    return new ProblemError(400, 'Malformed JSON', 'The request body is not valid JSON', [{ pointer: '/body', detail: httpError.message ?? 'not JSON' }]);
+    return new ProblemError(400, 'Malformed JSON', 'The request body is not valid JSON', [
+      { pointer: '/body', detail: httpError.message ?? 'not JSON' },
+    ]);
   }
   if (httpError?.type === 'entity.too.large') {
     return new ProblemError(413, 'Request body too large', 'The request body is larger than the server accepts');

@@ -22,7 +22,8 @@ function toFieldProblems(location: Location, errors: ErrorObject[] | null | unde
   return (errors ?? []).map((error) => {
     let pointer = `/${location}${error.instancePath}`;
     if (error.keyword === 'required') pointer += `/${(error.params as { missingProperty: string }).missingProperty}`;
-    if (error.keyword === 'additionalProperties') pointer += `/${(error.params as { additionalProperty: string }).additionalProperty}`;
+    if (error.keyword === 'additionalProperties')
+      pointer += `/${(error.params as { additionalProperty: string }).additionalProperty}`;
     const detail =
       error.keyword === 'additionalProperties'
         ? 'is not a field this operation accepts'
@@ -42,7 +43,13 @@ export class RequestValidatorFactory {
     const contract = { $id: contractId, components: document.components ?? {} };
     this.bodyAjv = new Ajv2020({ allErrors: true, strict: true, strictRequired: false, allowUnionTypes: true });
     // Path and query values arrive as text; the contract's types say what they must become.
-    this.parameterAjv = new Ajv2020({ allErrors: true, strict: true, strictRequired: false, allowUnionTypes: true, coerceTypes: 'array' });
+    this.parameterAjv = new Ajv2020({
+      allErrors: true,
+      strict: true,
+      strictRequired: false,
+      allowUnionTypes: true,
+      coerceTypes: 'array',
+    });
     for (const ajv of [this.bodyAjv, this.parameterAjv]) {
       ajv.addVocabulary(openApiSchemaWords);
       addFormats.default(ajv);
@@ -52,7 +59,10 @@ export class RequestValidatorFactory {
 
   /** A middleware validating the request, or undefined when the operation takes nothing to validate. */
   forOperation(operation: ApiOperation): RequestHandler | undefined {
-    const parameters = [...(operation.pathItem.parameters ?? []), ...(operation.definition.parameters ?? [])] as OpenAPIV3_1.ParameterObject[];
+    const parameters = [
+      ...(operation.pathItem.parameters ?? []),
+      ...(operation.definition.parameters ?? []),
+    ] as OpenAPIV3_1.ParameterObject[];
     const pathValidator = this.parameterValidator(parameters, 'path');
     const queryValidator = this.parameterValidator(parameters, 'query');
     const body = operation.definition.requestBody as OpenAPIV3_1.RequestBodyObject | undefined;
@@ -62,7 +72,8 @@ export class RequestValidatorFactory {
 
     return (request, _response, next) => {
       const problems: FieldProblem[] = [];
-      if (pathValidator && !pathValidator(request.params)) problems.push(...toFieldProblems('path', pathValidator.errors));
+      if (pathValidator && !pathValidator(request.params))
+        problems.push(...toFieldProblems('path', pathValidator.errors));
       if (queryValidator) {
         // Express 5 makes request.query a getter; validate (and coerce) a copy, then keep it.
         const query = { ...(request.query as Record<string, unknown>) };
@@ -77,14 +88,25 @@ export class RequestValidatorFactory {
         }
       }
       if (problems.length > 0) {
-        next(new ProblemError(400, 'Invalid request', `${problems[0].pointer} ${problems[0].detail}`, problems, 'invalid-request'));
+        next(
+          new ProblemError(
+            400,
+            'Invalid request',
+            `${problems[0].pointer} ${problems[0].detail}`,
+            problems,
+            'invalid-request',
+          ),
+        );
         return;
       }
       next();
     };
   }
 
-  private parameterValidator(parameters: OpenAPIV3_1.ParameterObject[], location: 'path' | 'query'): ValidateFunction | undefined {
+  private parameterValidator(
+    parameters: OpenAPIV3_1.ParameterObject[],
+    location: 'path' | 'query',
+  ): ValidateFunction | undefined {
     const own = parameters.filter((parameter) => parameter.in === location);
     if (own.length === 0) return undefined;
     const schema = {

@@ -40,7 +40,8 @@ export interface DutyPoint {
   warnings: DutyWarning[];
 }
 
-export type DutyOutcome = { ok: true; point: DutyPoint } | { ok: false; reason: NoOperatingPointReason; message: string };
+export type DutyOutcome =
+  { ok: true; point: DutyPoint } | { ok: false; reason: NoOperatingPointReason; message: string };
 
 export interface PumpOnFile {
   fit: PumpCurveFit;

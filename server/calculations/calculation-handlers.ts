@@ -49,9 +49,12 @@ export function operatingPointSummary(point: DutyPoint, units: CalculationUnits)
 }
 
 const noPointTitles: Record<NoOperatingPointReason, string> = {
-  'below-static-head': 'the pump cannot lift the water this high: its shut-off head is below the static head plus outlet pressure head',
-  'before-curve': 'the curves would cross left of the first published point of the pump curve, where the maker gives no data',
-  'beyond-curve': 'the curves would cross right of the last published point (run-out): the system needs less head than the pump gives even there',
+  'below-static-head':
+    'the pump cannot lift the water this high: its shut-off head is below the static head plus outlet pressure head',
+  'before-curve':
+    'the curves would cross left of the first published point of the pump curve, where the maker gives no data',
+  'beyond-curve':
+    'the curves would cross right of the last published point (run-out): the system needs less head than the pump gives even there',
 };
 
 /** The duty-point messages a designer reads, in the request's units. */
@@ -59,12 +62,15 @@ export function dutyWarningMessages(point: DutyPoint, system: CompiledSystemCurv
   const to = answerUnits(units);
   const messages = velocityWarnings(system, point.flow, units);
   if (point.warnings.includes('run-out')) {
-    messages.push(`run-out: each pump runs at ${round(to.flow(point.flowPerPump))} ${units.flow}, at the end of its published curve`);
+    messages.push(
+      `run-out: each pump runs at ${round(to.flow(point.flowPerPump))} ${units.flow}, at the end of its published curve`,
+    );
   }
   if (point.warnings.includes('dead-head')) {
     messages.push('near dead-head: the pump runs close to its shut-off head and passes little water; it may overheat');
   }
-  if (point.region === 'outside') messages.push('outside the preferred operating region: expect shorter bearing and seal life');
+  if (point.region === 'outside')
+    messages.push('outside the preferred operating region: expect shorter bearing and seal life');
   return messages;
 }
 
@@ -72,10 +78,9 @@ function diameterUnitOf(request: Request): DiameterUnit {
   return ((request.query as { diameter?: DiameterUnit }).diameter ?? 'in') as DiameterUnit;
 }
 
-export function createCalculationHandlers(pumps: CurrentPumpCurves): Record<
-  'calculateSystemCurve' | 'calculateOperatingPoint' | 'listPipeSizes' | 'listFittings',
-  RequestHandler
-> {
+export function createCalculationHandlers(
+  pumps: CurrentPumpCurves,
+): Record<'calculateSystemCurve' | 'calculateOperatingPoint' | 'listPipeSizes' | 'listFittings', RequestHandler> {
   return {
     calculateSystemCurve: (request, response) => {
       const body = request.body as SystemCurveRequest;
@@ -122,14 +127,29 @@ export function createCalculationHandlers(pumps: CurrentPumpCurves): Record<
       }
       const installed = body.arrangement?.installed ?? 1;
       const running = body.arrangement?.running ?? installed;
-      if (running > installed) throw unprocessable('/body/arrangement/running', `running pumps (${running}) cannot exceed installed pumps (${installed})`);
-      const duty = withRequestPointers(() => dutyOfParallelPumps(pump, curve, running, band, density), pointerInto('/body/arrangement'));
+      if (running > installed)
+        throw unprocessable(
+          '/body/arrangement/running',
+          `running pumps (${running}) cannot exceed installed pumps (${installed})`,
+        );
+      const duty = withRequestPointers(
+        () => dutyOfParallelPumps(pump, curve, running, band, density),
+        pointerInto('/body/arrangement'),
+      );
       if (!duty.ok) {
-        throw new ProblemError(422, 'No operating point', noPointTitles[duty.reason], [{ pointer: '/body/pump', detail: noPointTitles[duty.reason] }], 'no-operating-point', {
-          reason: duty.reason,
-        });
+        throw new ProblemError(
+          422,
+          'No operating point',
+          noPointTitles[duty.reason],
+          [{ pointer: '/body/pump', detail: noPointTitles[duty.reason] }],
+          'no-operating-point',
+          {
+            reason: duty.reason,
+          },
+        );
       }
-      const oneFailed = running === installed && installed >= 2 ? dutyOfParallelPumps(pump, curve, running - 1, band, density) : null;
+      const oneFailed =
+        running === installed && installed >= 2 ? dutyOfParallelPumps(pump, curve, running - 1, band, density) : null;
       const warnings = dutyWarningMessages(duty.point, curve, body.units);
       if (oneFailed && !oneFailed.ok) warnings.push(`with one pump failed: ${noPointTitles[oneFailed.reason]}`);
       const answer: OperatingPointResponse = {
@@ -171,14 +191,23 @@ export function createCalculationHandlers(pumps: CurrentPumpCurves): Record<
       if (query.insideDiameter !== undefined) {
         const bore = diameterToSI(query.insideDiameter, diameterUnitOf(request));
         if (bore < plausibleLimits.insideDiameterMin || bore > plausibleLimits.insideDiameterMax) {
-          throw unprocessable('/query/insideDiameter', 'inside diameter is outside the plausible range for a water feature');
+          throw unprocessable(
+            '/query/insideDiameter',
+            'inside diameter is outside the plausible range for a water feature',
+          );
         }
         frictionFactor = craneFullyTurbulentFrictionFactor(bore);
       }
       const answer: FittingsResponse = {
         fittings: FITTINGS.map((fitting) =>
           fitting.resistance.method === 'fixed'
-            ? { kind: fitting.kind, label: fitting.label, method: 'fixed', k: fitting.resistance.k, source: fitting.source }
+            ? {
+                kind: fitting.kind,
+                label: fitting.label,
+                method: 'fixed',
+                k: fitting.resistance.k,
+                source: fitting.source,
+              }
             : {
                 kind: fitting.kind,
                 label: fitting.label,

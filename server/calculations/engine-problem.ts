@@ -19,7 +19,13 @@ export function pointerInto(prefix: string, renames: Readonly<Record<string, str
 
 /** A 422 for input the contract lets through but that cannot be computed. */
 export function unprocessable(pointer: string, detail: string): ProblemError {
-  return new ProblemError(422, 'Input cannot be computed', `${pointer} ${detail}`, [{ pointer, detail }], 'input-cannot-be-computed');
+  return new ProblemError(
+    422,
+    'Input cannot be computed',
+    `${pointer} ${detail}`,
+    [{ pointer, detail }],
+    'input-cannot-be-computed',
+  );
 }
 
 /**

@@ -22,9 +22,11 @@ export function fitInlinePump(units: CalculationUnits, pump: InlinePump, pointer
   const points = pump.curve.map((point, index) => {
     const at = `${pointer}/curve/${index}`;
     const flow = flowToSI(point.flow, units.flow);
-    if (flow > plausibleLimits.flowMax) throw unprocessable(`${at}/flow`, 'flow is outside the plausible range for a water feature');
+    if (flow > plausibleLimits.flowMax)
+      throw unprocessable(`${at}/flow`, 'flow is outside the plausible range for a water feature');
     const head = headToSI(point.head, units.head);
-    if (head > PLAUSIBLE_PUMP_HEAD) throw unprocessable(`${at}/head`, 'head is outside the plausible range for a water feature');
+    if (head > PLAUSIBLE_PUMP_HEAD)
+      throw unprocessable(`${at}/head`, 'head is outside the plausible range for a water feature');
     return {
       flow,
       head,
@@ -45,22 +47,34 @@ export function preferredBandOf(band: PreferredBandInput | undefined, pointer = 
 }
 
 /** The preferred region in flow per pump, m3/s: a declared one when the supplier states it, else the band around BEP. */
-export function preferredFlowRange(fit: PumpCurveFit, band: PreferredBand, declared?: { flowMin: number; flowMax: number } | null): { flowMin: number; flowMax: number } | null {
+export function preferredFlowRange(
+  fit: PumpCurveFit,
+  band: PreferredBand,
+  declared?: { flowMin: number; flowMax: number } | null,
+): { flowMin: number; flowMax: number } | null {
   if (declared) return declared;
   if (!fit.bep) return null;
   return { flowMin: (fit.bep.flow * band.minPercent) / 100, flowMax: (fit.bep.flow * band.maxPercent) / 100 };
 }
 
 /** A fit as the answer shows it, in the request's units; efficiencies in percent. */
-export function summarizeFit(fit: PumpCurveFit, units: CalculationUnits, preferredRegion: { flowMin: number; flowMax: number } | null): CurveFitSummary {
+export function summarizeFit(
+  fit: PumpCurveFit,
+  units: CalculationUnits,
+  preferredRegion: { flowMin: number; flowMax: number } | null,
+): CurveFitSummary {
   const to = answerUnits(units);
   return {
     degree: fit.degree,
     shutOffHead: to.head(fit.shutOffHead),
     flowMin: to.flow(fit.flowMin),
     flowMax: to.flow(fit.flowMax),
-    bep: fit.bep ? { flow: to.flow(fit.bep.flow), head: to.head(fit.bep.head), efficiency: fit.bep.efficiency * 100 } : null,
-    preferredRegion: preferredRegion ? { flowMin: to.flow(preferredRegion.flowMin), flowMax: to.flow(preferredRegion.flowMax) } : null,
+    bep: fit.bep
+      ? { flow: to.flow(fit.bep.flow), head: to.head(fit.bep.head), efficiency: fit.bep.efficiency * 100 }
+      : null,
+    preferredRegion: preferredRegion
+      ? { flowMin: to.flow(preferredRegion.flowMin), flowMax: to.flow(preferredRegion.flowMax) }
+      : null,
     rmsHead: to.head(fit.statistics.rmsHead),
     warnings: fit.warnings,
   };

@@ -36,7 +36,8 @@ export const plausibleLimits = Object.freeze({
 });
 
 function requirePlausible(value: number, min: number, max: number, pointer: string, what: string): void {
-  if (value < min || value > max) throw unprocessable(pointer, `${what} is outside the plausible range for a water feature`);
+  if (value < min || value > max)
+    throw unprocessable(pointer, `${what} is outside the plausible range for a water feature`);
 }
 
 export interface PreparedSystem {
@@ -50,17 +51,31 @@ export function prepareSystem(units: CalculationUnits, system: PipeSystem, point
   const staticHead = headToSI(system.staticHead, units.head);
   requirePlausible(Math.abs(staticHead), 0, plausibleLimits.staticHead, `${pointer}/staticHead`, 'static head');
   const outletPressureHead = headToSI(system.outletPressureHead ?? 0, units.head);
-  requirePlausible(outletPressureHead, 0, plausibleLimits.outletPressureHead, `${pointer}/outletPressureHead`, 'outlet pressure head');
+  requirePlausible(
+    outletPressureHead,
+    0,
+    plausibleLimits.outletPressureHead,
+    `${pointer}/outletPressureHead`,
+    'outlet pressure head',
+  );
   const segments = system.segments.map((segment, index): PipeSegmentInput => {
     const at = `${pointer}/segments/${index}`;
     const length = lengthToSI(segment.length, units.length);
     requirePlausible(length, 0, plausibleLimits.segmentLength, `${at}/length`, 'segment length');
-    const insideDiameter = segment.insideDiameter === undefined ? undefined : diameterToSI(segment.insideDiameter, units.diameter);
+    const insideDiameter =
+      segment.insideDiameter === undefined ? undefined : diameterToSI(segment.insideDiameter, units.diameter);
     if (insideDiameter !== undefined) {
-      requirePlausible(insideDiameter, plausibleLimits.insideDiameterMin, plausibleLimits.insideDiameterMax, `${at}/insideDiameter`, 'inside diameter');
+      requirePlausible(
+        insideDiameter,
+        plausibleLimits.insideDiameterMin,
+        plausibleLimits.insideDiameterMax,
+        `${at}/insideDiameter`,
+        'inside diameter',
+      );
     }
     const roughness = segment.roughness === undefined ? undefined : diameterToSI(segment.roughness, units.diameter);
-    if (roughness !== undefined) requirePlausible(roughness, 0, plausibleLimits.roughnessMax, `${at}/roughness`, 'roughness');
+    if (roughness !== undefined)
+      requirePlausible(roughness, 0, plausibleLimits.roughnessMax, `${at}/roughness`, 'roughness');
     return {
       length,
       pipeSizeId: segment.pipe,
@@ -75,7 +90,13 @@ export function prepareSystem(units: CalculationUnits, system: PipeSystem, point
   const temperature = system.waterTemperatureC ?? 20;
   return withRequestPointers(
     () => ({
-      curve: compileSystemCurve({ staticHead, outletPressureHead, segments, temperature, frictionMethod: system.frictionMethod }),
+      curve: compileSystemCurve({
+        staticHead,
+        outletPressureHead,
+        segments,
+        temperature,
+        frictionMethod: system.frictionMethod,
+      }),
       density: waterDensity(temperature),
     }),
     pointerInto(pointer, systemRenames),

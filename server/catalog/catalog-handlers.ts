@@ -1,6 +1,15 @@
 import type { RequestHandler } from 'express';
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { CurveFileUnits, CurvePointSi, CurveRevisionSummary, PumpDetail, PumpPage, PumpSummary, StoredPumpCurveFit, SupplierList } from '../../shared/api/api-schemas';
+import type {
+  CurveFileUnits,
+  CurvePointSi,
+  CurveRevisionSummary,
+  PumpDetail,
+  PumpPage,
+  PumpSummary,
+  StoredPumpCurveFit,
+  SupplierList,
+} from '../../shared/api/api-schemas';
 import { flowToSI, headToSI, type FlowUnit, type HeadUnit } from '../../shared/hydraulics';
 import { siUnits } from '../../data-import/curve-import';
 import { ProblemError } from '../api/problem-details';
@@ -67,14 +76,20 @@ function toPumpSummary(row: PumpRow): PumpSummary {
     phaseCount: row.phase_count as PumpSummary['phaseCount'],
     dischargeSizeMm: row.discharge_size_mm,
     solidsHandlingMm: row.solids_handling_mm,
-    listPrice: row.list_price === null || row.price_currency === null ? null : { amount: Number(row.list_price), currency: row.price_currency },
+    listPrice:
+      row.list_price === null || row.price_currency === null
+        ? null
+        : { amount: Number(row.list_price), currency: row.price_currency },
     status: row.status,
     currentRevisionNumber: row.revision_number,
     flowMin: row.flow_min_m3s,
     flowMax: row.flow_max_m3s,
     headMin: row.head_min_m,
     headMax: row.head_max_m,
-    bep: row.bep_flow_m3s === null || row.bep_head_m === null || row.bep_efficiency === null ? null : { flow: row.bep_flow_m3s, head: row.bep_head_m, efficiency: row.bep_efficiency },
+    bep:
+      row.bep_flow_m3s === null || row.bep_head_m === null || row.bep_efficiency === null
+        ? null
+        : { flow: row.bep_flow_m3s, head: row.bep_head_m, efficiency: row.bep_efficiency },
   };
 }
 
@@ -118,7 +133,9 @@ export function createCatalogHandlers(sequelize: Sequelize) {
         ORDER BY s.code`,
       { type: QueryTypes.SELECT },
     );
-    const answer: SupplierList = { suppliers: rows.map((row) => ({ id: row.id, code: row.code, name: row.name, pumpCount: Number(row.pump_count) })) };
+    const answer: SupplierList = {
+      suppliers: rows.map((row) => ({ id: row.id, code: row.code, name: row.name, pumpCount: Number(row.pump_count) })),
+    };
     response.json(answer);
   };
 
@@ -146,10 +163,22 @@ export function createCatalogHandlers(sequelize: Sequelize) {
     const flowUnit = query.flowUnit ?? 'm3/h';
     const headUnit = query.headUnit ?? 'm';
     if (query.flowMin !== undefined && query.flowMax !== undefined && query.flowMax < query.flowMin) {
-      throw new ProblemError(400, 'Invalid request', '/query/flowMax must not be below flowMin', [{ pointer: '/query/flowMax', detail: 'must not be below flowMin' }], 'invalid-request');
+      throw new ProblemError(
+        400,
+        'Invalid request',
+        '/query/flowMax must not be below flowMin',
+        [{ pointer: '/query/flowMax', detail: 'must not be below flowMin' }],
+        'invalid-request',
+      );
     }
     if (query.headMin !== undefined && query.headMax !== undefined && query.headMax < query.headMin) {
-      throw new ProblemError(400, 'Invalid request', '/query/headMax must not be below headMin', [{ pointer: '/query/headMax', detail: 'must not be below headMin' }], 'invalid-request');
+      throw new ProblemError(
+        400,
+        'Invalid request',
+        '/query/headMax must not be below headMin',
+        [{ pointer: '/query/headMax', detail: 'must not be below headMin' }],
+        'invalid-request',
+      );
     }
     // A pump passes a range when its published curve reaches into it.
     if (query.flowMin !== undefined) {
@@ -177,19 +206,34 @@ export function createCatalogHandlers(sequelize: Sequelize) {
       `SELECT COUNT(*) AS total FROM pumps p JOIN suppliers s ON s.id = p.supplier_id LEFT JOIN curve_revisions r ON r.id = p.current_revision_id ${whereSql}`,
       { replacements, type: QueryTypes.SELECT },
     );
-    const rows = await sequelize.query<PumpRow>(`${pumpSelect} ${whereSql} ORDER BY ${sortColumn} ${order}, p.id ${order} LIMIT ? OFFSET ?`, {
-      replacements: [...replacements, pageSize, (page - 1) * pageSize],
-      type: QueryTypes.SELECT,
-    });
-    const answer: PumpPage = { units: siUnits, total: Number(countRow.total), page, pageSize, items: rows.map(toPumpSummary) };
+    const rows = await sequelize.query<PumpRow>(
+      `${pumpSelect} ${whereSql} ORDER BY ${sortColumn} ${order}, p.id ${order} LIMIT ? OFFSET ?`,
+      {
+        replacements: [...replacements, pageSize, (page - 1) * pageSize],
+        type: QueryTypes.SELECT,
+      },
+    );
+    const answer: PumpPage = {
+      units: siUnits,
+      total: Number(countRow.total),
+      page,
+      pageSize,
+      items: rows.map(toPumpSummary),
+    };
     response.json(answer);
   };
 
   const getPump: RequestHandler = async (request, response) => {
     const pumpId = Number(request.params.pumpId);
     const wanted = (request.query as { revision?: number }).revision;
-    const [row] = await sequelize.query<PumpRow>(`${pumpSelect} WHERE p.id = ?`, { replacements: [pumpId], type: QueryTypes.SELECT });
-    if (!row) throw new ProblemError(404, 'Not found', `No pump has the id ${pumpId}`, [{ pointer: '/path/pumpId', detail: 'no such pump' }]);
+    const [row] = await sequelize.query<PumpRow>(`${pumpSelect} WHERE p.id = ?`, {
+      replacements: [pumpId],
+      type: QueryTypes.SELECT,
+    });
+    if (!row)
+      throw new ProblemError(404, 'Not found', `No pump has the id ${pumpId}`, [
+        { pointer: '/path/pumpId', detail: 'no such pump' },
+      ]);
     const revisionRows = await sequelize.query<{
       id: number;
       number: number;
@@ -219,18 +263,30 @@ export function createCatalogHandlers(sequelize: Sequelize) {
     const number = wanted ?? row.revision_number;
     const chosen = revisionRows.find((revision) => revision.number === number);
     if (wanted !== undefined && !chosen) {
-      throw new ProblemError(404, 'Not found', `Pump ${pumpId} has no revision ${wanted}`, [{ pointer: '/query/revision', detail: `no such revision; this pump has ${revisionRows.length}` }]);
+      throw new ProblemError(404, 'Not found', `Pump ${pumpId} has no revision ${wanted}`, [
+        { pointer: '/query/revision', detail: `no such revision; this pump has ${revisionRows.length}` },
+      ]);
     }
     let revision: PumpDetail['revision'] = null;
     if (chosen) {
-      const points = await sequelize.query<{ flow_m3s: number; head_m: number; power_w: number | null; efficiency: number | null; npsh_required_m: number | null }>(
+      const points = await sequelize.query<{
+        flow_m3s: number;
+        head_m: number;
+        power_w: number | null;
+        efficiency: number | null;
+        npsh_required_m: number | null;
+      }>(
         'SELECT flow_m3s, head_m, power_w, efficiency, npsh_required_m FROM curve_points WHERE revision_id = ? ORDER BY position',
         { replacements: [chosen.id], type: QueryTypes.SELECT },
       );
-      const ranges = await sequelize.query<{ region: 'preferred' | 'allowable'; flow_min_m3s: number; flow_max_m3s: number }>(
-        'SELECT region, flow_min_m3s, flow_max_m3s FROM curve_declared_ranges WHERE revision_id = ?',
-        { replacements: [chosen.id], type: QueryTypes.SELECT },
-      );
+      const ranges = await sequelize.query<{
+        region: 'preferred' | 'allowable';
+        flow_min_m3s: number;
+        flow_max_m3s: number;
+      }>('SELECT region, flow_min_m3s, flow_max_m3s FROM curve_declared_ranges WHERE revision_id = ?', {
+        replacements: [chosen.id],
+        type: QueryTypes.SELECT,
+      });
       const range = (region: 'preferred' | 'allowable') => {
         const found = ranges.find((candidate) => candidate.region === region);
         return found ? { flowMin: found.flow_min_m3s, flowMax: found.flow_max_m3s } : null;
@@ -239,15 +295,13 @@ export function createCatalogHandlers(sequelize: Sequelize) {
         ...revisions.find((summary) => summary.number === chosen.number)!,
         fileUnits: json(chosen.file_units) as CurveFileUnits,
         notes: chosen.notes,
-        points: points.map(
-          (point): CurvePointSi => ({
-            flow: point.flow_m3s,
-            head: point.head_m,
-            ...(point.power_w !== null ? { power: point.power_w } : {}),
-            ...(point.efficiency !== null ? { efficiency: point.efficiency } : {}),
-            ...(point.npsh_required_m !== null ? { npshRequired: point.npsh_required_m } : {}),
-          }),
-        ),
+        points: points.map((point): CurvePointSi => ({
+          flow: point.flow_m3s,
+          head: point.head_m,
+          ...(point.power_w !== null ? { power: point.power_w } : {}),
+          ...(point.efficiency !== null ? { efficiency: point.efficiency } : {}),
+          ...(point.npsh_required_m !== null ? { npshRequired: point.npsh_required_m } : {}),
+        })),
         declaredRanges: { preferred: range('preferred'), allowable: range('allowable') },
         fit: json(chosen.fit) as StoredPumpCurveFit,
       };

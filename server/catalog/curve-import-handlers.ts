@@ -26,10 +26,18 @@ async function supplierFor(request: Request): Promise<Supplier> {
   const user = currentUser(request);
   const supplierId = Number(request.params.supplierId);
   if (user.role === 'supplier-admin' && user.supplierId !== supplierId) {
-    throw new ProblemError(403, 'Forbidden', 'A supplier admin may load and read curve tables of its own supplier only', [{ pointer: '/path/supplierId', detail: 'not your supplier' }]);
+    throw new ProblemError(
+      403,
+      'Forbidden',
+      'A supplier admin may load and read curve tables of its own supplier only',
+      [{ pointer: '/path/supplierId', detail: 'not your supplier' }],
+    );
   }
   const supplier = await Supplier.findByPk(supplierId);
-  if (!supplier) throw new ProblemError(404, 'Not found', `No supplier has the id ${supplierId}`, [{ pointer: '/path/supplierId', detail: 'no such supplier' }]);
+  if (!supplier)
+    throw new ProblemError(404, 'Not found', `No supplier has the id ${supplierId}`, [
+      { pointer: '/path/supplierId', detail: 'no such supplier' },
+    ]);
   return supplier;
 }
 
@@ -40,14 +48,33 @@ function receiveUpload(request: Request, response: Response): Promise<void> {
       if (error instanceof multer.MulterError) {
         if (error.code === 'LIMIT_FILE_SIZE') {
           return reject(
-            new ProblemError(413, 'File too large', `The file is larger than ${curveTableLimits.maxFileBytes / 1024 / 1024} MiB; split it into smaller files`, [
-              { pointer: '/body/file', detail: `at most ${curveTableLimits.maxFileBytes} bytes` },
-            ]),
+            new ProblemError(
+              413,
+              'File too large',
+              `The file is larger than ${curveTableLimits.maxFileBytes / 1024 / 1024} MiB; split it into smaller files`,
+              [{ pointer: '/body/file', detail: `at most ${curveTableLimits.maxFileBytes} bytes` }],
+            ),
           );
         }
-        return reject(new ProblemError(400, 'Invalid upload', `${error.message}: send one file in the field "file" and optionally dryRun`, [{ pointer: `/body/${error.field ?? 'file'}`, detail: error.message }], 'invalid-request'));
+        return reject(
+          new ProblemError(
+            400,
+            'Invalid upload',
+            `${error.message}: send one file in the field "file" and optionally dryRun`,
+            [{ pointer: `/body/${error.field ?? 'file'}`, detail: error.message }],
+            'invalid-request',
+          ),
+        );
       }
-      reject(new ProblemError(400, 'Invalid upload', 'The multipart body could not be read', [{ pointer: '/body', detail: (error as Error).message }], 'invalid-request'));
+      reject(
+        new ProblemError(
+          400,
+          'Invalid upload',
+          'The multipart body could not be read',
+          [{ pointer: '/body', detail: (error as Error).message }],
+          'invalid-request',
+        ),
+      );
     });
   });
 }
@@ -67,11 +94,23 @@ export function createCurveImportHandlers(sequelize: Sequelize) {
     const body = (request.body ?? {}) as Record<string, unknown>;
     const file = request.file;
     if (!file) {
-      throw new ProblemError(400, 'Invalid request', 'A multipart/form-data body with the CSV file in the field "file" is required', [{ pointer: '/body/file', detail: 'a CSV file is required' }], 'invalid-request');
+      throw new ProblemError(
+        400,
+        'Invalid request',
+        'A multipart/form-data body with the CSV file in the field "file" is required',
+        [{ pointer: '/body/file', detail: 'a CSV file is required' }],
+        'invalid-request',
+      );
     }
     const dryRunField = body.dryRun ?? 'false';
     if (dryRunField !== 'true' && dryRunField !== 'false') {
-      throw new ProblemError(400, 'Invalid request', '/body/dryRun must be true or false', [{ pointer: '/body/dryRun', detail: 'must be one of: true, false' }], 'invalid-request');
+      throw new ProblemError(
+        400,
+        'Invalid request',
+        '/body/dryRun must be true or false',
+        [{ pointer: '/body/dryRun', detail: 'must be one of: true, false' }],
+        'invalid-request',
+      );
     }
     const fileName = (file.originalname || 'upload.csv').replace(/^.*[\\/]/, '').slice(0, 255);
     const report: CurveImportReport = await importCurveTable({
@@ -84,19 +123,35 @@ export function createCurveImportHandlers(sequelize: Sequelize) {
       totalBytes: file.size,
     });
     if (report.errors.length > 0) {
-      const problems: FieldProblem[] = report.errors.map((issue) => ({ pointer: issuePointer(issue), detail: describeIssue(issue) }));
+      const problems: FieldProblem[] = report.errors.map((issue) => ({
+        pointer: issuePointer(issue),
+        detail: describeIssue(issue),
+      }));
       const count = report.errors.length + report.errorsOmitted;
-      throw new ProblemError(422, 'Curve table refused', `${count} error(s), nothing was written; first: ${describeIssue(report.errors[0])}`, problems, 'curve-table-refused', { report });
+      throw new ProblemError(
+        422,
+        'Curve table refused',
+        `${count} error(s), nothing was written; first: ${describeIssue(report.errors[0])}`,
+        problems,
+        'curve-table-refused',
+        { report },
+      );
     }
     response.status(report.committed ? 201 : 200).json(report);
   };
 
   const listCurveImports: RequestHandler = async (request, response) => {
     const supplier = await supplierFor(request);
-    const records = await CurveImport.findAll({ where: { supplierId: supplier.id }, order: [['id', 'DESC']], limit: 200 });
+    const records = await CurveImport.findAll({
+      where: { supplierId: supplier.id },
+      order: [['id', 'DESC']],
+      limit: 200,
+    });
     const answer: CurveImportList = {
       imports: records.map((record) => {
-        const report = (typeof record.report === 'string' ? JSON.parse(record.report) : record.report) as CurveImportReport;
+        const report = (
+          typeof record.report === 'string' ? JSON.parse(record.report) : record.report
+        ) as CurveImportReport;
         return {
           id: record.id,
           importedAt: record.createdAt.toISOString(),

@@ -144,7 +144,9 @@ export class PrivateMariaDb {
       }
     }
     if (!exited) child.kill('SIGKILL');
-    throw new MariaDbStartError(`MariaDB did not start on port ${options.port}. The end of its log:\n${logTail(logFile)}`);
+    throw new MariaDbStartError(
+      `MariaDB did not start on port ${options.port}. The end of its log:\n${logTail(logFile)}`,
+    );
   }
 
   private static runningInstance(pidFile: string, dataDir: string): number | undefined {
@@ -178,10 +180,13 @@ export class PrivateMariaDb {
 
   /** Creates the database when it does not exist yet. */
   async ensureDatabase(name: string): Promise<void> {
-    if (!/^[A-Za-z0-9_]+$/.test(name)) throw new MariaDbStartError(`database name "${name}" may hold only letters, digits and _`);
+    if (!/^[A-Za-z0-9_]+$/.test(name))
+      throw new MariaDbStartError(`database name "${name}" may hold only letters, digits and _`);
     const connection = await mariadb.createConnection({ host, port: this.port, user: 'root', password: '' });
     try {
-      await connection.query(`CREATE DATABASE IF NOT EXISTS \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+      await connection.query(
+        `CREATE DATABASE IF NOT EXISTS \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`,
+      );
     } finally {
       await connection.end();
     }
@@ -199,11 +204,14 @@ export class PrivateMariaDb {
     process.kill(this.pid, 'SIGTERM');
     const deadline = Date.now() + stopTimeoutMs;
     while (Date.now() < deadline) {
-      if (exited ? await Promise.race([exited.then(() => true), sleep(100).then(() => false)]) : !isRunning(this.pid)) return;
+      if (exited ? await Promise.race([exited.then(() => true), sleep(100).then(() => false)]) : !isRunning(this.pid))
+        return;
       if (!exited) await sleep(100);
     }
     process.kill(this.pid, 'SIGKILL');
-    throw new MariaDbStartError(`MariaDB (process ${this.pid}) did not stop within a minute and was killed. The end of its log:\n${logTail(this.logFile)}`);
+    throw new MariaDbStartError(
+      `MariaDB (process ${this.pid}) did not stop within a minute and was killed. The end of its log:\n${logTail(this.logFile)}`,
+    );
   }
 }
 

@@ -24,7 +24,10 @@ export function createHealthHandlers(sequelize: Sequelize, version: string): { g
     getHealth: async (_request, response) => {
       const up = await databaseAnswers(sequelize);
       const health: Health = { status: up ? 'ok' : 'degraded', database: up ? 'up' : 'down', version };
-      response.status(up ? 200 : 503).set('Cache-Control', 'no-store').json(health);
+      response
+        .status(up ? 200 : 503)
+        .set('Cache-Control', 'no-store')
+        .json(health);
     },
   };
 }

@@ -31,15 +31,26 @@ function sourceHash(): string {
 /** Builds the Angular app with `ng build` when the build is missing or older than its sources. */
 export async function ensureClientBuilt(log: (line: string) => void): Promise<void> {
   const wanted = sourceHash();
-  const built = existsSync(join(defaultClientFolder, 'index.html')) && existsSync(stampFile) ? readFileSync(stampFile, 'utf8').trim() : '';
+  const built =
+    existsSync(join(defaultClientFolder, 'index.html')) && existsSync(stampFile)
+      ? readFileSync(stampFile, 'utf8').trim()
+      : '';
   if (built === wanted) return;
-  log(built ? 'the client build is stale; building it (about 20 s)' : 'the client is not built yet; building it (about 20 s)');
+  log(
+    built
+      ? 'the client build is stale; building it (about 20 s)'
+      : 'the client is not built yet; building it (about 20 s)',
+  );
   const exitCode = await new Promise<number | null>((resolve, reject) => {
-    const child = spawn(process.execPath, [join(projectRoot, 'node_modules', '@angular', 'cli', 'bin', 'ng.js'), 'build'], {
-      cwd: projectRoot,
-      stdio: ['ignore', 'inherit', 'inherit'],
-      env: { ...process.env, NG_CLI_ANALYTICS: 'false' },
-    });
+    const child = spawn(
+      process.execPath,
+      [join(projectRoot, 'node_modules', '@angular', 'cli', 'bin', 'ng.js'), 'build'],
+      {
+        cwd: projectRoot,
+        stdio: ['ignore', 'inherit', 'inherit'],
+        env: { ...process.env, NG_CLI_ANALYTICS: 'false' },
+      },
+    );
     child.once('error', reject);
     child.once('exit', resolve);
   });

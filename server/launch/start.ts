@@ -80,9 +80,16 @@ async function main(): Promise<void> {
   }
 
   try {
-    const database = await PrivateMariaDb.startOrReuse({ folder: join(config.varDir, 'mariadb'), port: config.database.port });
+    const database = await PrivateMariaDb.startOrReuse({
+      folder: join(config.varDir, 'mariadb'),
+      port: config.database.port,
+    });
     stops.push({ what: 'MariaDB', stop: () => database.stop() });
-    say(database.startedNow ? `MariaDB started on 127.0.0.1:${database.port}` : `MariaDB already running on 127.0.0.1:${database.port}; using it`);
+    say(
+      database.startedNow
+        ? `MariaDB started on 127.0.0.1:${database.port}`
+        : `MariaDB already running on 127.0.0.1:${database.port}; using it`,
+    );
     await database.ensureDatabase(config.database.name);
 
     const sequelize: Sequelize = createSequelize(config.database);
@@ -90,7 +97,8 @@ async function main(): Promise<void> {
     initialiseModels(sequelize);
     const applied = await createMigrator(sequelize).up();
     if (applied.length > 0) say(`applied ${applied.length} migration(s)`);
-    if (config.demo && (await seedMissingDemoData(sequelize))) say('loaded the demo data (invented suppliers and pumps)');
+    if (config.demo && (await seedMissingDemoData(sequelize)))
+      say('loaded the demo data (invented suppliers and pumps)');
 
     // Mail: the loopback fake SMTP server unless a relay is configured.
     let mailPort = config.mail.port;
@@ -98,16 +106,28 @@ async function main(): Promise<void> {
       const smtp = await startFakeSmtpServer({ port: config.mail.port, mailboxFolder: config.mail.mailboxFolder });
       stops.push({ what: 'demo mail server', stop: () => smtp.stop() });
       mailPort = smtp.port;
-      say(`demo mail server on 127.0.0.1:${smtp.port} (no mail leaves this machine${config.demo ? '; admins read it on the Demo mailbox page' : ''})`);
+      say(
+        `demo mail server on 127.0.0.1:${smtp.port} (no mail leaves this machine${config.demo ? '; admins read it on the Demo mailbox page' : ''})`,
+      );
     }
     if (config.demo) {
       say(`demo accounts, all with the password ${demoPassword}:`);
-      for (const account of demoAccounts) say(`  ${account.email.padEnd(24)} ${account.role}${account.supplierCode ? ` of ${account.supplierCode}` : ''}`);
+      for (const account of demoAccounts)
+        say(
+          `  ${account.email.padEnd(24)} ${account.role}${account.supplierCode ? ` of ${account.supplierCode}` : ''}`,
+        );
     }
 
     await ensureClientBuilt(say);
 
-    const server = createServer(createApp({ sequelize, logger, clientFolder: defaultClientFolder, accounts: { mailer: createSmtpMailer(config.mail, mailPort) } }));
+    const server = createServer(
+      createApp({
+        sequelize,
+        logger,
+        clientFolder: defaultClientFolder,
+        accounts: { mailer: createSmtpMailer(config.mail, mailPort) },
+      }),
+    );
     await listen(server, config.httpPort, config.httpHost);
     stops.push({ what: 'web server', stop: () => new Promise((resolve) => server.close(() => resolve())) });
     say(`Riffle is running at http://${config.httpHost}:${config.httpPort}/ (Ctrl-C stops it)`);

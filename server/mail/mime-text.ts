@@ -12,7 +12,9 @@ export interface PlainMessage {
 function splitHeadersAndBody(raw: string): { headerText: string; body: string } {
   const normalised = raw.replace(/\r\n/g, '\n');
   const end = normalised.indexOf('\n\n');
-  return end < 0 ? { headerText: normalised, body: '' } : { headerText: normalised.slice(0, end), body: normalised.slice(end + 2) };
+  return end < 0
+    ? { headerText: normalised, body: '' }
+    : { headerText: normalised.slice(0, end), body: normalised.slice(end + 2) };
 }
 
 function parseHeaders(headerText: string): Map<string, string> {
@@ -52,8 +54,12 @@ function decodeBody(body: string, transferEncoding: string | undefined): string 
 
 /** `=?UTF-8?Q?...?=` and `=?UTF-8?B?...?=` words in a header. */
 export function decodeEncodedWords(value: string): string {
-  return value.replace(/=\?([^?]+)\?([QqBb])\?([^?]*)\?=\s*/g, (_word, _charset: string, encoding: string, text: string) =>
-    encoding.toUpperCase() === 'B' ? Buffer.from(text, 'base64').toString('utf8') : decodeQuotedPrintable(text.replace(/_/g, ' ')),
+  return value.replace(
+    /=\?([^?]+)\?([QqBb])\?([^?]*)\?=\s*/g,
+    (_word, _charset: string, encoding: string, text: string) =>
+      encoding.toUpperCase() === 'B'
+        ? Buffer.from(text, 'base64').toString('utf8')
+        : decodeQuotedPrintable(text.replace(/_/g, ' ')),
   );
 }
 
@@ -63,8 +69,13 @@ export function parsePlainMessage(raw: string): PlainMessage {
   const contentType = headers.get('content-type') ?? 'text/plain';
   const boundary = /boundary="?([^";]+)"?/i.exec(contentType)?.[1];
   if (contentType.toLowerCase().startsWith('multipart/') && boundary) {
-    const parts = body.split(`--${boundary}`).slice(1, -1).map((part) => parsePlainMessage(part.replace(/^\n/, '')));
-    const textPart = parts.find((part) => (part.headers.get('content-type') ?? 'text/plain').toLowerCase().startsWith('text/plain')) ?? parts[0];
+    const parts = body
+      .split(`--${boundary}`)
+      .slice(1, -1)
+      .map((part) => parsePlainMessage(part.replace(/^\n/, '')));
+    const textPart =
+      parts.find((part) => (part.headers.get('content-type') ?? 'text/plain').toLowerCase().startsWith('text/plain')) ??
+      parts[0];
     return { headers, text: textPart?.text ?? '' };
   }
   return { headers, text: decodeBody(body, headers.get('content-transfer-encoding')).replace(/\n$/, '') };

@@ -13,7 +13,13 @@ import { Project } from '../database/models';
  */
 
 function view(project: Project): ProjectView {
-  return { id: project.id, name: project.name, createdAt: project.createdAt.toISOString(), updatedAt: project.updatedAt.toISOString(), design: project.design };
+  return {
+    id: project.id,
+    name: project.name,
+    createdAt: project.createdAt.toISOString(),
+    updatedAt: project.updatedAt.toISOString(),
+    design: project.design,
+  };
 }
 
 /** The request's project input, every pipe a size of its series in the catalogue. */
@@ -22,21 +28,30 @@ function checkedInput(request: Request): ProjectInput {
   input.design.system.segments.forEach((segment, index) => {
     const pointer = `/body/design/system/segments/${index}`;
     const series = PIPE_SERIES.find((candidate) => candidate.id === segment.series);
-    if (!series) throw unprocessable(`${pointer}/series`, `is not a pipe series of the catalogue (GET /pipe-sizes lists them)`);
-    if (!series.sizes.some((size) => size.id === segment.size)) throw unprocessable(`${pointer}/size`, `is not a size of ${series.label}`);
+    if (!series)
+      throw unprocessable(`${pointer}/series`, `is not a pipe series of the catalogue (GET /pipe-sizes lists them)`);
+    if (!series.sizes.some((size) => size.id === segment.size))
+      throw unprocessable(`${pointer}/size`, `is not a size of ${series.label}`);
   });
-  if (input.design.band.flowMin > input.design.band.flowMax) throw unprocessable('/body/design/band/flowMax', 'must not be less than flowMin');
+  if (input.design.band.flowMin > input.design.band.flowMax)
+    throw unprocessable('/body/design/band/flowMax', 'must not be less than flowMin');
   return { name: input.name.trim(), design: input.design };
 }
 
 async function ownProject(request: Request): Promise<Project> {
   const projectId = Number(request.params.projectId);
   const project = await Project.findOne({ where: { id: projectId, ownerUserId: currentUser(request).id } });
-  if (!project) throw new ProblemError(404, 'Not found', `You have no project ${projectId}`, [{ pointer: '/path/projectId', detail: 'is not one of your projects' }]);
+  if (!project)
+    throw new ProblemError(404, 'Not found', `You have no project ${projectId}`, [
+      { pointer: '/path/projectId', detail: 'is not one of your projects' },
+    ]);
   return project;
 }
 
-export function createProjectHandlers(): Record<'listProjects' | 'createProject' | 'getProject' | 'updateProject' | 'deleteProject', RequestHandler> {
+export function createProjectHandlers(): Record<
+  'listProjects' | 'createProject' | 'getProject' | 'updateProject' | 'deleteProject',
+  RequestHandler
+> {
   return {
     listProjects: async (request, response) => {
       const projects = await Project.findAll({
@@ -48,14 +63,23 @@ export function createProjectHandlers(): Record<'listProjects' | 'createProject'
         ],
       });
       const answer: ProjectList = {
-        projects: projects.map(({ id, name, createdAt, updatedAt }) => ({ id, name, createdAt: createdAt.toISOString(), updatedAt: updatedAt.toISOString() })),
+        projects: projects.map(({ id, name, createdAt, updatedAt }) => ({
+          id,
+          name,
+          createdAt: createdAt.toISOString(),
+          updatedAt: updatedAt.toISOString(),
+        })),
       };
       response.json(answer);
     },
 
     createProject: async (request, response) => {
       const input = checkedInput(request);
-      const project = await Project.create({ ownerUserId: currentUser(request).id, name: input.name, design: input.design });
+      const project = await Project.create({
+        ownerUserId: currentUser(request).id,
+        name: input.name,
+        design: input.design,
+      });
       response.status(201).json(view(project));
     },
 

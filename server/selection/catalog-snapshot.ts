@@ -76,7 +76,10 @@ function toCatalogPump(row: PumpRow): CatalogPump {
     kind: row.kind,
     revisionId: row.revision_id,
     fit,
-    declaredPreferred: row.preferred_min !== null && row.preferred_max !== null ? { flowMin: row.preferred_min, flowMax: row.preferred_max } : null,
+    declaredPreferred:
+      row.preferred_min !== null && row.preferred_max !== null
+        ? { flowMin: row.preferred_min, flowMax: row.preferred_max }
+        : null,
   };
 }
 
@@ -123,7 +126,12 @@ export class CatalogSnapshot implements CurrentPumpCurves {
   private async load(stamp: string): Promise<CatalogState> {
     const rows = await this.sequelize.query<PumpRow>(pumpsQuery, { type: QueryTypes.SELECT });
     const pumps = rows.map(toCatalogPump);
-    const state: CatalogState = { stamp, pumps, byId: new Map(pumps.map((pump) => [pump.pumpId, pump])), derived: new Map() };
+    const state: CatalogState = {
+      stamp,
+      pumps,
+      byId: new Map(pumps.map((pump) => [pump.pumpId, pump])),
+      derived: new Map(),
+    };
     this.state = state;
     return state;
   }

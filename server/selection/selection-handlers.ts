@@ -42,8 +42,13 @@ function candidateAnswer(candidate: RankedCandidate, rank: number, body: Selecti
     annualCost: candidate.annualCost,
     warnings: candidate.warnings,
     reasons: candidate.reasons,
-    curve: sampledCombinedCurve(candidate.pump, candidate.running).map((point) => ({ flow: to.flow(point.flow), head: to.head(point.head) })),
-    preferredRange: candidate.preferredRange ? { flowMin: to.flow(candidate.preferredRange.flowMin), flowMax: to.flow(candidate.preferredRange.flowMax) } : null,
+    curve: sampledCombinedCurve(candidate.pump, candidate.running).map((point) => ({
+      flow: to.flow(point.flow),
+      head: to.head(point.head),
+    })),
+    preferredRange: candidate.preferredRange
+      ? { flowMin: to.flow(candidate.preferredRange.flowMin), flowMax: to.flow(candidate.preferredRange.flowMax) }
+      : null,
   };
 }
 
@@ -54,7 +59,11 @@ function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnin
   const flowMax = flowToSI(body.duty.flowMax, body.units.flow);
   requirePlausibleFlow(flowMin, '/body/duty/flowMin');
   requirePlausibleFlow(flowMax, '/body/duty/flowMax');
-  if (flowMin > flowMax) throw unprocessable('/body/duty/flowMax', `must not be less than flowMin (${body.duty.flowMin} ${body.units.flow})`);
+  if (flowMin > flowMax)
+    throw unprocessable(
+      '/body/duty/flowMax',
+      `must not be less than flowMin (${body.duty.flowMin} ${body.units.flow})`,
+    );
   const maxPower = body.filters?.maxInputPowerPerPump;
   const warnings: string[] = [];
   if (body.energy?.tariffPerKWh === undefined) warnings.push('no tariff given: annual cost is left out');
@@ -86,7 +95,8 @@ export function createSelectionHandlers(catalog: CatalogSnapshot): Record<'searc
       const body = request.body as SelectionRequest;
       const { query, warnings } = selectionQuery(body);
       const outcome = searchCatalog(await catalog.current(), query);
-      if (outcome.candidates.length === 0) warnings.push('no catalog pump meets this system in the arrangements asked for');
+      if (outcome.candidates.length === 0)
+        warnings.push('no catalog pump meets this system in the arrangements asked for');
       const answer: SelectionResponse = {
         units: echoedUnits(body.units),
         duty: body.duty,

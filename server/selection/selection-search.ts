@@ -10,7 +10,12 @@ import {
   type HeadCurve,
   type PreferredBand,
 } from '../../shared/hydraulics';
-import { dutyOfParallelPumps, type DutyOutcome, type DutyPoint, type DutyWarning } from '../calculations/arrangement-duty';
+import {
+  dutyOfParallelPumps,
+  type DutyOutcome,
+  type DutyPoint,
+  type DutyWarning,
+} from '../calculations/arrangement-duty';
 import { preferredFlowRange } from '../calculations/pump-request';
 import type { CatalogPump, CatalogState } from './catalog-snapshot';
 
@@ -118,7 +123,13 @@ function packedCurves(state: CatalogState): PackedCurves {
     padded(packed.power, index, fit.powerCoefficients);
     packed.flowMin[index] = fit.flowMin;
     packed.flowMax[index] = fit.flowMax;
-    packed.powerSource[index] = fit.powerCoefficients ? (fit.powerBasis === 'electrical' ? 3 : 2) : fit.efficiencyCoefficients ? 1 : 0;
+    packed.powerSource[index] = fit.powerCoefficients
+      ? fit.powerBasis === 'electrical'
+        ? 3
+        : 2
+      : fit.efficiencyCoefficients
+        ? 1
+        : 0;
     packed.electricalEfficiency[index] = fit.powerBasis === 'electrical' ? 1 : 0;
     if (fit.bep) packed.bepFlow[index] = fit.bep.flow;
     if (declaredPreferred) {
@@ -175,7 +186,10 @@ class BandSystemTable {
     const h1 = this.heads[node + 1];
     const m0 = this.slopes[node];
     const m1 = this.slopes[node + 1];
-    if (out) out[0] = ((6 * t2 - 6 * t) * h0 + (3 * t2 - 4 * t + 1) * m0 + (-6 * t2 + 6 * t) * h1 + (3 * t2 - 2 * t) * m1) / this.step;
+    if (out)
+      out[0] =
+        ((6 * t2 - 6 * t) * h0 + (3 * t2 - 4 * t + 1) * m0 + (-6 * t2 + 6 * t) * h1 + (3 * t2 - 2 * t) * m1) /
+        this.step;
     return (2 * t3 - 3 * t2 + 1) * h0 + (t3 - 2 * t2 + t) * m0 + (-2 * t3 + 3 * t2) * h1 + (t3 - t2) * m1;
   }
 }
@@ -187,7 +201,14 @@ class BandSystemTable {
  * 9.4, "rtsafe"), to 1e-8 of the bracket: enough to rank by, the ranked few are then solved by
  * the engine itself.
  */
-function crossingInBracket(coefficients: Float64Array, offset: number, running: number, table: BandSystemTable, low: number, high: number): number {
+function crossingInBracket(
+  coefficients: Float64Array,
+  offset: number,
+  running: number,
+  table: BandSystemTable,
+  low: number,
+  high: number,
+): number {
   const surplusLow = cubicAt(coefficients, offset, low / running) - table.head(low);
   const surplusHigh = cubicAt(coefficients, offset, high / running) - table.head(high);
   if (surplusLow <= 0) return low;
@@ -215,7 +236,10 @@ function crossingInBracket(coefficients: Float64Array, offset: number, running: 
 const systemSlope = new Float64Array(1);
 
 function cubicAt(coefficients: Float64Array, offset: number, flow: number): number {
-  return coefficients[offset] + flow * (coefficients[offset + 1] + flow * (coefficients[offset + 2] + flow * coefficients[offset + 3]));
+  return (
+    coefficients[offset] +
+    flow * (coefficients[offset + 1] + flow * (coefficients[offset + 2] + flow * coefficients[offset + 3]))
+  );
 }
 
 /** Velocity warning for the whole system at a total flow: the smallest bore carries the highest velocity. */
@@ -233,15 +257,26 @@ function tierOf(inBand: boolean, preferred: boolean, redundancyMet: boolean): nu
   return preferred && redundancyMet ? 0 : 1;
 }
 
-function rankCandidate(pump: CatalogPump, running: number, point: DutyPoint, query: SelectionQuery): RankedCandidate | null {
+function rankCandidate(
+  pump: CatalogPump,
+  running: number,
+  point: DutyPoint,
+  query: SelectionQuery,
+): RankedCandidate | null {
   if (query.onlyPreferredRegion && point.region !== 'preferred') return null;
-  if (query.maxInputPowerPerPump !== null && point.inputPower !== null && point.inputPower / running > query.maxInputPowerPerPump) return null;
+  if (
+    query.maxInputPowerPerPump !== null &&
+    point.inputPower !== null &&
+    point.inputPower / running > query.maxInputPowerPerPump
+  )
+    return null;
   const inBand = point.flow >= query.flowMin * (1 - 1e-9) && point.flow <= query.flowMax * (1 + 1e-9);
   const reasons: string[] = [];
   if (inBand) reasons.push('in the duty band');
   else reasons.push(point.flow < query.flowMin ? 'below the duty band' : 'above the duty band');
   if (point.region === 'preferred') reasons.push(`in the preferred operating region${percent(point.percentOfBep)}`);
-  else if (point.region === 'allowable') reasons.push(`outside POR, inside the maker's allowable region${percent(point.percentOfBep)}`);
+  else if (point.region === 'allowable')
+    reasons.push(`outside POR, inside the maker's allowable region${percent(point.percentOfBep)}`);
   else if (point.region === 'outside') reasons.push(`outside POR${percent(point.percentOfBep)}`);
   else reasons.push('no efficiency data: the BEP and the preferred region are unknown');
 
@@ -251,17 +286,34 @@ function rankCandidate(pump: CatalogPump, running: number, point: DutyPoint, que
     // the standby starts in the failed pump's place: the arrangement runs on at the same point
     oneFailed = point;
     oneFailedMeetsMinimum = point.flow >= query.flowMin * (1 - 1e-9);
-    reasons.push(oneFailedMeetsMinimum ? 'one failed: the standby takes over at the same point' : 'below the band minimum even with the standby');
+    reasons.push(
+      oneFailedMeetsMinimum
+        ? 'one failed: the standby takes over at the same point'
+        : 'below the band minimum even with the standby',
+    );
   } else if (running >= 2) {
-    const failed: DutyOutcome = dutyOfParallelPumps(pump, query.system, running - 1, query.band, query.density, query.motorEfficiency);
+    const failed: DutyOutcome = dutyOfParallelPumps(
+      pump,
+      query.system,
+      running - 1,
+      query.band,
+      query.density,
+      query.motorEfficiency,
+    );
     if (failed.ok) {
       oneFailed = failed.point;
       oneFailedMeetsMinimum = failed.point.flow >= query.flowMin * (1 - 1e-9);
-      reasons.push(oneFailedMeetsMinimum ? 'one failed: still at or above the band minimum' : 'below band with one failed');
+      reasons.push(
+        oneFailedMeetsMinimum ? 'one failed: still at or above the band minimum' : 'below band with one failed',
+      );
       if (failed.point.warnings.includes('run-out')) reasons.push('run-out with one failed');
     } else {
       oneFailedMeetsMinimum = false;
-      reasons.push(failed.reason === 'beyond-curve' ? 'run-out with one failed: the rest run past their curve' : 'with one failed the rest deliver nothing');
+      reasons.push(
+        failed.reason === 'beyond-curve'
+          ? 'run-out with one failed: the rest run past their curve'
+          : 'with one failed the rest deliver nothing',
+      );
     }
   } else if (query.requireOneFailed) {
     reasons.push('a single pump: no flow at all when it fails');
@@ -313,8 +365,10 @@ export function searchCatalog(state: CatalogState, query: SelectionQuery): Selec
       const low = Math.max(query.flowMin, running * flowMin[index]);
       const high = Math.min(query.flowMax, running * flowMax[index]);
       if (low > high) continue;
-      if (cubicAt(coefficients, offset, low / running) < (low === query.flowMin ? systemAtMin : table.head(low))) continue;
-      if (cubicAt(coefficients, offset, high / running) > (high === query.flowMax ? systemAtMax : table.head(high))) continue;
+      if (cubicAt(coefficients, offset, low / running) < (low === query.flowMin ? systemAtMin : table.head(low)))
+        continue;
+      if (cubicAt(coefficients, offset, high / running) > (high === query.flowMax ? systemAtMax : table.head(high)))
+        continue;
       const at = 4 * inBandCount;
       inBand[at] = index;
       inBand[at + 1] = running;
@@ -368,11 +422,20 @@ function tierBuffer(length: number): Uint8Array {
  * inside the preferred region too (the same sign test on the region's flows clipped to the
  * bracket), redundant by the one-failed sign test.
  */
-function tierInBand(packed: PackedCurves, index: number, running: number, low: number, high: number, query: SelectionQuery, table: BandSystemTable): number {
+function tierInBand(
+  packed: PackedCurves,
+  index: number,
+  running: number,
+  low: number,
+  high: number,
+  query: SelectionQuery,
+  table: BandSystemTable,
+): number {
   if (!redundancyMetBySignTest(packed, index, running, query, table)) return 1;
   const declaredMin = packed.declaredMin[index];
   const perPumpMin = declaredMin === declaredMin ? declaredMin : (packed.bepFlow[index] * query.band.minPercent) / 100;
-  const perPumpMax = declaredMin === declaredMin ? packed.declaredMax[index] : (packed.bepFlow[index] * query.band.maxPercent) / 100;
+  const perPumpMax =
+    declaredMin === declaredMin ? packed.declaredMax[index] : (packed.bepFlow[index] * query.band.maxPercent) / 100;
   const preferredLow = Math.max(low, running * perPumpMin);
   const preferredHigh = Math.min(high, running * perPumpMax);
   if (!(preferredLow <= preferredHigh)) return 1;
@@ -441,7 +504,14 @@ class TopPairs {
  * When too few pairs run in band: the `count` out-of-band pairs whose head at the band's middle
  * comes closest to the system's, solved on their whole published range.
  */
-function nearMisses(state: CatalogState, query: SelectionQuery, accepted: Uint8Array, count: number, ranking: TopPairs, table: BandSystemTable): void {
+function nearMisses(
+  state: CatalogState,
+  query: SelectionQuery,
+  accepted: Uint8Array,
+  count: number,
+  ranking: TopPairs,
+  table: BandSystemTable,
+): void {
   const packed = packedCurves(state);
   const { coefficients, flowMin, flowMax } = packed;
   const middle = (query.flowMin + query.flowMax) / 2;
@@ -467,12 +537,28 @@ function nearMisses(state: CatalogState, query: SelectionQuery, accepted: Uint8A
 const TIER_SPAN = 1e12;
 
 /** Redundancy as asked: none needed, a standby that takes over, or the rest reaching the band's minimum with one off. */
-function redundancyMetBySignTest(packed: PackedCurves, index: number, running: number, query: SelectionQuery, table: BandSystemTable): boolean {
-  return !query.requireOneFailed || query.standby || (running >= 2 && oneFailedReachesMinimum(packed, index, running, query, table));
+function redundancyMetBySignTest(
+  packed: PackedCurves,
+  index: number,
+  running: number,
+  query: SelectionQuery,
+  table: BandSystemTable,
+): boolean {
+  return (
+    !query.requireOneFailed ||
+    query.standby ||
+    (running >= 2 && oneFailedReachesMinimum(packed, index, running, query, table))
+  );
 }
 
 /** With one pump off, do the rest still reach the band's minimum? The sign test at Qmin with running - 1 pumps. */
-function oneFailedReachesMinimum(packed: PackedCurves, index: number, running: number, query: SelectionQuery, table: BandSystemTable): boolean {
+function oneFailedReachesMinimum(
+  packed: PackedCurves,
+  index: number,
+  running: number,
+  query: SelectionQuery,
+  table: BandSystemTable,
+): boolean {
   const remaining = running - 1;
   const low = Math.max(query.flowMin, remaining * packed.flowMin[index]);
   if (low > remaining * packed.flowMax[index]) return false;
@@ -486,7 +572,15 @@ function oneFailedReachesMinimum(packed: PackedCurves, index: number, running: n
  * dutyOfParallelPumps and the same power rule as powerAtOperatingPoint (fitted power, else water
  * power over fitted efficiency; motor efficiency applied unless the curve's power is electrical).
  */
-function screenPoint(packed: PackedCurves, index: number, running: number, flow: number, head: number, query: SelectionQuery, table: BandSystemTable): number | null {
+function screenPoint(
+  packed: PackedCurves,
+  index: number,
+  running: number,
+  flow: number,
+  head: number,
+  query: SelectionQuery,
+  table: BandSystemTable,
+): number | null {
   const flowPerPump = Math.min(Math.max(flow / running, packed.flowMin[index]), packed.flowMax[index]);
   const declaredMin = packed.declaredMin[index];
   const percentOfBep = (100 * flowPerPump) / packed.bepFlow[index];
@@ -506,12 +600,17 @@ function screenPoint(packed: PackedCurves, index: number, running: number, flow:
   if (query.maxInputPowerPerPump !== null && power > query.maxInputPowerPerPump) return null;
   const inBand = flow >= query.flowMin * (1 - 1e-9) && flow <= query.flowMax * (1 + 1e-9);
   const redundancyMet = redundancyMetBySignTest(packed, index, running, query, table);
-  const energy = power === power ? Math.min((power * running * query.hoursPerDay * 365) / 1000, TIER_SPAN - 1) : TIER_SPAN - 1;
+  const energy =
+    power === power ? Math.min((power * running * query.hoursPerDay * 365) / 1000, TIER_SPAN - 1) : TIER_SPAN - 1;
   return tierOf(inBand, preferred, redundancyMet) * TIER_SPAN + energy;
 }
 
 /** The combined curve of `running` pumps sampled at `count` flows over its published range, SI. */
-export function sampledCombinedCurve(pump: CatalogPump, running: number, count = 17): Array<{ flow: number; head: number }> {
+export function sampledCombinedCurve(
+  pump: CatalogPump,
+  running: number,
+  count = 17,
+): Array<{ flow: number; head: number }> {
   const { fit } = pump;
   return Array.from({ length: count }, (_, step) => {
     const perPump = fit.flowMin + ((fit.flowMax - fit.flowMin) * step) / (count - 1);

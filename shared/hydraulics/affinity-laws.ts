@@ -27,7 +27,12 @@ export interface PerformancePoint {
   power?: number;
 }
 
-function scalePoint(point: PerformancePoint, flowFactor: number, headFactor: number, powerFactor: number): PerformancePoint {
+function scalePoint(
+  point: PerformancePoint,
+  flowFactor: number,
+  headFactor: number,
+  powerFactor: number,
+): PerformancePoint {
   requireFinite(point.flow, '/flow', 'flow');
   requireFinite(point.head, '/head', 'head');
   const scaled: PerformancePoint = { flow: point.flow * flowFactor, head: point.head * headFactor };
@@ -60,7 +65,11 @@ export function scaleByImpellerTrim(point: PerformancePoint, diameterRatio: numb
  * A geometrically similar pump of another size and speed: Q ~ N D^3,
  * H ~ N^2 D^2, P ~ N^3 D^5 (same fluid). Not for trims of one impeller.
  */
-export function scaleByGeometricSimilarity(point: PerformancePoint, speedRatio: number, diameterRatio: number): PerformancePoint {
+export function scaleByGeometricSimilarity(
+  point: PerformancePoint,
+  speedRatio: number,
+  diameterRatio: number,
+): PerformancePoint {
   const n = requirePositive(speedRatio, '/speedRatio', 'speed ratio');
   const d = requirePositive(diameterRatio, '/diameterRatio', 'diameter ratio');
   return scalePoint(point, n * d ** 3, n * n * d * d, n ** 3 * d ** 5);
@@ -173,7 +182,10 @@ export function specificSpeedUS(speedRpm: number, flow: number, head: number): n
  * pump running at `speedRpm`; null when the fit has no BEP (see
  * PumpCurveFit.bepUnknownReason).
  */
-export function specificSpeedAtBep(fit: Pick<PumpCurveFit, 'bep'>, speedRpm: number): { metric: number; us: number } | null {
+export function specificSpeedAtBep(
+  fit: Pick<PumpCurveFit, 'bep'>,
+  speedRpm: number,
+): { metric: number; us: number } | null {
   if (!fit.bep) {
     return null;
   }

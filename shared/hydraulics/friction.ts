@@ -37,7 +37,12 @@ const HAZEN_WILLIAMS_SI_CONSTANT = 10.67;
  * Part 623 ch. 3 and most hydraulics texts. Valid for water at ~4-25 C in
  * turbulent flow; C per pipe material (see pipe-catalogue).
  */
-export function hazenWilliamsResistance(length: number, insideDiameter: number, hazenWilliamsC: number, field = ''): number {
+export function hazenWilliamsResistance(
+  length: number,
+  insideDiameter: number,
+  hazenWilliamsC: number,
+  field = '',
+): number {
   requireNonNegative(length, `${field}/length`, 'length');
   requirePositive(insideDiameter, `${field}/insideDiameter`, 'inside diameter');
   requirePositive(hazenWilliamsC, `${field}/hazenWilliamsC`, 'Hazen-Williams C');
@@ -61,7 +66,10 @@ export function headLossHazenWilliams(
   field = '',
 ): number {
   requireNonNegative(flow, `${field}/flow`, 'flow');
-  return hazenWilliamsResistance(length, insideDiameter, hazenWilliamsC, field) * Math.pow(flow, HAZEN_WILLIAMS_FLOW_EXPONENT);
+  return (
+    hazenWilliamsResistance(length, insideDiameter, hazenWilliamsC, field) *
+    Math.pow(flow, HAZEN_WILLIAMS_FLOW_EXPONENT)
+  );
 }
 
 /** Reynolds number Re = V D / nu (V in m/s, D in m, nu in m2/s). */
@@ -178,6 +186,10 @@ export function headLossDarcyWeisbach(
   }
   const area = (Math.PI * insideDiameter * insideDiameter) / 4;
   const velocity = flow / area;
-  const f = darcyFrictionFactor(reynoldsNumber(velocity, insideDiameter, kinematicViscosity), roughness / insideDiameter, method);
+  const f = darcyFrictionFactor(
+    reynoldsNumber(velocity, insideDiameter, kinematicViscosity),
+    roughness / insideDiameter,
+    method,
+  );
   return (f * length * velocity * velocity) / (insideDiameter * 2 * STANDARD_GRAVITY);
 }

@@ -12,14 +12,16 @@ import { qr, usolve } from 'mathjs';
  * C. F. Van Loan, Matrix Computations, 4th ed. (2013), section 5.3.
  * Needs at least as many points as powers, with distinct x.
  */
-export function leastSquaresPolynomial(xs: readonly number[], ys: readonly number[], powers: readonly number[]): number[] {
+export function leastSquaresPolynomial(
+  xs: readonly number[],
+  ys: readonly number[],
+  powers: readonly number[],
+): number[] {
   const scale = Math.max(...xs.map(Math.abs)) || 1;
   const design = xs.map((x) => powers.map((power) => Math.pow(x / scale, power)));
   const { Q, R } = qr(design) as unknown as { Q: number[][]; R: number[][] };
   const columns = powers.length;
-  const qty = Array.from({ length: columns }, (_, column) =>
-    ys.reduce((sum, y, row) => sum + Q[row][column] * y, 0),
-  );
+  const qty = Array.from({ length: columns }, (_, column) => ys.reduce((sum, y, row) => sum + Q[row][column] * y, 0));
   const upper = R.slice(0, columns).map((row) => row.slice(0, columns));
   const solution = usolve(upper, qty) as unknown as number[][];
   const coefficients = new Array<number>(Math.max(...powers) + 1).fill(0);

@@ -67,7 +67,11 @@ export interface NpshMargin {
 }
 
 /** Margin of NPSH available over NPSH required (both m), judged against `guidance`. */
-export function npshMargin(available: number, required: number, guidance: NpshGuidance = DEFAULT_NPSH_GUIDANCE): NpshMargin {
+export function npshMargin(
+  available: number,
+  required: number,
+  guidance: NpshGuidance = DEFAULT_NPSH_GUIDANCE,
+): NpshMargin {
   requireFinite(available, '/npshAvailable', 'NPSH available');
   requirePositive(required, '/npshRequired', 'NPSH required');
   const ratio = available / required;

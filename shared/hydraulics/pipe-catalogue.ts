@@ -58,25 +58,65 @@ export interface PipeSeries {
 
 /** IPS (iron pipe size) outside diameters, in, shared by ASTM D1785, D2241, D3035 and ASME B36.10M. */
 const IPS_OUTSIDE_DIAMETER: Readonly<Record<number, number>> = {
-  0.5: 0.84, 0.75: 1.05, 1: 1.315, 1.25: 1.66, 1.5: 1.9, 2: 2.375, 2.5: 2.875,
-  3: 3.5, 4: 4.5, 5: 5.563, 6: 6.625, 8: 8.625,
+  0.5: 0.84,
+  0.75: 1.05,
+  1: 1.315,
+  1.25: 1.66,
+  1.5: 1.9,
+  2: 2.375,
+  2.5: 2.875,
+  3: 3.5,
+  4: 4.5,
+  5: 5.563,
+  6: 6.625,
+  8: 8.625,
 };
 
 /** Schedule 40 minimum wall, in (ASTM D1785 Table 1 = ASME B36.10M Sch 40). */
 const SCHEDULE_40_WALL: Readonly<Record<number, number>> = {
-  0.5: 0.109, 0.75: 0.113, 1: 0.133, 1.25: 0.14, 1.5: 0.145, 2: 0.154, 2.5: 0.203,
-  3: 0.216, 4: 0.237, 5: 0.258, 6: 0.28, 8: 0.322,
+  0.5: 0.109,
+  0.75: 0.113,
+  1: 0.133,
+  1.25: 0.14,
+  1.5: 0.145,
+  2: 0.154,
+  2.5: 0.203,
+  3: 0.216,
+  4: 0.237,
+  5: 0.258,
+  6: 0.28,
+  8: 0.322,
 };
 
 /** Schedule 80 minimum wall, in (ASTM D1785 Table 1). */
 const SCHEDULE_80_WALL: Readonly<Record<number, number>> = {
-  0.5: 0.147, 0.75: 0.154, 1: 0.179, 1.25: 0.191, 1.5: 0.2, 2: 0.218, 2.5: 0.276,
-  3: 0.3, 4: 0.337, 5: 0.375, 6: 0.432, 8: 0.5,
+  0.5: 0.147,
+  0.75: 0.154,
+  1: 0.179,
+  1.25: 0.191,
+  1.5: 0.2,
+  2: 0.218,
+  2.5: 0.276,
+  3: 0.3,
+  4: 0.337,
+  5: 0.375,
+  6: 0.432,
+  8: 0.5,
 };
 
 const NOMINAL_LABELS: Readonly<Record<number, string>> = {
-  0.5: '1/2"', 0.75: '3/4"', 1: '1"', 1.25: '1-1/4"', 1.5: '1-1/2"', 2: '2"', 2.5: '2-1/2"',
-  3: '3"', 4: '4"', 5: '5"', 6: '6"', 8: '8"',
+  0.5: '1/2"',
+  0.75: '3/4"',
+  1: '1"',
+  1.25: '1-1/4"',
+  1.5: '1-1/2"',
+  2: '2"',
+  2.5: '2-1/2"',
+  3: '3"',
+  4: '4"',
+  5: '5"',
+  6: '6"',
+  8: '8"',
 };
 
 interface SeriesDefinition {
@@ -171,7 +211,7 @@ const SERIES_DEFINITIONS: readonly SeriesDefinition[] = [
     label: 'Flexible PVC hose (by nominal bore)',
     material: 'flexible-pvc',
     source:
-      'Trade convention: flexible hose is sold by its bore, taken as the inside diameter; no dimensional standard fixes it, so check the maker\'s bore',
+      "Trade convention: flexible hose is sold by its bore, taken as the inside diameter; no dimensional standard fixes it, so check the maker's bore",
     nominalSizes: ALL_NOMINAL.filter((n) => n <= 4),
     dimensionsInInches: (nominal) => ({ outside: null, inside: nominal }),
   },

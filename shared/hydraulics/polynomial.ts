@@ -49,7 +49,10 @@ export function totalRiseOver(coefficients: readonly number[], lo: number, hi: n
   const breaks = [lo, ...rootsOfAtMostQuadraticIn(polynomialDerivative(coefficients), lo, hi), hi];
   let rise = 0;
   for (let index = 1; index < breaks.length; index += 1) {
-    rise += Math.max(0, polynomialValue(coefficients, breaks[index]) - polynomialValue(coefficients, breaks[index - 1]));
+    rise += Math.max(
+      0,
+      polynomialValue(coefficients, breaks[index]) - polynomialValue(coefficients, breaks[index - 1]),
+    );
   }
   return rise;
 }
@@ -88,6 +91,10 @@ export function polynomialShifted(coefficients: readonly number[], shift: number
  * Coefficients of v p(x / a), i.e. coefficient k multiplied by v / a^k:
  * the stretch of a curve by `argumentFactor` along x and `valueFactor` in value.
  */
-export function polynomialScaled(coefficients: readonly number[], valueFactor: number, argumentFactor: number): number[] {
+export function polynomialScaled(
+  coefficients: readonly number[],
+  valueFactor: number,
+  argumentFactor: number,
+): number[] {
   return coefficients.map((coefficient, power) => (coefficient * valueFactor) / Math.pow(argumentFactor, power));
 }

@@ -66,7 +66,10 @@ export function solveParallelIdentical(
   requireCount(installed, '/installed', 1);
   requireCount(running, '/running', 1);
   if (running > installed) {
-    throw new HydraulicsInputError('/running', `running pumps (${running}) cannot exceed installed pumps (${installed})`);
+    throw new HydraulicsInputError(
+      '/running',
+      `running pumps (${running}) cannot exceed installed pumps (${installed})`,
+    );
   }
   const point = solveOperatingPoint(parallelHeadCurve(pump, running), system);
   if (!point.ok) {

@@ -1,4 +1,10 @@
-import { HydraulicsInputError, requireFinite, requireInRange, requireNonNegative, requirePositive } from './hydraulics-error';
+import {
+  HydraulicsInputError,
+  requireFinite,
+  requireInRange,
+  requireNonNegative,
+  requirePositive,
+} from './hydraulics-error';
 import { leastSquaresPolynomial } from './least-squares';
 import { STANDARD_GRAVITY } from './physical-constants';
 import { maximumOver, polynomialShifted, polynomialValue, totalRiseOver } from './polynomial';
@@ -91,7 +97,10 @@ const POINT_LIMITS = Object.freeze({ flow: 100, head: 1e4, power: 1e9 });
 
 function validatePoints(points: readonly PumpCurvePoint[]): void {
   if (!Array.isArray(points) || points.length < 3) {
-    throw new HydraulicsInputError('/points', `a pump curve needs at least three points, got ${Array.isArray(points) ? points.length : 0}`);
+    throw new HydraulicsInputError(
+      '/points',
+      `a pump curve needs at least three points, got ${Array.isArray(points) ? points.length : 0}`,
+    );
   }
   points.forEach((point, index) => {
     const field = `/points/${index}`;
@@ -110,7 +119,10 @@ function validatePoints(points: readonly PumpCurvePoint[]): void {
     if (index > 0) {
       const previous = points[index - 1];
       if (!(point.flow > previous.flow)) {
-        throw new HydraulicsInputError(`${field}/flow`, `flows must be strictly increasing: ${point.flow} follows ${previous.flow}`);
+        throw new HydraulicsInputError(
+          `${field}/flow`,
+          `flows must be strictly increasing: ${point.flow} follows ${previous.flow}`,
+        );
       }
       if (point.head > previous.head) {
         throw new HydraulicsInputError(
@@ -179,11 +191,18 @@ function fitNonIncreasingHead(
   const fit = (option: HeadCandidate) => {
     const origin = option.origin === 'first' ? first : last;
     const headCoefficients = polynomialShifted(
-      leastSquaresPolynomial(flows.map((flow) => flow - origin), heads, option.powers),
+      leastSquaresPolynomial(
+        flows.map((flow) => flow - origin),
+        heads,
+        option.powers,
+      ),
       origin,
     );
     const rises = totalRiseOver(headCoefficients, first, last) > tolerance;
-    const squares = flows.reduce((sum, flow, index) => sum + (heads[index] - polynomialValue(headCoefficients, flow)) ** 2, 0);
+    const squares = flows.reduce(
+      (sum, flow, index) => sum + (heads[index] - polynomialValue(headCoefficients, flow)) ** 2,
+      0,
+    );
     return { option, headCoefficients, rises, squares };
   };
 
@@ -255,10 +274,16 @@ function locateBep(
   const best = maximumOver(efficiencyCoefficients, flowMin, flowMax);
   const span = flowMax - flowMin;
   if (best.x >= flowMax - 1e-9 * span) {
-    return { bep: null, bepUnknownReason: 'efficiency still rises at the last curve point: the BEP lies beyond the published data' };
+    return {
+      bep: null,
+      bepUnknownReason: 'efficiency still rises at the last curve point: the BEP lies beyond the published data',
+    };
   }
   if (best.x <= flowMin + 1e-9 * span && flowMin > 0) {
-    return { bep: null, bepUnknownReason: 'efficiency falls from the first curve point: the BEP lies before the published data' };
+    return {
+      bep: null,
+      bepUnknownReason: 'efficiency falls from the first curve point: the BEP lies before the published data',
+    };
   }
   return {
     bep: { flow: best.x, head: polynomialValue(headCoefficients, best.x), efficiency: best.value },
@@ -314,10 +339,16 @@ export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCur
   };
 
   const efficiencies = pointEfficiencies(points);
-  const efficiencyCoefficients = efficiencies ? leastSquaresPolynomial(flows, efficiencies, powersUpTo(degree, 1)) : null;
+  const efficiencyCoefficients = efficiencies
+    ? leastSquaresPolynomial(flows, efficiencies, powersUpTo(degree, 1))
+    : null;
   const powerCoefficients =
     points[0].power !== undefined
-      ? leastSquaresPolynomial(flows, points.map((point) => point.power as number), powersUpTo(degree, 0))
+      ? leastSquaresPolynomial(
+          flows,
+          points.map((point) => point.power as number),
+          powersUpTo(degree, 0),
+        )
       : null;
   const npshPoints = points.filter((point) => point.npshRequired !== undefined);
   if (npshPoints.length > 0 && npshPoints.length < 3) {
@@ -342,7 +373,10 @@ export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCur
     requireNonNegative(aorMin, '/allowableRegion/flowMin', 'allowable region minimum flow');
     requirePositive(aorMax, '/allowableRegion/flowMax', 'allowable region maximum flow');
     if (!(aorMax > aorMin)) {
-      throw new HydraulicsInputError('/allowableRegion/flowMax', 'allowable region maximum flow must exceed its minimum');
+      throw new HydraulicsInputError(
+        '/allowableRegion/flowMax',
+        'allowable region maximum flow must exceed its minimum',
+      );
     }
     allowableRegion = { flowMin: aorMin, flowMax: aorMax };
   }

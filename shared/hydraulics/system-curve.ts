@@ -199,12 +199,17 @@ function resolveSegment(segment: PipeSegmentInput, index: number, method: Fricti
     throw new HydraulicsInputError(`${field}/roughness`, 'give roughness, a material or a pipeSizeId');
   }
   let totalK =
-    segment.extraK === undefined ? 0 : requireInRange(segment.extraK, 0, SYSTEM_INPUT_LIMITS.maxK, `${field}/extraK`, 'extra K');
+    segment.extraK === undefined
+      ? 0
+      : requireInRange(segment.extraK, 0, SYSTEM_INPUT_LIMITS.maxK, `${field}/extraK`, 'extra K');
   (segment.fittings ?? []).forEach((fitting, fittingIndex) => {
     const fittingField = `${field}/fittings/${fittingIndex}`;
     requireInRange(fitting.count, 0, 1000, `${fittingField}/count`, 'fitting count');
     if (!Number.isInteger(fitting.count)) {
-      throw new HydraulicsInputError(`${fittingField}/count`, `fitting count must be a whole number, got ${fitting.count}`);
+      throw new HydraulicsInputError(
+        `${fittingField}/count`,
+        `fitting count must be a whole number, got ${fitting.count}`,
+      );
     }
     totalK += fitting.count * fittingK(fitting.kind, insideDiameter, `${fittingField}/kind`);
   });
@@ -303,11 +308,12 @@ function darcyFrictionWithSlope(table: DarcySegmentTable, flow: number, out: Flo
     const t2 = t * t;
     const t3 = t2 * t;
     f = (2 * t3 - 3 * t2 + 1) * f0 + (t3 - 2 * t2 + t) * m0 + (-2 * t3 + 3 * t2) * f1 + (t3 - t2) * m1;
-    dfdu = ((6 * t2 - 6 * t) * f0 + (3 * t2 - 4 * t + 1) * m0 + (-6 * t2 + 6 * t) * f1 + (3 * t2 - 2 * t) * m1) / TABLE_STEP;
+    dfdu =
+      ((6 * t2 - 6 * t) * f0 + (3 * t2 - 4 * t + 1) * m0 + (-6 * t2 + 6 * t) * f1 + (3 * t2 - 2 * t) * m1) / TABLE_STEP;
   }
   const q2c = table.coefficient * flow * flow;
   out[0] = q2c * f;
-  out[1] = (table.coefficient * flow) * (2 * f + dfdu);
+  out[1] = table.coefficient * flow * (2 * f + dfdu);
 }
 
 function checkFlow(flow: number): void {
@@ -360,7 +366,8 @@ export function compileSystemCurve(input: SystemCurveInput): CompiledSystemCurve
   if (input.frictionMethod === 'hazen-williams') {
     const a = segments.reduce(
       (sum, segment, index) =>
-        sum + hazenWilliamsResistance(segment.length, segment.insideDiameter, segment.hazenWilliamsC, `/segments/${index}`),
+        sum +
+        hazenWilliamsResistance(segment.length, segment.insideDiameter, segment.hazenWilliamsC, `/segments/${index}`),
       0,
     );
     const b = minorCoefficient;
@@ -435,7 +442,13 @@ export function systemBreakdown(system: CompiledSystemCurve, flow: number): Syst
     const frictionHead = isHazenWilliams
       ? hazenWilliamsResistance(segment.length, segment.insideDiameter, segment.hazenWilliamsC) *
         Math.pow(flow, HAZEN_WILLIAMS_FLOW_EXPONENT)
-      : headLossDarcyWeisbach(segment.length, flow, segment.insideDiameter, segment.roughness, system.kinematicViscosity);
+      : headLossDarcyWeisbach(
+          segment.length,
+          flow,
+          segment.insideDiameter,
+          segment.roughness,
+          system.kinematicViscosity,
+        );
     if (velocity > VELOCITY_WARNING_LIMIT) {
       warnings.push(
         `segment ${index}: velocity ${velocity.toFixed(2)} m/s exceeds 1.52 m/s (5 ft/s), the common-practice limit for plastic pipe`,

@@ -31,10 +31,7 @@ export type DiameterUnit = (typeof DIAMETER_UNITS)[number];
 export type PressureUnit = (typeof PRESSURE_UNITS)[number];
 export type PowerUnit = (typeof POWER_UNITS)[number];
 
-function factorsToSI<U extends string>(
-  mathjsNames: Record<U, string>,
-  siName: string,
-): Readonly<Record<U, number>> {
+function factorsToSI<U extends string>(mathjsNames: Record<U, string>, siName: string): Readonly<Record<U, number>> {
   const factors = {} as Record<U, number>;
   for (const key of Object.keys(mathjsNames) as U[]) {
     factors[key] = unit(1, mathjsNames[key]).toNumber(siName);
@@ -81,9 +78,15 @@ function conversion<U extends string>(
     }
     return factors[unitName as U];
   };
-  const toSI = (value: number, unitName: U, field = defaultField) => requireFinite(value, field, quantity) * factorFor(unitName, field);
-  const fromSI = (value: number, unitName: U, field = defaultField) => requireFinite(value, field, quantity) / factorFor(unitName, field);
-  return { toSI, fromSI, between: (value, from, to, field = defaultField) => fromSI(toSI(value, from, field), to, field) };
+  const toSI = (value: number, unitName: U, field = defaultField) =>
+    requireFinite(value, field, quantity) * factorFor(unitName, field);
+  const fromSI = (value: number, unitName: U, field = defaultField) =>
+    requireFinite(value, field, quantity) / factorFor(unitName, field);
+  return {
+    toSI,
+    fromSI,
+    between: (value, from, to, field = defaultField) => fromSI(toSI(value, from, field), to, field),
+  };
 }
 
 const FLOW = conversion(FLOW_FACTORS, FLOW_UNITS, 'flow', '/flowUnit');
@@ -130,7 +133,12 @@ export const powerFromSI = POWER.fromSI;
  * @param density water density, kg/m3 (see water-properties)
  * @returns head, m
  */
-export function pressureToHead(value: number, unitName: PressureUnit, density: number, field = '/pressureUnit'): number {
+export function pressureToHead(
+  value: number,
+  unitName: PressureUnit,
+  density: number,
+  field = '/pressureUnit',
+): number {
   requirePositive(density, '/density', 'density');
   return pressureToSI(value, unitName, field) / (density * STANDARD_GRAVITY);
 }

@@ -31,8 +31,7 @@ export function waterDensity(temperature: number, field = '/temperature'): numbe
   checkTemperature(temperature, field);
   const t = temperature;
   const numerator =
-    999.83952 +
-    t * (16.945176 + t * (-7.9870401e-3 + t * (-46.170461e-6 + t * (105.56302e-9 + t * -280.54253e-12))));
+    999.83952 + t * (16.945176 + t * (-7.9870401e-3 + t * (-46.170461e-6 + t * (105.56302e-9 + t * -280.54253e-12))));
   return numerator / (1 + 16.87985e-3 * t);
 }
 

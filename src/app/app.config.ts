@@ -13,6 +13,9 @@ export const appConfig: ApplicationConfig = {
     provideRouter(appRoutes, withComponentInputBinding()),
     provideHttpClient(withInterceptors([authTokenInterceptor, problemDetailsInterceptor])),
     // hints and errors take the lines they need instead of being cut to one
-    { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { subscriptSizing: 'dynamic' } satisfies MatFormFieldDefaultOptions },
+    {
+      provide: MAT_FORM_FIELD_DEFAULT_OPTIONS,
+      useValue: { subscriptSizing: 'dynamic' } satisfies MatFormFieldDefaultOptions,
+    },
   ],
 };

@@ -3,12 +3,31 @@ import { roleGuard } from './core/role-guard';
 import { signedInGuard } from './core/signed-in-guard';
 
 export const appRoutes: Routes = [
-  { path: '', pathMatch: 'full', title: 'Riffle', loadComponent: () => import('./home/home-page').then((m) => m.HomePage) },
+  {
+    path: '',
+    pathMatch: 'full',
+    title: 'Riffle',
+    loadComponent: () => import('./home/home-page').then((m) => m.HomePage),
+  },
   { path: 'accounts', loadChildren: () => import('./accounts/accounts.routes').then((m) => m.accountsRoutes) },
-  { path: 'account', title: 'Your account - Riffle', canActivate: [signedInGuard], loadComponent: () => import('./accounts/account-page').then((m) => m.AccountPage) },
-  { path: 'admin', canActivate: [roleGuard], data: { roles: ['admin'] }, loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
+  {
+    path: 'account',
+    title: 'Your account - Riffle',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./accounts/account-page').then((m) => m.AccountPage),
+  },
+  {
+    path: 'admin',
+    canActivate: [roleGuard],
+    data: { roles: ['admin'] },
+    loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes),
+  },
   { path: 'design', loadChildren: () => import('./selection/design.routes').then((m) => m.designRoutes) },
-  { path: 'catalog', canActivate: [signedInGuard], loadChildren: () => import('./catalog/catalog.routes').then((m) => m.catalogRoutes) },
+  {
+    path: 'catalog',
+    canActivate: [signedInGuard],
+    loadChildren: () => import('./catalog/catalog.routes').then((m) => m.catalogRoutes),
+  },
   {
     path: 'curve-imports',
     title: 'Load curve tables - Riffle',

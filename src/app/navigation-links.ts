@@ -13,7 +13,12 @@ export const navigationLinks: readonly NavigationLink[] = [
   { label: 'Overview', icon: 'water', path: '/' },
   { label: 'API reference', icon: 'integration_instructions', path: '/api/docs', external: true },
   { label: 'Design', icon: 'tune', path: '/design', roles: ['designer', 'admin', 'integrator'] },
-  { label: 'Catalog', icon: 'inventory_2', path: '/catalog', roles: ['admin', 'supplier-admin', 'designer', 'integrator'] },
+  {
+    label: 'Catalog',
+    icon: 'inventory_2',
+    path: '/catalog',
+    roles: ['admin', 'supplier-admin', 'designer', 'integrator'],
+  },
   { label: 'Curve tables', icon: 'upload_file', path: '/curve-imports', roles: ['supplier-admin', 'admin'] },
   { label: 'Users', icon: 'group', path: '/admin/users', roles: ['admin'] },
   { label: 'Audit log', icon: 'policy', path: '/admin/audit-log', roles: ['admin'] },

@@ -63,7 +63,9 @@ function percentile(sorted: number[], share: number): number {
 async function measure(options: AutocannonOptions): Promise<Measured> {
   const latencies: number[] = [];
   const instance = autocannon({ connections: CONNECTIONS, duration: DURATION_S, ...options });
-  instance.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) => latencies.push(responseTime));
+  instance.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) =>
+    latencies.push(responseTime),
+  );
   const result = await instance;
   latencies.sort((a, b) => a - b);
   return {
@@ -90,7 +92,16 @@ function selectionBody(staticHead: number): string {
     system: {
       staticHead,
       frictionMethod: 'hazen-williams',
-      segments: [{ length: 240, pipe: 'pvc-sch40-3', fittings: [{ kind: 'elbow-90-standard', count: 4 }, { kind: 'exit', count: 1 }] }],
+      segments: [
+        {
+          length: 240,
+          pipe: 'pvc-sch40-3',
+          fittings: [
+            { kind: 'elbow-90-standard', count: 4 },
+            { kind: 'exit', count: 1 },
+          ],
+        },
+      ],
     },
     duty: { flowMin: 90, flowMax: 130 },
     arrangements: [1, 2, 3],
@@ -117,11 +128,19 @@ async function serve(databasePort: number): Promise<void> {
 
 function startServerProcess(databasePort: number): Promise<{ child: ChildProcess; url: string }> {
   // RIFFLE_BENCH_PROFILE=<folder> writes a CPU profile of the server there.
-  const profile = process.env.RIFFLE_BENCH_PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${process.env.RIFFLE_BENCH_PROFILE}`] : [];
-  const child = spawn(process.execPath, [...profile, '--import', 'tsx', fileURLToPath(import.meta.url), '--serve', String(databasePort)], { stdio: ['ignore', 'pipe', 'inherit'] });
+  const profile = process.env.RIFFLE_BENCH_PROFILE
+    ? ['--cpu-prof', `--cpu-prof-dir=${process.env.RIFFLE_BENCH_PROFILE}`]
+    : [];
+  const child = spawn(
+    process.execPath,
+    [...profile, '--import', 'tsx', fileURLToPath(import.meta.url), '--serve', String(databasePort)],
+    { stdio: ['ignore', 'pipe', 'inherit'] },
+  );
   return new Promise((resolve, reject) => {
     child.once('exit', (code) => reject(new Error(`the benchmark server stopped with code ${code}`)));
-    child.stdout!.once('data', (chunk: Buffer) => resolve({ child, url: `http://127.0.0.1:${chunk.toString().trim()}` }));
+    child.stdout!.once('data', (chunk: Buffer) =>
+      resolve({ child, url: `http://127.0.0.1:${chunk.toString().trim()}` }),
+    );
   });
 }
 
@@ -157,15 +176,23 @@ async function main(): Promise<void> {
       url: `${url}/api/v1/selections`,
       method: 'POST',
       headers,
-      requests: [{ setupRequest: (request) => ({ ...request, body: selectionBody(staticHeads[next++ % staticHeads.length]) }) }],
+      requests: [
+        { setupRequest: (request) => ({ ...request, body: selectionBody(staticHeads[next++ % staticHeads.length]) }) },
+      ],
     });
 
-    console.log(`\n${CONNECTIONS} connections, ${DURATION_S} s each, loopback, ${PUMP_COUNT} pumps x 3 arrangements per search`);
+    console.log(
+      `\n${CONNECTIONS} connections, ${DURATION_S} s each, loopback, ${PUMP_COUNT} pumps x 3 arrangements per search`,
+    );
     report('GET /api/v1/health', health);
     report('GET /api/v1/fittings (token)', guarded);
     report('POST /api/v1/selections', selections);
-    console.log(`selections / health requests per second: ${(selections.requestsPerSecond / health.requestsPerSecond).toFixed(3)}`);
-    console.log(`selections / fittings (same guard) requests per second: ${(selections.requestsPerSecond / guarded.requestsPerSecond).toFixed(3)}`);
+    console.log(
+      `selections / health requests per second: ${(selections.requestsPerSecond / health.requestsPerSecond).toFixed(3)}`,
+    );
+    console.log(
+      `selections / fittings (same guard) requests per second: ${(selections.requestsPerSecond / guarded.requestsPerSecond).toFixed(3)}`,
+    );
     console.log(`target p95 < 150 ms: ${selections.p95 < 150 ? 'met' : 'not met'} (${selections.p95.toFixed(1)} ms)`);
   } finally {
     if (server && server.exitCode === null) {

@@ -33,7 +33,12 @@ async function freshDatabase(database: PrivateMariaDb, name: string): Promise<Se
 }
 
 /** Multi-row INSERTs of already prepared rows, in one transaction. */
-async function bareInsert(sequelize: Sequelize, table: string, rows: Record<string, unknown>[], transaction: Transaction): Promise<void> {
+async function bareInsert(
+  sequelize: Sequelize,
+  table: string,
+  rows: Record<string, unknown>[],
+  transaction: Transaction,
+): Promise<void> {
   for (let start = 0; start < rows.length; start += ROWS_PER_INSERT) {
     await sequelize.getQueryInterface().bulkInsert(table, rows.slice(start, start + ROWS_PER_INSERT), { transaction });
   }
@@ -58,18 +63,27 @@ async function main(): Promise<void> {
       actor: { userId: null, label: 'benchmark', channel: 'command' },
     });
     const importSeconds = (performance.now() - started) / 1000;
-    if (report.errors.length > 0 || report.counts.new !== PUMPS) throw new Error(`the benchmark file did not import: ${JSON.stringify(report.errors[0])}`);
+    if (report.errors.length > 0 || report.counts.new !== PUMPS)
+      throw new Error(`the benchmark file did not import: ${JSON.stringify(report.errors[0])}`);
 
     // The same rows as the import wrote, read back, for the bare insert.
-    const pumps = await importing.query<Record<string, unknown>>('SELECT id, supplier_id, model_code, display_name, kind, status, created_at, updated_at FROM pumps', { type: QueryTypes.SELECT });
+    const pumps = await importing.query<Record<string, unknown>>(
+      'SELECT id, supplier_id, model_code, display_name, kind, status, created_at, updated_at FROM pumps',
+      { type: QueryTypes.SELECT },
+    );
     const revisions = await importing.query<Record<string, unknown>>(
       `SELECT r.id, r.pump_id, r.number, r.import_id, r.source_file_name, r.source_checksum, r.content_hash, r.file_units, r.point_count,
               r.flow_min_m3s, r.flow_max_m3s, r.head_min_m, r.head_max_m, r.bep_flow_m3s, r.bep_head_m, r.bep_efficiency, r.fit, r.created_at
          FROM curve_revisions r`,
       { type: QueryTypes.SELECT },
     );
-    const points = await importing.query<Record<string, unknown>>('SELECT revision_id, position, flow_m3s, head_m, power_w, efficiency, npsh_required_m FROM curve_points', { type: QueryTypes.SELECT });
-    const [importRecord] = await importing.query<Record<string, unknown>>('SELECT * FROM curve_imports', { type: QueryTypes.SELECT });
+    const points = await importing.query<Record<string, unknown>>(
+      'SELECT revision_id, position, flow_m3s, head_m, power_w, efficiency, npsh_required_m FROM curve_points',
+      { type: QueryTypes.SELECT },
+    );
+    const [importRecord] = await importing.query<Record<string, unknown>>('SELECT * FROM curve_imports', {
+      type: QueryTypes.SELECT,
+    });
     await importing.close();
     for (const revision of revisions) {
       revision.fit = JSON.stringify(revision.fit);
@@ -91,9 +105,15 @@ async function main(): Promise<void> {
     await bare.close();
 
     const pointRows = PUMPS * POINTS;
-    console.log(`curve import: ${PUMPS} pumps x ${POINTS} points = ${pointRows} rows, ${(bytes.length / 1024).toFixed(0)} KiB`);
-    console.log(`  import (read, check, fit, compare, commit): ${importSeconds.toFixed(2)} s, ${Math.round(pointRows / importSeconds)} rows/s (target under 10 s)`);
-    console.log(`  bare bulk insert of the same rows:          ${bareSeconds.toFixed(2)} s, ${Math.round(pointRows / bareSeconds)} rows/s`);
+    console.log(
+      `curve import: ${PUMPS} pumps x ${POINTS} points = ${pointRows} rows, ${(bytes.length / 1024).toFixed(0)} KiB`,
+    );
+    console.log(
+      `  import (read, check, fit, compare, commit): ${importSeconds.toFixed(2)} s, ${Math.round(pointRows / importSeconds)} rows/s (target under 10 s)`,
+    );
+    console.log(
+      `  bare bulk insert of the same rows:          ${bareSeconds.toFixed(2)} s, ${Math.round(pointRows / bareSeconds)} rows/s`,
+    );
     console.log(`  ratio import / bare insert: ${(importSeconds / bareSeconds).toFixed(1)}`);
   } finally {
     await database.stop();

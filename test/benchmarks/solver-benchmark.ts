@@ -53,7 +53,12 @@ interface Outcome {
 }
 
 /** The selection search's per-pump work with Riffle's solver. */
-function searchWithSolver(fits: readonly PumpCurveFit[], system: CompiledSystemCurve, density: number, out: Float64Array): number {
+function searchWithSolver(
+  fits: readonly PumpCurveFit[],
+  system: CompiledSystemCurve,
+  density: number,
+  out: Float64Array,
+): number {
   let checksum = 0;
   for (let index = 0; index < fits.length; index += 1) {
     const fit = fits[index];
@@ -79,13 +84,21 @@ function horner(coefficients: readonly number[], x: number): number {
 }
 
 /** Baseline: the same work with plain bisection to the same tolerance (1e-12 of the curve's last flow). */
-function searchWithBisection(fits: readonly PumpCurveFit[], system: CompiledSystemCurve, density: number, out: Float64Array): number {
+function searchWithBisection(
+  fits: readonly PumpCurveFit[],
+  system: CompiledSystemCurve,
+  density: number,
+  out: Float64Array,
+): number {
   let checksum = 0;
   for (let index = 0; index < fits.length; index += 1) {
     const fit = fits[index];
     let lo = fit.flowMin;
     let hi = fit.flowMax;
-    if (horner(fit.headCoefficients, lo) < system.evaluate(lo) || horner(fit.headCoefficients, hi) > system.evaluate(hi)) {
+    if (
+      horner(fit.headCoefficients, lo) < system.evaluate(lo) ||
+      horner(fit.headCoefficients, hi) > system.evaluate(hi)
+    ) {
       out[index] = -1;
       continue;
     }
@@ -109,7 +122,12 @@ function searchWithBisection(fits: readonly PumpCurveFit[], system: CompiledSyst
 
 type Search = typeof searchWithSolver;
 
-function measure(search: Search, fits: readonly PumpCurveFit[], system: CompiledSystemCurve, density: number): { medianMs: number; bestMs: number; outcome: Outcome } {
+function measure(
+  search: Search,
+  fits: readonly PumpCurveFit[],
+  system: CompiledSystemCurve,
+  density: number,
+): { medianMs: number; bestMs: number; outcome: Outcome } {
   const flows = new Float64Array(fits.length);
   let checksum = 0;
   for (let round = 0; round < WARM_UP_ROUNDS; round += 1) {
@@ -130,9 +148,31 @@ const POND_SYSTEM: Omit<SystemCurveInput, 'frictionMethod'> = {
   outletPressureHead: 0.3,
   temperature: 15,
   segments: [
-    { length: 2, pipeSizeId: 'pvc-flex-2', fittings: [{ kind: 'entrance-sharp', count: 1 }, { kind: 'check-valve-swing', count: 1 }] },
-    { length: 30, pipeSizeId: 'pvc-sch40-2', fittings: [{ kind: 'elbow-90-standard', count: 4 }, { kind: 'valve-ball', count: 1 }] },
-    { length: 6, pipeSizeId: 'pvc-sch40-1.5', fittings: [{ kind: 'tee-branch', count: 1 }, { kind: 'exit', count: 1 }], extraK: 2 },
+    {
+      length: 2,
+      pipeSizeId: 'pvc-flex-2',
+      fittings: [
+        { kind: 'entrance-sharp', count: 1 },
+        { kind: 'check-valve-swing', count: 1 },
+      ],
+    },
+    {
+      length: 30,
+      pipeSizeId: 'pvc-sch40-2',
+      fittings: [
+        { kind: 'elbow-90-standard', count: 4 },
+        { kind: 'valve-ball', count: 1 },
+      ],
+    },
+    {
+      length: 6,
+      pipeSizeId: 'pvc-sch40-1.5',
+      fittings: [
+        { kind: 'tee-branch', count: 1 },
+        { kind: 'exit', count: 1 },
+      ],
+      extraK: 2,
+    },
   ],
 };
 
@@ -145,19 +185,38 @@ function report(label: string, system: CompiledSystemCurve, fits: readonly PumpC
   for (let index = 0; index < fits.length; index += 1) {
     if (solver.outcome.flows[index] >= 0) {
       found += 1;
-      largestDifference = Math.max(largestDifference, Math.abs(solver.outcome.flows[index] - bisection.outcome.flows[index]) / fits[index].flowMax);
+      largestDifference = Math.max(
+        largestDifference,
+        Math.abs(solver.outcome.flows[index] - bisection.outcome.flows[index]) / fits[index].flowMax,
+      );
     }
   }
   console.log(`\n${label}`);
   console.log(`  pumps with an operating point: ${found} of ${fits.length}`);
-  console.log(`  solver:    ${solver.medianMs.toFixed(2)} ms median (best ${solver.bestMs.toFixed(2)} ms), ${((solver.medianMs * 1e6) / fits.length).toFixed(0)} ns per pump`);
-  console.log(`  bisection: ${bisection.medianMs.toFixed(2)} ms median (best ${bisection.bestMs.toFixed(2)} ms), ${((bisection.medianMs * 1e6) / fits.length).toFixed(0)} ns per pump`);
+  console.log(
+    `  solver:    ${solver.medianMs.toFixed(2)} ms median (best ${solver.bestMs.toFixed(2)} ms), ${((solver.medianMs * 1e6) / fits.length).toFixed(0)} ns per pump`,
+  );
+  console.log(
+    `  bisection: ${bisection.medianMs.toFixed(2)} ms median (best ${bisection.bestMs.toFixed(2)} ms), ${((bisection.medianMs * 1e6) / fits.length).toFixed(0)} ns per pump`,
+  );
   console.log(`  bisection / solver time: ${(bisection.medianMs / solver.medianMs).toFixed(2)}x`);
-  console.log(`  largest flow difference between the two, relative to the curve's range: ${largestDifference.toExponential(1)}`);
+  console.log(
+    `  largest flow difference between the two, relative to the curve's range: ${largestDifference.toExponential(1)}`,
+  );
 }
 
 const fits = syntheticStoredFits(PUMP_COUNT);
-console.log(`Riffle solver benchmark: ${PUMP_COUNT} stored fits, ${WARM_UP_ROUNDS} warm-up and ${MEASURED_ROUNDS} measured rounds, single thread`);
+console.log(
+  `Riffle solver benchmark: ${PUMP_COUNT} stored fits, ${WARM_UP_ROUNDS} warm-up and ${MEASURED_ROUNDS} measured rounds, single thread`,
+);
 console.log('Per pump: operating point, preferred-band class, input power and annual energy.');
-report('System with Hazen-Williams friction (3 segments, 12 fittings)', compileSystemCurve({ ...POND_SYSTEM, frictionMethod: 'hazen-williams' }), fits);
-report('System with Darcy-Weisbach friction (precomputed Colebrook table)', compileSystemCurve({ ...POND_SYSTEM, frictionMethod: 'darcy-weisbach' }), fits);
+report(
+  'System with Hazen-Williams friction (3 segments, 12 fittings)',
+  compileSystemCurve({ ...POND_SYSTEM, frictionMethod: 'hazen-williams' }),
+  fits,
+);
+report(
+  'System with Darcy-Weisbach friction (precomputed Colebrook table)',
+  compileSystemCurve({ ...POND_SYSTEM, frictionMethod: 'darcy-weisbach' }),
+  fits,
+);

@@ -33,7 +33,12 @@ describe('a supplier admin loads a curve table in Chromium', function () {
 
   before(async () => {
     const [alderbrook] = await seedDemoCatalog(app.sequelize);
-    ({ user: { email } } = await createUserWithSession(app.sequelize, 'supplier-admin', { supplierId: alderbrook.id, name: 'Browser Supplier Admin' }));
+    ({
+      user: { email },
+    } = await createUserWithSession(app.sequelize, 'supplier-admin', {
+      supplierId: alderbrook.id,
+      name: 'Browser Supplier Admin',
+    }));
     writeFileSync(file, fileWithWarning);
   });
 
@@ -61,7 +66,10 @@ describe('a supplier admin loads a curve table in Chromium', function () {
     expect(await row.innerText()).to.contain('New pump');
     expect(await row.locator('.rf-pump-warnings').innerText()).to.match(/Row 8, column head: head rises by 1\.3 %/);
     expect(await row.locator('rf-pump-curve-chart svg circle').count()).to.equal(6);
-    const [stored] = await app.sequelize.query<{ n: number }>("SELECT COUNT(*) AS n FROM pumps WHERE model_code = 'BRW-7'", { type: QueryTypes.SELECT });
+    const [stored] = await app.sequelize.query<{ n: number }>(
+      "SELECT COUNT(*) AS n FROM pumps WHERE model_code = 'BRW-7'",
+      { type: QueryTypes.SELECT },
+    );
     expect(Number(stored.n)).to.equal(0);
     await saveScreenshot(page, 'curve-import-preview');
   });
@@ -72,7 +80,10 @@ describe('a supplier admin loads a curve table in Chromium', function () {
     await page.locator('.rf-summary', { hasText: 'Saved as import' }).waitFor();
     await page.locator('.rf-history', { hasText: 'browser-test-curves.csv' }).waitFor();
 
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download the current table' }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('button', { name: 'Download the current table' }).click(),
+    ]);
     expect(download.suggestedFilename()).to.equal('ALDERBROOK-curve-table.csv');
     const table = readFileSync(await download.path(), 'utf8');
     expect(table).to.match(/^# Curve table of .+\nriffle-curve-table,1\nflow-unit,/);

@@ -21,7 +21,9 @@ describe('home page in Chromium', function () {
       return { lato: document.fonts.check('16px Lato'), icons: document.fonts.check('24px "Material Icons"') };
     });
     expect(fonts).to.deep.equal({ lato: true, icons: true });
-    const loadedFaces = await app.page.evaluate(() => [...document.fonts].filter((face) => face.status === 'loaded').map((face) => face.family));
+    const loadedFaces = await app.page.evaluate(() =>
+      [...document.fonts].filter((face) => face.status === 'loaded').map((face) => face.family),
+    );
     expect(loadedFaces.map((family) => family.replaceAll('"', ''))).to.include.members(['Lato', 'Material Icons']);
   });
 

@@ -11,7 +11,9 @@ describe('changing the password in Chromium', function () {
   const newPassword = 'skimmer-weir-gravel-9';
 
   before(async () => {
-    ({ email } = (await createUserWithSession(app.sequelize, 'designer', { email: `password-change-${process.pid}@accounts.test` })).user);
+    ({ email } = (
+      await createUserWithSession(app.sequelize, 'designer', { email: `password-change-${process.pid}@accounts.test` })
+    ).user);
   });
 
   const signIn = async (password: string) => {
@@ -35,7 +37,9 @@ describe('changing the password in Chromium', function () {
     await signIn(testPassword);
     await page.waitForURL(`${app.url}/account`);
     await fillChange('not-my-password');
-    expect(await page.locator('rf-change-password-form .rf-form-problem').innerText()).to.contain('The current password is not right');
+    expect(await page.locator('rf-change-password-form .rf-form-problem').innerText()).to.contain(
+      'The current password is not right',
+    );
     expect(await page.locator('.rf-problem-snack').count()).to.equal(0);
   });
 

@@ -10,7 +10,9 @@ describe('saved projects in Chromium', function () {
   let email: string;
 
   before(async () => {
-    ({ email } = (await createUserWithSession(app.sequelize, 'designer', { email: `projects-${process.pid}@accounts.test` })).user);
+    ({ email } = (
+      await createUserWithSession(app.sequelize, 'designer', { email: `projects-${process.pid}@accounts.test` })
+    ).user);
   });
 
   it('saves the design under a name', async () => {

@@ -39,7 +39,10 @@ describe('pump selection in Chromium', function () {
     // Hazen-Williams by hand would differ: the preview must move when the length does.
     const before = await page.locator('[role=status]', { hasText: 'TDH' }).textContent();
     await page.fill('input[name=length-0]', '240');
-    await page.waitForFunction((text) => document.querySelector('.rf-builder [role=status]')?.textContent !== text, before);
+    await page.waitForFunction(
+      (text) => document.querySelector('.rf-builder [role=status]')?.textContent !== text,
+      before,
+    );
     expect(await page.locator('rf-system-curve-preview svg path').count()).to.be.greaterThan(0);
   });
 
@@ -49,10 +52,18 @@ describe('pump selection in Chromium', function () {
     await page.getByRole('radio', { name: 'Metric (L/min, m, mm)' }).click();
     // 1 ft = 0.3048 m exactly
     await page.locator('.rf-derived', { hasText: 'Static head 4.42 m' }).waitFor();
-    expect([await value('intakeLevel'), await value('dischargeLevel'), await value('length-0')]).to.deep.equal(['30.48', '34.8996', '73.152']);
+    expect([await value('intakeLevel'), await value('dischargeLevel'), await value('length-0')]).to.deep.equal([
+      '30.48',
+      '34.8996',
+      '73.152',
+    ]);
     await page.getByRole('radio', { name: 'US (gpm, ft, in)' }).click();
     await page.locator('.rf-derived', { hasText: 'Static head 14.5 ft' }).waitFor();
-    expect([await value('intakeLevel'), await value('dischargeLevel'), await value('length-0')]).to.deep.equal(['100', '114.5', '240']);
+    expect([await value('intakeLevel'), await value('dischargeLevel'), await value('length-0')]).to.deep.equal([
+      '100',
+      '114.5',
+      '240',
+    ]);
   });
 
   it('plans the band from a pond turnover and finds candidates', async () => {
@@ -95,7 +106,10 @@ describe('pump selection in Chromium', function () {
     await page.getByRole('radio', { name: 'US', exact: true }).click();
     await page.locator('svg.rf-chart text', { hasText: 'Flow (gpm)' }).waitFor();
 
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: /SVG/ }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('button', { name: /SVG/ }).click(),
+    ]);
     expect(download.suggestedFilename()).to.equal('riffle-pump-comparison.svg');
     const exported = readFileSync(await download.path(), 'utf8');
     expect(exported).to.match(/^<\?xml/);
@@ -114,7 +128,9 @@ describe('pump selection in Chromium', function () {
     const report = page.locator('article.rf-report');
     expect(await report.innerText()).to.contain('Static head');
     expect(await report.getByRole('region', { name: 'Site and system' }).innerText()).to.contain('PVC Schedule 40, 3"');
-    expect(await report.getByRole('region', { name: 'Duty band' }).innerText()).to.match(/100 to 130 gpm; the system needs [\d.]+ to [\d.]+ ft of total dynamic head/);
+    expect(await report.getByRole('region', { name: 'Duty band' }).innerText()).to.match(
+      /100 to 130 gpm; the system needs [\d.]+ to [\d.]+ ft of total dynamic head/,
+    );
     expect(await report.getByRole('heading', { name: 'Pumps compared' }).count()).to.equal(1);
     expect(await report.locator('tr.rf-reasons-row').count()).to.equal(3);
     expect(await report.locator('svg.rf-chart path.rf-pump-curve').count()).to.equal(3);

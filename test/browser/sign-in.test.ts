@@ -9,7 +9,9 @@ describe('signing in and out in Chromium', function () {
   const app = useAppInChromium();
 
   const navigationLabels = async () =>
-    (await app.page.locator('nav[aria-label="Main"] a').allInnerTexts()).map((text) => text.replace(/^\S+\s+/, '').trim());
+    (await app.page.locator('nav[aria-label="Main"] a').allInnerTexts()).map((text) =>
+      text.replace(/^\S+\s+/, '').trim(),
+    );
 
   it('sends a signed-out visitor from the account page to sign-in, with the admin pages hidden', async () => {
     await app.page.goto(`${app.url}/account`, { waitUntil: 'networkidle' });
@@ -28,7 +30,7 @@ describe('signing in and out in Chromium', function () {
     expect(await page.locator('.rf-form-problem').innerText()).to.contain('Wrong e-mail or password');
   });
 
-  it('signs the designer in, back to the page asked for, with the designer\'s navigation', async () => {
+  it("signs the designer in, back to the page asked for, with the designer's navigation", async () => {
     const { page } = app;
     await page.getByLabel('Password').fill(demoPassword);
     await page.getByRole('button', { name: 'Sign in' }).click();
@@ -49,7 +51,11 @@ describe('signing in and out in Chromium', function () {
       await page.goto(`${app.url}/design/system`, { waitUntil: 'networkidle' });
       await page.getByRole('heading', { name: 'Pump selection' }).waitFor();
       expect(await page.evaluate(() => document.documentElement.scrollWidth)).to.be.at.most(390);
-      for (const name of ['Overview', 'Design', 'Catalog', 'Sign out']) expect(await page.getByRole(name === 'Sign out' ? 'button' : 'link', { name, exact: true }).isVisible(), name).to.equal(true);
+      for (const name of ['Overview', 'Design', 'Catalog', 'Sign out'])
+        expect(
+          await page.getByRole(name === 'Sign out' ? 'button' : 'link', { name, exact: true }).isVisible(),
+          name,
+        ).to.equal(true);
       await saveScreenshot(page, 'design-on-a-phone');
     } finally {
       await page.setViewportSize({ width: 1280, height: 900 });
@@ -63,7 +69,9 @@ describe('signing in and out in Chromium', function () {
 
   it('signs out: the session is revoked on the server and the sign-in link is back', async () => {
     const { page } = app;
-    const token = await page.evaluate(() => (JSON.parse(localStorage.getItem('riffle.session') ?? 'null') as { token: string } | null)?.token);
+    const token = await page.evaluate(
+      () => (JSON.parse(localStorage.getItem('riffle.session') ?? 'null') as { token: string } | null)?.token,
+    );
     expect(token).to.match(/^rfs_/);
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.waitForURL(/\/accounts\/sign-in$/);

@@ -6,7 +6,14 @@ import { seedDemoCurvesWhenNone } from '../../data-import/demo-data/demo-curve-s
 import { demoSuppliers } from '../../server/database/demo-seed';
 import { Supplier } from '../../server/database/models';
 
-export const catalogTables = ['suppliers', 'pumps', 'curve_imports', 'curve_revisions', 'curve_points', 'curve_declared_ranges'] as const;
+export const catalogTables = [
+  'suppliers',
+  'pumps',
+  'curve_imports',
+  'curve_revisions',
+  'curve_points',
+  'curve_declared_ranges',
+] as const;
 
 /** The demo suppliers and their demo curve tables, loaded through the import path. */
 export async function seedDemoCatalog(sequelize: Sequelize): Promise<Supplier[]> {
@@ -19,14 +26,21 @@ export async function seedDemoCatalog(sequelize: Sequelize): Promise<Supplier[]>
 export async function catalogRowCounts(sequelize: Sequelize): Promise<Record<string, number>> {
   const counts: Record<string, number> = {};
   for (const table of catalogTables) {
-    const [row] = await sequelize.query<{ n: number | string }>(`SELECT COUNT(*) AS n FROM \`${table}\``, { type: QueryTypes.SELECT });
+    const [row] = await sequelize.query<{ n: number | string }>(`SELECT COUNT(*) AS n FROM \`${table}\``, {
+      type: QueryTypes.SELECT,
+    });
     counts[table] = Number(row.n);
   }
   return counts;
 }
 
 /** Imports CSV text through the one import path. */
-export function importText(sequelize: Sequelize, supplier: Supplier, text: string, options: { dryRun?: boolean; fileName?: string } = {}): Promise<CurveImportReport> {
+export function importText(
+  sequelize: Sequelize,
+  supplier: Supplier,
+  text: string,
+  options: { dryRun?: boolean; fileName?: string } = {},
+): Promise<CurveImportReport> {
   return importCurveTable({
     sequelize,
     supplier,

@@ -55,7 +55,9 @@ describe('curve-table reader', () => {
     const example = /```csv\n([\s\S]*?)```/.exec(readme)![1];
     const table = await read(example);
     expect(table.errors).to.deep.equal([]);
-    expect(table.pumps.map((pump) => [pump.modelCode, pump.points.length, pump.preferred !== null])).to.deep.equal([['WF-200', 5, true]]);
+    expect(table.pumps.map((pump) => [pump.modelCode, pump.points.length, pump.preferred !== null])).to.deep.equal([
+      ['WF-200', 5, true],
+    ]);
     const { checkPumpCurve } = await import('../../data-import/pump-curve-check');
     const checked = checkPumpCurve(table.pumps[0], 'electrical');
     expect(checked.errors).to.deep.equal([]);
@@ -64,7 +66,16 @@ describe('curve-table reader', () => {
 
   it('converts the declared units to SI: 60 gph is 1 US gpm, 3.785411784 L/min (NIST SP 811, 2008, B.8)', async () => {
     const table = await read(
-      ['riffle-curve-table,1', 'flow-unit,gph', 'head-unit,ft', 'power-unit,hp', 'model_code,display_name,kind,flow,head,power', 'G-1,G one,submersible,60,10,1', 'G-1,,,120,8,1.2', 'G-1,,,180,5,1.3'].join('\n'),
+      [
+        'riffle-curve-table,1',
+        'flow-unit,gph',
+        'head-unit,ft',
+        'power-unit,hp',
+        'model_code,display_name,kind,flow,head,power',
+        'G-1,G one,submersible,60,10,1',
+        'G-1,,,120,8,1.2',
+        'G-1,,,180,5,1.3',
+      ].join('\n'),
     );
     expect(table.errors).to.deep.equal([]);
     const [first] = table.pumps[0].points;
@@ -111,14 +122,18 @@ describe('curve-table reader', () => {
     expect(checked.errors).to.deep.equal([]);
     expect(checked.warnings.find((warning) => warning.column === 'head')).to.include({ row: 7 });
     expect(checked.fit).to.not.equal(null);
-    const large = checkPumpCurve((await read(smallTable.replace('K-10,,,,,2,7.7,30', 'K-10,,,,,2,9.0,30'))).pumps[0], 'shaft');
+    const large = checkPumpCurve(
+      (await read(smallTable.replace('K-10,,,,,2,7.7,30', 'K-10,,,,,2,9.0,30'))).pumps[0],
+      'shaft',
+    );
     expect(large.errors[0]).to.include({ row: 7, column: 'head' });
   });
 });
 
 describe('demo curve tables', () => {
   it('are the generator output, byte for byte: the generator is deterministic', () => {
-    for (const table of demoCurveTables()) expect(readFileSync(`${demoFolder}${table.fileName}`, 'utf8'), table.fileName).to.equal(table.text);
+    for (const table of demoCurveTables())
+      expect(readFileSync(`${demoFolder}${table.fileName}`, 'utf8'), table.fileName).to.equal(table.text);
     expect(demoCurveTables().map((table) => table.text)).to.deep.equal(demoCurveTables().map((table) => table.text));
   });
 
@@ -132,8 +147,12 @@ describe('demo curve tables', () => {
       pumps.push(...table.pumps);
     }
     expect(pumps.length).to.be.at.least(60);
-    expect(new Set(pumps.map((pump) => pump.details.kind))).to.deep.equal(new Set(['submersible', 'external-centrifugal', 'mixed-flow']));
-    const withEfficiency = pumps.filter((pump) => pump.points[0].power !== undefined || pump.points[0].efficiency !== undefined);
+    expect(new Set(pumps.map((pump) => pump.details.kind))).to.deep.equal(
+      new Set(['submersible', 'external-centrifugal', 'mixed-flow']),
+    );
+    const withEfficiency = pumps.filter(
+      (pump) => pump.points[0].power !== undefined || pump.points[0].efficiency !== undefined,
+    );
     expect(withEfficiency.length / pumps.length).to.be.greaterThan(0.75);
     expect(pumps.filter((pump) => pump.preferred && pump.allowable).length).to.be.at.least(10);
   });
@@ -194,7 +213,9 @@ describe('curve import into the database', function () {
       { replacements: [pump.current_revision_id], type: QueryTypes.SELECT },
     );
     expect(points.map((point) => point.head_m)).to.deep.equal([8.0, 7.7, 7.0, 5.9, 4.4, 2.5]);
-    const refit = fitPumpCurve(points.map((point) => ({ flow: point.flow_m3s, head: point.head_m, efficiency: point.efficiency })));
+    const refit = fitPumpCurve(
+      points.map((point) => ({ flow: point.flow_m3s, head: point.head_m, efficiency: point.efficiency })),
+    );
     const stored = (typeof pump.fit === 'string' ? JSON.parse(pump.fit) : pump.fit) as typeof refit;
     expect(stored.headCoefficients).to.deep.equal(refit.headCoefficients);
     expect(stored.bep!.flow).to.equal(refit.bep!.flow);
@@ -214,10 +235,15 @@ describe('curve import into the database', function () {
     const inLitres = smallTable
       .replace('flow-unit,m3/h', 'flow-unit,L/s')
       .split('\n')
-      .map((line) => line.replace(/^(K-\d+,[^,]*,[^,]*,)([^,]*),([^,]*),([^,]*),/, (_all, lead: string, min: string, max: string, flow: string) => {
-        const toLitres = (value: string) => (value === '' ? '' : String(Number(value) / 3.6));
-        return `${lead}${toLitres(min)},${toLitres(max)},${toLitres(flow)},`;
-      }))
+      .map((line) =>
+        line.replace(
+          /^(K-\d+,[^,]*,[^,]*,)([^,]*),([^,]*),([^,]*),/,
+          (_all, lead: string, min: string, max: string, flow: string) => {
+            const toLitres = (value: string) => (value === '' ? '' : String(Number(value) / 3.6));
+            return `${lead}${toLitres(min)},${toLitres(max)},${toLitres(flow)},`;
+          },
+        ),
+      )
       .join('\n');
     const converted = await importText(sequelize, supplier, inLitres, { fileName: 'kestrel-1-litres.csv' });
     expect(converted.errors).to.deep.equal([]);
@@ -230,26 +256,40 @@ describe('curve import into the database', function () {
     const changed = smallTable.replace('K-10,,,,,10,2.5,36', 'K-10,,,,,10,2.2,34');
     const report = await importText(sequelize, supplier, changed, { fileName: 'kestrel-2.csv' });
     expect(report.counts).to.deep.equal({ new: 0, changed: 1, unchanged: 1 });
-    expect(report.pumps.find((pump) => pump.modelCode === 'K-10')).to.include({ outcome: 'changed', revisionNumber: 2 });
+    expect(report.pumps.find((pump) => pump.modelCode === 'K-10')).to.include({
+      outcome: 'changed',
+      revisionNumber: 2,
+    });
     const revisions = await sequelize.query<{ number: number; heads: string; current: number }>(
       `SELECT r.number, GROUP_CONCAT(c.head_m ORDER BY c.position) AS heads, p.current_revision_id = r.id AS current
          FROM curve_revisions r JOIN pumps p ON p.id = r.pump_id JOIN curve_points c ON c.revision_id = r.id
         WHERE p.supplier_id = ? AND p.model_code = 'K-10' GROUP BY r.id ORDER BY r.number`,
       { replacements: [supplier.id], type: QueryTypes.SELECT },
     );
-    expect(revisions.map((revision) => [revision.number, revision.heads.split(',').pop(), Number(revision.current)])).to.deep.equal([
+    expect(
+      revisions.map((revision) => [revision.number, revision.heads.split(',').pop(), Number(revision.current)]),
+    ).to.deep.equal([
       [1, '2.5', 0],
       [2, '2.2', 1],
     ]);
   });
 
   it('a change of details only updates the pump and makes no revision', async () => {
-    const renamed = smallTable.replace('K-10,,,,,10,2.5,36', 'K-10,,,,,10,2.2,34').replace('Kestrel test pump 20', 'Kestrel test pump 20 renamed');
+    const renamed = smallTable
+      .replace('K-10,,,,,10,2.5,36', 'K-10,,,,,10,2.2,34')
+      .replace('Kestrel test pump 20', 'Kestrel test pump 20 renamed');
     const revisionsBefore = (await catalogRowCounts(sequelize)).curve_revisions;
     const report = await importText(sequelize, supplier, renamed, { fileName: 'kestrel-3.csv' });
-    expect(report.pumps.find((pump) => pump.modelCode === 'K-20')).to.deep.include({ outcome: 'changed', changes: ['details'], revisionNumber: 1 });
+    expect(report.pumps.find((pump) => pump.modelCode === 'K-20')).to.deep.include({
+      outcome: 'changed',
+      changes: ['details'],
+      revisionNumber: 1,
+    });
     expect((await catalogRowCounts(sequelize)).curve_revisions).to.equal(revisionsBefore);
-    const pump = await sequelize.query<{ display_name: string }>("SELECT display_name FROM pumps WHERE model_code = 'K-20'", { type: QueryTypes.SELECT });
+    const pump = await sequelize.query<{ display_name: string }>(
+      "SELECT display_name FROM pumps WHERE model_code = 'K-20'",
+      { type: QueryTypes.SELECT },
+    );
     expect(pump[0].display_name).to.equal('Kestrel test pump 20 renamed');
   });
 

@@ -45,7 +45,7 @@ describe('curve-table export', function () {
     await drop?.();
   });
 
-  it('gives back every demo supplier\'s curves so that loading them again changes nothing', async () => {
+  it("gives back every demo supplier's curves so that loading them again changes nothing", async () => {
     for (const supplier of suppliers) {
       const exported = await exportCurveTable(supplier);
       expect(exported.pumpCount, supplier.code).to.be.greaterThan(0);
@@ -60,9 +60,19 @@ describe('curve-table export', function () {
     const loaded = await importText(sequelize, supplier, richTable);
     expect(loaded.errors).to.deep.equal([]);
     const { text, units } = await exportCurveTable(supplier);
-    expect(units).to.include({ flow: 'gph', head: 'ft', power: 'W', npsh: 'ft', size: 'in', powerBasis: 'electrical', currency: 'EUR' });
+    expect(units).to.include({
+      flow: 'gph',
+      head: 'ft',
+      power: 'W',
+      npsh: 'ft',
+      size: 'in',
+      powerBasis: 'electrical',
+      currency: 'EUR',
+    });
     expect(text).to.contain('\nflow-unit,gph\nhead-unit,ft\npower-unit,W\n');
-    expect(text).to.contain('TR-1,"Tarn ""stream"" pump, 1",submersible,2850,230,1,1.25,0.375,412.50,active,1500,2600,900,3200,Checked on the bench in March,0,21.3,410,');
+    expect(text).to.contain(
+      'TR-1,"Tarn ""stream"" pump, 1",submersible,2850,230,1,1.25,0.375,412.50,active,1500,2600,900,3200,Checked on the bench in March,0,21.3,410,',
+    );
     // a spreadsheet would run the name as a formula: the export quotes it with an apostrophe
     expect(text).to.contain("TR-2,'=SUM(A1:A9) spa pump,external-centrifugal");
     expect(text).to.contain(',retired,');
@@ -101,20 +111,32 @@ describe('curve-table export', function () {
   });
 
   describe('GET /suppliers/{supplierId}/curve-table', () => {
-    it('answers a CSV download for the admin and the supplier\'s own admin, and refuses another supplier\'s', async () => {
+    it("answers a CSV download for the admin and the supplier's own admin, and refuses another supplier's", async () => {
       const app = createApp({ sequelize, logger: createLogger('silent') });
       const [own, other] = suppliers;
       const { token: admin } = await createUserWithSession(sequelize, 'admin');
       const { token: supplierAdmin } = await createUserWithSession(sequelize, 'supplier-admin', { supplierId: own.id });
-      const download = await request(app).get(`/api/v1/suppliers/${own.id}/curve-table`).set('Authorization', `Bearer ${supplierAdmin}`).expect(200);
+      const download = await request(app)
+        .get(`/api/v1/suppliers/${own.id}/curve-table`)
+        .set('Authorization', `Bearer ${supplierAdmin}`)
+        .expect(200);
       expect(download.type).to.equal('text/csv');
       expect(download.headers['content-disposition']).to.equal(`attachment; filename="${own.code}-curve-table.csv"`);
       expect(download.text).to.match(/^# Curve table of .+\nriffle-curve-table,1\n/);
       expect(download.text).to.equal((await exportCurveTable(own)).text);
-      await request(app).get(`/api/v1/suppliers/${other.id}/curve-table`).set('Authorization', `Bearer ${admin}`).expect(200);
-      const refused = await request(app).get(`/api/v1/suppliers/${other.id}/curve-table`).set('Authorization', `Bearer ${supplierAdmin}`).expect(403);
+      await request(app)
+        .get(`/api/v1/suppliers/${other.id}/curve-table`)
+        .set('Authorization', `Bearer ${admin}`)
+        .expect(200);
+      const refused = await request(app)
+        .get(`/api/v1/suppliers/${other.id}/curve-table`)
+        .set('Authorization', `Bearer ${supplierAdmin}`)
+        .expect(403);
       expect(refused.body.errors[0].pointer).to.equal('/path/supplierId');
-      await request(app).get('/api/v1/suppliers/999999/curve-table').set('Authorization', `Bearer ${admin}`).expect(404);
+      await request(app)
+        .get('/api/v1/suppliers/999999/curve-table')
+        .set('Authorization', `Bearer ${admin}`)
+        .expect(404);
     });
   });
 });

@@ -23,7 +23,14 @@ type DatabaseAddress = { host: string; port: number; user: string; password: str
 
 /** A connection that reads dirty (READ UNCOMMITTED): it sees the rows of transactions still open. */
 async function openDirtyReader(database: DatabaseAddress): Promise<mariadb.Connection> {
-  const connection = await mariadb.createConnection({ host: database.host, port: database.port, user: database.user, password: database.password, database: database.name, connectTimeout: 10_000 });
+  const connection = await mariadb.createConnection({
+    host: database.host,
+    port: database.port,
+    user: database.user,
+    password: database.password,
+    database: database.name,
+    connectTimeout: 10_000,
+  });
   await connection.query('SET SESSION TRANSACTION ISOLATION LEVEL READ UNCOMMITTED');
   return connection;
 }
@@ -32,7 +39,11 @@ async function openDirtyReader(database: DatabaseAddress): Promise<mariadb.Conne
  * Waits until the number of curve points a dirty reader sees passes the test.
  * @returns the count that passed
  */
-async function waitForDirtyPointCount(reader: mariadb.Connection, passes: (count: number) => boolean, timeoutMs = 120_000): Promise<number> {
+async function waitForDirtyPointCount(
+  reader: mariadb.Connection,
+  passes: (count: number) => boolean,
+  timeoutMs = 120_000,
+): Promise<number> {
   const deadline = Date.now() + timeoutMs;
   let count = -1;
   while (Date.now() < deadline) {
@@ -62,11 +73,19 @@ describe('an interrupted commit leaves no partial revision', function () {
     try {
       await Supplier.create({ code: 'BULKTEST', name: 'Bulk Test Supply (invented)' });
       const before = await catalogRowCounts(sequelize);
-      const child = spawn(process.execPath, ['--import', 'tsx', join(projectRoot, 'data-import', 'import-command.ts'), '--supplier', 'BULKTEST', file], {
-        cwd: projectRoot,
-        env: { ...process.env, RIFFLE_DB_NAME: sequelize.config.database, RIFFLE_VAR_DIR: process.env.RIFFLE_TEST_WORK_FOLDER },
-        stdio: ['ignore', 'pipe', 'pipe'],
-      });
+      const child = spawn(
+        process.execPath,
+        ['--import', 'tsx', join(projectRoot, 'data-import', 'import-command.ts'), '--supplier', 'BULKTEST', file],
+        {
+          cwd: projectRoot,
+          env: {
+            ...process.env,
+            RIFFLE_DB_NAME: sequelize.config.database,
+            RIFFLE_VAR_DIR: process.env.RIFFLE_TEST_WORK_FOLDER,
+          },
+          stdio: ['ignore', 'pipe', 'pipe'],
+        },
+      );
       let output = '';
       child.stdout.on('data', (chunk: Buffer) => (output += chunk.toString()));
       child.stderr.on('data', (chunk: Buffer) => (output += chunk.toString()));

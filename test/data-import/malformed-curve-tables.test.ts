@@ -38,7 +38,11 @@ const expectedFirstErrors: Record<string, { row: number | null; column: string |
   '19-duplicate-pump.csv': { row: 14, column: 'model_code', says: 'pump T-100 appears again; its rows 6-9' },
   '20-formula-model-code.csv': { row: 6, column: 'model_code', says: 'is not a model code' },
   '21-unknown-kind.csv': { row: 6, column: 'kind', says: '"turbine" is not a kind' },
-  '22-inconsistent-detail.csv': { row: 7, column: 'display_name', says: 'differs from "Test submersible 100" on row 6' },
+  '22-inconsistent-detail.csv': {
+    row: 7,
+    column: 'display_name',
+    says: 'differs from "Test submersible 100" on row 6',
+  },
   '23-unclosed-quote.csv': { row: 7, column: null, says: 'a quoted field is never closed' },
   '24-extra-cells.csv': { row: 7, column: 'column 6', says: 'beyond the header' },
   '25-power-on-some-points.csv': { row: 9, column: 'power', says: 'gives power on 2 of its 4 points' },
@@ -69,7 +73,9 @@ describe('malformed curve tables', function () {
   });
 
   it('has at least 25 files, each with its expected error', () => {
-    const files = readdirSync(folder).filter((name) => name.endsWith('.csv')).sort();
+    const files = readdirSync(folder)
+      .filter((name) => name.endsWith('.csv'))
+      .sort();
     expect(files.length).to.be.at.least(25);
     expect(files).to.deep.equal(Object.keys(expectedFirstErrors).sort());
   });
@@ -78,7 +84,9 @@ describe('malformed curve tables', function () {
     it(`${file}: row ${expected.row ?? '-'}, column ${expected.column ?? '-'}, "${expected.says}", and nothing written`, async () => {
       const countsBefore = await catalogRowCounts(sequelize);
       const checksumsBefore = await tableChecksums(sequelize);
-      const report = await importText(sequelize, supplier, readFileSync(`${folder}${file}`, 'utf8'), { fileName: file });
+      const report = await importText(sequelize, supplier, readFileSync(`${folder}${file}`, 'utf8'), {
+        fileName: file,
+      });
       expect(report.errors.length, JSON.stringify(report.errors)).to.be.greaterThan(0);
       const [first] = report.errors;
       expect({ row: first.row, column: first.column }).to.deep.equal({ row: expected.row, column: expected.column });
@@ -104,8 +112,18 @@ describe('malformed curve tables', function () {
   it('a file over the row limit is refused naming the row where the limit was passed', async () => {
     const { readCurveTable } = await import('../../data-import/curve-table-reader');
     const { Readable } = await import('node:stream');
-    const rows = Array.from({ length: 30 }, (_, index) => `R-${Math.floor(index / 5)},Pump ${Math.floor(index / 5)},submersible,${index % 5},${10 - (index % 5)}`);
-    const text = ['riffle-curve-table,1', 'flow-unit,m3/h', 'head-unit,m', 'model_code,display_name,kind,flow,head', ...rows].join('\n');
+    const rows = Array.from(
+      { length: 30 },
+      (_, index) =>
+        `R-${Math.floor(index / 5)},Pump ${Math.floor(index / 5)},submersible,${index % 5},${10 - (index % 5)}`,
+    );
+    const text = [
+      'riffle-curve-table,1',
+      'flow-unit,m3/h',
+      'head-unit,m',
+      'model_code,display_name,kind,flow,head',
+      ...rows,
+    ].join('\n');
     const read = await readCurveTable(Readable.from([Buffer.from(text)]), { maxPointRows: 20 });
     const limit = read.errors.find((error) => error.message.includes('more than 20 curve-point rows'));
     expect(limit, JSON.stringify(read.errors)).to.not.equal(undefined);

@@ -18,7 +18,9 @@ describe('database migrations', function () {
   });
 
   const tables = async () =>
-    (await scratch.sequelize.query<Record<string, string>>('SHOW TABLES', { type: QueryTypes.SELECT })).map((row) => Object.values(row)[0]).sort();
+    (await scratch.sequelize.query<Record<string, string>>('SHOW TABLES', { type: QueryTypes.SELECT }))
+      .map((row) => Object.values(row)[0])
+      .sort();
 
   it('keep a curve import to users of this site: an unknown user id is refused, a known one or none is kept', async () => {
     const supplier = await Supplier.create({ code: 'KEYCHECK', name: 'Key Check Demo Supply' });

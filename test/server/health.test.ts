@@ -39,7 +39,11 @@ describe('GET /api/v1/health', function () {
 
   it('sends a content security policy that allows this origin only for scripts, styles and fonts', async () => {
     const policy = (await request(app).get('/api/v1/health')).headers['content-security-policy'] as string;
-    const directive = (name: string) => policy.split(';').find((part) => part.trim().startsWith(`${name} `))?.trim();
+    const directive = (name: string) =>
+      policy
+        .split(';')
+        .find((part) => part.trim().startsWith(`${name} `))
+        ?.trim();
     expect(directive('script-src')).to.equal("script-src 'self'");
     expect(directive('font-src')).to.equal("font-src 'self' data:");
     expect(directive('style-src')).to.equal("style-src 'self' 'unsafe-inline'");
@@ -62,7 +66,10 @@ describe('GET /api/v1/health', function () {
 });
 
 describe('the served contract and docs', () => {
-  const app = createApp({ sequelize: createSequelize({ host: '127.0.0.1', port: 1, name: 'unused', user: 'root', password: '' }), logger: createLogger('silent') });
+  const app = createApp({
+    sequelize: createSequelize({ host: '127.0.0.1', port: 1, name: 'unused', user: 'root', password: '' }),
+    logger: createLogger('silent'),
+  });
 
   it('serves openapi.yaml as OpenAPI 3.1', async () => {
     const response = await request(app).get('/api/v1/openapi.yaml').expect(200);
@@ -84,7 +91,11 @@ describe('the served contract and docs', () => {
   });
 
   it('answers malformed JSON with a 400 pointing at the body', async () => {
-    const response = await request(app).post('/api/v1/health').set('Content-Type', 'application/json').send('{"oops"').expect(400);
+    const response = await request(app)
+      .post('/api/v1/health')
+      .set('Content-Type', 'application/json')
+      .send('{"oops"')
+      .expect(400);
     expect(response.body).to.include({ title: 'Malformed JSON', pointer: '/body' });
   });
 });

@@ -17,7 +17,11 @@ function contractValidator() {
   addFormats.default(ajv);
   ajv.addSchema({ $id: 'contract.json', components: openApiDocument.components });
   return (schema: unknown) =>
-    ajv.compile(JSON.parse(JSON.stringify(schema), (key, value) => (key === '$ref' && String(value).startsWith('#/') ? `contract.json${value}` : value)));
+    ajv.compile(
+      JSON.parse(JSON.stringify(schema), (key, value) =>
+        key === '$ref' && String(value).startsWith('#/') ? `contract.json${value}` : value,
+      ),
+    );
 }
 
 describe('openapi.yaml', () => {
@@ -33,7 +37,10 @@ describe('openapi.yaml', () => {
     expect(new Set(ids).size).to.equal(ids.length);
     for (const operation of operations) {
       expect(operation.definition.summary, operation.operationId).to.be.a('string').and.not.empty;
-      expect(operation.definition.security ?? openApiDocument.security, `${operation.operationId} declares no security`).to.be.an('array');
+      expect(
+        operation.definition.security ?? openApiDocument.security,
+        `${operation.operationId} declares no security`,
+      ).to.be.an('array');
     }
   });
 
@@ -41,18 +48,32 @@ describe('openapi.yaml', () => {
     const compile = contractValidator();
     for (const operation of operations) {
       const bodies: Array<[string, OpenAPIV3_1.MediaTypeObject | undefined]> = [
-        ['request', (operation.definition.requestBody as OpenAPIV3_1.RequestBodyObject | undefined)?.content?.['application/json']],
+        [
+          'request',
+          (operation.definition.requestBody as OpenAPIV3_1.RequestBodyObject | undefined)?.content?.[
+            'application/json'
+          ],
+        ],
         ...Object.entries(operation.definition.responses ?? {}).map(
-          ([status, response]) => [`response ${status}`, (response as OpenAPIV3_1.ResponseObject).content?.['application/json']] as [string, OpenAPIV3_1.MediaTypeObject | undefined],
+          ([status, response]) =>
+            [`response ${status}`, (response as OpenAPIV3_1.ResponseObject).content?.['application/json']] as [
+              string,
+              OpenAPIV3_1.MediaTypeObject | undefined,
+            ],
         ),
       ];
       for (const [where, media] of bodies) {
         if (!media?.schema) continue;
-        const examples = media.example !== undefined ? [media.example] : Object.values(media.examples ?? {}).map((example) => (example as OpenAPIV3_1.ExampleObject).value);
+        const examples =
+          media.example !== undefined
+            ? [media.example]
+            : Object.values(media.examples ?? {}).map((example) => (example as OpenAPIV3_1.ExampleObject).value);
         expect(examples, `${operation.operationId} ${where} has no example`).to.not.be.empty;
         const validate = compile(media.schema);
         for (const example of examples) {
-          expect(validate(example), `${operation.operationId} ${where}: ${JSON.stringify(validate.errors)}`).to.equal(true);
+          expect(validate(example), `${operation.operationId} ${where}: ${JSON.stringify(validate.errors)}`).to.equal(
+            true,
+          );
         }
       }
     }
@@ -63,7 +84,11 @@ describe('openapi.yaml', () => {
     const folder = mkdtempSync(join(tmpdir(), 'riffle-types-'));
     try {
       const output = join(folder, 'types.ts');
-      const result = spawnSync(process.execPath, [join(projectRoot, 'node_modules', 'openapi-typescript', 'bin', 'cli.js'), openApiPath, '-o', output], { encoding: 'utf8' });
+      const result = spawnSync(
+        process.execPath,
+        [join(projectRoot, 'node_modules', 'openapi-typescript', 'bin', 'cli.js'), openApiPath, '-o', output],
+        { encoding: 'utf8' },
+      );
       expect(result.status, result.stderr).to.equal(0);
       expect(readFileSync(output, 'utf8')).to.equal(readFileSync(generatedTypesPath, 'utf8'));
     } finally {

@@ -19,7 +19,10 @@ const contract = {
       post: {
         operationId: 'measurePond',
         parameters: [{ name: 'depth', in: 'query', schema: { type: 'number', exclusiveMinimum: 0 } }],
-        requestBody: { required: true, content: { 'application/json': { schema: { $ref: '#/components/schemas/Pond' } } } },
+        requestBody: {
+          required: true,
+          content: { 'application/json': { schema: { $ref: '#/components/schemas/Pond' } } },
+        },
         responses: { '200': { description: 'ok' } },
       },
     },
@@ -33,7 +36,10 @@ const contract = {
         properties: {
           volume: { type: 'number', exclusiveMinimum: 0 },
           units: { type: 'string', enum: ['gal', 'm3'] },
-          segments: { type: 'array', items: { type: 'object', properties: { length: { type: 'number', exclusiveMinimum: 0 } } } },
+          segments: {
+            type: 'array',
+            items: { type: 'object', properties: { length: { type: 'number', exclusiveMinimum: 0 } } },
+          },
         },
       },
     },
@@ -61,7 +67,10 @@ describe('operation router', () => {
   });
 
   it('answers a bad field with problem details whose pointer names it', async () => {
-    const response = await request(app).post('/ponds/7').send({ volume: 12, units: 'm3', segments: [{ length: 3 }, { length: -1 }] }).expect(400);
+    const response = await request(app)
+      .post('/ponds/7')
+      .send({ volume: 12, units: 'm3', segments: [{ length: 3 }, { length: -1 }] })
+      .expect(400);
     expect(response.type).to.equal('application/problem+json');
     expect(response.body.pointer).to.equal('/body/segments/1/length');
   });
@@ -82,12 +91,18 @@ describe('operation router', () => {
   });
 
   it('requires a JSON body where the contract does', async () => {
-    const response = await request(app).post('/ponds/3').set('Content-Type', 'text/plain').send('12 gallons').expect(400);
+    const response = await request(app)
+      .post('/ponds/3')
+      .set('Content-Type', 'text/plain')
+      .send('12 gallons')
+      .expect(400);
     expect(response.body.pointer).to.equal('/body');
   });
 
   it('refuses to start when the route table and the contract disagree', () => {
     expect(() => appWith({})).to.throw(/no handler for \[measurePond\]/);
-    expect(() => appWith({ measurePond: (_q, s) => s.end(), drainPond: (_q, s) => s.end() })).to.throw(/no operation for \[drainPond\]/);
+    expect(() => appWith({ measurePond: (_q, s) => s.end(), drainPond: (_q, s) => s.end() })).to.throw(
+      /no operation for \[drainPond\]/,
+    );
   });
 });

@@ -40,8 +40,12 @@ describe('affinity laws', () => {
     expect(larger.flow).to.be.closeTo(0.01331, 1e-12); // D^3
     expect(larger.head).to.be.closeTo(24.2, 1e-12); // D^2
     expect(larger.power).to.be.closeTo(3000 * 1.1 ** 5, 1e-9); // D^5
-    expect(() => scaleByImpellerTrim(point, 1.1)).to.throw(HydraulicsInputError).with.property('field', '/diameterRatio');
-    expect(() => scaleBySpeed(point, 0)).to.throw(HydraulicsInputError).with.property('field', '/speedRatio');
+    expect(() => scaleByImpellerTrim(point, 1.1))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/diameterRatio');
+    expect(() => scaleBySpeed(point, 0))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/speedRatio');
   });
 
   const fit = fitPumpCurve(
@@ -59,8 +63,14 @@ describe('affinity laws', () => {
     expect(pumpHeadAt(scaled, 0.8 * 0.006)).to.be.closeTo(0.64 * pumpHeadAt(fit, 0.006), 1e-9);
     expect(scaled.bep?.flow).to.be.closeTo(0.004, 1e-9);
     expect(scaled.bep?.efficiency).to.be.closeTo(0.75, 1e-9);
-    expect(polynomialValue(scaled.efficiencyCoefficients as number[], 0.8 * 0.003)).to.be.closeTo(polynomialValue(fit.efficiencyCoefficients as number[], 0.003), 1e-12);
-    expect(polynomialValue(scaled.npshRequired?.coefficients as number[], 0.8 * 0.003)).to.be.closeTo(0.64 * (1 + 3e4 * 0.003 ** 2), 1e-9);
+    expect(polynomialValue(scaled.efficiencyCoefficients as number[], 0.8 * 0.003)).to.be.closeTo(
+      polynomialValue(fit.efficiencyCoefficients as number[], 0.003),
+      1e-12,
+    );
+    expect(polynomialValue(scaled.npshRequired?.coefficients as number[], 0.8 * 0.003)).to.be.closeTo(
+      0.64 * (1 + 3e4 * 0.003 ** 2),
+      1e-9,
+    );
     expect(scaled.warnings.at(-1)).to.equal('scaled to 80.0 % speed by the affinity laws');
     expect(JSON.parse(JSON.stringify(scaled))).to.deep.equal(scaled);
   });
@@ -88,7 +98,9 @@ describe('affinity laws', () => {
     const head = headToSI(100, 'ft');
     expect(specificSpeedUS(1750, flow, head)).to.be.closeTo((1750 * Math.sqrt(500)) / 100 ** 0.75, 1e-9);
     expect(specificSpeedUS(1750, flow, head) / specificSpeedMetric(1750, flow, head)).to.be.closeTo(51.65, 0.02);
-    expect(() => specificSpeedMetric(1750, 0, head)).to.throw(HydraulicsInputError).with.property('field', '/flow');
+    expect(() => specificSpeedMetric(1750, 0, head))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/flow');
     const atBep = specificSpeedAtBep(fit, 2900);
     expect(atBep?.metric).to.be.closeTo((2900 * Math.sqrt(0.005)) / (18 - 2e5 * 0.005 ** 2) ** 0.75, 1e-6);
     expect(specificSpeedAtBep({ bep: null }, 2900)).to.equal(null);

@@ -46,7 +46,10 @@ describe('fittings catalogue', () => {
   it('f_T agrees with python3-fluids ft_Crane within 1.5 % for 1/2" to 8"', () => {
     sizes.forEach((size, index) => {
       const expected = reference.crane[index].ft;
-      expect(craneFullyTurbulentFrictionFactor(size.insideDiameter), size.id).to.be.closeTo(expected, FT_TOLERANCE * expected);
+      expect(craneFullyTurbulentFrictionFactor(size.insideDiameter), size.id).to.be.closeTo(
+        expected,
+        FT_TOLERANCE * expected,
+      );
     });
   });
 
@@ -59,7 +62,10 @@ describe('fittings catalogue', () => {
         if (fitting?.resistance.method === 'crane') {
           expect(expected / values.ft, `${kind} at ${size.id}`).to.be.closeTo(fitting.resistance.multiplier, 1e-9);
         }
-        expect(fittingK(kind, size.insideDiameter), `${kind} at ${size.id}`).to.be.closeTo(expected, FT_TOLERANCE * expected);
+        expect(fittingK(kind, size.insideDiameter), `${kind} at ${size.id}`).to.be.closeTo(
+          expected,
+          FT_TOLERANCE * expected,
+        );
       }
     });
   });

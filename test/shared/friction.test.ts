@@ -50,7 +50,10 @@ describe('friction', () => {
     expect(darcyFrictionFactor(4000, 1e-3)).to.equal(at4000);
     expect(darcyFrictionFactor(3999.999, 1e-3)).to.be.closeTo(at4000, 1e-8);
     expect(darcyFrictionFactor(3150, 1e-3)).to.be.closeTo((64 / 2300 + at4000) / 2, 1e-15);
-    expect(darcyFrictionFactor(3150, 1e-3, 'swamee-jain')).to.be.closeTo((64 / 2300 + frictionFactorSwameeJain(4000, 1e-3)) / 2, 1e-15);
+    expect(darcyFrictionFactor(3150, 1e-3, 'swamee-jain')).to.be.closeTo(
+      (64 / 2300 + frictionFactorSwameeJain(4000, 1e-3)) / 2,
+      1e-15,
+    );
     expect(darcyFrictionFactor(1e5, 1e-4, 'swamee-jain')).to.equal(frictionFactorSwameeJain(1e5, 1e-4));
   });
 
@@ -75,16 +78,27 @@ describe('friction', () => {
     expect(siFormFeet(240, 100, 3) / usFormFeet(240, 100, 3) - 1).to.be.closeTo(-0.006, 0.001);
     for (const gpm of [5, 50, 300, 3000]) {
       for (const inches of [0.5, 2, 8]) {
-        expect(Math.abs(siFormFeet(1000, gpm, inches) / usFormFeet(1000, gpm, inches) - 1), `${gpm} gpm, ${inches} in`).to.be.lessThan(0.018);
+        expect(
+          Math.abs(siFormFeet(1000, gpm, inches) / usFormFeet(1000, gpm, inches) - 1),
+          `${gpm} gpm, ${inches} in`,
+        ).to.be.lessThan(0.018);
       }
     }
   });
 
   it('rejects bad inputs with HydraulicsInputError naming the field, never NaN', () => {
-    expect(() => headLossHazenWilliams(-1, 0.01, 0.1, 150)).to.throw(HydraulicsInputError).with.property('field', '/length');
-    expect(() => headLossHazenWilliams(10, 0.01, 0, 150)).to.throw(HydraulicsInputError).with.property('field', '/insideDiameter');
-    expect(() => headLossHazenWilliams(10, Number.NaN, 0.1, 150)).to.throw(HydraulicsInputError).with.property('field', '/flow');
+    expect(() => headLossHazenWilliams(-1, 0.01, 0.1, 150))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/length');
+    expect(() => headLossHazenWilliams(10, 0.01, 0, 150))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/insideDiameter');
+    expect(() => headLossHazenWilliams(10, Number.NaN, 0.1, 150))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/flow');
     expect(() => headLossDarcyWeisbach(10, 0.01, 0.1, 1e-5, Number.POSITIVE_INFINITY)).to.throw(HydraulicsInputError);
-    expect(() => frictionFactorSwameeJain(0, 1e-4)).to.throw(HydraulicsInputError).with.property('field', '/reynolds');
+    expect(() => frictionFactorSwameeJain(0, 1e-4))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/reynolds');
   });
 });

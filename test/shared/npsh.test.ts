@@ -26,8 +26,15 @@ describe('NPSH', () => {
     const expected = (101325 - waterVapourPressure(20)) / (waterDensity(20) * 9.80665) - 3 - 0.5;
     expect(lift).to.be.closeTo(expected, 1e-12);
     expect(lift).to.be.closeTo(6.61, 0.01);
-    const flooded = npshAvailable({ surfacePressure: standardAtmosphericPressure(1500), temperature: 30, surfaceElevation: 1, suctionLosses: 0.2 });
-    expect(flooded).to.be.lessThan(npshAvailable({ surfacePressure: 101325, temperature: 30, surfaceElevation: 1, suctionLosses: 0.2 }));
+    const flooded = npshAvailable({
+      surfacePressure: standardAtmosphericPressure(1500),
+      temperature: 30,
+      surfaceElevation: 1,
+      suctionLosses: 0.2,
+    });
+    expect(flooded).to.be.lessThan(
+      npshAvailable({ surfacePressure: 101325, temperature: 30, surfaceElevation: 1, suctionLosses: 0.2 }),
+    );
   });
 
   it('margin against NPSH required per ANSI/HI 9.6.1 clean-water guidance (ratio >= 1.1 and >= 0.6 m)', () => {
@@ -40,9 +47,17 @@ describe('NPSH', () => {
   });
 
   it('rejects bad suction input', () => {
-    expect(() => npshAvailable({ surfacePressure: 0, temperature: 20, surfaceElevation: 0, suctionLosses: 0 })).to.throw(HydraulicsInputError).with.property('field', '/surfacePressure');
-    expect(() => npshAvailable({ surfacePressure: 1e5, temperature: 20, surfaceElevation: 0, suctionLosses: -1 })).to.throw(HydraulicsInputError).with.property('field', '/suctionLosses');
-    expect(() => npshAvailable({ surfacePressure: 1e5, temperature: 45, surfaceElevation: 0, suctionLosses: 0 })).to.throw(HydraulicsInputError).with.property('field', '/temperature');
-    expect(() => npshMargin(3, 0)).to.throw(HydraulicsInputError).with.property('field', '/npshRequired');
+    expect(() => npshAvailable({ surfacePressure: 0, temperature: 20, surfaceElevation: 0, suctionLosses: 0 }))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/surfacePressure');
+    expect(() => npshAvailable({ surfacePressure: 1e5, temperature: 20, surfaceElevation: 0, suctionLosses: -1 }))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/suctionLosses');
+    expect(() => npshAvailable({ surfacePressure: 1e5, temperature: 45, surfaceElevation: 0, suctionLosses: 0 }))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/temperature');
+    expect(() => npshMargin(3, 0))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/npshRequired');
   });
 });

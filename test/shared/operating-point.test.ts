@@ -57,7 +57,10 @@ describe('operating point', () => {
     const expectedGpm = Math.sqrt((180 - 50) / (6.1e-4 + headPerGpm2));
 
     it('delivers about 365 gpm with the pump curve tabulated at 0-500 gpm', () => {
-      const points = [0, 100, 200, 300, 400, 500].map((q) => ({ flow: gpm(q), head: headToSI(180 - 6.1e-4 * q * q, 'ft') }));
+      const points = [0, 100, 200, 300, 400, 500].map((q) => ({
+        flow: gpm(q),
+        head: headToSI(180 - 6.1e-4 * q * q, 'ft'),
+      }));
       const point = solveOperatingPoint(fitPumpCurve(points), system);
       if (!point.ok) throw new Error(point.message);
       expect(flowFromSI(point.flow, 'gpm')).to.be.closeTo(expectedGpm, 1e-6);
@@ -85,11 +88,20 @@ describe('operating point', () => {
     .record({
       shutOff: fc.double({ min: 1, max: 60, noNaN: true }),
       flowMax: fc.double({ min: 1e-4, max: 0.05, noNaN: true }),
-      shape: fc.tuple(fc.double({ min: 0, max: 0.3, noNaN: true }), fc.double({ min: 0, max: 0.4, noNaN: true }), fc.double({ min: 0, max: 0.25, noNaN: true })),
+      shape: fc.tuple(
+        fc.double({ min: 0, max: 0.3, noNaN: true }),
+        fc.double({ min: 0, max: 0.4, noNaN: true }),
+        fc.double({ min: 0, max: 0.25, noNaN: true }),
+      ),
     })
     .map(({ shutOff, flowMax, shape: [alpha, beta, gamma] }): HeadCurve => ({
       // H = H0 (1 - alpha x - beta x^2 - gamma x^3), x = Q / flowMax: non-increasing, positive
-      headCoefficients: [shutOff, (-shutOff * alpha) / flowMax, (-shutOff * beta) / flowMax ** 2, (-shutOff * gamma) / flowMax ** 3],
+      headCoefficients: [
+        shutOff,
+        (-shutOff * alpha) / flowMax,
+        (-shutOff * beta) / flowMax ** 2,
+        (-shutOff * gamma) / flowMax ** 3,
+      ],
       flowMin: 0,
       flowMax,
     }));
@@ -100,11 +112,26 @@ describe('operating point', () => {
     elbows: fc.integer({ min: 0, max: 8 }),
     frictionMethod: fc.constantFrom<FrictionMethod>('hazen-williams', 'darcy-weisbach'),
   });
-  const compile = (s: { staticHead: number; length: number; pipeSizeId: string; elbows: number; frictionMethod: FrictionMethod }) =>
+  const compile = (s: {
+    staticHead: number;
+    length: number;
+    pipeSizeId: string;
+    elbows: number;
+    frictionMethod: FrictionMethod;
+  }) =>
     compileSystemCurve({
       staticHead: s.staticHead,
       frictionMethod: s.frictionMethod,
-      segments: [{ length: s.length, pipeSizeId: s.pipeSizeId, fittings: [{ kind: 'elbow-90-standard', count: s.elbows }, { kind: 'exit', count: 1 }] }],
+      segments: [
+        {
+          length: s.length,
+          pipeSizeId: s.pipeSizeId,
+          fittings: [
+            { kind: 'elbow-90-standard', count: s.elbows },
+            { kind: 'exit', count: 1 },
+          ],
+        },
+      ],
     });
 
   it('lies on both curves, inside the curve range, within a few iterations (property)', () => {
@@ -114,7 +141,10 @@ describe('operating point', () => {
         const result = solveOperatingPoint(pump, system);
         if (!result.ok) {
           if (result.reason === 'below-static-head') return pump.headCoefficients[0] < system.staticHead;
-          return result.reason === 'beyond-curve' && polynomialValue(pump.headCoefficients, pump.flowMax) > system.evaluate(pump.flowMax);
+          return (
+            result.reason === 'beyond-curve' &&
+            polynomialValue(pump.headCoefficients, pump.flowMax) > system.evaluate(pump.flowMax)
+          );
         }
         const pumpHead = polynomialValue(pump.headCoefficients, result.flow);
         return (
@@ -131,13 +161,18 @@ describe('operating point', () => {
 
   it('a longer pipe never raises the flow (property)', () => {
     fc.assert(
-      fc.property(pumpArbitrary, systemArbitrary, fc.double({ min: 1, max: 5, noNaN: true }), (pump, systemInput, factor) => {
-        const short = solveOperatingPoint(pump, compile(systemInput));
-        const long = solveOperatingPoint(pump, compile({ ...systemInput, length: systemInput.length * factor }));
-        if (short.ok && long.ok) return long.flow <= short.flow * (1 + 1e-9); // solver tolerance
-        if (!short.ok && short.reason === 'below-static-head') return !long.ok && long.reason === 'below-static-head';
-        return !short.ok || long.ok || long.reason !== 'beyond-curve';
-      }),
+      fc.property(
+        pumpArbitrary,
+        systemArbitrary,
+        fc.double({ min: 1, max: 5, noNaN: true }),
+        (pump, systemInput, factor) => {
+          const short = solveOperatingPoint(pump, compile(systemInput));
+          const long = solveOperatingPoint(pump, compile({ ...systemInput, length: systemInput.length * factor }));
+          if (short.ok && long.ok) return long.flow <= short.flow * (1 + 1e-9); // solver tolerance
+          if (!short.ok && short.reason === 'below-static-head') return !long.ok && long.reason === 'below-static-head';
+          return !short.ok || long.ok || long.reason !== 'beyond-curve';
+        },
+      ),
       { numRuns: 300 },
     );
   });

@@ -1,5 +1,10 @@
 import { expect } from 'chai';
-import { DEFAULT_PREFERRED_BAND, HydraulicsInputError, checkPreferredBand, classifyOperatingRegion } from '../../shared/hydraulics';
+import {
+  DEFAULT_PREFERRED_BAND,
+  HydraulicsInputError,
+  checkPreferredBand,
+  classifyOperatingRegion,
+} from '../../shared/hydraulics';
 
 const fit = { bep: { flow: 0.01, head: 10, efficiency: 0.7 }, allowableRegion: null };
 
@@ -13,7 +18,7 @@ describe('operating regions', () => {
     expect(classifyOperatingRegion(fit, 0.0085).percentOfBep).to.be.closeTo(85, 1e-9);
   });
 
-  it('uses the supplier\'s allowable region outside the preferred band', () => {
+  it("uses the supplier's allowable region outside the preferred band", () => {
     const withAor = { ...fit, allowableRegion: { flowMin: 0.004, flowMax: 0.013 } };
     expect(classifyOperatingRegion(withAor, 0.005).region).to.equal('allowable');
     expect(classifyOperatingRegion(withAor, 0.0125).region).to.equal('allowable');
@@ -28,11 +33,18 @@ describe('operating regions', () => {
   });
 
   it('says unknown-bep when the fit has no BEP', () => {
-    expect(classifyOperatingRegion({ bep: null, allowableRegion: null }, 0.01)).to.deep.equal({ region: 'unknown-bep', percentOfBep: null });
+    expect(classifyOperatingRegion({ bep: null, allowableRegion: null }, 0.01)).to.deep.equal({
+      region: 'unknown-bep',
+      percentOfBep: null,
+    });
   });
 
   it('rejects an inverted or non-positive band', () => {
-    expect(() => checkPreferredBand({ minPercent: 120, maxPercent: 70 })).to.throw(HydraulicsInputError).with.property('field', '/preferredBand/maxPercent');
-    expect(() => checkPreferredBand({ minPercent: 0, maxPercent: 70 })).to.throw(HydraulicsInputError).with.property('field', '/preferredBand/minPercent');
+    expect(() => checkPreferredBand({ minPercent: 120, maxPercent: 70 }))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/preferredBand/maxPercent');
+    expect(() => checkPreferredBand({ minPercent: 0, maxPercent: 70 }))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/preferredBand/minPercent');
   });
 });

@@ -17,7 +17,11 @@ const HORSEPOWER = 745.6999; // W per mechanical hp (550 ft lbf/s), NIST SP 811
 
 describe('power and energy', () => {
   it('water power matches the Hydraulic Institute formula whp = Q(gpm) H(ft) SG / 3960', () => {
-    for (const [gpm, feet] of [[100, 39.6], [250, 60], [1000, 120]]) {
+    for (const [gpm, feet] of [
+      [100, 39.6],
+      [250, 60],
+      [1000, 120],
+    ]) {
       const watts = hydraulicPower(flowToSI(gpm, 'gpm'), headToSI(feet, 'ft'), waterDensity(20));
       // 3960 takes water at about 8.33 lb/gal; 998.2 kg/m3 at 20 C is within 0.2 % of that
       expect(watts / HORSEPOWER).to.be.closeTo((gpm * feet) / 3960, 0.002 * ((gpm * feet) / 3960));
@@ -56,17 +60,34 @@ describe('power and energy', () => {
     const shaft = fitPumpCurve(points, { powerBasis: 'shaft' });
     const electrical = fitPumpCurve(points, { powerBasis: 'electrical' });
     const q = 0.004;
-    expect(powerAtOperatingPoint(shaft, q, head(q), 998, { motor: 0.8 }).electrical).to.be.closeTo((400 + 6e4 * q) / 0.8, 1e-6);
-    expect(powerAtOperatingPoint(electrical, q, head(q), 998, { motor: 0.8 }).electrical).to.be.closeTo(400 + 6e4 * q, 1e-6);
+    expect(powerAtOperatingPoint(shaft, q, head(q), 998, { motor: 0.8 }).electrical).to.be.closeTo(
+      (400 + 6e4 * q) / 0.8,
+      1e-6,
+    );
+    expect(powerAtOperatingPoint(electrical, q, head(q), 998, { motor: 0.8 }).electrical).to.be.closeTo(
+      400 + 6e4 * q,
+      1e-6,
+    );
   });
 
   it('reports unknown input power as null without power or efficiency data, and rejects bad input', () => {
     const fit = fitPumpCurve(flows.map((flow) => ({ flow, head: head(flow) })));
-    expect(powerAtOperatingPoint(fit, 0.004, head(0.004), 998)).to.include({ electrical: null, wireToWaterEfficiency: null });
-    expect(() => powerAtOperatingPoint(fit, 0.009, 5, 998)).to.throw(HydraulicsInputError).with.property('field', '/flow');
-    expect(() => powerAtOperatingPoint(fit, 0.004, 5, 998, { motor: 1.2 })).to.throw(HydraulicsInputError).with.property('field', '/motorEfficiency');
-    expect(() => annualEnergy(100, 25)).to.throw(HydraulicsInputError).with.property('field', '/hoursPerDay');
-    expect(() => specificEnergy(100, 0)).to.throw(HydraulicsInputError).with.property('field', '/flow');
+    expect(powerAtOperatingPoint(fit, 0.004, head(0.004), 998)).to.include({
+      electrical: null,
+      wireToWaterEfficiency: null,
+    });
+    expect(() => powerAtOperatingPoint(fit, 0.009, 5, 998))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/flow');
+    expect(() => powerAtOperatingPoint(fit, 0.004, 5, 998, { motor: 1.2 }))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/motorEfficiency');
+    expect(() => annualEnergy(100, 25))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/hoursPerDay');
+    expect(() => specificEnergy(100, 0))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/flow');
     expect(() => energyCost(Number.NaN, 0.1)).to.throw(HydraulicsInputError);
   });
 });

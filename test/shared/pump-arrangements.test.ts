@@ -90,19 +90,36 @@ describe('pump arrangements', () => {
   });
 
   it('reports no point with a reason for unequal pumps: below static head, run-out', () => {
-    expect(solveParallelUnequal([pumpCurve(40, k, 200)], system)).to.include({ ok: false, reason: 'below-static-head' });
-    expect(solveParallelUnequal([pump, pumpCurve(170, k, 100)], system)).to.include({ ok: false, reason: 'beyond-curve' });
+    expect(solveParallelUnequal([pumpCurve(40, k, 200)], system)).to.include({
+      ok: false,
+      reason: 'below-static-head',
+    });
+    expect(solveParallelUnequal([pump, pumpCurve(170, k, 100)], system)).to.include({
+      ok: false,
+      reason: 'beyond-curve',
+    });
   });
 
   it('rejects bad counts and curves that do not start at shut-off', () => {
-    expect(() => solveParallelIdentical(pump, system, 2, 3)).to.throw(HydraulicsInputError).with.property('field', '/running');
-    expect(() => solveParallelIdentical(pump, system, 0, 0)).to.throw(HydraulicsInputError).with.property('field', '/installed');
-    expect(() => solveSeries(pump, system, 1.5)).to.throw(HydraulicsInputError).with.property('field', '/count');
-    expect(() => solveParallelUnequal([{ ...pump, flowMin: gpm(10) }], system)).to.throw(HydraulicsInputError).with.property('field', '/pumps/0');
+    expect(() => solveParallelIdentical(pump, system, 2, 3))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/running');
+    expect(() => solveParallelIdentical(pump, system, 0, 0))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/installed');
+    expect(() => solveSeries(pump, system, 1.5))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/count');
+    expect(() => solveParallelUnequal([{ ...pump, flowMin: gpm(10) }], system))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/pumps/0');
   });
 
   const curveArbitrary = fc
-    .record({ shutOff: fc.double({ min: 20, max: 80, noNaN: true }), kFeet: fc.double({ min: 1e-4, max: 2e-3, noNaN: true }) })
+    .record({
+      shutOff: fc.double({ min: 20, max: 80, noNaN: true }),
+      kFeet: fc.double({ min: 1e-4, max: 2e-3, noNaN: true }),
+    })
     .map(({ shutOff, kFeet }) => pumpCurve(shutOff, kFeet, Math.sqrt((shutOff - 1) / kFeet)));
 
   it('more pumps in parallel never lowers the total flow (property)', () => {

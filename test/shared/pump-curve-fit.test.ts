@@ -13,7 +13,8 @@ import {
 } from '../../shared/hydraulics';
 
 /** Points on H = h0 - k Q^2 at the given flows (an exact quadratic the fit must recover). */
-const parabola = (h0: number, k: number, flows: number[]): PumpCurvePoint[] => flows.map((flow) => ({ flow, head: h0 - k * flow * flow }));
+const parabola = (h0: number, k: number, flows: number[]): PumpCurvePoint[] =>
+  flows.map((flow) => ({ flow, head: h0 - k * flow * flow }));
 
 describe('pump curve fit', () => {
   it('recovers an exact quadratic from three points with zero residual', () => {
@@ -28,7 +29,7 @@ describe('pump curve fit', () => {
     expect(fit.flowMax).to.equal(0.007);
   });
 
-  it('agrees with the normal-equation least-squares solution solved independently (Cramer\'s rule)', () => {
+  it("agrees with the normal-equation least-squares solution solved independently (Cramer's rule)", () => {
     const points: PumpCurvePoint[] = [
       { flow: 0, head: 10.2 },
       { flow: 0.001, head: 9.7 },
@@ -39,19 +40,31 @@ describe('pump curve fit', () => {
     expect(fit.degree).to.equal(2); // four points: quadratic by the degree rule
     const sums = (p: number) => points.reduce((sum, point) => sum + point.flow ** p, 0);
     const rhs = (p: number) => points.reduce((sum, point) => sum + point.head * point.flow ** p, 0);
-    const m = [[sums(0), sums(1), sums(2)], [sums(1), sums(2), sums(3)], [sums(2), sums(3), sums(4)]];
+    const m = [
+      [sums(0), sums(1), sums(2)],
+      [sums(1), sums(2), sums(3)],
+      [sums(2), sums(3), sums(4)],
+    ];
     const det = (a: number[][]) =>
-      a[0][0] * (a[1][1] * a[2][2] - a[1][2] * a[2][1]) - a[0][1] * (a[1][0] * a[2][2] - a[1][2] * a[2][0]) + a[0][2] * (a[1][0] * a[2][1] - a[1][1] * a[2][0]);
+      a[0][0] * (a[1][1] * a[2][2] - a[1][2] * a[2][1]) -
+      a[0][1] * (a[1][0] * a[2][2] - a[1][2] * a[2][0]) +
+      a[0][2] * (a[1][0] * a[2][1] - a[1][1] * a[2][0]);
     const b = [rhs(0), rhs(1), rhs(2)];
     const d = det(m);
-    const expected = [0, 1, 2].map((column) => det(m.map((row, i) => row.map((value, j) => (j === column ? b[i] : value)))) / d);
-    expected.forEach((value, power) => expect(fit.headCoefficients[power]).to.be.closeTo(value, 1e-7 * Math.abs(value)));
+    const expected = [0, 1, 2].map(
+      (column) => det(m.map((row, i) => row.map((value, j) => (j === column ? b[i] : value)))) / d,
+    );
+    expected.forEach((value, power) =>
+      expect(fit.headCoefficients[power]).to.be.closeTo(value, 1e-7 * Math.abs(value)),
+    );
     const residuals = points.map((point) => point.head - polynomialValue(expected, point.flow));
     const rms = Math.sqrt(residuals.reduce((sum, r) => sum + r * r, 0) / residuals.length);
     expect(fit.statistics.rmsHead).to.be.closeTo(rms, 1e-9);
     const worst = residuals.reduce((a, r) => (Math.abs(r) > Math.abs(a) ? r : a), 0);
     expect(fit.statistics.worstResidual).to.be.closeTo(worst, 1e-9);
-    expect(fit.statistics.worstResidualFlow).to.equal(points[residuals.indexOf(residuals.reduce((a, r) => (Math.abs(r) > Math.abs(a) ? r : a), 0))].flow);
+    expect(fit.statistics.worstResidualFlow).to.equal(
+      points[residuals.indexOf(residuals.reduce((a, r) => (Math.abs(r) > Math.abs(a) ? r : a), 0))].flow,
+    );
     expect(fit.statistics.pointCount).to.equal(4);
   });
 
@@ -70,7 +83,9 @@ describe('pump curve fit', () => {
     const flatThenFalling: PumpCurvePoint[] = [10, 10, 10, 9.5, 5].map((head, index) => ({ flow: index * 1e-3, head }));
     const fit = fitPumpCurve(flatThenFalling);
     for (let q = 0; q < 0.004; q += 1e-5) {
-      expect(polynomialValue(fit.headCoefficients, q + 1e-5)).to.be.at.most(polynomialValue(fit.headCoefficients, q) + 1e-9);
+      expect(polynomialValue(fit.headCoefficients, q + 1e-5)).to.be.at.most(
+        polynomialValue(fit.headCoefficients, q) + 1e-9,
+      );
     }
     expect(fit.warnings.join(' ')).to.match(/would rise within the data range/);
   });
@@ -112,13 +127,18 @@ describe('pump curve fit', () => {
     const noEfficiency = fitPumpCurve(parabola(10, 1e5, [0, 0.002, 0.004]));
     expect(noEfficiency.bep).to.equal(null);
     expect(noEfficiency.bepUnknownReason).to.match(/no efficiency or power data/);
-    const rising = fitPumpCurve([0, 0.002, 0.004].map((flow) => ({ flow, head: 10 - 1e5 * flow * flow, efficiency: 100 * flow })));
+    const rising = fitPumpCurve(
+      [0, 0.002, 0.004].map((flow) => ({ flow, head: 10 - 1e5 * flow * flow, efficiency: 100 * flow })),
+    );
     expect(rising.bep).to.equal(null);
     expect(rising.bepUnknownReason).to.match(/still rises at the last curve point/);
   });
 
   it('fits NPSH required over the points that give it and never extrapolates a curve', () => {
-    const points = parabola(10, 1e5, [0.001, 0.002, 0.003, 0.004]).map((point) => ({ ...point, npshRequired: 1 + 1e5 * point.flow ** 2 }));
+    const points = parabola(10, 1e5, [0.001, 0.002, 0.003, 0.004]).map((point) => ({
+      ...point,
+      npshRequired: 1 + 1e5 * point.flow ** 2,
+    }));
     const fit = fitPumpCurve(points);
     expect(pumpNpshRequiredAt(fit, 0.0025)).to.be.closeTo(1 + 1e5 * 0.0025 ** 2, 1e-9);
     expect(fit.warnings.join(' ')).to.match(/shut-off head is extrapolated/);
@@ -129,7 +149,11 @@ describe('pump curve fit', () => {
 
   it('is a plain JSON object that reloads unchanged', () => {
     const fit = fitPumpCurve(
-      [0, 0.002, 0.004, 0.006, 0.008].map((flow) => ({ flow, head: 15 - 1e5 * flow * flow, efficiency: 200 * flow - 2e4 * flow * flow })),
+      [0, 0.002, 0.004, 0.006, 0.008].map((flow) => ({
+        flow,
+        head: 15 - 1e5 * flow * flow,
+        efficiency: 200 * flow - 2e4 * flow * flow,
+      })),
       { allowableRegion: { flowMin: 0.001, flowMax: 0.008 } },
     );
     const reloaded = JSON.parse(JSON.stringify(fit));
@@ -158,7 +182,11 @@ describe('pump curve fit', () => {
         const span = fit.flowMax - fit.flowMin;
         for (let step = 0; step < 100; step += 1) {
           const q = fit.flowMin + (span * step) / 100;
-          if (polynomialValue(fit.headCoefficients, q + span / 100) > polynomialValue(fit.headCoefficients, q) + 1e-8 * points[0].head) return false;
+          if (
+            polynomialValue(fit.headCoefficients, q + span / 100) >
+            polynomialValue(fit.headCoefficients, q) + 1e-8 * points[0].head
+          )
+            return false;
         }
         return Number.isFinite(fit.statistics.rmsHead) && fit.headCoefficients.every(Number.isFinite);
       }),
@@ -181,7 +209,9 @@ describe('pump curve fit', () => {
     ];
     for (const [name, points, field] of cases) {
       it(`${name} -> ${field}`, () => {
-        expect(() => fitPumpCurve(points)).to.throw(HydraulicsInputError).with.property('field', field);
+        expect(() => fitPumpCurve(points))
+          .to.throw(HydraulicsInputError)
+          .with.property('field', field);
       });
     }
   });

@@ -10,6 +10,8 @@ export function quadraticSystem(staticHead: number, b: number): CompiledSystemCu
   return compileSystemCurve({
     staticHead,
     frictionMethod: 'hazen-williams',
-    segments: [{ length: 1e-9, insideDiameter: 0.1, hazenWilliamsC: 150, extraK: b * 2 * STANDARD_GRAVITY * area * area }],
+    segments: [
+      { length: 1e-9, insideDiameter: 0.1, hazenWilliamsC: 150, extraK: b * 2 * STANDARD_GRAVITY * area * area },
+    ],
   });
 }

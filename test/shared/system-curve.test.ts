@@ -46,7 +46,14 @@ describe('system curve', () => {
     frictionMethod: 'darcy-weisbach',
     temperature: 15,
     segments: [
-      { length: 3, pipeSizeId: 'steel-sch40-1.5', fittings: [{ kind: 'foot-valve-hinged', count: 1 }, { kind: 'elbow-90-standard', count: 2 }] },
+      {
+        length: 3,
+        pipeSizeId: 'steel-sch40-1.5',
+        fittings: [
+          { kind: 'foot-valve-hinged', count: 1 },
+          { kind: 'elbow-90-standard', count: 2 },
+        ],
+      },
       { length: 40, pipeSizeId: 'pvc-sch40-2', fittings: [{ kind: 'check-valve-swing', count: 1 }], extraK: 1.5 },
       { length: 12, insideDiameter: 0.04, roughness: 0.15e-3, fittings: [{ kind: 'exit', count: 1 }] },
     ],
@@ -65,7 +72,11 @@ describe('system curve', () => {
   });
 
   it('Darcy-Weisbach: continuous through the laminar, transition and turbulent limits (Re 2300 and 4000)', () => {
-    const system = compileSystemCurve({ staticHead: 0, frictionMethod: 'darcy-weisbach', segments: [{ length: 50, pipeSizeId: 'pvc-sch40-1' }] });
+    const system = compileSystemCurve({
+      staticHead: 0,
+      frictionMethod: 'darcy-weisbach',
+      segments: [{ length: 50, pipeSizeId: 'pvc-sch40-1' }],
+    });
     const segment = system.segments[0];
     const flowAt = (reynolds: number) => (reynolds * system.kinematicViscosity * segment.area) / segment.insideDiameter;
     for (const limit of [2300, 4000]) {
@@ -90,13 +101,17 @@ describe('system curve', () => {
       headLossDarcyWeisbach(3, flow, first.insideDiameter, first.roughness, nu),
       1e-15,
     );
-    const kFirst = fittingK('foot-valve-hinged', first.insideDiameter) + 2 * fittingK('elbow-90-standard', first.insideDiameter);
+    const kFirst =
+      fittingK('foot-valve-hinged', first.insideDiameter) + 2 * fittingK('elbow-90-standard', first.insideDiameter);
     const velocity = flow / ((Math.PI * first.insideDiameter ** 2) / 4);
     expect(breakdown.segments[0].velocity).to.be.closeTo(velocity, 1e-12);
     expect(breakdown.segments[0].totalK).to.be.closeTo(kFirst, 1e-12);
     expect(breakdown.segments[0].minorHead).to.be.closeTo((kFirst * velocity ** 2) / (2 * 9.80665), 1e-12);
-    expect(breakdown.segments[1].totalK).to.be.closeTo(fittingK('check-valve-swing', pipeSizeById('pvc-sch40-2').insideDiameter) + 1.5, 1e-12);
-    expect(breakdown.segments[2].reynolds).to.be.closeTo((flow / ((Math.PI * 0.04 ** 2) / 4)) * 0.04 / nu, 1e-6);
+    expect(breakdown.segments[1].totalK).to.be.closeTo(
+      fittingK('check-valve-swing', pipeSizeById('pvc-sch40-2').insideDiameter) + 1.5,
+      1e-12,
+    );
+    expect(breakdown.segments[2].reynolds).to.be.closeTo(((flow / ((Math.PI * 0.04 ** 2) / 4)) * 0.04) / nu, 1e-6);
   });
 
   it('Hazen-Williams: H = Hs + a Q^1.852 + b Q^2 exactly, with b = sum K / (2 g A^2)', () => {
@@ -117,13 +132,20 @@ describe('system curve', () => {
       headLossHazenWilliams(5, flow, 0.03, 150) +
       (4 * fittingK('elbow-90-standard', d2) * (flow / area) ** 2) / (2 * 9.80665);
     expect(system.evaluate(flow)).to.be.closeTo(expected, 1e-12);
-    expect(system.hazenWilliams?.b).to.be.closeTo((4 * fittingK('elbow-90-standard', d2)) / (2 * 9.80665 * area * area), 1e-6);
+    expect(system.hazenWilliams?.b).to.be.closeTo(
+      (4 * fittingK('elbow-90-standard', d2)) / (2 * 9.80665 * area * area),
+      1e-6,
+    );
     expect(systemBreakdown(system, flow).totalHead).to.be.closeTo(expected, 1e-12);
   });
 
   it('gives slopes that match central differences for both methods', () => {
     for (const frictionMethod of ['hazen-williams', 'darcy-weisbach'] as const) {
-      const system = compileSystemCurve({ ...darcyInput, frictionMethod, segments: darcyInput.segments.map((s) => ({ ...s, hazenWilliamsC: 140 })) });
+      const system = compileSystemCurve({
+        ...darcyInput,
+        frictionMethod,
+        segments: darcyInput.segments.map((s) => ({ ...s, hazenWilliamsC: 140 })),
+      });
       for (const flow of [1e-5, 3e-4, 2e-3, 1e-2]) {
         const h = flow * 1e-6;
         const numeric = (system.evaluate(flow + h) - system.evaluate(flow - h)) / (2 * h);
@@ -136,7 +158,10 @@ describe('system curve', () => {
     const system = compileSystemCurve({
       staticHead: 1,
       frictionMethod: 'hazen-williams',
-      segments: [{ length: 10, pipeSizeId: 'pvc-sch40-1' }, { length: 10, pipeSizeId: 'pvc-sch40-3' }],
+      segments: [
+        { length: 10, pipeSizeId: 'pvc-sch40-1' },
+        { length: 10, pipeSizeId: 'pvc-sch40-3' },
+      ],
     });
     const area = (Math.PI * pipeSizeById('pvc-sch40-1').insideDiameter ** 2) / 4;
     expect(systemBreakdown(system, 1.5 * area).warnings).to.deep.equal([]);
@@ -148,50 +173,116 @@ describe('system curve', () => {
   it('either throws HydraulicsInputError or evaluates to finite heads, whatever numbers it is given (property)', () => {
     const anyNumber = fc.oneof(fc.double(), fc.constantFrom(0, -1, Number.NaN, Number.POSITIVE_INFINITY));
     fc.assert(
-      fc.property(anyNumber, anyNumber, anyNumber, anyNumber, fc.constantFrom('hazen-williams', 'darcy-weisbach'), (staticHead, length, diameter, extraK, method) => {
-        let system;
-        try {
-          system = compileSystemCurve({
-            staticHead,
-            frictionMethod: method as 'hazen-williams' | 'darcy-weisbach',
-            segments: [{ length, insideDiameter: diameter, hazenWilliamsC: 140, roughness: 1e-5, extraK }],
-          });
-        } catch (error) {
-          return error instanceof HydraulicsInputError;
-        }
-        return [0, 1e-4, 1e-2, 1].every((flow) => Number.isFinite(system.evaluate(flow)) && Number.isFinite(systemBreakdown(system, flow).totalHead));
-      }),
+      fc.property(
+        anyNumber,
+        anyNumber,
+        anyNumber,
+        anyNumber,
+        fc.constantFrom('hazen-williams', 'darcy-weisbach'),
+        (staticHead, length, diameter, extraK, method) => {
+          let system;
+          try {
+            system = compileSystemCurve({
+              staticHead,
+              frictionMethod: method as 'hazen-williams' | 'darcy-weisbach',
+              segments: [{ length, insideDiameter: diameter, hazenWilliamsC: 140, roughness: 1e-5, extraK }],
+            });
+          } catch (error) {
+            return error instanceof HydraulicsInputError;
+          }
+          return [0, 1e-4, 1e-2, 1].every(
+            (flow) =>
+              Number.isFinite(system.evaluate(flow)) && Number.isFinite(systemBreakdown(system, flow).totalHead),
+          );
+        },
+      ),
       { numRuns: 500 },
     );
   });
 
   describe('bad input', () => {
-    const base: SystemCurveInput = { staticHead: 2, frictionMethod: 'hazen-williams', segments: [{ length: 10, pipeSizeId: 'pvc-sch40-2' }] };
+    const base: SystemCurveInput = {
+      staticHead: 2,
+      frictionMethod: 'hazen-williams',
+      segments: [{ length: 10, pipeSizeId: 'pvc-sch40-2' }],
+    };
     const cases: [string, SystemCurveInput, string][] = [
-      ['negative length', { ...base, segments: [base.segments[0], { length: -3, pipeSizeId: 'pvc-sch40-2' }] }, '/segments/1/length'],
+      [
+        'negative length',
+        { ...base, segments: [base.segments[0], { length: -3, pipeSizeId: 'pvc-sch40-2' }] },
+        '/segments/1/length',
+      ],
       ['zero length', { ...base, segments: [{ length: 0, pipeSizeId: 'pvc-sch40-2' }] }, '/segments/0/length'],
-      ['zero diameter', { ...base, segments: [{ length: 1, insideDiameter: 0, hazenWilliamsC: 150 }] }, '/segments/0/insideDiameter'],
-      ['infinite diameter', { ...base, segments: [{ length: 1, insideDiameter: Infinity, hazenWilliamsC: 150 }] }, '/segments/0/insideDiameter'],
+      [
+        'zero diameter',
+        { ...base, segments: [{ length: 1, insideDiameter: 0, hazenWilliamsC: 150 }] },
+        '/segments/0/insideDiameter',
+      ],
+      [
+        'infinite diameter',
+        { ...base, segments: [{ length: 1, insideDiameter: Infinity, hazenWilliamsC: 150 }] },
+        '/segments/0/insideDiameter',
+      ],
       ['NaN static head', { ...base, staticHead: Number.NaN }, '/staticHead'],
       ['no segments', { ...base, segments: [] }, '/segments'],
       ['unknown size', { ...base, segments: [{ length: 1, pipeSizeId: 'pvc-sch40-9' }] }, '/segments/0/pipeSizeId'],
-      ['unknown fitting', { ...base, segments: [{ length: 1, pipeSizeId: 'pvc-sch40-2', fittings: [{ kind: 'exit', count: 1 }, { kind: 'valve-plug', count: 1 }] }] }, '/segments/0/fittings/1/kind'],
-      ['fractional fitting count', { ...base, segments: [{ length: 1, pipeSizeId: 'pvc-sch40-2', fittings: [{ kind: 'exit', count: 1.5 }] }] }, '/segments/0/fittings/0/count'],
-      ['C missing for a bare bore', { ...base, segments: [{ length: 1, insideDiameter: 0.05 }] }, '/segments/0/hazenWilliamsC'],
-      ['roughness missing for a bare bore', { ...base, frictionMethod: 'darcy-weisbach', segments: [{ length: 1, insideDiameter: 0.05, hazenWilliamsC: 150 }] }, '/segments/0/roughness'],
-      ['size and bore both given', { ...base, segments: [{ length: 1, pipeSizeId: 'pvc-sch40-2', insideDiameter: 0.05 }] }, '/segments/0/insideDiameter'],
+      [
+        'unknown fitting',
+        {
+          ...base,
+          segments: [
+            {
+              length: 1,
+              pipeSizeId: 'pvc-sch40-2',
+              fittings: [
+                { kind: 'exit', count: 1 },
+                { kind: 'valve-plug', count: 1 },
+              ],
+            },
+          ],
+        },
+        '/segments/0/fittings/1/kind',
+      ],
+      [
+        'fractional fitting count',
+        { ...base, segments: [{ length: 1, pipeSizeId: 'pvc-sch40-2', fittings: [{ kind: 'exit', count: 1.5 }] }] },
+        '/segments/0/fittings/0/count',
+      ],
+      [
+        'C missing for a bare bore',
+        { ...base, segments: [{ length: 1, insideDiameter: 0.05 }] },
+        '/segments/0/hazenWilliamsC',
+      ],
+      [
+        'roughness missing for a bare bore',
+        {
+          ...base,
+          frictionMethod: 'darcy-weisbach',
+          segments: [{ length: 1, insideDiameter: 0.05, hazenWilliamsC: 150 }],
+        },
+        '/segments/0/roughness',
+      ],
+      [
+        'size and bore both given',
+        { ...base, segments: [{ length: 1, pipeSizeId: 'pvc-sch40-2', insideDiameter: 0.05 }] },
+        '/segments/0/insideDiameter',
+      ],
       ['temperature out of range', { ...base, temperature: 60 }, '/temperature'],
       ['unknown method', { ...base, frictionMethod: 'manning' as never }, '/frictionMethod'],
     ];
     for (const [name, input, field] of cases) {
       it(`${name} -> HydraulicsInputError at ${field}`, () => {
-        expect(() => compileSystemCurve(input)).to.throw(HydraulicsInputError).with.property('field', field);
+        expect(() => compileSystemCurve(input))
+          .to.throw(HydraulicsInputError)
+          .with.property('field', field);
       });
     }
 
     it('a negative or NaN flow in a breakdown -> HydraulicsInputError', () => {
       const system = compileSystemCurve(base);
-      expect(() => systemBreakdown(system, -1)).to.throw(HydraulicsInputError).with.property('field', '/flow');
+      expect(() => systemBreakdown(system, -1))
+        .to.throw(HydraulicsInputError)
+        .with.property('field', '/flow');
       expect(() => systemBreakdown(system, Number.NaN)).to.throw(HydraulicsInputError);
     });
   });

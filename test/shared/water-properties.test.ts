@@ -25,9 +25,15 @@ describe('water properties', () => {
       // Kell 1975 vs IAPWS-95: within 0.02 kg/m3
       expect(waterDensity(reference.temperature)).to.be.closeTo(reference.density, 0.02);
       // Kestin et al. 1978 vs IAPWS 2008: within 0.2 %
-      expect(waterDynamicViscosity(reference.temperature)).to.be.closeTo(reference.viscosity, 0.002 * reference.viscosity);
+      expect(waterDynamicViscosity(reference.temperature)).to.be.closeTo(
+        reference.viscosity,
+        0.002 * reference.viscosity,
+      );
       // Wagner-Pruss 1993 vs the 4-figure IAPWS value: within 0.1 %
-      expect(waterVapourPressure(reference.temperature)).to.be.closeTo(reference.vapourPressure, 0.001 * reference.vapourPressure);
+      expect(waterVapourPressure(reference.temperature)).to.be.closeTo(
+        reference.vapourPressure,
+        0.001 * reference.vapourPressure,
+      );
       expect(waterKinematicViscosity(reference.temperature)).to.be.closeTo(
         reference.viscosity / reference.density,
         0.002 * (reference.viscosity / reference.density),
@@ -54,8 +60,12 @@ describe('water properties', () => {
   });
 
   it('rejects temperatures outside 0-40 C with a typed error', () => {
-    expect(() => waterDensity(-1)).to.throw(HydraulicsInputError, /between 0 and 40/).with.property('field', '/temperature');
+    expect(() => waterDensity(-1))
+      .to.throw(HydraulicsInputError, /between 0 and 40/)
+      .with.property('field', '/temperature');
     expect(() => waterVapourPressure(41)).to.throw(HydraulicsInputError);
-    expect(() => waterKinematicViscosity(Number.NaN, '/water/temperature')).to.throw(HydraulicsInputError).with.property('field', '/water/temperature');
+    expect(() => waterKinematicViscosity(Number.NaN, '/water/temperature'))
+      .to.throw(HydraulicsInputError)
+      .with.property('field', '/water/temperature');
   });
 });

@@ -22,7 +22,8 @@ export async function createUserWithSession(
   role: Role,
   options: { supplierId?: number; email?: string; name?: string } = {},
 ): Promise<{ user: User; token: string }> {
-  if (role === 'supplier-admin' && options.supplierId === undefined) throw new Error('a supplier-admin needs options.supplierId');
+  if (role === 'supplier-admin' && options.supplierId === undefined)
+    throw new Error('a supplier-admin needs options.supplierId');
   testPasswordHash ??= hashPassword(testPassword);
   const number = ++accountCount;
   const user = await User.create({
@@ -50,7 +51,14 @@ export async function createApiToken(
   options: { expiresAt?: Date | null; name?: string } = {},
 ): Promise<string> {
   const { token, hash, prefix } = newSecretToken('apiToken');
-  await ApiToken.create({ userId, name: options.name ?? 'test token', tokenPrefix: prefix, tokenHash: hash, scopes: [...scopes], expiresAt: options.expiresAt ?? null });
+  await ApiToken.create({
+    userId,
+    name: options.name ?? 'test token',
+    tokenPrefix: prefix,
+    tokenHash: hash,
+    scopes: [...scopes],
+    expiresAt: options.expiresAt ?? null,
+  });
   return token;
 }
 
@@ -65,7 +73,9 @@ export function testMailboxFolder(): string {
 export async function waitForMail(to: string, since: Date, timeoutMs = 10_000): Promise<MailboxMessage> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
-    const message = readMailbox(testMailboxFolder()).find((candidate) => candidate.to.includes(to) && candidate.receivedAt >= since.toISOString());
+    const message = readMailbox(testMailboxFolder()).find(
+      (candidate) => candidate.to.includes(to) && candidate.receivedAt >= since.toISOString(),
+    );
     if (message) return message;
     await new Promise((resolve) => setTimeout(resolve, 50));
   }
@@ -80,9 +90,19 @@ export function linkTokenIn(message: MailboxMessage): string {
 }
 
 /** One checksum per table, to show that a refused request wrote nothing. */
-export async function tableChecksums(sequelize: Sequelize, except: readonly string[] = []): Promise<Record<string, string>> {
+export async function tableChecksums(
+  sequelize: Sequelize,
+  except: readonly string[] = [],
+): Promise<Record<string, string>> {
   const [listed] = await sequelize.query('SHOW TABLES');
-  const tables = (listed as Array<Record<string, string>>).map((row) => Object.values(row)[0]).filter((table) => !except.includes(table) && table !== 'schema_migrations');
+  const tables = (listed as Array<Record<string, string>>)
+    .map((row) => Object.values(row)[0])
+    .filter((table) => !except.includes(table) && table !== 'schema_migrations');
   const [rows] = await sequelize.query(`CHECKSUM TABLE ${tables.map((table) => `\`${table}\``).join(', ')} EXTENDED`);
-  return Object.fromEntries((rows as Array<{ Table: string; Checksum: string | number }>).map((row) => [row.Table.split('.').pop()!, String(row.Checksum)]));
+  return Object.fromEntries(
+    (rows as Array<{ Table: string; Checksum: string | number }>).map((row) => [
+      row.Table.split('.').pop()!,
+      String(row.Checksum),
+    ]),
+  );
 }

@@ -7,7 +7,11 @@ class CountingReporter extends Mocha.reporters.Spec {
     super(runner, options);
     runner.once('end', () => {
       const file = process.env.RIFFLE_TEST_COUNTS_FILE;
-      if (file) writeFileSync(file, JSON.stringify({ passed: runner.stats.passes, failed: runner.stats.failures, pending: runner.stats.pending }));
+      if (file)
+        writeFileSync(
+          file,
+          JSON.stringify({ passed: runner.stats.passes, failed: runner.stats.failures, pending: runner.stats.pending }),
+        );
     });
   }
 }

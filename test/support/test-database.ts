@@ -19,10 +19,17 @@ let scratchCount = 0;
  * A new, empty, migrated database of its own on the test server, for a suite that writes.
  * Models are bound to the returned connection.
  */
-export async function createScratchDatabase(label: string): Promise<{ sequelize: Sequelize; drop: () => Promise<void> }> {
+export async function createScratchDatabase(
+  label: string,
+): Promise<{ sequelize: Sequelize; drop: () => Promise<void> }> {
   const base = testDatabaseConfig();
   const name = `riffle_scratch_${label.replace(/[^a-z0-9]/gi, '_').toLowerCase()}_${process.pid}_${++scratchCount}`;
-  const admin = await mariadb.createConnection({ host: base.host, port: base.port, user: base.user, password: base.password });
+  const admin = await mariadb.createConnection({
+    host: base.host,
+    port: base.port,
+    user: base.user,
+    password: base.password,
+  });
   await admin.query(`CREATE DATABASE \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
   await admin.end();
   const sequelize = createSequelize({ ...base, name });
@@ -32,7 +39,12 @@ export async function createScratchDatabase(label: string): Promise<{ sequelize:
     sequelize,
     drop: async () => {
       await sequelize.close();
-      const cleaner = await mariadb.createConnection({ host: base.host, port: base.port, user: base.user, password: base.password });
+      const cleaner = await mariadb.createConnection({
+        host: base.host,
+        port: base.port,
+        user: base.user,
+        password: base.password,
+      });
       await cleaner.query(`DROP DATABASE IF EXISTS \`${name}\``);
       await cleaner.end();
     },

@@ -13,7 +13,10 @@ export async function up({ context }: { context: MigrationContext }): Promise<vo
 
 export async function down({ context }: { context: MigrationContext }): Promise<void> {
   // MariaDB refuses to drop a column that a foreign key still uses: drop the key first, by whatever name it got.
-  const references = (await context.queryInterface.getForeignKeyReferencesForTable('pumps')) as Array<{ columnName: string; constraintName: string }>;
+  const references = (await context.queryInterface.getForeignKeyReferencesForTable('pumps')) as Array<{
+    columnName: string;
+    constraintName: string;
+  }>;
   for (const reference of references.filter((candidate) => candidate.columnName === 'current_revision_id')) {
     await context.queryInterface.removeConstraint('pumps', reference.constraintName);
   }

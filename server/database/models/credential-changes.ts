@@ -10,7 +10,10 @@ export const credentialChanges = new EventEmitter();
 
 const bookkeepingFields = new Set(['lastUsedAt', 'updatedAt']);
 
-function announce(options: { transaction?: Transaction | null; fields?: ReadonlyArray<string | number | symbol> }): void {
+function announce(options: {
+  transaction?: Transaction | null;
+  fields?: ReadonlyArray<string | number | symbol>;
+}): void {
   if (options.fields && options.fields.every((field) => bookkeepingFields.has(String(field)))) return;
   const emit = (): void => {
     credentialChanges.emit('changed');

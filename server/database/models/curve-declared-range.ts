@@ -1,11 +1,21 @@
-import { DataTypes, Model, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 import type { CurveRevision } from './curve-revision';
 
 export const declaredRegions = ['preferred', 'allowable'] as const;
 export type DeclaredRegion = (typeof declaredRegions)[number];
 
 /** A flow range the supplier declares for a curve revision: its preferred or allowable operating region. */
-export class CurveDeclaredRange extends Model<InferAttributes<CurveDeclaredRange>, InferCreationAttributes<CurveDeclaredRange>> {
+export class CurveDeclaredRange extends Model<
+  InferAttributes<CurveDeclaredRange>,
+  InferCreationAttributes<CurveDeclaredRange>
+> {
   declare revisionId: ForeignKey<CurveRevision['id']>;
   declare region: DeclaredRegion;
   declare flowMinM3s: number;

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 import type { CurveRevision } from './curve-revision';
 
 /** One published point of a curve revision, in SI as the engine takes it. */

@@ -11,7 +11,10 @@ import {
 import type { User } from './user';
 
 /** A single-use, expiring link that lets a user set a new password. */
-export class PasswordResetLink extends Model<InferAttributes<PasswordResetLink>, InferCreationAttributes<PasswordResetLink>> {
+export class PasswordResetLink extends Model<
+  InferAttributes<PasswordResetLink>,
+  InferCreationAttributes<PasswordResetLink>
+> {
   declare id: CreationOptional<number>;
   declare userId: ForeignKey<User['id']>;
   declare tokenHash: string;

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 /** A pump maker or distributor whose curve tables Riffle holds. */
 export class Supplier extends Model<InferAttributes<Supplier>, InferCreationAttributes<Supplier>> {

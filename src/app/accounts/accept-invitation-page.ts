@@ -30,7 +30,10 @@ export class AcceptInvitationPage {
   private readonly formBuilder = inject(NonNullableFormBuilder);
   protected readonly form = this.formBuilder.group({
     name: ['', personNameValidators],
-    secret: this.formBuilder.group({ password: ['', newPasswordValidators], confirmation: [''] }, { validators: passwordsMatch }),
+    secret: this.formBuilder.group(
+      { password: ['', newPasswordValidators], confirmation: [''] },
+      { validators: passwordsMatch },
+    ),
   });
   protected readonly problem = signal<string | null>(null);
 

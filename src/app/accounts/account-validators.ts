@@ -3,7 +3,11 @@ import { AbstractControl, ValidationErrors, ValidatorFn, Validators } from '@ang
 /** The server's rule, checked early in the browser: it also refuses common passwords and ones containing the e-mail address. */
 export const passwordMinLength = 10;
 
-export const newPasswordValidators: ValidatorFn[] = [Validators.required, Validators.minLength(passwordMinLength), Validators.maxLength(200)];
+export const newPasswordValidators: ValidatorFn[] = [
+  Validators.required,
+  Validators.minLength(passwordMinLength),
+  Validators.maxLength(200),
+];
 
 /** A form-level check that the two password fields agree. */
 export const passwordsMatch: ValidatorFn = (group: AbstractControl): ValidationErrors | null =>
@@ -12,4 +16,8 @@ export const passwordsMatch: ValidatorFn = (group: AbstractControl): ValidationE
 /** Names and labels as the server accepts them: something visible, no angle brackets or control characters. */
 export const visibleTextPattern = /^[^<>\p{Cc}]*[^\s<>\p{Cc}][^<>\p{Cc}]*$/u;
 
-export const personNameValidators: ValidatorFn[] = [Validators.required, Validators.maxLength(120), Validators.pattern(visibleTextPattern)];
+export const personNameValidators: ValidatorFn[] = [
+  Validators.required,
+  Validators.maxLength(120),
+  Validators.pattern(visibleTextPattern),
+];

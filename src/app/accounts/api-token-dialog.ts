@@ -18,7 +18,17 @@ import { apiScopeChoices } from './api-scopes';
 /** Creates a personal API token and shows it this one time, with a copy button; closes with the new token or nothing. */
 @Component({
   selector: 'rf-api-token-dialog',
-  imports: [ReactiveFormsModule, ClipboardModule, MatDialogModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatIconModule],
+  imports: [
+    ReactiveFormsModule,
+    ClipboardModule,
+    MatDialogModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatIconModule,
+  ],
   templateUrl: './api-token-dialog.html',
   styleUrl: './api-token-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -38,7 +48,9 @@ export class ApiTokenDialog {
   protected readonly form = this.formBuilder.group({
     name: ['', [Validators.required, Validators.maxLength(80), Validators.pattern(visibleTextPattern)]],
     scopes: this.formBuilder.group(
-      Object.fromEntries(apiScopeChoices.map(({ scope }) => [scope, new FormControl(false, { nonNullable: true })])) as Record<ApiScope, FormControl<boolean>>,
+      Object.fromEntries(
+        apiScopeChoices.map(({ scope }) => [scope, new FormControl(false, { nonNullable: true })]),
+      ) as Record<ApiScope, FormControl<boolean>>,
     ),
     expiresInDays: [90],
   });
@@ -56,10 +68,12 @@ export class ApiTokenDialog {
       return;
     }
     this.problem.set(null);
-    this.accountApi.createApiToken({ name, scopes: chosen, ...(expiresInDays > 0 ? { expiresInDays } : {}) }).subscribe({
-      next: (created) => this.created.set(created),
-      error: (error: HttpErrorResponse) => this.problem.set(describeHttpError(error)),
-    });
+    this.accountApi
+      .createApiToken({ name, scopes: chosen, ...(expiresInDays > 0 ? { expiresInDays } : {}) })
+      .subscribe({
+        next: (created) => this.created.set(created),
+        error: (error: HttpErrorResponse) => this.problem.set(describeHttpError(error)),
+      });
   }
 
   protected close(): void {

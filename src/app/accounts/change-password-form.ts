@@ -23,7 +23,10 @@ export class ChangePasswordForm {
 
   protected readonly form = this.formBuilder.group({
     currentPassword: ['', [Validators.required, Validators.maxLength(200)]],
-    next: this.formBuilder.group({ password: ['', newPasswordValidators], confirmation: [''] }, { validators: passwordsMatch }),
+    next: this.formBuilder.group(
+      { password: ['', newPasswordValidators], confirmation: [''] },
+      { validators: passwordsMatch },
+    ),
   });
   protected readonly saving = signal(false);
   protected readonly done = signal(false);

@@ -22,7 +22,10 @@ export class ResetPasswordPage {
 
   readonly token = input<string>();
 
-  protected readonly form = inject(NonNullableFormBuilder).group({ password: ['', newPasswordValidators], confirmation: [''] }, { validators: passwordsMatch });
+  protected readonly form = inject(NonNullableFormBuilder).group(
+    { password: ['', newPasswordValidators], confirmation: [''] },
+    { validators: passwordsMatch },
+  );
   protected readonly done = signal(false);
   protected readonly problem = signal<string | null>(null);
 

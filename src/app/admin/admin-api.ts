@@ -1,7 +1,16 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { AdminUser, AdminUserList, AuditEventList, DemoMailbox, InvitationList, InvitationSummary, NewInvitation, UserChanges } from '../../../shared/api/api-schemas';
+import type {
+  AdminUser,
+  AdminUserList,
+  AuditEventList,
+  DemoMailbox,
+  InvitationList,
+  InvitationSummary,
+  NewInvitation,
+  UserChanges,
+} from '../../../shared/api/api-schemas';
 import { problemShownByCaller } from '../core/problem-details-interceptor';
 
 /** Site-admin endpoints: one method per endpoint. */

@@ -19,7 +19,17 @@ import { roleChoices } from '../core/role-labels';
 /** Invite people by e-mail and role; change roles and supplier bindings; disable accounts. */
 @Component({
   selector: 'rf-admin-users-page',
-  imports: [DatePipe, ReactiveFormsModule, MatCardModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatSlideToggleModule, MatTableModule],
+  imports: [
+    DatePipe,
+    ReactiveFormsModule,
+    MatCardModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatSlideToggleModule,
+    MatTableModule,
+  ],
   templateUrl: './admin-users-page.html',
   styleUrl: './admin-users-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -41,7 +51,9 @@ export class AdminUsersPage {
     role: ['designer' as Role, Validators.required],
     supplierId: [null as number | null],
   });
-  private readonly invitedRole = toSignal(this.inviteForm.controls.role.valueChanges, { initialValue: this.inviteForm.controls.role.value });
+  private readonly invitedRole = toSignal(this.inviteForm.controls.role.valueChanges, {
+    initialValue: this.inviteForm.controls.role.value,
+  });
   protected readonly inviteNeedsSupplier = computed(() => this.invitedRole() === 'supplier-admin');
 
   constructor() {
@@ -56,13 +68,16 @@ export class AdminUsersPage {
     const { email, role, supplierId } = this.inviteForm.getRawValue();
     if (this.inviteForm.invalid || (role === 'supplier-admin' && supplierId === null)) {
       this.inviteForm.markAllAsTouched();
-      if (role === 'supplier-admin' && supplierId === null) this.inviteForm.controls.supplierId.setErrors({ required: true });
+      if (role === 'supplier-admin' && supplierId === null)
+        this.inviteForm.controls.supplierId.setErrors({ required: true });
       return;
     }
     this.problem.set(null);
     this.adminApi.inviteUser({ email, role, supplierId: role === 'supplier-admin' ? supplierId : null }).subscribe({
       next: (invitation) => {
-        this.notice.set(`Invitation e-mailed to ${invitation.email}; the link works once, until ${new Date(invitation.expiresAt).toLocaleDateString()}.`);
+        this.notice.set(
+          `Invitation e-mailed to ${invitation.email}; the link works once, until ${new Date(invitation.expiresAt).toLocaleDateString()}.`,
+        );
         formDirective.resetForm({ email: '', role: 'designer', supplierId: null });
         this.reload();
       },
@@ -87,7 +102,10 @@ export class AdminUsersPage {
     this.problem.set(null);
     this.adminApi.updateUser(user.id, changes).subscribe({
       next: (updated) => {
-        this.list.update((list) => ({ ...list, users: list.users.map((candidate) => (candidate.id === updated.id ? updated : candidate)) }));
+        this.list.update((list) => ({
+          ...list,
+          users: list.users.map((candidate) => (candidate.id === updated.id ? updated : candidate)),
+        }));
         this.notice.set(`Saved ${updated.email}.`);
       },
       error: (error: HttpErrorResponse) => {

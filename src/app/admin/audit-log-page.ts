@@ -20,7 +20,9 @@ import { AdminApi } from './admin-api';
       </ng-container>
       <ng-container matColumnDef="action">
         <th mat-header-cell *matHeaderCellDef>What</th>
-        <td mat-cell *matCellDef="let event"><code [class.rf-failure]="event.action.endsWith('-failed')">{{ event.action }}</code></td>
+        <td mat-cell *matCellDef="let event">
+          <code [class.rf-failure]="event.action.endsWith('-failed')">{{ event.action }}</code>
+        </td>
       </ng-container>
       <ng-container matColumnDef="actor">
         <th mat-header-cell *matHeaderCellDef>By</th>

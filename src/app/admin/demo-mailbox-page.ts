@@ -13,7 +13,10 @@ interface TextPart {
 }
 
 function splitLinks(text: string): TextPart[] {
-  return text.split(/(https?:\/\/\S+)/).filter((part) => part !== '').map((part) => ({ text: part, link: /^https?:\/\//.test(part) }));
+  return text
+    .split(/(https?:\/\/\S+)/)
+    .filter((part) => part !== '')
+    .map((part) => ({ text: part, link: /^https?:\/\//.test(part) }));
 }
 
 /** What the built-in demo mail server received, so invitations and resets can be followed without a mailbox. */
@@ -35,7 +38,8 @@ export class DemoMailboxPage {
 
   protected reload(): void {
     this.adminApi.listDemoMail().subscribe({
-      next: ({ messages }) => this.messages.set(messages.map((message) => ({ ...message, parts: splitLinks(message.text) }))),
+      next: ({ messages }) =>
+        this.messages.set(messages.map((message) => ({ ...message, parts: splitLinks(message.text) }))),
       error: () => this.unavailable.set(true),
     });
   }

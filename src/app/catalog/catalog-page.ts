@@ -1,6 +1,13 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
-import { AbstractControl, FormBuilder, ReactiveFormsModule, type ValidationErrors, type ValidatorFn, Validators } from '@angular/forms';
+import {
+  AbstractControl,
+  FormBuilder,
+  ReactiveFormsModule,
+  type ValidationErrors,
+  type ValidatorFn,
+  Validators,
+} from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -27,7 +34,18 @@ function orderedRange(minName: string, maxName: string): ValidatorFn {
 /** Every pump of the catalog: filter by kind, supplier, flow and head, sort and page on the server. */
 @Component({
   selector: 'rf-catalog-page',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatPaginatorModule, MatSelectModule, MatSortModule, MatTableModule],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatPaginatorModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+  ],
   templateUrl: './catalog-page.html',
   styleUrl: './catalog-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -94,7 +112,16 @@ export class CatalogPage {
   }
 
   protected clearFilters(): void {
-    this.filters.reset({ kind: '', supplierId: null, search: '', flowMin: null, flowMax: null, headMin: null, headMax: null, units: this.unitIndex() });
+    this.filters.reset({
+      kind: '',
+      supplierId: null,
+      search: '',
+      flowMin: null,
+      flowMax: null,
+      headMin: null,
+      headMax: null,
+      units: this.unitIndex(),
+    });
     this.applyFilters();
   }
 

@@ -23,7 +23,10 @@ function fitWithBep(bepFlow: number | null, flowMin = 0, flowMax = 0.01): Stored
 
 describe('preferredBandOf', () => {
   it("takes the supplier's declared range when there is one", () => {
-    expect(preferredBandOf(fitWithBep(0.005), { flowMin: 0.001, flowMax: 0.002 })).toEqual({ range: { flowMin: 0.001, flowMax: 0.002 }, source: 'supplier' });
+    expect(preferredBandOf(fitWithBep(0.005), { flowMin: 0.001, flowMax: 0.002 })).toEqual({
+      range: { flowMin: 0.001, flowMax: 0.002 },
+      source: 'supplier',
+    });
   });
 
   it('otherwise draws 70-120 % of BEP flow (ANSI/HI 9.6.3 default POR)', () => {

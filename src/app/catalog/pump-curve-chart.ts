@@ -1,7 +1,14 @@
 import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, input, viewChild } from '@angular/core';
 import { axisBottom, axisLeft, axisRight, line, scaleLinear, select } from 'd3';
 import type { CurvePointSi, FlowRange, StoredPumpCurveFit } from '../../../shared/api/api-schemas';
-import { DEFAULT_PREFERRED_BAND, flowFromSI, headFromSI, pumpEfficiencyAt, pumpHeadAt, type PumpCurveFit } from '../../../shared/hydraulics';
+import {
+  DEFAULT_PREFERRED_BAND,
+  flowFromSI,
+  headFromSI,
+  pumpEfficiencyAt,
+  pumpHeadAt,
+  type PumpCurveFit,
+} from '../../../shared/hydraulics';
 import type { DisplayUnits } from './display-units';
 
 /** Where the preferred band comes from: the supplier's declaration, or 70-120 % of BEP flow. */
@@ -27,7 +34,12 @@ const samples = 60;
 /** A pump's head curve (published points and fit), its efficiency, the BEP and the preferred band, drawn with D3. */
 @Component({
   selector: 'rf-pump-curve-chart',
-  template: `<svg #chart [attr.viewBox]="'0 0 ' + width() + ' ' + height()" role="img" [attr.aria-label]="description()"></svg>`,
+  template: `<svg
+    #chart
+    [attr.viewBox]="'0 0 ' + width() + ' ' + height()"
+    role="img"
+    [attr.aria-label]="description()"
+  ></svg>`,
   styles: `
     :host {
       display: block;
@@ -55,7 +67,9 @@ export class PumpCurveChart {
   protected readonly description = computed(() => {
     const fit = this.fit();
     const units = this.units();
-    const bep = fit?.bep ? `; BEP at ${Number(flowFromSI(fit.bep.flow, units.flow).toPrecision(3))} ${units.flow}, ${Number(headFromSI(fit.bep.head, units.head).toPrecision(3))} ${units.head}` : '';
+    const bep = fit?.bep
+      ? `; BEP at ${Number(flowFromSI(fit.bep.flow, units.flow).toPrecision(3))} ${units.flow}, ${Number(headFromSI(fit.bep.head, units.head).toPrecision(3))} ${units.head}`
+      : '';
     return `Pump curve: head against flow, ${this.points().length} published points${bep}`;
   });
 
@@ -78,9 +92,17 @@ export class PumpCurveChart {
     const head = (value: number) => headFromSI(value, units.head);
     const flowMax = Math.max(...points.map((point) => point.flow), fit?.flowMax ?? 0);
     const headMax = Math.max(...points.map((point) => point.head), fit?.shutOffHead ?? 0);
-    const x = scaleLinear().domain([0, flow(flowMax) * 1.05]).range([margin.left, width - margin.right]).nice();
-    const y = scaleLinear().domain([0, head(headMax) * 1.1]).range([height - margin.bottom, margin.top]).nice();
-    const efficiency = scaleLinear().domain([0, 100]).range([height - margin.bottom, margin.top]);
+    const x = scaleLinear()
+      .domain([0, flow(flowMax) * 1.05])
+      .range([margin.left, width - margin.right])
+      .nice();
+    const y = scaleLinear()
+      .domain([0, head(headMax) * 1.1])
+      .range([height - margin.bottom, margin.top])
+      .nice();
+    const efficiency = scaleLinear()
+      .domain([0, 100])
+      .range([height - margin.bottom, margin.top]);
 
     const band = preferredBandOf(this.fit(), this.preferred());
     if (band) {
@@ -95,22 +117,49 @@ export class PumpCurveChart {
         .attr('fill-opacity', 0.12);
     }
 
-    const axisX = root.append('g').attr('transform', `translate(0,${height - margin.bottom})`).call(axisBottom(x).ticks(compact ? 3 : 8));
-    const axisY = root.append('g').attr('transform', `translate(${margin.left},0)`).call(axisLeft(y).ticks(compact ? 3 : 6));
+    const axisX = root
+      .append('g')
+      .attr('transform', `translate(0,${height - margin.bottom})`)
+      .call(axisBottom(x).ticks(compact ? 3 : 8));
+    const axisY = root
+      .append('g')
+      .attr('transform', `translate(${margin.left},0)`)
+      .call(axisLeft(y).ticks(compact ? 3 : 6));
     for (const axis of [axisX, axisY]) axis.selectAll('text').attr('font-size', compact ? 8 : 12);
 
     if (fit) {
-      const flows = Array.from({ length: samples + 1 }, (_, index) => fit.flowMin + ((fit.flowMax - fit.flowMin) * index) / samples);
+      const flows = Array.from(
+        { length: samples + 1 },
+        (_, index) => fit.flowMin + ((fit.flowMax - fit.flowMin) * index) / samples,
+      );
       const headLine = line<number>()
         .x((q) => x(flow(q)))
         .y((q) => y(head(pumpHeadAt(fit, q))));
-      root.append('path').attr('class', 'rf-fit').attr('d', headLine(flows)).attr('fill', 'none').attr('stroke', '#12383d').attr('stroke-width', compact ? 1.5 : 2.5);
+      root
+        .append('path')
+        .attr('class', 'rf-fit')
+        .attr('d', headLine(flows))
+        .attr('fill', 'none')
+        .attr('stroke', '#12383d')
+        .attr('stroke-width', compact ? 1.5 : 2.5);
       if (fit.efficiencyCoefficients && !compact) {
         const efficiencyLine = line<number>()
           .x((q) => x(flow(q)))
           .y((q) => efficiency(100 * (pumpEfficiencyAt(fit, q) ?? 0)));
-        root.append('path').attr('class', 'rf-efficiency').attr('d', efficiencyLine(flows)).attr('fill', 'none').attr('stroke', '#b5643c').attr('stroke-dasharray', '6 4').attr('stroke-width', 2);
-        root.append('g').attr('transform', `translate(${width - margin.right},0)`).call(axisRight(efficiency).ticks(5)).selectAll('text').attr('font-size', 12);
+        root
+          .append('path')
+          .attr('class', 'rf-efficiency')
+          .attr('d', efficiencyLine(flows))
+          .attr('fill', 'none')
+          .attr('stroke', '#b5643c')
+          .attr('stroke-dasharray', '6 4')
+          .attr('stroke-width', 2);
+        root
+          .append('g')
+          .attr('transform', `translate(${width - margin.right},0)`)
+          .call(axisRight(efficiency).ticks(5))
+          .selectAll('text')
+          .attr('font-size', 12);
       }
     }
 
@@ -133,18 +182,44 @@ export class PumpCurveChart {
       root
         .append('path')
         .attr('class', 'rf-bep')
-        .attr('d', `M${bx},${by - (compact ? 5 : 8)} L${bx + (compact ? 5 : 8)},${by} L${bx},${by + (compact ? 5 : 8)} L${bx - (compact ? 5 : 8)},${by} Z`)
+        .attr(
+          'd',
+          `M${bx},${by - (compact ? 5 : 8)} L${bx + (compact ? 5 : 8)},${by} L${bx},${by + (compact ? 5 : 8)} L${bx - (compact ? 5 : 8)},${by} Z`,
+        )
         .attr('fill', '#b5643c');
       if (!compact) {
-        root.append('text').attr('x', bx + 12).attr('y', by - 10).attr('font-size', 12).attr('fill', '#7a3d1f').text(`BEP ${(100 * fit.bep.efficiency).toFixed(0)} %`);
+        root
+          .append('text')
+          .attr('x', bx + 12)
+          .attr('y', by - 10)
+          .attr('font-size', 12)
+          .attr('fill', '#7a3d1f')
+          .text(`BEP ${(100 * fit.bep.efficiency).toFixed(0)} %`);
       }
     }
 
     if (!compact) {
-      root.append('text').attr('x', (margin.left + width - margin.right) / 2).attr('y', height - 8).attr('text-anchor', 'middle').attr('font-size', 13).text(`Flow (${units.flow})`);
-      root.append('text').attr('transform', `translate(16,${(margin.top + height - margin.bottom) / 2}) rotate(-90)`).attr('text-anchor', 'middle').attr('font-size', 13).text(`Head (${units.head})`);
+      root
+        .append('text')
+        .attr('x', (margin.left + width - margin.right) / 2)
+        .attr('y', height - 8)
+        .attr('text-anchor', 'middle')
+        .attr('font-size', 13)
+        .text(`Flow (${units.flow})`);
+      root
+        .append('text')
+        .attr('transform', `translate(16,${(margin.top + height - margin.bottom) / 2}) rotate(-90)`)
+        .attr('text-anchor', 'middle')
+        .attr('font-size', 13)
+        .text(`Head (${units.head})`);
       if (fit?.efficiencyCoefficients) {
-        root.append('text').attr('transform', `translate(${width - 14},${(margin.top + height - margin.bottom) / 2}) rotate(90)`).attr('text-anchor', 'middle').attr('font-size', 13).attr('fill', '#7a3d1f').text('Efficiency (%)');
+        root
+          .append('text')
+          .attr('transform', `translate(${width - 14},${(margin.top + height - margin.bottom) / 2}) rotate(90)`)
+          .attr('text-anchor', 'middle')
+          .attr('font-size', 13)
+          .attr('fill', '#7a3d1f')
+          .text('Efficiency (%)');
       }
     }
   }

@@ -40,7 +40,11 @@ export class PumpPage {
       switchMap(([pumpId, revision]) =>
         this.api.getPump(Number(pumpId), revision ? Number(revision) : undefined).pipe(
           map((detail): Loaded => ({ detail })),
-          catchError((error: { status?: number }) => of<Loaded>({ problem: error.status === 404 ? 'There is no such pump or revision.' : 'The pump could not be loaded.' })),
+          catchError((error: { status?: number }) =>
+            of<Loaded>({
+              problem: error.status === 404 ? 'There is no such pump or revision.' : 'The pump could not be loaded.',
+            }),
+          ),
         ),
       ),
     ),

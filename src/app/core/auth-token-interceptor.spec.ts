@@ -16,7 +16,12 @@ describe('authTokenInterceptor and SessionService', () => {
   beforeEach(() => {
     localStorage.clear();
     TestBed.configureTestingModule({
-      providers: [provideZonelessChangeDetection(), provideRouter([]), provideHttpClient(withInterceptors([authTokenInterceptor])), provideHttpClientTesting()],
+      providers: [
+        provideZonelessChangeDetection(),
+        provideRouter([]),
+        provideHttpClient(withInterceptors([authTokenInterceptor])),
+        provideHttpClientTesting(),
+      ],
     });
   });
 
@@ -27,7 +32,9 @@ describe('authTokenInterceptor and SessionService', () => {
     expect(controller.expectOne('/api/v1/health').request.headers.has('Authorization')).toBe(false);
     TestBed.inject(SessionService).start(session);
     http.get('/api/v1/auth/me').subscribe();
-    expect(controller.expectOne('/api/v1/auth/me').request.headers.get('Authorization')).toBe(`Bearer ${session.token}`);
+    expect(controller.expectOne('/api/v1/auth/me').request.headers.get('Authorization')).toBe(
+      `Bearer ${session.token}`,
+    );
     http.get('/riffle-mark.svg').subscribe();
     expect(controller.expectOne('/riffle-mark.svg').request.headers.has('Authorization')).toBe(false);
   });
@@ -36,8 +43,12 @@ describe('authTokenInterceptor and SessionService', () => {
     const sessions = TestBed.inject(SessionService);
     const navigate = vi.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
     sessions.start(session);
-    TestBed.inject(HttpClient).get('/api/v1/account/api-tokens').subscribe({ error: () => undefined });
-    TestBed.inject(HttpTestingController).expectOne('/api/v1/account/api-tokens').flush({ title: 'Sign-in required', status: 401 }, { status: 401, statusText: 'Unauthorized' });
+    TestBed.inject(HttpClient)
+      .get('/api/v1/account/api-tokens')
+      .subscribe({ error: () => undefined });
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/v1/account/api-tokens')
+      .flush({ title: 'Sign-in required', status: 401 }, { status: 401, statusText: 'Unauthorized' });
     expect(sessions.signedIn()).toBe(false);
     expect(localStorage.getItem('riffle.session')).toBeNull();
     expect(navigate).toHaveBeenCalledWith(['/accounts/sign-in'], { queryParams: { returnTo: '/' } });

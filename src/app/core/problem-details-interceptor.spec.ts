@@ -24,16 +24,28 @@ describe('problemDetailsInterceptor', () => {
 
   it('says a problem in a snack bar and still hands the error to the caller', () => {
     let handed = false;
-    TestBed.inject(HttpClient).get('/api/v1/pumps').subscribe({ error: () => (handed = true) });
-    TestBed.inject(HttpTestingController).expectOne('/api/v1/pumps').flush(problem, { status: 422, statusText: 'Unprocessable Content' });
-    expect(open).toHaveBeenCalledWith('Wrong current password: The current password is not right', 'Dismiss', expect.anything());
+    TestBed.inject(HttpClient)
+      .get('/api/v1/pumps')
+      .subscribe({ error: () => (handed = true) });
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/v1/pumps')
+      .flush(problem, { status: 422, statusText: 'Unprocessable Content' });
+    expect(open).toHaveBeenCalledWith(
+      'Wrong current password: The current password is not right',
+      'Dismiss',
+      expect.anything(),
+    );
     expect(handed).toBe(true);
   });
 
   it('leaves the problem to a form that shows it itself', () => {
     let handed = false;
-    TestBed.inject(HttpClient).put('/api/v1/account/password', {}, problemShownByCaller()).subscribe({ error: () => (handed = true) });
-    TestBed.inject(HttpTestingController).expectOne('/api/v1/account/password').flush(problem, { status: 422, statusText: 'Unprocessable Content' });
+    TestBed.inject(HttpClient)
+      .put('/api/v1/account/password', {}, problemShownByCaller())
+      .subscribe({ error: () => (handed = true) });
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/v1/account/password')
+      .flush(problem, { status: 422, statusText: 'Unprocessable Content' });
     expect(open).not.toHaveBeenCalled();
     expect(handed).toBe(true);
   });

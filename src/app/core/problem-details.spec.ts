@@ -5,7 +5,13 @@ describe('describeHttpError', () => {
   it('shows the title, detail and field of problem details', () => {
     const error = new HttpErrorResponse({
       status: 400,
-      error: { type: '/api/v1/problems/invalid-request', title: 'Invalid request', status: 400, detail: 'must be > 0', pointer: '/body/segments/0/length' },
+      error: {
+        type: '/api/v1/problems/invalid-request',
+        title: 'Invalid request',
+        status: 400,
+        detail: 'must be > 0',
+        pointer: '/body/segments/0/length',
+      },
     });
     expect(describeHttpError(error)).toBe('Invalid request: must be > 0 (/body/segments/0/length)');
   });
@@ -15,6 +21,8 @@ describe('describeHttpError', () => {
   });
 
   it('falls back to the status line when the body is not problem details', () => {
-    expect(describeHttpError(new HttpErrorResponse({ status: 502, statusText: 'Bad Gateway', error: '<html>' }))).toBe('The server answered 502 Bad Gateway.');
+    expect(describeHttpError(new HttpErrorResponse({ status: 502, statusText: 'Bad Gateway', error: '<html>' }))).toBe(
+      'The server answered 502 Bad Gateway.',
+    );
   });
 });

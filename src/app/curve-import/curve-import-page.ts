@@ -14,7 +14,12 @@ import { attachmentFileName, saveFile } from '../core/file-download';
 import { SessionService } from '../core/session-service';
 import { CurveImportApi } from './curve-import-api';
 
-const outcomeLabels: Record<string, string> = { new: 'New pump', changed: 'Changed', unchanged: 'Unchanged', refused: 'Refused' };
+const outcomeLabels: Record<string, string> = {
+  new: 'New pump',
+  changed: 'Changed',
+  unchanged: 'Unchanged',
+  refused: 'Refused',
+};
 
 /** For supplier admins: check a curve-table file, preview every pump with its fit, commit it, see past imports, download the current table. */
 @Component({
@@ -61,8 +66,12 @@ export class CurveImportPage {
   );
   private readonly chosenSupplierId = signal<number | null>(null);
   /** A supplier admin's own supplier; an admin picks one. */
-  protected readonly supplierId = computed(() => this.session.user()?.supplierId ?? this.chosenSupplierId() ?? this.suppliers()[0]?.id ?? null);
-  protected readonly supplierName = computed(() => this.suppliers().find((supplier) => supplier.id === this.supplierId())?.name ?? '');
+  protected readonly supplierId = computed(
+    () => this.session.user()?.supplierId ?? this.chosenSupplierId() ?? this.suppliers()[0]?.id ?? null,
+  );
+  protected readonly supplierName = computed(
+    () => this.suppliers().find((supplier) => supplier.id === this.supplierId())?.name ?? '',
+  );
 
   protected readonly file = signal<File | null>(null);
   protected readonly report = signal<CurveImportReport | null>(null);
@@ -77,7 +86,13 @@ export class CurveImportPage {
   });
   protected readonly canCommit = computed(() => {
     const report = this.report();
-    return !!report && report.dryRun && report.errors.length === 0 && report.counts.new + report.counts.changed > 0 && !this.busy();
+    return (
+      !!report &&
+      report.dryRun &&
+      report.errors.length === 0 &&
+      report.counts.new + report.counts.changed > 0 &&
+      !this.busy()
+    );
   });
 
   constructor() {
@@ -109,12 +124,15 @@ export class CurveImportPage {
     const supplierId = this.supplierId();
     if (supplierId === null) return;
     this.api.exportCurveTable(supplierId).subscribe((response) => {
-      if (response.body) saveFile(response.body, attachmentFileName(response.headers.get('Content-Disposition'), 'curve-table.csv'));
+      if (response.body)
+        saveFile(response.body, attachmentFileName(response.headers.get('Content-Disposition'), 'curve-table.csv'));
     });
   }
 
   protected describe(issue: CurveImportIssue): string {
-    const where = [issue.row !== null ? `Row ${issue.row}` : null, issue.column ? `column ${issue.column}` : null].filter(Boolean).join(', ');
+    const where = [issue.row !== null ? `Row ${issue.row}` : null, issue.column ? `column ${issue.column}` : null]
+      .filter(Boolean)
+      .join(', ');
     return `${where || 'File'}: ${issue.message}${issue.expected ? ` (expected ${issue.expected})` : ''}`;
   }
 

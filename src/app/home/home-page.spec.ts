@@ -23,9 +23,13 @@ describe('HomePage', () => {
   it('shows the service status from the health endpoint', async () => {
     const fixture = TestBed.createComponent(HomePage);
     fixture.detectChanges();
-    TestBed.inject(HttpTestingController).expectOne('/api/v1/health').flush({ status: 'ok', database: 'up', version: '9.9.9' });
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/v1/health')
+      .flush({ status: 'ok', database: 'up', version: '9.9.9' });
     await fixture.whenStable();
-    expect((fixture.nativeElement as HTMLElement).querySelector('.rf-status')?.textContent).toContain('database up, version 9.9.9');
+    expect((fixture.nativeElement as HTMLElement).querySelector('.rf-status')?.textContent).toContain(
+      'database up, version 9.9.9',
+    );
   });
 
   it('says so when the service cannot be reached', async () => {
@@ -33,6 +37,8 @@ describe('HomePage', () => {
     fixture.detectChanges();
     TestBed.inject(HttpTestingController).expectOne('/api/v1/health').error(new ProgressEvent('error'));
     await fixture.whenStable();
-    expect((fixture.nativeElement as HTMLElement).querySelector('.rf-status')?.textContent).toContain('cannot be reached');
+    expect((fixture.nativeElement as HTMLElement).querySelector('.rf-status')?.textContent).toContain(
+      'cannot be reached',
+    );
   });
 });

@@ -20,7 +20,11 @@ interface WorkStep {
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class HomePage {
-  protected readonly health = toSignal(inject(HealthApi).getHealth().pipe(catchError(() => of(null))));
+  protected readonly health = toSignal(
+    inject(HealthApi)
+      .getHealth()
+      .pipe(catchError(() => of(null))),
+  );
 
   protected readonly steps: readonly WorkStep[] = [
     {

@@ -19,17 +19,17 @@ import { MatIconModule } from '@angular/material/icon';
           relief against entrapment.
         </li>
         <li>
-          <strong>Running the pumps.</strong> No dry running and no running against a closed valve; a check valve on every
-          parallel pump; close valves slowly to spare the pipe from water hammer.
+          <strong>Running the pumps.</strong> No dry running and no running against a closed valve; a check valve on
+          every parallel pump; close valves slowly to spare the pipe from water hammer.
         </li>
         <li>
-          <strong>Vaults, wet wells and trenches</strong> are confined spaces and excavations: follow the entry and shoring
-          rules that apply.
+          <strong>Vaults, wet wells and trenches</strong> are confined spaces and excavations: follow the entry and
+          shoring rules that apply.
         </li>
         <li>
           <strong>Estimates, not guarantees.</strong> Every figure here is a design estimate from published curves and
-          textbook formulas: verify it against the pump maker's data, local codes and licensed practice before
-          ordering or building.
+          textbook formulas: verify it against the pump maker's data, local codes and licensed practice before ordering
+          or building.
         </li>
       </ul>
     </aside>

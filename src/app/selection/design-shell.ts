@@ -22,7 +22,15 @@ interface DesignStep {
 /** The designer's flow in one place: five steps over one draft, saved as a project, with the cautions always in view. */
 @Component({
   selector: 'rf-design-shell',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatButtonModule, MatButtonToggleModule, CautionsPanel],
+  imports: [
+    RouterOutlet,
+    RouterLink,
+    RouterLinkActive,
+    MatIconModule,
+    MatButtonModule,
+    MatButtonToggleModule,
+    CautionsPanel,
+  ],
   template: `
     <header class="rf-design-head">
       <h1>Pump selection</h1>
@@ -38,17 +46,21 @@ interface DesignStep {
       </mat-button-toggle-group>
     </header>
     @if (canSave()) {
-    <div class="rf-project-bar">
-      <span class="rf-project-name"><mat-icon aria-hidden="true">folder</mat-icon> {{ draft.project()?.name ?? 'Unsaved design' }}</span>
-      <button mat-stroked-button type="button" (click)="save()"><mat-icon>save</mat-icon> Save</button>
-      @if (draft.project()) {
-        <button mat-button type="button" (click)="saveAsNew()">Save as new</button>
-      }
-      <a mat-button routerLink="projects" routerLinkActive="rf-step-active"><mat-icon>folder_open</mat-icon> Projects</a>
-      @if (saveNote(); as note) {
-        <span class="rf-save-note" role="status">{{ note }}</span>
-      }
-    </div>
+      <div class="rf-project-bar">
+        <span class="rf-project-name"
+          ><mat-icon aria-hidden="true">folder</mat-icon> {{ draft.project()?.name ?? 'Unsaved design' }}</span
+        >
+        <button mat-stroked-button type="button" (click)="save()"><mat-icon>save</mat-icon> Save</button>
+        @if (draft.project()) {
+          <button mat-button type="button" (click)="saveAsNew()">Save as new</button>
+        }
+        <a mat-button routerLink="projects" routerLinkActive="rf-step-active"
+          ><mat-icon>folder_open</mat-icon> Projects</a
+        >
+        @if (saveNote(); as note) {
+          <span class="rf-save-note" role="status">{{ note }}</span>
+        }
+      </div>
     }
     <nav class="rf-design-steps" aria-label="Design steps">
       @for (step of steps; track step.path; let index = $index) {
@@ -136,7 +148,10 @@ interface DesignStep {
 export class DesignShell {
   protected readonly draft = inject(SelectionDraft);
   protected readonly comparedCount = computed(() => this.draft.compared().length);
-  protected readonly unitChoices = (Object.keys(unitSystems) as UnitSystem[]).map((id) => ({ id, label: unitSystems[id].label }));
+  protected readonly unitChoices = (Object.keys(unitSystems) as UnitSystem[]).map((id) => ({
+    id,
+    label: unitSystems[id].label,
+  }));
   protected readonly steps: readonly DesignStep[] = [
     { path: 'system', label: 'Site & system', icon: 'landscape' },
     { path: 'band', label: 'Flow band', icon: 'waves' },
@@ -148,7 +163,9 @@ export class DesignShell {
   private readonly projectsApi = inject(ProjectsApi);
   private readonly session = inject(SessionService);
   /** Projects are kept for the roles that design: designers, integrators and admins. */
-  protected readonly canSave = computed(() => this.session.signedIn() && this.session.hasRole(['designer', 'integrator', 'admin']));
+  protected readonly canSave = computed(
+    () => this.session.signedIn() && this.session.hasRole(['designer', 'integrator', 'admin']),
+  );
   private readonly dialog = inject(MatDialog);
   /** What the last save did, or why it failed. */
   protected readonly saveNote = signal<string | null>(null);

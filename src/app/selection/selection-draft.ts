@@ -1,5 +1,12 @@
 import { Injectable, computed, effect, signal } from '@angular/core';
-import type { DesignDraft, DesignSearch, DutyBand, Project, SelectionCandidate, SelectionResponse } from '../../../shared/api/api-schemas';
+import type {
+  DesignDraft,
+  DesignSearch,
+  DutyBand,
+  Project,
+  SelectionCandidate,
+  SelectionResponse,
+} from '../../../shared/api/api-schemas';
 import { convertFlow } from '../../../shared/hydraulics';
 import { convertSystemDraft, exampleDraft, toPipeSystem, type SystemDraft } from './system-draft';
 import { unitSystems, type UnitSystem } from './unit-systems';
@@ -39,7 +46,16 @@ function initialDraft(): StoredDraft {
     unitSystem: 'us',
     system: exampleDraft(),
     band: { flowMin: 90, flowMax: 130 },
-    search: { arrangements: [1, 2], requireOneFailed: true, standby: false, onlyPreferredRegion: false, maxInputPowerPerPump: null, hoursPerDay: 24, tariffPerKWh: 0.18, limit: 20 },
+    search: {
+      arrangements: [1, 2],
+      requireOneFailed: true,
+      standby: false,
+      onlyPreferredRegion: false,
+      maxInputPowerPerPump: null,
+      hoursPerDay: 24,
+      tariffPerKWh: 0.18,
+      limit: 20,
+    },
     results: null,
     compared: [],
   };
@@ -114,7 +130,15 @@ export class SelectionDraft {
   /** Opens a saved project: its design replaces the draft, and the search is to run again. */
   openProject(project: Project): void {
     const { unitSystem, system, band, search } = project.design;
-    this.stored.set({ project: { id: project.id, name: project.name }, unitSystem, system, band, search, results: null, compared: [] });
+    this.stored.set({
+      project: { id: project.id, name: project.name },
+      unitSystem,
+      system,
+      band,
+      search,
+      results: null,
+      compared: [],
+    });
   }
 
   /** The draft now is the saved project `project`. */

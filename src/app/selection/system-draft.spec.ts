@@ -26,7 +26,13 @@ describe('system draft', () => {
   it('converts the measured system to metric and back to the numbers typed', () => {
     const us = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' } as const;
     const si = { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm' } as const;
-    const draft = { ...exampleDraft(), staticMode: 'levels' as const, intakeLevel: 335.794, dischargeLevel: 350.294, outletPressureHead: 2.31 };
+    const draft = {
+      ...exampleDraft(),
+      staticMode: 'levels' as const,
+      intakeLevel: 335.794,
+      dischargeLevel: 350.294,
+      outletPressureHead: 2.31,
+    };
     const metric = convertSystemDraft(draft, us, si);
     // 1 ft = 0.3048 m exactly
     expect(metric.staticHead).toBe(4.4196);

@@ -1,5 +1,12 @@
 import type { CalculationUnits, DesignSystem, PipeSystem } from '../../../shared/api/api-schemas';
-import { compileSystemCurve, convertHead, convertLength, headToSI, lengthToSI, type CompiledSystemCurve } from '../../../shared/hydraulics';
+import {
+  compileSystemCurve,
+  convertHead,
+  convertLength,
+  headToSI,
+  lengthToSI,
+  type CompiledSystemCurve,
+} from '../../../shared/hydraulics';
 
 /** The system as the designer's form holds it, in the draft's unit system (the contract's DesignSystem). */
 export type SystemDraft = DesignSystem;

@@ -13,6 +13,16 @@ export interface UnitSystemDefinition {
 }
 
 export const unitSystems: Readonly<Record<UnitSystem, UnitSystemDefinition>> = {
-  us: { label: 'US (gpm, ft, in)', units: { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' }, volume: 'gal', weirWidth: 'in' },
-  si: { label: 'Metric (L/min, m, mm)', units: { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm', power: 'kW' }, volume: 'm3', weirWidth: 'mm' },
+  us: {
+    label: 'US (gpm, ft, in)',
+    units: { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' },
+    volume: 'gal',
+    weirWidth: 'in',
+  },
+  si: {
+    label: 'Metric (L/min, m, mm)',
+    units: { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm', power: 'kW' },
+    volume: 'm3',
+    weirWidth: 'mm',
+  },
 };

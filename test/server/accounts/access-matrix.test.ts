@@ -36,7 +36,13 @@ function concretePath(operation: ApiOperation, supplier: Supplier = suppliers.ow
   for (const parameter of pathParameters(operation)) {
     const schema = (parameter.schema ?? {}) as OpenAPIV3_1.SchemaObject;
     const isNumber = schema.type === 'integer' || schema.type === 'number';
-    const value = /supplier/i.test(parameter.name) ? (isNumber ? String(supplier.id) : supplier.code) : isNumber ? '999999' : 'no-such-row';
+    const value = /supplier/i.test(parameter.name)
+      ? isNumber
+        ? String(supplier.id)
+        : supplier.code
+      : isNumber
+        ? '999999'
+        : 'no-such-row';
     path = path.replace(`{${parameter.name}}`, value);
   }
   return `/api/v1${path}`;
@@ -66,10 +72,21 @@ describe('access matrix over every operation of openapi.yaml', function () {
     ]);
     suppliers = { own, other };
     const entries = await Promise.all(
-      roles.map(async (role) => [role, (await createUserWithSession(sequelize, role, role === 'supplier-admin' ? { supplierId: own.id } : {})).user] as const),
+      roles.map(
+        async (role) =>
+          [
+            role,
+            (await createUserWithSession(sequelize, role, role === 'supplier-admin' ? { supplierId: own.id } : {}))
+              .user,
+          ] as const,
+      ),
     );
     usersByRole = Object.fromEntries(entries) as Record<Role, User>;
-    app = createApp({ sequelize, logger: createLogger('silent'), accounts: { rateLimits: { 'sign-in': generous, 'email-link': generous, invitation: generous } } });
+    app = createApp({
+      sequelize,
+      logger: createLogger('silent'),
+      accounts: { rateLimits: { 'sign-in': generous, 'email-link': generous, invitation: generous } },
+    });
   });
 
   after(async () => {
@@ -78,7 +95,8 @@ describe('access matrix over every operation of openapi.yaml', function () {
 
   it('covers every operation, and every guarded one declares the roles it is open to', () => {
     expect(operations.length).to.be.greaterThan(10);
-    for (const operation of operations) expect(() => readAccessDeclaration(operation, openApiDocument.security), operation.operationId).not.to.throw();
+    for (const operation of operations)
+      expect(() => readAccessDeclaration(operation, openApiDocument.security), operation.operationId).not.to.throw();
   });
 
   for (const operation of operations) {
@@ -119,20 +137,29 @@ describe('access matrix over every operation of openapi.yaml', function () {
         return;
       }
       it(`an API token with ${access.scopes[0]} of a ${owner} -> allowed (not 401/403)`, async () => {
-        const response = await call(operation, await createApiToken(sequelize, usersByRole[owner].id, [access.scopes[0]]));
+        const response = await call(
+          operation,
+          await createApiToken(sequelize, usersByRole[owner].id, [access.scopes[0]]),
+        );
         expect(guardStatuses, describeStatus(response)).not.to.include(response.status);
       });
       const otherScopes = apiScopes.filter((scope) => !access.scopes.includes(scope));
       if (otherScopes.length > 0) {
         it(`an API token with only ${otherScopes.join(', ')} -> 403`, async () => {
-          const response = await call(operation, await createApiToken(sequelize, usersByRole[owner].id, otherScopes as ApiScope[]));
+          const response = await call(
+            operation,
+            await createApiToken(sequelize, usersByRole[owner].id, otherScopes as ApiScope[]),
+          );
           expect(response.status, describeStatus(response)).to.equal(403);
         });
       }
       const outsider = roles.find((role) => !access.roles.includes(role));
       if (outsider) {
         it(`an API token with ${access.scopes.join(', ')} owned by a ${outsider} -> 403`, async () => {
-          const response = await call(operation, await createApiToken(sequelize, usersByRole[outsider].id, access.scopes));
+          const response = await call(
+            operation,
+            await createApiToken(sequelize, usersByRole[outsider].id, access.scopes),
+          );
           expect(response.status, describeStatus(response)).to.equal(403);
         });
       }
@@ -140,12 +167,18 @@ describe('access matrix over every operation of openapi.yaml', function () {
   }
 
   // Operations that name a supplier in their path: a supplier-admin of another supplier is refused and nothing changes.
-  for (const operation of operations.filter((candidate) => pathParameters(candidate).some((parameter) => /supplier/i.test(parameter.name)))) {
+  for (const operation of operations.filter((candidate) =>
+    pathParameters(candidate).some((parameter) => /supplier/i.test(parameter.name)),
+  )) {
     const access = readAccessDeclaration(operation, openApiDocument.security);
     if (access.public || !access.roles.includes('supplier-admin')) continue;
     it(`${operation.operationId}: a supplier-admin naming another supplier -> 403 or 404, nothing written`, async () => {
       const before = await tableChecksums(sequelize, ['audit_events', 'sessions']);
-      const response = await call(operation, await createSession(usersByRole['supplier-admin'].id), concretePath(operation, suppliers.other));
+      const response = await call(
+        operation,
+        await createSession(usersByRole['supplier-admin'].id),
+        concretePath(operation, suppliers.other),
+      );
       expect([403, 404], describeStatus(response)).to.include(response.status);
       expect(await tableChecksums(sequelize, ['audit_events', 'sessions'])).to.deep.equal(before);
     });

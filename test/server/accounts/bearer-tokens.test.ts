@@ -38,18 +38,33 @@ describe('bearer tokens: sessions and personal API tokens', function () {
   const me = (token: string) => request(app).get('/api/v1/auth/me').set('Authorization', `Bearer ${token}`);
 
   it('signs in with the contract names, stores only the SHA-256 of the session token and an argon2id password hash', async () => {
-    const { user } = await createUserWithSession(scratch.sequelize, 'designer', { email: 'Tarn.Designer@accounts.test' });
-    const response = await request(app).post('/api/v1/auth/sign-in').send({ email: ' tarn.designer@ACCOUNTS.test', password: testPassword }).expect(200);
+    const { user } = await createUserWithSession(scratch.sequelize, 'designer', {
+      email: 'Tarn.Designer@accounts.test',
+    });
+    const response = await request(app)
+      .post('/api/v1/auth/sign-in')
+      .send({ email: ' tarn.designer@ACCOUNTS.test', password: testPassword })
+      .expect(200);
     expect(Object.keys(response.body).sort()).to.deep.equal(['expiresAt', 'token', 'user']);
-    expect(response.body.user).to.deep.equal({ id: user.id, email: 'tarn.designer@accounts.test', name: user.name, role: 'designer', supplierId: null });
+    expect(response.body.user).to.deep.equal({
+      id: user.id,
+      email: 'tarn.designer@accounts.test',
+      name: user.name,
+      role: 'designer',
+      supplierId: null,
+    });
     const hoursLeft = (Date.parse(response.body.expiresAt) - Date.now()) / 3600_000;
     expect(hoursLeft).to.be.within(11.9, 12.01);
 
     const [sessions] = await scratch.sequelize.query('SELECT * FROM sessions');
     expect(JSON.stringify(sessions)).not.to.contain(response.body.token);
-    expect((sessions as Array<{ token_hash: string }>).map((row) => row.token_hash)).to.include(sha256(response.body.token));
+    expect((sessions as Array<{ token_hash: string }>).map((row) => row.token_hash)).to.include(
+      sha256(response.body.token),
+    );
 
-    const [users] = await scratch.sequelize.query('SELECT password_hash FROM users WHERE id = ?', { replacements: [user.id] });
+    const [users] = await scratch.sequelize.query('SELECT password_hash FROM users WHERE id = ?', {
+      replacements: [user.id],
+    });
     const passwordHash = (users as Array<{ password_hash: string }>)[0].password_hash;
     expect(passwordHash).to.match(/^\$argon2id\$v=19\$m=19456,t=2,p=1\$/);
     expect(passwordHash).not.to.contain(testPassword);
@@ -58,8 +73,14 @@ describe('bearer tokens: sessions and personal API tokens', function () {
 
   it('answers a wrong password and an unknown e-mail with the same 401', async () => {
     await createUserWithSession(scratch.sequelize, 'integrator', { email: 'known@accounts.test' });
-    const wrong = await request(app).post('/api/v1/auth/sign-in').send({ email: 'known@accounts.test', password: 'not-the-password' }).expect(401);
-    const unknown = await request(app).post('/api/v1/auth/sign-in').send({ email: 'nobody@accounts.test', password: 'not-the-password' }).expect(401);
+    const wrong = await request(app)
+      .post('/api/v1/auth/sign-in')
+      .send({ email: 'known@accounts.test', password: 'not-the-password' })
+      .expect(401);
+    const unknown = await request(app)
+      .post('/api/v1/auth/sign-in')
+      .send({ email: 'nobody@accounts.test', password: 'not-the-password' })
+      .expect(401);
     expect(wrong.type).to.equal('application/problem+json');
     const { instance: _a, ...wrongProblem } = wrong.body;
     const { instance: _b, ...unknownProblem } = unknown.body;
@@ -82,26 +103,41 @@ describe('bearer tokens: sessions and personal API tokens', function () {
     expect((row.expiresAt!.getTime() - Date.now()) / 86_400_000).to.be.within(29.9, 30.01);
 
     await me(token).expect(200);
-    const listed = await request(app).get('/api/v1/account/api-tokens').set('Authorization', `Bearer ${session}`).expect(200);
+    const listed = await request(app)
+      .get('/api/v1/account/api-tokens')
+      .set('Authorization', `Bearer ${session}`)
+      .expect(200);
     expect(JSON.stringify(listed.body)).not.to.contain(token);
     expect(listed.body.tokens[0]).to.include({ name: 'Estimating sheet', prefix: created.body.apiToken.prefix });
     expect(listed.body.tokens[0].lastUsedAt).to.be.a('string');
   });
 
-  it('refuses a revoked API token, and revoking another user\'s token is a 404 that changes nothing', async () => {
+  it("refuses a revoked API token, and revoking another user's token is a 404 that changes nothing", async () => {
     const owner = await createUserWithSession(scratch.sequelize, 'integrator');
     const stranger = await createUserWithSession(scratch.sequelize, 'designer');
-    const created = await request(app).post('/api/v1/account/api-tokens').set('Authorization', `Bearer ${owner.token}`).send({ name: 'CAD plug-in', scopes: ['catalog:read'] }).expect(201);
-    await request(app).delete(`/api/v1/account/api-tokens/${created.body.apiToken.id}`).set('Authorization', `Bearer ${stranger.token}`).expect(404);
+    const created = await request(app)
+      .post('/api/v1/account/api-tokens')
+      .set('Authorization', `Bearer ${owner.token}`)
+      .send({ name: 'CAD plug-in', scopes: ['catalog:read'] })
+      .expect(201);
+    await request(app)
+      .delete(`/api/v1/account/api-tokens/${created.body.apiToken.id}`)
+      .set('Authorization', `Bearer ${stranger.token}`)
+      .expect(404);
     await me(created.body.token).expect(200);
-    await request(app).delete(`/api/v1/account/api-tokens/${created.body.apiToken.id}`).set('Authorization', `Bearer ${owner.token}`).expect(204);
+    await request(app)
+      .delete(`/api/v1/account/api-tokens/${created.body.apiToken.id}`)
+      .set('Authorization', `Bearer ${owner.token}`)
+      .expect(204);
     const refused = await me(created.body.token).expect(401);
     expect(refused.body.detail).to.match(/unknown, expired or revoked/);
   });
 
   it('refuses an expired API token and an expired session', async () => {
     const { user, token: session } = await createUserWithSession(scratch.sequelize, 'integrator');
-    const expiredToken = await createApiToken(scratch.sequelize, user.id, ['catalog:read'], { expiresAt: new Date(Date.now() - 1000) });
+    const expiredToken = await createApiToken(scratch.sequelize, user.id, ['catalog:read'], {
+      expiresAt: new Date(Date.now() - 1000),
+    });
     await me(expiredToken).expect(401);
     await me(session).expect(200);
     await Session.update({ expiresAt: new Date(Date.now() - 1000) }, { where: { userId: user.id } });
@@ -118,7 +154,10 @@ describe('bearer tokens: sessions and personal API tokens', function () {
 
   it('signs out: the session stops working, other sessions of the user do not', async () => {
     const { user, token: first } = await createUserWithSession(scratch.sequelize, 'designer');
-    const second = await request(app).post('/api/v1/auth/sign-in').send({ email: user.email, password: testPassword }).expect(200);
+    const second = await request(app)
+      .post('/api/v1/auth/sign-in')
+      .send({ email: user.email, password: testPassword })
+      .expect(200);
     await request(app).post('/api/v1/auth/sign-out').set('Authorization', `Bearer ${first}`).expect(204);
     await me(first).expect(401);
     await me(second.body.token).expect(200);
@@ -171,7 +210,11 @@ describe('bearer tokens: sessions and personal API tokens', function () {
     const { user, token } = await createUserWithSession(scratch.sequelize, 'designer');
     const users = () => request(app).get('/api/v1/admin/users').set('Authorization', `Bearer ${token}`);
     await users().expect(403);
-    await request(app).patch(`/api/v1/admin/users/${user.id}`).set('Authorization', `Bearer ${adminToken}`).send({ role: 'admin' }).expect(200);
+    await request(app)
+      .patch(`/api/v1/admin/users/${user.id}`)
+      .set('Authorization', `Bearer ${adminToken}`)
+      .send({ role: 'admin' })
+      .expect(200);
     await users().expect(200);
     expect((await me(token).expect(200)).body.role).to.equal('admin');
   });
@@ -184,8 +227,14 @@ describe('bearer tokens: sessions and personal API tokens', function () {
 
   it('never writes a password or a token to the log, and never answers a password hash', async () => {
     const admin = await createUserWithSession(scratch.sequelize, 'admin');
-    const signedIn = await request(app).post('/api/v1/auth/sign-in').send({ email: admin.user.email, password: testPassword }).expect(200);
-    const users = await request(app).get('/api/v1/admin/users').set('Authorization', `Bearer ${signedIn.body.token}`).expect(200);
+    const signedIn = await request(app)
+      .post('/api/v1/auth/sign-in')
+      .send({ email: admin.user.email, password: testPassword })
+      .expect(200);
+    const users = await request(app)
+      .get('/api/v1/admin/users')
+      .set('Authorization', `Bearer ${signedIn.body.token}`)
+      .expect(200);
     expect(JSON.stringify(users.body)).not.to.match(/argon2|password/i);
     expect(logLines.length).to.be.greaterThan(5);
     const log = logLines.join('');

@@ -14,7 +14,15 @@ import { createScratchDatabase } from '../../support/test-database';
  * Each answer is a 4xx problem, never a 5xx, and the tables (apart from the audit log, which
  * records failed sign-ins, and session last-use times) are unchanged.
  */
-const accountOperations = ['signIn', 'requestPasswordReset', 'resetPassword', 'acceptInvitation', 'createApiToken', 'updateUser', 'inviteUser'];
+const accountOperations = [
+  'signIn',
+  'requestPasswordReset',
+  'resetPassword',
+  'acceptInvitation',
+  'createApiToken',
+  'updateUser',
+  'inviteUser',
+];
 
 const hostileValues: Array<[string, unknown]> = [
   ['a 100 000-character string', 'w'.repeat(100_000)],
@@ -41,7 +49,10 @@ const validBodies: Record<string, Record<string, unknown>> = {
 
 function bodySchemaOf(operationId: string): OpenAPIV3_1.SchemaObject {
   const operation = listOperations(openApiDocument).find((candidate) => candidate.operationId === operationId)!;
-  const schemaRef = ((operation.definition.requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json'].schema as OpenAPIV3_1.ReferenceObject).$ref;
+  const schemaRef = (
+    (operation.definition.requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json']
+      .schema as OpenAPIV3_1.ReferenceObject
+  ).$ref;
   return openApiDocument.components!.schemas![schemaRef.split('/').pop()!] as OpenAPIV3_1.SchemaObject;
 }
 
@@ -67,9 +78,16 @@ describe('hostile input on the account routes', function () {
 
   before(async () => {
     scratch = await createScratchDatabase('hostile_input');
-    tokens = { admin: (await createUserWithSession(scratch.sequelize, 'admin')).token, designer: (await createUserWithSession(scratch.sequelize, 'designer')).token };
+    tokens = {
+      admin: (await createUserWithSession(scratch.sequelize, 'admin')).token,
+      designer: (await createUserWithSession(scratch.sequelize, 'designer')).token,
+    };
     targetUserId = (await createUserWithSession(scratch.sequelize, 'integrator')).user.id;
-    app = createApp({ sequelize: scratch.sequelize, logger: createLogger('silent'), accounts: { rateLimits: { 'sign-in': generous, 'email-link': generous, invitation: generous } } });
+    app = createApp({
+      sequelize: scratch.sequelize,
+      logger: createLogger('silent'),
+      accounts: { rateLimits: { 'sign-in': generous, 'email-link': generous, invitation: generous } },
+    });
   });
 
   after(async () => {
@@ -80,7 +98,8 @@ describe('hostile input on the account routes', function () {
     const operation = listOperations(openApiDocument).find((candidate) => candidate.operationId === operationId)!;
     const path = `/api/v1${operation.path.replace('{userId}', String(targetUserId))}`;
     const pending = request(app)[operation.method](path);
-    if (operationId === 'updateUser' || operationId === 'inviteUser') pending.set('Authorization', `Bearer ${tokens.admin}`);
+    if (operationId === 'updateUser' || operationId === 'inviteUser')
+      pending.set('Authorization', `Bearer ${tokens.admin}`);
     if (operationId === 'createApiToken') pending.set('Authorization', `Bearer ${tokens.designer}`);
     return pending.send(body as object);
   }
@@ -104,7 +123,10 @@ describe('hostile input on the account routes', function () {
           expect(response.type, what).to.equal('application/problem+json');
           if (response.status === 400) {
             const pointers: string[] = response.body.errors.map((error: { pointer: string }) => error.pointer);
-            expect(pointers.some((pointer) => pointer === `/body/${field}` || pointer.startsWith(`/body/${field}/`)), `${what}: ${pointers.join(' ')}`).to.equal(true);
+            expect(
+              pointers.some((pointer) => pointer === `/body/${field}` || pointer.startsWith(`/body/${field}/`)),
+              `${what}: ${pointers.join(' ')}`,
+            ).to.equal(true);
           }
         }
         expect(await tableChecksums(scratch.sequelize, ['audit_events', 'sessions'])).to.deep.equal(before);
@@ -116,12 +138,18 @@ describe('hostile input on the account routes', function () {
     const name = "Robin'); DROP TABLE users; --";
     const response = await send('updateUser', { name }).expect(200);
     expect(response.body.name).to.equal(name);
-    const [rows] = await scratch.sequelize.query('SELECT name FROM users WHERE id = ?', { replacements: [targetUserId] });
+    const [rows] = await scratch.sequelize.query('SELECT name FROM users WHERE id = ?', {
+      replacements: [targetUserId],
+    });
     expect(rows).to.deep.equal([{ name }]);
   });
 
   it('refuses a body that is not JSON, and unknown fields, naming them', async () => {
-    const malformed = await request(app).post('/api/v1/auth/sign-in').set('Content-Type', 'application/json').send('{"email": ').expect(400);
+    const malformed = await request(app)
+      .post('/api/v1/auth/sign-in')
+      .set('Content-Type', 'application/json')
+      .send('{"email": ')
+      .expect(400);
     expect(malformed.body.pointer).to.equal('/body');
     const extra = await send('signIn', { ...validBodies.signIn, role: 'admin' }).expect(400);
     expect(extra.body.pointer).to.equal('/body/role');

@@ -3,7 +3,13 @@ import request from 'supertest';
 import { createApp } from '../../../server/app';
 import { AuditEvent, User } from '../../../server/database/models';
 import { createLogger } from '../../../server/logging';
-import { createApiToken, createSession, createUserWithSession, tableChecksums, testPassword } from '../../support/accounts';
+import {
+  createApiToken,
+  createSession,
+  createUserWithSession,
+  tableChecksums,
+  testPassword,
+} from '../../support/accounts';
 import { createScratchDatabase } from '../../support/test-database';
 
 describe('changing one’s own password', function () {
@@ -14,16 +20,22 @@ describe('changing one’s own password', function () {
 
   before(async () => {
     scratch = await createScratchDatabase('password_change');
-    app = createApp({ sequelize: scratch.sequelize, logger: createLogger('silent'), accounts: { rateLimits: { 'sign-in': { limit: 1000, windowMs: 60_000 } } } });
+    app = createApp({
+      sequelize: scratch.sequelize,
+      logger: createLogger('silent'),
+      accounts: { rateLimits: { 'sign-in': { limit: 1000, windowMs: 60_000 } } },
+    });
   });
 
   after(async () => {
     await scratch?.drop();
   });
 
-  const change = (token: string, body: object, server = app) => request(server).put('/api/v1/account/password').set('Authorization', `Bearer ${token}`).send(body);
+  const change = (token: string, body: object, server = app) =>
+    request(server).put('/api/v1/account/password').set('Authorization', `Bearer ${token}`).send(body);
   const me = (token: string) => request(app).get('/api/v1/auth/me').set('Authorization', `Bearer ${token}`);
-  const signIn = (email: string, password: string) => request(app).post('/api/v1/auth/sign-in').send({ email, password });
+  const signIn = (email: string, password: string) =>
+    request(app).post('/api/v1/auth/sign-in').send({ email, password });
 
   it('changes the password, keeps this session, signs out the others and leaves API tokens working', async () => {
     const { user, token } = await createUserWithSession(scratch.sequelize, 'designer');
@@ -56,10 +68,15 @@ describe('changing one’s own password', function () {
   });
 
   it('refuses a weak new password with 422 at /body/newPassword, and one holding the e-mail address', async () => {
-    const { user, token } = await createUserWithSession(scratch.sequelize, 'admin', { email: 'weir.keeper@accounts.test' });
+    const { user, token } = await createUserWithSession(scratch.sequelize, 'admin', {
+      email: 'weir.keeper@accounts.test',
+    });
     const short = await change(token, { currentPassword: testPassword, newPassword: 'pond1' }).expect(422);
     expect(short.body.errors[0].pointer).to.equal('/body/newPassword');
-    const withEmail = await change(token, { currentPassword: testPassword, newPassword: 'weir.keeper@accounts.test!' }).expect(422);
+    const withEmail = await change(token, {
+      currentPassword: testPassword,
+      newPassword: 'weir.keeper@accounts.test!',
+    }).expect(422);
     expect(withEmail.body.errors[0].pointer).to.equal('/body/newPassword');
     const stored = await User.findByPk(user.id, { rejectOnEmpty: true });
     await signIn(stored.email, testPassword).expect(200);
@@ -69,15 +86,25 @@ describe('changing one’s own password', function () {
     const { user, token } = await createUserWithSession(scratch.sequelize, 'designer');
     const missing = await change(token, { currentPassword: testPassword }).expect(400);
     expect(JSON.stringify(missing.body)).to.contain('newPassword');
-    const apiToken = await createApiToken(scratch.sequelize, user.id, ['catalog:read', 'calculations:run', 'projects:write', 'curves:import']);
+    const apiToken = await createApiToken(scratch.sequelize, user.id, [
+      'catalog:read',
+      'calculations:run',
+      'projects:write',
+      'curves:import',
+    ]);
     await change(apiToken, { currentPassword: testPassword, newPassword }).expect(403);
   });
 
   it('limits guessing of the current password like failed sign-ins (429)', async () => {
-    const limited = createApp({ sequelize: scratch.sequelize, logger: createLogger('silent'), accounts: { rateLimits: { 'sign-in': { limit: 3, windowMs: 60_000 } } } });
+    const limited = createApp({
+      sequelize: scratch.sequelize,
+      logger: createLogger('silent'),
+      accounts: { rateLimits: { 'sign-in': { limit: 3, windowMs: 60_000 } } },
+    });
     const { token } = await createUserWithSession(scratch.sequelize, 'designer');
     const statuses: number[] = [];
-    for (let attempt = 0; attempt < 4; attempt += 1) statuses.push((await change(token, { currentPassword: `guess-${attempt}`, newPassword }, limited)).status);
+    for (let attempt = 0; attempt < 4; attempt += 1)
+      statuses.push((await change(token, { currentPassword: `guess-${attempt}`, newPassword }, limited)).status);
     expect(statuses.slice(0, 3)).to.deep.equal([422, 422, 422]);
     expect(statuses[3]).to.equal(429);
   });

@@ -22,7 +22,10 @@ describe('passwords', () => {
   });
 
   it('hashes with argon2id, a fresh salt each time, and verifies only the right password', async () => {
-    const [first, second] = await Promise.all([hashPassword('weir and gravel bed'), hashPassword('weir and gravel bed')]);
+    const [first, second] = await Promise.all([
+      hashPassword('weir and gravel bed'),
+      hashPassword('weir and gravel bed'),
+    ]);
     expect(first).to.match(/^\$argon2id\$/);
     expect(first).not.to.equal(second);
     expect(await verifyPassword(first, 'weir and gravel bed')).to.equal(true);
@@ -34,7 +37,8 @@ describe('passwords', () => {
 
 describe('reading received mail (RFC 2045 and 2047)', () => {
   it('joins quoted-printable soft line breaks and decodes =XX bytes as UTF-8', () => {
-    const raw = 'Subject: =?UTF-8?Q?Pond_pump_=E2=80=93_reset?=\r\nContent-Type: text/plain; charset=utf-8\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\nhttp://riffle.example.test/accounts/reset-password?token=3Drfl_abc=\r\ndef\r\nCaf=C3=A9 =3D 1\r\n';
+    const raw =
+      'Subject: =?UTF-8?Q?Pond_pump_=E2=80=93_reset?=\r\nContent-Type: text/plain; charset=utf-8\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\nhttp://riffle.example.test/accounts/reset-password?token=3Drfl_abc=\r\ndef\r\nCaf=C3=A9 =3D 1\r\n';
     const message = parsePlainMessage(raw);
     expect(message.text).to.equal('http://riffle.example.test/accounts/reset-password?token=rfl_abcdef\nCafé = 1');
     expect(decodeEncodedWords(message.headers.get('subject')!)).to.equal('Pond pump – reset');

@@ -9,7 +9,14 @@ import { Supplier } from '../../../server/database/models';
 import { createLogger } from '../../../server/logging';
 import { createApiToken, createUserWithSession } from '../../support/accounts';
 import { createScratchDatabase } from '../../support/test-database';
-import { DIAMETER_UNITS, FITTING_KINDS, FLOW_UNITS, HEAD_UNITS, LENGTH_UNITS, PIPE_MATERIALS } from '../../../shared/hydraulics';
+import {
+  DIAMETER_UNITS,
+  FITTING_KINDS,
+  FLOW_UNITS,
+  HEAD_UNITS,
+  LENGTH_UNITS,
+  PIPE_MATERIALS,
+} from '../../../shared/hydraulics';
 
 /*
  * The engine-only calculations through the whole HTTP stack. Independent figures:
@@ -39,10 +46,18 @@ describe('calculations API', function () {
   });
 
   const usUnits = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' } as const;
-  const practitionerSystem = { staticHead: 14.5, frictionMethod: 'hazen-williams', segments: [{ length: 240, insideDiameter: 3.0, hazenWilliamsC: 150 }] };
+  const practitionerSystem = {
+    staticHead: 14.5,
+    frictionMethod: 'hazen-williams',
+    segments: [{ length: 240, insideDiameter: 3.0, hazenWilliamsC: 150 }],
+  };
   /** The example pump's published points lie on H = 40 - 0.03125 Q - 0.00078125 Q^2 (ft, gpm), solved by hand from three of them. */
   const examplePumpHead = (flow: number) => 40 - 0.03125 * flow - 0.00078125 * flow * flow;
-  const exampleCurve = [0, 40, 80, 120, 160].map((flow, index) => ({ flow, head: examplePumpHead(flow), efficiency: [0, 42, 60, 63, 50][index] }));
+  const exampleCurve = [0, 40, 80, 120, 160].map((flow, index) => ({
+    flow,
+    head: examplePumpHead(flow),
+    efficiency: [0, 42, 60, 63, 50][index],
+  }));
 
   function hazenWilliamsUsFeet(lengthFt: number, flowGpm: number, diameterIn: number, c: number): number {
     return (10.44 * lengthFt * Math.pow(flowGpm, 1.85)) / (Math.pow(c, 1.85) * Math.pow(diameterIn, 4.8655));
@@ -63,7 +78,8 @@ describe('calculations API', function () {
   }
 
   function requestExample(path: string): Record<string, unknown> {
-    return (operation(path, 'post').requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json'].example as Record<string, unknown>;
+    return (operation(path, 'post').requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json']
+      .example as Record<string, unknown>;
   }
 
   function responseValidator(path: string, method: 'get' | 'post') {
@@ -71,12 +87,23 @@ describe('calculations API', function () {
     ajv.addVocabulary(['example', 'xml', 'externalDocs', 'discriminator', 'components']);
     addFormats.default(ajv);
     ajv.addSchema({ $id: 'contract.json', components: openApiDocument.components });
-    const schema = ((operation(path, method).responses?.['200'] as OpenAPIV3_1.ResponseObject).content?.['application/json'] as OpenAPIV3_1.MediaTypeObject).schema;
-    return ajv.compile(JSON.parse(JSON.stringify(schema), (key, value) => (key === '$ref' && String(value).startsWith('#/') ? `contract.json${value}` : value)));
+    const schema = (
+      (operation(path, method).responses?.['200'] as OpenAPIV3_1.ResponseObject).content?.[
+        'application/json'
+      ] as OpenAPIV3_1.MediaTypeObject
+    ).schema;
+    return ajv.compile(
+      JSON.parse(JSON.stringify(schema), (key, value) =>
+        key === '$ref' && String(value).startsWith('#/') ? `contract.json${value}` : value,
+      ),
+    );
   }
 
   function post(path: string, body: unknown, token = designerToken) {
-    return request(app).post(`/api/v1${path}`).set('Authorization', `Bearer ${token}`).send(body as object);
+    return request(app)
+      .post(`/api/v1${path}`)
+      .set('Authorization', `Bearer ${token}`)
+      .send(body as object);
   }
 
   function get(path: string, token = designerToken) {
@@ -85,7 +112,10 @@ describe('calculations API', function () {
 
   describe('the calculation contract', () => {
     it('accepts exactly the units, fittings and materials the engine knows', () => {
-      const schemas = openApiDocument.components?.schemas as Record<string, { enum?: string[]; properties?: Record<string, { enum?: string[] }> }>;
+      const schemas = openApiDocument.components?.schemas as Record<
+        string,
+        { enum?: string[]; properties?: Record<string, { enum?: string[] }> }
+      >;
       expect(schemas.FlowUnit.enum).to.deep.equal([...FLOW_UNITS]);
       expect(schemas.HeadUnit.enum).to.deep.equal([...HEAD_UNITS]);
       expect(schemas.LengthUnit.enum).to.deep.equal([...LENGTH_UNITS]);
@@ -97,7 +127,9 @@ describe('calculations API', function () {
 
   describe('POST /api/v1/calculations/system-curve', () => {
     it('answers the worked example with the practitioner figure of about 20.15 ft TDH at 100 gpm', async () => {
-      const response = await post('/calculations/system-curve', requestExample('/calculations/system-curve')).expect(200);
+      const response = await post('/calculations/system-curve', requestExample('/calculations/system-curve')).expect(
+        200,
+      );
       const validate = responseValidator('/calculations/system-curve', 'post');
       expect(validate(response.body), JSON.stringify(validate.errors)).to.equal(true);
       const at100 = response.body.points.find((point: { flow: number }) => point.flow === 100);
@@ -115,7 +147,11 @@ describe('calculations API', function () {
     });
 
     it('warns only at flows whose velocity passes 5 ft/s (common practice for plastic pipe)', async () => {
-      const response = await post('/calculations/system-curve', { units: usUnits, system: practitionerSystem, flows: [100, 150] }).expect(200);
+      const response = await post('/calculations/system-curve', {
+        units: usUnits,
+        system: practitionerSystem,
+        flows: [100, 150],
+      }).expect(200);
       expect(response.body.warnings).to.have.length(1);
       expect(response.body.warnings[0]).to.contain('at 150 gpm').and.contain('5 ft/s');
     });
@@ -123,10 +159,18 @@ describe('calculations API', function () {
     it('gives the same head in SI units for the same system', async () => {
       const si = {
         units: { flow: 'L/s', head: 'm', length: 'm', diameter: 'mm' },
-        system: { staticHead: 14.5 * 0.3048, frictionMethod: 'hazen-williams', segments: [{ length: 240 * 0.3048, insideDiameter: 76.2, hazenWilliamsC: 150 }] },
+        system: {
+          staticHead: 14.5 * 0.3048,
+          frictionMethod: 'hazen-williams',
+          segments: [{ length: 240 * 0.3048, insideDiameter: 76.2, hazenWilliamsC: 150 }],
+        },
         flows: [(100 * 3.785411784) / 60],
       };
-      const us = await post('/calculations/system-curve', { units: usUnits, system: practitionerSystem, flows: [100] }).expect(200);
+      const us = await post('/calculations/system-curve', {
+        units: usUnits,
+        system: practitionerSystem,
+        flows: [100],
+      }).expect(200);
       const metric = await post('/calculations/system-curve', si).expect(200);
       expect(metric.body.points[0].head).to.be.closeTo(us.body.points[0].head * 0.3048, 1e-9);
       expect(metric.body.units).to.include({ flow: 'L/s', head: 'm' });
@@ -134,7 +178,11 @@ describe('calculations API', function () {
 
     it('adds fitting losses K V^2 / 2g with Crane K = 30 f_T for two standard elbows', async () => {
       const bore = 3.068;
-      const system = { staticHead: 0, frictionMethod: 'hazen-williams', segments: [{ length: 10, pipe: 'pvc-sch40-3', fittings: [{ kind: 'elbow-90-standard', count: 2 }] }] };
+      const system = {
+        staticHead: 0,
+        frictionMethod: 'hazen-williams',
+        segments: [{ length: 10, pipe: 'pvc-sch40-3', fittings: [{ kind: 'elbow-90-standard', count: 2 }] }],
+      };
       const response = await post('/calculations/system-curve', { units: usUnits, system, flows: [100] }).expect(200);
       const frictionFactor = 0.25 / Math.pow(Math.log10(0.0018 / (3.7 * bore)), 2);
       const velocity = (100 * 231) / 60 / ((Math.PI / 4) * bore * bore) / 12;
@@ -143,7 +191,11 @@ describe('calculations API', function () {
     });
 
     it('uses Darcy-Weisbach when asked and lands near Hazen-Williams C = 150 for smooth plastic', async () => {
-      const system = { ...practitionerSystem, frictionMethod: 'darcy-weisbach', segments: [{ length: 240, insideDiameter: 3.0, roughness: 0.0000591 }] };
+      const system = {
+        ...practitionerSystem,
+        frictionMethod: 'darcy-weisbach',
+        segments: [{ length: 240, insideDiameter: 3.0, roughness: 0.0000591 }],
+      };
       const response = await post('/calculations/system-curve', { units: usUnits, system, flows: [100] }).expect(200);
       // Two different friction laws for the same smooth pipe: agreement within 15 % is what texts show at this Reynolds number.
       expect(response.body.points[0].frictionHead).to.be.closeTo(5.61, 5.61 * 0.15);
@@ -152,10 +204,17 @@ describe('calculations API', function () {
 
   describe('POST /api/v1/calculations/operating-point', () => {
     it('answers the worked example where the hand-solved curves cross', async () => {
-      const response = await post('/calculations/operating-point', requestExample('/calculations/operating-point')).expect(200);
+      const response = await post(
+        '/calculations/operating-point',
+        requestExample('/calculations/operating-point'),
+      ).expect(200);
       const validate = responseValidator('/calculations/operating-point', 'post');
       expect(validate(response.body), JSON.stringify(validate.errors)).to.equal(true);
-      const expectedFlow = bisect((flow) => examplePumpHead(flow) - 14.5 - hazenWilliamsUsFeet(240, flow, 3.0, 150), 0, 160);
+      const expectedFlow = bisect(
+        (flow) => examplePumpHead(flow) - 14.5 - hazenWilliamsUsFeet(240, flow, 3.0, 150),
+        0,
+        160,
+      );
       const point = response.body.operatingPoint;
       expect(point.flow).to.be.closeTo(expectedFlow, expectedFlow * 0.005);
       expect(point.head).to.be.closeTo(examplePumpHead(point.flow), 1e-6);
@@ -165,7 +224,11 @@ describe('calculations API', function () {
     });
 
     it('adds flows at equal head for two pumps in parallel, and with one failed falls back to one pump', async () => {
-      const single = await post('/calculations/operating-point', { units: usUnits, system: practitionerSystem, pump: { curve: exampleCurve } }).expect(200);
+      const single = await post('/calculations/operating-point', {
+        units: usUnits,
+        system: practitionerSystem,
+        pump: { curve: exampleCurve },
+      }).expect(200);
       const pair = await post('/calculations/operating-point', {
         units: usUnits,
         system: practitionerSystem,
@@ -175,7 +238,11 @@ describe('calculations API', function () {
       const point = pair.body.operatingPoint;
       expect(point.flowPerPump).to.be.closeTo(point.flow / 2, 1e-9);
       expect(point.head).to.be.closeTo(examplePumpHead(point.flowPerPump), 1e-6);
-      const expectedFlow = bisect((flow) => examplePumpHead(flow / 2) - 14.5 - hazenWilliamsUsFeet(240, flow, 3.0, 150), 0, 320);
+      const expectedFlow = bisect(
+        (flow) => examplePumpHead(flow / 2) - 14.5 - hazenWilliamsUsFeet(240, flow, 3.0, 150),
+        0,
+        320,
+      );
       expect(point.flow).to.be.closeTo(expectedFlow, expectedFlow * 0.005);
       expect(point.flow).to.be.greaterThan(single.body.operatingPoint.flow);
       expect(point.flow).to.be.lessThan(2 * single.body.operatingPoint.flow);
@@ -209,7 +276,11 @@ describe('calculations API', function () {
     it('answers 422 with run-out when the system needs less head than the curve gives at its end', async () => {
       const response = await post('/calculations/operating-point', {
         units: usUnits,
-        system: { ...practitionerSystem, staticHead: 0, segments: [{ length: 10, insideDiameter: 6, hazenWilliamsC: 150 }] },
+        system: {
+          ...practitionerSystem,
+          staticHead: 0,
+          segments: [{ length: 10, insideDiameter: 6, hazenWilliamsC: 150 }],
+        },
         pump: { curve: exampleCurve },
       }).expect(422);
       expect(response.body.reason).to.equal('beyond-curve');
@@ -242,7 +313,9 @@ describe('calculations API', function () {
       const exit = response.body.fittings.find((fitting: { kind: string }) => fitting.kind === 'exit');
       expect(exit).to.include({ method: 'fixed', k: 1 });
       const bare = await get('/fittings').expect(200);
-      expect(bare.body.fittings.find((fitting: { kind: string }) => fitting.kind === 'elbow-90-standard')).to.not.have.property('k');
+      expect(
+        bare.body.fittings.find((fitting: { kind: string }) => fitting.kind === 'elbow-90-standard'),
+      ).to.not.have.property('k');
     });
   });
 
@@ -275,27 +348,185 @@ describe('calculations API', function () {
   });
 
   describe('bad calculation input', () => {
-    const curveRequest = (system: unknown, extra: Record<string, unknown> = {}) => ({ units: usUnits, system, flows: [100], ...extra });
+    const curveRequest = (system: unknown, extra: Record<string, unknown> = {}) => ({
+      units: usUnits,
+      system,
+      flows: [100],
+      ...extra,
+    });
     const segment = practitionerSystem.segments[0];
     const cases: Array<{ name: string; path: string; body: unknown; status: number; pointer: string }> = [
-      { name: 'a negative length', path: '/calculations/system-curve', body: curveRequest({ ...practitionerSystem, segments: [{ ...segment, length: -5 }] }), status: 400, pointer: '/body/system/segments/0/length' },
-      { name: 'a zero length', path: '/calculations/system-curve', body: curveRequest({ ...practitionerSystem, segments: [{ ...segment, length: 0 }] }), status: 400, pointer: '/body/system/segments/0/length' },
-      { name: 'an unknown flow unit', path: '/calculations/system-curve', body: { ...curveRequest(practitionerSystem), units: { ...usUnits, flow: 'barrels/day' } }, status: 400, pointer: '/body/units/flow' },
-      { name: 'an unknown fitting', path: '/calculations/system-curve', body: curveRequest({ ...practitionerSystem, segments: [{ ...segment, fittings: [{ kind: 'elbow-89', count: 1 }] }] }), status: 400, pointer: '/body/system/segments/0/fittings/0/kind' },
-      { name: 'empty segments', path: '/calculations/system-curve', body: curveRequest({ ...practitionerSystem, segments: [] }), status: 400, pointer: '/body/system/segments' },
-      { name: 'an absurd bore', path: '/calculations/system-curve', body: curveRequest({ ...practitionerSystem, segments: [{ ...segment, insideDiameter: 300 }] }), status: 422, pointer: '/body/system/segments/0/insideDiameter' },
-      { name: 'an absurd length', path: '/calculations/system-curve', body: curveRequest({ ...practitionerSystem, segments: [{ ...segment, length: 2e6 }] }), status: 422, pointer: '/body/system/segments/0/length' },
-      { name: 'an absurd flow', path: '/calculations/system-curve', body: curveRequest(practitionerSystem, { flows: [1e7] }), status: 422, pointer: '/body/flows/0' },
-      { name: 'an unknown pipe size', path: '/calculations/system-curve', body: curveRequest({ ...practitionerSystem, segments: [{ length: 10, pipe: 'pvc-sch40-7' }] }), status: 422, pointer: '/body/system/segments/0/pipe' },
-      { name: 'both a pipe size and a bore', path: '/calculations/system-curve', body: curveRequest({ ...practitionerSystem, segments: [{ length: 10, pipe: 'pvc-sch40-3', insideDiameter: 3 }] }), status: 422, pointer: '/body/system/segments/0/insideDiameter' },
-      { name: 'no C for Hazen-Williams', path: '/calculations/system-curve', body: curveRequest({ ...practitionerSystem, segments: [{ length: 10, insideDiameter: 3 }] }), status: 422, pointer: '/body/system/segments/0/hazenWilliamsC' },
-      { name: 'water too hot', path: '/calculations/system-curve', body: curveRequest({ ...practitionerSystem, waterTemperatureC: 80 }), status: 400, pointer: '/body/system/waterTemperatureC' },
-      { name: 'a field the contract does not know', path: '/calculations/system-curve', body: curveRequest({ ...practitionerSystem, pumpColour: 'green' }), status: 400, pointer: '/body/system/pumpColour' },
-      { name: 'a rising pump curve', path: '/calculations/operating-point', body: { units: usUnits, system: practitionerSystem, pump: { curve: [{ flow: 0, head: 40 }, { flow: 50, head: 30 }, { flow: 100, head: 35 }] } }, status: 422, pointer: '/body/pump/curve/2/head' },
-      { name: 'two points only', path: '/calculations/operating-point', body: { units: usUnits, system: practitionerSystem, pump: { curve: [{ flow: 0, head: 40 }, { flow: 50, head: 30 }] } }, status: 400, pointer: '/body/pump/curve' },
-      { name: 'efficiency on some points only', path: '/calculations/operating-point', body: { units: usUnits, system: practitionerSystem, pump: { curve: [{ flow: 0, head: 40, efficiency: 0 }, { flow: 50, head: 30 }, { flow: 100, head: 15, efficiency: 50 }] } }, status: 422, pointer: '/body/pump/curve/1/efficiency' },
-      { name: 'more running than installed', path: '/calculations/operating-point', body: { units: usUnits, system: practitionerSystem, pump: { curve: exampleCurve }, arrangement: { installed: 1, running: 2 } }, status: 422, pointer: '/body/arrangement/running' },
-      { name: 'an inverted preferred band', path: '/calculations/operating-point', body: { units: usUnits, system: practitionerSystem, pump: { curve: exampleCurve }, preferredBand: { minPercent: 100, maxPercent: 100 } }, status: 422, pointer: '/body/preferredBand/maxPercent' },
+      {
+        name: 'a negative length',
+        path: '/calculations/system-curve',
+        body: curveRequest({ ...practitionerSystem, segments: [{ ...segment, length: -5 }] }),
+        status: 400,
+        pointer: '/body/system/segments/0/length',
+      },
+      {
+        name: 'a zero length',
+        path: '/calculations/system-curve',
+        body: curveRequest({ ...practitionerSystem, segments: [{ ...segment, length: 0 }] }),
+        status: 400,
+        pointer: '/body/system/segments/0/length',
+      },
+      {
+        name: 'an unknown flow unit',
+        path: '/calculations/system-curve',
+        body: { ...curveRequest(practitionerSystem), units: { ...usUnits, flow: 'barrels/day' } },
+        status: 400,
+        pointer: '/body/units/flow',
+      },
+      {
+        name: 'an unknown fitting',
+        path: '/calculations/system-curve',
+        body: curveRequest({
+          ...practitionerSystem,
+          segments: [{ ...segment, fittings: [{ kind: 'elbow-89', count: 1 }] }],
+        }),
+        status: 400,
+        pointer: '/body/system/segments/0/fittings/0/kind',
+      },
+      {
+        name: 'empty segments',
+        path: '/calculations/system-curve',
+        body: curveRequest({ ...practitionerSystem, segments: [] }),
+        status: 400,
+        pointer: '/body/system/segments',
+      },
+      {
+        name: 'an absurd bore',
+        path: '/calculations/system-curve',
+        body: curveRequest({ ...practitionerSystem, segments: [{ ...segment, insideDiameter: 300 }] }),
+        status: 422,
+        pointer: '/body/system/segments/0/insideDiameter',
+      },
+      {
+        name: 'an absurd length',
+        path: '/calculations/system-curve',
+        body: curveRequest({ ...practitionerSystem, segments: [{ ...segment, length: 2e6 }] }),
+        status: 422,
+        pointer: '/body/system/segments/0/length',
+      },
+      {
+        name: 'an absurd flow',
+        path: '/calculations/system-curve',
+        body: curveRequest(practitionerSystem, { flows: [1e7] }),
+        status: 422,
+        pointer: '/body/flows/0',
+      },
+      {
+        name: 'an unknown pipe size',
+        path: '/calculations/system-curve',
+        body: curveRequest({ ...practitionerSystem, segments: [{ length: 10, pipe: 'pvc-sch40-7' }] }),
+        status: 422,
+        pointer: '/body/system/segments/0/pipe',
+      },
+      {
+        name: 'both a pipe size and a bore',
+        path: '/calculations/system-curve',
+        body: curveRequest({
+          ...practitionerSystem,
+          segments: [{ length: 10, pipe: 'pvc-sch40-3', insideDiameter: 3 }],
+        }),
+        status: 422,
+        pointer: '/body/system/segments/0/insideDiameter',
+      },
+      {
+        name: 'no C for Hazen-Williams',
+        path: '/calculations/system-curve',
+        body: curveRequest({ ...practitionerSystem, segments: [{ length: 10, insideDiameter: 3 }] }),
+        status: 422,
+        pointer: '/body/system/segments/0/hazenWilliamsC',
+      },
+      {
+        name: 'water too hot',
+        path: '/calculations/system-curve',
+        body: curveRequest({ ...practitionerSystem, waterTemperatureC: 80 }),
+        status: 400,
+        pointer: '/body/system/waterTemperatureC',
+      },
+      {
+        name: 'a field the contract does not know',
+        path: '/calculations/system-curve',
+        body: curveRequest({ ...practitionerSystem, pumpColour: 'green' }),
+        status: 400,
+        pointer: '/body/system/pumpColour',
+      },
+      {
+        name: 'a rising pump curve',
+        path: '/calculations/operating-point',
+        body: {
+          units: usUnits,
+          system: practitionerSystem,
+          pump: {
+            curve: [
+              { flow: 0, head: 40 },
+              { flow: 50, head: 30 },
+              { flow: 100, head: 35 },
+            ],
+          },
+        },
+        status: 422,
+        pointer: '/body/pump/curve/2/head',
+      },
+      {
+        name: 'two points only',
+        path: '/calculations/operating-point',
+        body: {
+          units: usUnits,
+          system: practitionerSystem,
+          pump: {
+            curve: [
+              { flow: 0, head: 40 },
+              { flow: 50, head: 30 },
+            ],
+          },
+        },
+        status: 400,
+        pointer: '/body/pump/curve',
+      },
+      {
+        name: 'efficiency on some points only',
+        path: '/calculations/operating-point',
+        body: {
+          units: usUnits,
+          system: practitionerSystem,
+          pump: {
+            curve: [
+              { flow: 0, head: 40, efficiency: 0 },
+              { flow: 50, head: 30 },
+              { flow: 100, head: 15, efficiency: 50 },
+            ],
+          },
+        },
+        status: 422,
+        pointer: '/body/pump/curve/1/efficiency',
+      },
+      {
+        name: 'more running than installed',
+        path: '/calculations/operating-point',
+        body: {
+          units: usUnits,
+          system: practitionerSystem,
+          pump: { curve: exampleCurve },
+          arrangement: { installed: 1, running: 2 },
+        },
+        status: 422,
+        pointer: '/body/arrangement/running',
+      },
+      {
+        name: 'an inverted preferred band',
+        path: '/calculations/operating-point',
+        body: {
+          units: usUnits,
+          system: practitionerSystem,
+          pump: { curve: exampleCurve },
+          preferredBand: { minPercent: 100, maxPercent: 100 },
+        },
+        status: 422,
+        pointer: '/body/preferredBand/maxPercent',
+      },
     ];
     for (const { name, path, body, status, pointer } of cases) {
       it(`answers ${status} naming ${pointer} for ${name}`, async () => {

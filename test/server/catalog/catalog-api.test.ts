@@ -3,7 +3,13 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import request from 'supertest';
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { CurveImportList, CurveImportReport, PumpDetail, PumpPage, SupplierList } from '../../../shared/api/api-schemas';
+import type {
+  CurveImportList,
+  CurveImportReport,
+  PumpDetail,
+  PumpPage,
+  SupplierList,
+} from '../../../shared/api/api-schemas';
 import { flowToSI, headToSI, pumpHeadAt } from '../../../shared/hydraulics';
 import { createApp } from '../../../server/app';
 import type { Supplier } from '../../../server/database/models';
@@ -43,15 +49,22 @@ describe('catalog and curve-import API', function () {
     app = createApp({ sequelize, logger: createLogger('silent') });
     tokens.designer = (await createUserWithSession(sequelize, 'designer')).token;
     tokens.admin = (await createUserWithSession(sequelize, 'admin')).token;
-    tokens.ownSupplier = (await createUserWithSession(sequelize, 'supplier-admin', { supplierId: suppliers[0].id })).token;
+    tokens.ownSupplier = (
+      await createUserWithSession(sequelize, 'supplier-admin', { supplierId: suppliers[0].id })
+    ).token;
   });
 
   after(async () => {
     await drop?.();
   });
 
-  const get = (path: string, token = tokens.designer) => request(app).get(`/api/v1${path}`).set('Authorization', `Bearer ${token}`);
-  const upload = (supplierId: number, text: string | Buffer, options: { dryRun?: boolean; token?: string; fileName?: string } = {}) =>
+  const get = (path: string, token = tokens.designer) =>
+    request(app).get(`/api/v1${path}`).set('Authorization', `Bearer ${token}`);
+  const upload = (
+    supplierId: number,
+    text: string | Buffer,
+    options: { dryRun?: boolean; token?: string; fileName?: string } = {},
+  ) =>
     request(app)
       .post(`/api/v1/suppliers/${supplierId}/curve-imports`)
       .set('Authorization', `Bearer ${options.token ?? tokens.ownSupplier}`)
@@ -62,10 +75,13 @@ describe('catalog and curve-import API', function () {
     const response = await get('/suppliers').expect(200);
     const body = response.body as SupplierList;
     expect(body.suppliers.map((supplier) => supplier.code)).to.deep.equal(['ALDERBROOK', 'QUILLWATER', 'STONETARN']);
-    const [row] = await sequelize.query<{ n: number }>("SELECT COUNT(*) AS n FROM pumps WHERE status = 'active' AND supplier_id = ?", {
-      replacements: [suppliers[0].id],
-      type: QueryTypes.SELECT,
-    });
+    const [row] = await sequelize.query<{ n: number }>(
+      "SELECT COUNT(*) AS n FROM pumps WHERE status = 'active' AND supplier_id = ?",
+      {
+        replacements: [suppliers[0].id],
+        type: QueryTypes.SELECT,
+      },
+    );
     expect(body.suppliers[0].pumpCount).to.equal(Number(row.n)).and.to.be.greaterThan(10);
   });
 
@@ -79,12 +95,15 @@ describe('catalog and curve-import API', function () {
     const page2 = (await get('/pumps?pageSize=10&page=2').expect(200)).body as PumpPage;
     expect(page2.items.map((pump) => pump.id)).to.deep.equal(all.items.slice(10, 20).map((pump) => pump.id));
 
-    const mixed = (await get('/pumps?kind=mixed-flow&sort=flowMax&order=desc&pageSize=100').expect(200)).body as PumpPage;
+    const mixed = (await get('/pumps?kind=mixed-flow&sort=flowMax&order=desc&pageSize=100').expect(200))
+      .body as PumpPage;
     expect(mixed.items.every((pump) => pump.kind === 'mixed-flow')).to.equal(true);
     const flows = mixed.items.map((pump) => pump.flowMax!);
     expect(flows).to.deep.equal([...flows].sort((a, b) => b - a));
 
-    const band = (await get('/pumps?flowMin=100&flowMax=150&flowUnit=gpm&headMin=30&headUnit=ft&pageSize=100').expect(200)).body as PumpPage;
+    const band = (
+      await get('/pumps?flowMin=100&flowMax=150&flowUnit=gpm&headMin=30&headUnit=ft&pageSize=100').expect(200)
+    ).body as PumpPage;
     expect(band.total).to.be.greaterThan(0);
     const [low, high, head] = [flowToSI(100, 'gpm'), flowToSI(150, 'gpm'), headToSI(30, 'ft')];
     for (const pump of band.items) {
@@ -109,7 +128,10 @@ describe('catalog and curve-import API', function () {
     expect(detail.revision!.number).to.equal(1);
     expect(detail.revision!.points.length).to.equal(detail.revision!.pointCount);
     const last = detail.revision!.points.at(-1)!;
-    expect(pumpHeadAt(detail.revision!.fit as Parameters<typeof pumpHeadAt>[0], last.flow)).to.be.closeTo(last.head, 0.05 * last.head);
+    expect(pumpHeadAt(detail.revision!.fit as Parameters<typeof pumpHeadAt>[0], last.flow)).to.be.closeTo(
+      last.head,
+      0.05 * last.head,
+    );
     expect(detail.revisions.map((revision) => revision.current)).to.deep.equal([true]);
     const missing = await get('/pumps/999999').expect(404);
     expect(missing.body.pointer).to.equal('/path/pumpId');
@@ -124,7 +146,8 @@ describe('catalog and curve-import API', function () {
     expect(report.pumps[0].fit!.powerBasis).to.equal('electrical');
     expect(await tableChecksums(sequelize, ['sessions', 'audit_events'])).to.deep.equal(before);
 
-    const committed = (await upload(suppliers[0].id, uploadTable, { fileName: 'upload-1.csv' }).expect(201)).body as CurveImportReport;
+    const committed = (await upload(suppliers[0].id, uploadTable, { fileName: 'upload-1.csv' }).expect(201))
+      .body as CurveImportReport;
     expect(committed.committed).to.equal(true);
     const found = (await get('/pumps?search=UP-1').expect(200)).body as PumpPage;
     expect(found.items.map((pump) => pump.modelCode)).to.deep.equal(['UP-1']);
@@ -133,7 +156,8 @@ describe('catalog and curve-import API', function () {
     const again = await upload(suppliers[0].id, uploadTable, { fileName: 'upload-1.csv' }).expect(200);
     expect((again.body as CurveImportReport).counts).to.deep.equal({ new: 0, changed: 0, unchanged: 1 });
 
-    const history = (await get(`/suppliers/${suppliers[0].id}/curve-imports`, tokens.ownSupplier).expect(200)).body as CurveImportList;
+    const history = (await get(`/suppliers/${suppliers[0].id}/curve-imports`, tokens.ownSupplier).expect(200))
+      .body as CurveImportList;
     expect(history.imports[0]).to.include({ id: committed.importId, fileName: 'upload-1.csv', channel: 'api' });
     expect(history.imports[0].importedBy).to.match(/@accounts\.test$/);
     expect(history.imports[0].report.pumps[0]).to.not.have.property('points');
@@ -174,7 +198,9 @@ describe('catalog and curve-import API', function () {
     expect(forbidden.body.pointer).to.equal('/path/supplierId');
     await get(`/suppliers/${suppliers[1].id}/curve-imports`, tokens.ownSupplier).expect(403);
     expect(await tableChecksums(sequelize, ['sessions', 'audit_events'])).to.deep.equal(checksums);
-    const byAdmin = await upload(suppliers[1].id, uploadTable.replaceAll('UP-1', 'UP-ADMIN'), { token: tokens.admin }).expect(201);
+    const byAdmin = await upload(suppliers[1].id, uploadTable.replaceAll('UP-1', 'UP-ADMIN'), {
+      token: tokens.admin,
+    }).expect(201);
     expect((byAdmin.body as CurveImportReport).supplier.code).to.equal('QUILLWATER');
   });
 
@@ -182,7 +208,11 @@ describe('catalog and curve-import API', function () {
     const { user } = await createUserWithSession(sequelize, 'supplier-admin', { supplierId: suppliers[2].id });
     const token = await createApiToken(sequelize, user.id, ['curves:import']);
     await upload(suppliers[2].id, uploadTable, { token, dryRun: true }).expect(200);
-    const noFile = await request(app).post(`/api/v1/suppliers/${suppliers[2].id}/curve-imports`).set('Authorization', `Bearer ${token}`).field('dryRun', 'true').expect(400);
+    const noFile = await request(app)
+      .post(`/api/v1/suppliers/${suppliers[2].id}/curve-imports`)
+      .set('Authorization', `Bearer ${token}`)
+      .field('dryRun', 'true')
+      .expect(400);
     expect(noFile.body.pointer).to.equal('/body/file');
     const badFlag = await request(app)
       .post(`/api/v1/suppliers/${suppliers[2].id}/curve-imports`)

@@ -10,8 +10,11 @@ import { createScratchDatabase } from '../../support/test-database';
 
 /** The contract's own example of a project to save. */
 function contractExample(): ProjectInput {
-  const operation = (openApiDocument.paths?.['/projects'] as OpenAPIV3_1.PathItemObject).post as OpenAPIV3_1.OperationObject;
-  return structuredClone((operation.requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json'].example as ProjectInput);
+  const operation = (openApiDocument.paths?.['/projects'] as OpenAPIV3_1.PathItemObject)
+    .post as OpenAPIV3_1.OperationObject;
+  return structuredClone(
+    (operation.requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json'].example as ProjectInput,
+  );
 }
 
 describe('projects: saved designs', function () {
@@ -30,8 +33,10 @@ describe('projects: saved designs', function () {
 
   const as = (token: string) => ({
     get: (path: string) => request(app).get(`/api/v1${path}`).set('Authorization', `Bearer ${token}`),
-    post: (path: string, body: object) => request(app).post(`/api/v1${path}`).set('Authorization', `Bearer ${token}`).send(body),
-    put: (path: string, body: object) => request(app).put(`/api/v1${path}`).set('Authorization', `Bearer ${token}`).send(body),
+    post: (path: string, body: object) =>
+      request(app).post(`/api/v1${path}`).set('Authorization', `Bearer ${token}`).send(body),
+    put: (path: string, body: object) =>
+      request(app).put(`/api/v1${path}`).set('Authorization', `Bearer ${token}`).send(body),
     delete: (path: string) => request(app).delete(`/api/v1${path}`).set('Authorization', `Bearer ${token}`),
   });
 
@@ -45,14 +50,21 @@ describe('projects: saved designs', function () {
     const changed: DesignDraft = structuredClone(example.design);
     changed.system.segments[0].length = 260;
     changed.unitSystem = 'us';
-    const second = (await designer.post('/projects', { name: '  Lower pond  ', design: example.design }).expect(201)).body as Project;
+    const second = (await designer.post('/projects', { name: '  Lower pond  ', design: example.design }).expect(201))
+      .body as Project;
     expect(second.name).to.equal('Lower pond');
     await new Promise((resolve) => setTimeout(resolve, 1100));
-    const updated = (await designer.put(`/projects/${created.id}`, { name: 'Hillside cascade, longer run', design: changed }).expect(200)).body as Project;
+    const updated = (
+      await designer
+        .put(`/projects/${created.id}`, { name: 'Hillside cascade, longer run', design: changed })
+        .expect(200)
+    ).body as Project;
     expect(updated.design.system.segments[0].length).to.equal(260);
     expect(Date.parse(updated.updatedAt)).to.be.greaterThan(Date.parse(created.updatedAt));
 
-    const list = (await designer.get('/projects').expect(200)).body as { projects: Array<{ id: number; name: string }> };
+    const list = (await designer.get('/projects').expect(200)).body as {
+      projects: Array<{ id: number; name: string }>;
+    };
     expect(list.projects.map((project) => project.name)).to.deep.equal(['Hillside cascade, longer run', 'Lower pond']);
     expect((await designer.get(`/projects/${created.id}`).expect(200)).body.design).to.deep.equal(changed);
 
@@ -83,20 +95,30 @@ describe('projects: saved designs', function () {
     expect(sizeProblem.body.errors[0].pointer).to.equal('/body/design/system/segments/0/size');
     const unknownSeries = contractExample();
     unknownSeries.design.system.segments[0].series = 'clay';
-    expect((await designer.post('/projects', unknownSeries).expect(422)).body.errors[0].pointer).to.equal('/body/design/system/segments/0/series');
+    expect((await designer.post('/projects', unknownSeries).expect(422)).body.errors[0].pointer).to.equal(
+      '/body/design/system/segments/0/series',
+    );
     const band = contractExample();
     band.design.band = { flowMin: 130, flowMax: 90 };
-    expect((await designer.post('/projects', band).expect(422)).body.errors[0].pointer).to.equal('/body/design/band/flowMax');
+    expect((await designer.post('/projects', band).expect(422)).body.errors[0].pointer).to.equal(
+      '/body/design/band/flowMax',
+    );
     const malformed = contractExample() as unknown as { design: { system: { waterTemperatureC: number } } };
     malformed.design.system.waterTemperatureC = 80;
-    expect((await designer.post('/projects', malformed).expect(400)).body.errors[0].pointer).to.equal('/body/design/system/waterTemperatureC');
+    expect((await designer.post('/projects', malformed).expect(400)).body.errors[0].pointer).to.equal(
+      '/body/design/system/waterTemperatureC',
+    );
     await designer.post('/projects', { ...contractExample(), name: '<b>pond</b>' }).expect(400);
     expect(await tableChecksums(scratch.sequelize, ['sessions'])).to.deep.equal(before);
   });
 
   it('lets an API token with projects:write save projects, and not one without', async () => {
     const { user } = await createUserWithSession(scratch.sequelize, 'integrator');
-    await as(await createApiToken(scratch.sequelize, user.id, ['projects:write'])).post('/projects', contractExample()).expect(201);
-    await as(await createApiToken(scratch.sequelize, user.id, ['calculations:run'])).post('/projects', contractExample()).expect(403);
+    await as(await createApiToken(scratch.sequelize, user.id, ['projects:write']))
+      .post('/projects', contractExample())
+      .expect(201);
+    await as(await createApiToken(scratch.sequelize, user.id, ['calculations:run']))
+      .post('/projects', contractExample())
+      .expect(403);
   });
 });

@@ -32,9 +32,30 @@ import { seedSyntheticCatalog, syntheticShapes } from './synthetic-catalog';
  */
 
 const units = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' } as const;
-const system = { staticHead: 14.5, frictionMethod: 'hazen-williams', segments: [{ length: 240, pipe: 'pvc-sch40-3', fittings: [{ kind: 'elbow-90-standard', count: 4 }, { kind: 'exit', count: 1 }] }] };
+const system = {
+  staticHead: 14.5,
+  frictionMethod: 'hazen-williams',
+  segments: [
+    {
+      length: 240,
+      pipe: 'pvc-sch40-3',
+      fittings: [
+        { kind: 'elbow-90-standard', count: 4 },
+        { kind: 'exit', count: 1 },
+      ],
+    },
+  ],
+};
 const duty = { flowMin: 90, flowMax: 130 };
-const search = { units, system, duty, arrangements: [1, 2, 3], requireOneFailed: true, energy: { hoursPerDay: 24, tariffPerKWh: 0.2 }, limit: 50 };
+const search = {
+  units,
+  system,
+  duty,
+  arrangements: [1, 2, 3],
+  requireOneFailed: true,
+  energy: { hoursPerDay: 24, tariffPerKWh: 0.2 },
+  limit: 50,
+};
 
 function tierOf(candidate: SelectionCandidate): number {
   if (!candidate.inBand) return 2;
@@ -80,7 +101,8 @@ describe('POST /api/v1/selections', function () {
         const perPump = point.totalFlow / running;
         const failed = running > 1 ? solveParallelIdentical(fit, compiled, running - 1, running - 1) : null;
         const redundant = redundancy === 'standby' || (failed !== null && failed.ok && failed.totalFlow >= low);
-        if (classifyOperatingRegion(fit, perPump, DEFAULT_PREFERRED_BAND).region !== 'preferred' || !redundant) continue;
+        if (classifyOperatingRegion(fit, perPump, DEFAULT_PREFERRED_BAND).region !== 'preferred' || !redundant)
+          continue;
         const energy = powerAtOperatingPoint(fit, perPump, point.head, density).electrical! * running;
         if (!best || energy < best.energy) best = { pumpId: row.pump_id, running, energy };
       }
@@ -100,7 +122,8 @@ describe('POST /api/v1/selections', function () {
   });
 
   it('answers the contract example with a body its schema accepts', async () => {
-    const operation = (openApiDocument.paths?.['/selections'] as OpenAPIV3_1.PathItemObject).post as OpenAPIV3_1.OperationObject;
+    const operation = (openApiDocument.paths?.['/selections'] as OpenAPIV3_1.PathItemObject)
+      .post as OpenAPIV3_1.OperationObject;
     const example = (operation.requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json'].example;
     const response = await post('/selections', example).expect(200);
     const ajv = new Ajv2020({ allErrors: true, strict: true, strictRequired: false, allowUnionTypes: true });
@@ -142,7 +165,8 @@ describe('POST /api/v1/selections', function () {
       expect(candidate.arrangement.installed).to.equal(candidate.arrangement.running + 1);
       expect(candidate.oneFailed).to.deep.equal(candidate.operatingPoint);
       expect(candidate.oneFailedMeetsMinimum).to.equal(candidate.operatingPoint.flow >= duty.flowMin * (1 - 1e-9));
-      if (candidate.inBand) expect(candidate.reasons).to.include('one failed: the standby takes over at the same point');
+      if (candidate.inBand)
+        expect(candidate.reasons).to.include('one failed: the standby takes over at the same point');
     }
   });
 
@@ -156,12 +180,24 @@ describe('POST /api/v1/selections', function () {
       if (tierOf(before) === tierOf(after)) expect(before.annualKWh!).to.be.at.most(after.annualKWh!);
     }
     for (const candidate of candidates) {
-      expect(candidate.reasons[0]).to.equal(candidate.inBand ? 'in the duty band' : candidate.operatingPoint.flow < duty.flowMin ? 'below the duty band' : 'above the duty band');
-      if (candidate.region === 'outside') expect(candidate.reasons.some((reason) => reason.startsWith('outside POR'))).to.equal(true);
-      if (candidate.arrangement.running === 1) expect(candidate.reasons).to.include('a single pump: no flow at all when it fails');
-      if (candidate.oneFailedMeetsMinimum === false) expect(candidate.reasons.some((reason) => reason.includes('with one failed'))).to.equal(true);
+      expect(candidate.reasons[0]).to.equal(
+        candidate.inBand
+          ? 'in the duty band'
+          : candidate.operatingPoint.flow < duty.flowMin
+            ? 'below the duty band'
+            : 'above the duty band',
+      );
+      if (candidate.region === 'outside')
+        expect(candidate.reasons.some((reason) => reason.startsWith('outside POR'))).to.equal(true);
+      if (candidate.arrangement.running === 1)
+        expect(candidate.reasons).to.include('a single pump: no flow at all when it fails');
+      if (candidate.oneFailedMeetsMinimum === false)
+        expect(candidate.reasons.some((reason) => reason.includes('with one failed'))).to.equal(true);
       if (candidate.warnings.includes('run-out')) expect(candidate.reasons).to.include('run-out');
-      expect(candidate.operatingPoint.flowPerPump).to.be.closeTo(candidate.operatingPoint.flow / candidate.arrangement.running, 1e-9);
+      expect(candidate.operatingPoint.flowPerPump).to.be.closeTo(
+        candidate.operatingPoint.flow / candidate.arrangement.running,
+        1e-9,
+      );
       expect(candidate.curve.length).to.be.greaterThan(2);
     }
     const tiers = new Set(candidates.map(tierOf));
@@ -180,23 +216,35 @@ describe('POST /api/v1/selections', function () {
     expect(single.body.operatingPoint.flow).to.be.closeTo(candidate.operatingPoint.flow, 1e-6);
     expect(single.body.operatingPoint.head).to.be.closeTo(candidate.operatingPoint.head, 1e-6);
     expect(single.body.oneFailed.flow).to.be.closeTo(candidate.oneFailed!.flow, 1e-6);
-    const curve = await post('/calculations/system-curve', { units, system, flows: [candidate.operatingPoint.flow] }).expect(200);
+    const curve = await post('/calculations/system-curve', {
+      units,
+      system,
+      flows: [candidate.operatingPoint.flow],
+    }).expect(200);
     expect(curve.body.points[0].head).to.be.closeTo(candidate.operatingPoint.head, 1e-6);
   });
 
   it('answers 404 naming the field for a pump id that is not in the catalog', async () => {
-    const response = await post('/calculations/operating-point', { units, system, pump: { pumpId: 999_999 } }).expect(404);
+    const response = await post('/calculations/operating-point', { units, system, pump: { pumpId: 999_999 } }).expect(
+      404,
+    );
     expect(response.body.pointer).to.equal('/body/pump/pumpId');
   });
 
   it('keeps only what the filters allow', async () => {
-    const onlyPreferred = (await post('/selections', { ...search, filters: { onlyPreferredRegion: true, maxInputPowerPerPump: 0.8 } }).expect(200)).body as SelectionResponse;
+    const onlyPreferred = (
+      await post('/selections', {
+        ...search,
+        filters: { onlyPreferredRegion: true, maxInputPowerPerPump: 0.8 },
+      }).expect(200)
+    ).body as SelectionResponse;
     expect(onlyPreferred.candidates.length).to.be.greaterThan(0);
     for (const candidate of onlyPreferred.candidates) {
       expect(candidate.region).to.equal('preferred');
       expect(candidate.operatingPoint.inputPower! / candidate.arrangement.running).to.be.at.most(0.8 + 1e-9);
     }
-    const none = (await post('/selections', { ...search, filters: { supplierIds: [987_654] } }).expect(200)).body as SelectionResponse;
+    const none = (await post('/selections', { ...search, filters: { supplierIds: [987_654] } }).expect(200))
+      .body as SelectionResponse;
     expect(none.candidates).to.deep.equal([]);
     expect(none.warnings.join(' ')).to.contain('no catalog pump');
   });
@@ -204,15 +252,23 @@ describe('POST /api/v1/selections', function () {
   it('sees a new curve revision without a restart', async () => {
     const before = (await post('/selections', search).expect(200)).body as SelectionResponse;
     // One invented pump whose BEP (60 % of its last flow, 110 gpm) sits on this system at about 6.6 m.
-    const [pumpId] = await seedSyntheticCatalog(scratch.sequelize, [{ shutOffHead: 10, lastFlow: 0.0116, peakEfficiency: 0.8 }], 'Late Test Pumps');
-    const [{ supplierId }] = await scratch.sequelize.query<{ supplierId: number }>('SELECT supplier_id AS supplierId FROM pumps WHERE id = ?', {
-      replacements: [pumpId],
-      type: QueryTypes.SELECT,
-    });
+    const [pumpId] = await seedSyntheticCatalog(
+      scratch.sequelize,
+      [{ shutOffHead: 10, lastFlow: 0.0116, peakEfficiency: 0.8 }],
+      'Late Test Pumps',
+    );
+    const [{ supplierId }] = await scratch.sequelize.query<{ supplierId: number }>(
+      'SELECT supplier_id AS supplierId FROM pumps WHERE id = ?',
+      {
+        replacements: [pumpId],
+        type: QueryTypes.SELECT,
+      },
+    );
     await new Promise((resolve) => setTimeout(resolve, STAMP_REUSE_MS + 50));
     const after = (await post('/selections', search).expect(200)).body as SelectionResponse;
     expect(after.considered).to.equal(before.considered + 3);
-    const onlyNew = (await post('/selections', { ...search, filters: { supplierIds: [supplierId] } }).expect(200)).body as SelectionResponse;
+    const onlyNew = (await post('/selections', { ...search, filters: { supplierIds: [supplierId] } }).expect(200))
+      .body as SelectionResponse;
     expect(onlyNew.candidates.map((candidate) => candidate.pumpId)).to.include(pumpId);
     const single = onlyNew.candidates.find((candidate) => candidate.arrangement.running === 1)!;
     expect(single.inBand).to.equal(true);
@@ -227,13 +283,48 @@ describe('POST /api/v1/selections', function () {
   });
 
   const badInputs: Array<{ name: string; body: unknown; status: number; pointer: string }> = [
-    { name: 'a band with min above max', body: { ...search, duty: { flowMin: 130, flowMax: 90 } }, status: 422, pointer: '/body/duty/flowMax' },
-    { name: 'a zero band minimum', body: { ...search, duty: { flowMin: 0, flowMax: 90 } }, status: 400, pointer: '/body/duty/flowMin' },
-    { name: 'four pumps in parallel', body: { ...search, arrangements: [4] }, status: 400, pointer: '/body/arrangements/0' },
-    { name: 'thirty hours a day', body: { ...search, energy: { hoursPerDay: 30 } }, status: 400, pointer: '/body/energy/hoursPerDay' },
-    { name: 'an unknown head unit', body: { ...search, units: { ...units, head: 'cubit' } }, status: 400, pointer: '/body/units/head' },
-    { name: 'no segments', body: { ...search, system: { ...system, segments: [] } }, status: 400, pointer: '/body/system/segments' },
-    { name: 'an absurd band', body: { ...search, duty: { flowMin: 90, flowMax: 9e9 } }, status: 422, pointer: '/body/duty/flowMax' },
+    {
+      name: 'a band with min above max',
+      body: { ...search, duty: { flowMin: 130, flowMax: 90 } },
+      status: 422,
+      pointer: '/body/duty/flowMax',
+    },
+    {
+      name: 'a zero band minimum',
+      body: { ...search, duty: { flowMin: 0, flowMax: 90 } },
+      status: 400,
+      pointer: '/body/duty/flowMin',
+    },
+    {
+      name: 'four pumps in parallel',
+      body: { ...search, arrangements: [4] },
+      status: 400,
+      pointer: '/body/arrangements/0',
+    },
+    {
+      name: 'thirty hours a day',
+      body: { ...search, energy: { hoursPerDay: 30 } },
+      status: 400,
+      pointer: '/body/energy/hoursPerDay',
+    },
+    {
+      name: 'an unknown head unit',
+      body: { ...search, units: { ...units, head: 'cubit' } },
+      status: 400,
+      pointer: '/body/units/head',
+    },
+    {
+      name: 'no segments',
+      body: { ...search, system: { ...system, segments: [] } },
+      status: 400,
+      pointer: '/body/system/segments',
+    },
+    {
+      name: 'an absurd band',
+      body: { ...search, duty: { flowMin: 90, flowMax: 9e9 } },
+      status: 422,
+      pointer: '/body/duty/flowMax',
+    },
     { name: 'a limit of zero', body: { ...search, limit: 0 }, status: 400, pointer: '/body/limit' },
   ];
   for (const { name, body, status, pointer } of badInputs) {

@@ -50,9 +50,12 @@ const sha = (text: string) => createHash('sha256').update(text).digest('hex');
 async function insertRows(sequelize: Sequelize, table: string, columns: string[], rows: unknown[][]): Promise<void> {
   for (let start = 0; start < rows.length; start += 1000) {
     const chunk = rows.slice(start, start + 1000);
-    await sequelize.query(`INSERT INTO ${table} (${columns.join(', ')}) VALUES ${chunk.map(() => `(${columns.map(() => '?').join(', ')})`).join(', ')}`, {
-      replacements: chunk.flat(),
-    });
+    await sequelize.query(
+      `INSERT INTO ${table} (${columns.join(', ')}) VALUES ${chunk.map(() => `(${columns.map(() => '?').join(', ')})`).join(', ')}`,
+      {
+        replacements: chunk.flat(),
+      },
+    );
   }
 }
 
@@ -60,34 +63,123 @@ async function insertRows(sequelize: Sequelize, table: string, columns: string[]
  * Writes `shapes` as pumps of one invented supplier, each with one current curve revision whose
  * fit the engine computes, the way an import stores it. Returns the pump ids in shape order.
  */
-export async function seedSyntheticCatalog(sequelize: Sequelize, shapes: readonly SyntheticPumpShape[], supplierName = 'Synthetic Test Pumps'): Promise<number[]> {
+export async function seedSyntheticCatalog(
+  sequelize: Sequelize,
+  shapes: readonly SyntheticPumpShape[],
+  supplierName = 'Synthetic Test Pumps',
+): Promise<number[]> {
   const now = new Date();
   const code = `SYN${Date.now().toString(36).toUpperCase()}${Math.floor(Math.random() * 1e4)}`.slice(0, 32);
-  await sequelize.query('INSERT INTO suppliers (code, name, created_at, updated_at) VALUES (?, ?, ?, ?)', { replacements: [code, supplierName, now, now] });
-  const [{ id: supplierId }] = await sequelize.query<{ id: number }>('SELECT id FROM suppliers WHERE code = ?', { replacements: [code], type: QueryTypes.SELECT });
+  await sequelize.query('INSERT INTO suppliers (code, name, created_at, updated_at) VALUES (?, ?, ?, ?)', {
+    replacements: [code, supplierName, now, now],
+  });
+  const [{ id: supplierId }] = await sequelize.query<{ id: number }>('SELECT id FROM suppliers WHERE code = ?', {
+    replacements: [code],
+    type: QueryTypes.SELECT,
+  });
   const units = JSON.stringify({ flow: 'm3/s', head: 'm' });
   await insertRows(
     sequelize,
     'curve_imports',
-    ['supplier_id', 'imported_by', 'channel', 'file_name', 'file_checksum', 'file_units', 'row_count', 'pump_count', 'new_count', 'changed_count', 'unchanged_count', 'report', 'created_at'],
-    [[supplierId, 'synthetic catalog', 'command', 'synthetic.csv', sha(code), units, shapes.length * 6, shapes.length, shapes.length, 0, 0, '{}', now]],
+    [
+      'supplier_id',
+      'imported_by',
+      'channel',
+      'file_name',
+      'file_checksum',
+      'file_units',
+      'row_count',
+      'pump_count',
+      'new_count',
+      'changed_count',
+      'unchanged_count',
+      'report',
+      'created_at',
+    ],
+    [
+      [
+        supplierId,
+        'synthetic catalog',
+        'command',
+        'synthetic.csv',
+        sha(code),
+        units,
+        shapes.length * 6,
+        shapes.length,
+        shapes.length,
+        0,
+        0,
+        '{}',
+        now,
+      ],
+    ],
   );
-  const [{ id: importId }] = await sequelize.query<{ id: number }>('SELECT MAX(id) AS id FROM curve_imports WHERE supplier_id = ?', { replacements: [supplierId], type: QueryTypes.SELECT });
+  const [{ id: importId }] = await sequelize.query<{ id: number }>(
+    'SELECT MAX(id) AS id FROM curve_imports WHERE supplier_id = ?',
+    { replacements: [supplierId], type: QueryTypes.SELECT },
+  );
   await insertRows(
     sequelize,
     'pumps',
     ['supplier_id', 'model_code', 'display_name', 'kind', 'status', 'created_at', 'updated_at'],
-    shapes.map((_, index) => [supplierId, `SYN-${index + 1}`, `Synthetic pump ${index + 1}`, 'submersible', 'active', now, now]),
+    shapes.map((_, index) => [
+      supplierId,
+      `SYN-${index + 1}`,
+      `Synthetic pump ${index + 1}`,
+      'submersible',
+      'active',
+      now,
+      now,
+    ]),
   );
-  const pumps = await sequelize.query<{ id: number }>('SELECT id FROM pumps WHERE supplier_id = ? ORDER BY id', { replacements: [supplierId], type: QueryTypes.SELECT });
+  const pumps = await sequelize.query<{ id: number }>('SELECT id FROM pumps WHERE supplier_id = ? ORDER BY id', {
+    replacements: [supplierId],
+    type: QueryTypes.SELECT,
+  });
   const fits = shapes.map((shape) => fitPumpCurve(syntheticCurve(shape)));
   await insertRows(
     sequelize,
     'curve_revisions',
-    ['pump_id', 'number', 'import_id', 'source_file_name', 'source_checksum', 'content_hash', 'file_units', 'point_count', 'flow_min_m3s', 'flow_max_m3s', 'head_min_m', 'head_max_m', 'bep_flow_m3s', 'bep_head_m', 'bep_efficiency', 'fit', 'created_at'],
+    [
+      'pump_id',
+      'number',
+      'import_id',
+      'source_file_name',
+      'source_checksum',
+      'content_hash',
+      'file_units',
+      'point_count',
+      'flow_min_m3s',
+      'flow_max_m3s',
+      'head_min_m',
+      'head_max_m',
+      'bep_flow_m3s',
+      'bep_head_m',
+      'bep_efficiency',
+      'fit',
+      'created_at',
+    ],
     fits.map((fit, index) => {
       const text = JSON.stringify(fit);
-      return [pumps[index].id, 1, importId, 'synthetic.csv', sha(code), sha(text), units, 6, fit.flowMin, fit.flowMax, 0.2 * shapes[index].shutOffHead, shapes[index].shutOffHead, fit.bep?.flow ?? null, fit.bep?.head ?? null, fit.bep?.efficiency ?? null, text, now];
+      return [
+        pumps[index].id,
+        1,
+        importId,
+        'synthetic.csv',
+        sha(code),
+        sha(text),
+        units,
+        6,
+        fit.flowMin,
+        fit.flowMax,
+        0.2 * shapes[index].shutOffHead,
+        shapes[index].shutOffHead,
+        fit.bep?.flow ?? null,
+        fit.bep?.head ?? null,
+        fit.bep?.efficiency ?? null,
+        text,
+        now,
+      ];
     }),
   );
   await sequelize.query(

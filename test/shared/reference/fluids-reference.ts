@@ -18,9 +18,22 @@ export interface FluidsRequest {
 }
 
 export type CraneValues = Record<
-  | 'ft' | 'elbow90' | 'elbow45' | 'return180' | 'bend90rd1' | 'gate' | 'ball' | 'globe' | 'butterfly'
-  | 'swingCheck' | 'swingCheckClearway' | 'footValvePoppet' | 'footValveHinged'
-  | 'entranceSharp' | 'entranceInward' | 'exit',
+  | 'ft'
+  | 'elbow90'
+  | 'elbow45'
+  | 'return180'
+  | 'bend90rd1'
+  | 'gate'
+  | 'ball'
+  | 'globe'
+  | 'butterfly'
+  | 'swingCheck'
+  | 'swingCheckClearway'
+  | 'footValvePoppet'
+  | 'footValveHinged'
+  | 'entranceSharp'
+  | 'entranceInward'
+  | 'exit',
   number
 >;
 

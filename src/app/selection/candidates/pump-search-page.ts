@@ -1,6 +1,12 @@
 import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators, type AbstractControl, type ValidationErrors } from '@angular/forms';
+import {
+  NonNullableFormBuilder,
+  ReactiveFormsModule,
+  Validators,
+  type AbstractControl,
+  type ValidationErrors,
+} from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -65,7 +71,22 @@ export class PumpSearchPage {
   protected readonly failed = signal(false);
   private readonly sort = signal<Sort>({ active: 'rank', direction: 'asc' });
 
-  protected readonly columns = ['compare', 'rank', 'pump', 'arrangement', 'flow', 'head', 'bep', 'region', 'power', 'energy', 'cost', 'oneFailed', 'warnings', 'reasons'];
+  protected readonly columns = [
+    'compare',
+    'rank',
+    'pump',
+    'arrangement',
+    'flow',
+    'head',
+    'bep',
+    'region',
+    'power',
+    'energy',
+    'cost',
+    'oneFailed',
+    'warnings',
+    'reasons',
+  ];
 
   private readonly settings = this.draft.search();
   protected readonly form = this.formBuilder.group({
@@ -80,10 +101,21 @@ export class PumpSearchPage {
     requireOneFailed: this.settings.requireOneFailed,
     standby: this.settings.standby ?? false,
     onlyPreferredRegion: this.settings.onlyPreferredRegion,
-    maxInputPowerPerPump: this.formBuilder.control<number | null>(this.settings.maxInputPowerPerPump, [Validators.min(0.001)]),
-    hoursPerDay: this.formBuilder.control(this.settings.hoursPerDay, [Validators.required, Validators.min(0), Validators.max(24)]),
+    maxInputPowerPerPump: this.formBuilder.control<number | null>(this.settings.maxInputPowerPerPump, [
+      Validators.min(0.001),
+    ]),
+    hoursPerDay: this.formBuilder.control(this.settings.hoursPerDay, [
+      Validators.required,
+      Validators.min(0),
+      Validators.max(24),
+    ]),
     tariffPerKWh: this.formBuilder.control<number | null>(this.settings.tariffPerKWh, [Validators.min(0)]),
-    limit: this.formBuilder.control(this.settings.limit, [Validators.required, Validators.min(1), Validators.max(200), Validators.pattern(/^\d+$/)]),
+    limit: this.formBuilder.control(this.settings.limit, [
+      Validators.required,
+      Validators.min(1),
+      Validators.max(200),
+      Validators.pattern(/^\d+$/),
+    ]),
   });
 
   protected readonly rows = computed(() => {
@@ -111,7 +143,9 @@ export class PumpSearchPage {
     if (this.form.invalid) return;
     const value = this.form.getRawValue();
     const settings: SearchSettings = {
-      arrangements: [value.arrangements.one && 1, value.arrangements.two && 2, value.arrangements.three && 3].filter((count): count is 1 | 2 | 3 => typeof count === 'number'),
+      arrangements: [value.arrangements.one && 1, value.arrangements.two && 2, value.arrangements.three && 3].filter(
+        (count): count is 1 | 2 | 3 => typeof count === 'number',
+      ),
       requireOneFailed: value.requireOneFailed,
       standby: value.standby,
       onlyPreferredRegion: value.onlyPreferredRegion,
@@ -132,7 +166,10 @@ export class PumpSearchPage {
         onlyPreferredRegion: settings.onlyPreferredRegion,
         ...(settings.maxInputPowerPerPump ? { maxInputPowerPerPump: settings.maxInputPowerPerPump } : {}),
       },
-      energy: { hoursPerDay: settings.hoursPerDay, ...(settings.tariffPerKWh === null ? {} : { tariffPerKWh: settings.tariffPerKWh }) },
+      energy: {
+        hoursPerDay: settings.hoursPerDay,
+        ...(settings.tariffPerKWh === null ? {} : { tariffPerKWh: settings.tariffPerKWh }),
+      },
       limit: settings.limit,
     };
     this.searching.set(true);

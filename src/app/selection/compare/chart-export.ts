@@ -9,7 +9,6 @@ export function svgText(element: SVGSVGElement): string {
   return `<?xml version="1.0" encoding="UTF-8"?>\n${new XMLSerializer().serializeToString(copy)}`;
 }
 
-
 export function downloadSvg(element: SVGSVGElement, fileName: string): void {
   saveFile(new Blob([svgText(element)], { type: 'image/svg+xml' }), fileName);
 }

@@ -1,4 +1,20 @@
-import { axisBottom, axisLeft, line, scaleLinear, select, symbol, type Selection, symbolCircle, symbolCross, symbolDiamond, symbolSquare, symbolStar, symbolTimes, symbolTriangle, symbolWye } from 'd3';
+import {
+  axisBottom,
+  axisLeft,
+  line,
+  scaleLinear,
+  select,
+  symbol,
+  type Selection,
+  symbolCircle,
+  symbolCross,
+  symbolDiamond,
+  symbolSquare,
+  symbolStar,
+  symbolTimes,
+  symbolTriangle,
+  symbolWye,
+} from 'd3';
 
 /*
  * The comparison chart, drawn with d3 into one SVG whose look lives in attributes (not page CSS),
@@ -36,12 +52,25 @@ export interface ChartStyle {
 
 const colours = ['#12383d', '#b5643c', '#5b7f2a', '#7b3f6e', '#3d5a99', '#a07c12', '#9c3b2f', '#4f6d64'];
 const dashes = ['', '9 4', '2 3', '10 3 2 3', '5 5', '14 4 4 4', '1 5', '7 2'];
-const marks = [symbolCircle, symbolSquare, symbolTriangle, symbolDiamond, symbolCross, symbolStar, symbolWye, symbolTimes];
+const marks = [
+  symbolCircle,
+  symbolSquare,
+  symbolTriangle,
+  symbolDiamond,
+  symbolCross,
+  symbolStar,
+  symbolWye,
+  symbolTimes,
+];
 const markNames = ['circle', 'square', 'triangle', 'diamond', 'cross', 'star', 'wye', 'times'];
 
 /** The style of the candidate at `index` (0-7), also used by the page's table headings. */
 export function chartStyle(index: number): ChartStyle {
-  return { colour: colours[index % colours.length], dash: dashes[index % dashes.length], mark: markNames[index % markNames.length] };
+  return {
+    colour: colours[index % colours.length],
+    dash: dashes[index % dashes.length],
+    mark: markNames[index % markNames.length],
+  };
 }
 
 export const chartSize = { width: 900, height: 520 };
@@ -64,22 +93,57 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
     .attr('font-family', font)
     .attr('font-size', 12)
     .attr('role', 'img')
-    .attr('aria-label', `System curve, duty band and ${model.candidates.length} pump curves with their operating points`);
+    .attr(
+      'aria-label',
+      `System curve, duty band and ${model.candidates.length} pump curves with their operating points`,
+    );
   svg.append('rect').attr('width', width).attr('height', height).attr('fill', '#ffffff');
 
-  const maxFlow = Math.max(model.band.flowMax * 1.3, ...model.candidates.flatMap((candidate) => candidate.curve.map((point) => point.flow)));
-  const maxHead = Math.max(...model.candidates.flatMap((candidate) => candidate.curve.map((point) => point.head)), ...model.systemCurve.map((point) => point.head));
-  const x = scaleLinear().domain([0, maxFlow]).range([margin.left, width - margin.right]).nice();
-  const y = scaleLinear().domain([0, maxHead * 1.05]).range([height - margin.bottom, margin.top]).nice();
+  const maxFlow = Math.max(
+    model.band.flowMax * 1.3,
+    ...model.candidates.flatMap((candidate) => candidate.curve.map((point) => point.flow)),
+  );
+  const maxHead = Math.max(
+    ...model.candidates.flatMap((candidate) => candidate.curve.map((point) => point.head)),
+    ...model.systemCurve.map((point) => point.head),
+  );
+  const x = scaleLinear()
+    .domain([0, maxFlow])
+    .range([margin.left, width - margin.right])
+    .nice();
+  const y = scaleLinear()
+    .domain([0, maxHead * 1.05])
+    .range([height - margin.bottom, margin.top])
+    .nice();
   const path = line<ChartPoint>()
     .x((point) => x(point.flow))
     .y((point) => y(point.head));
 
   const defs = svg.append('defs');
-  const hatch = defs.append('pattern').attr('id', 'rf-band-hatch').attr('width', 8).attr('height', 8).attr('patternUnits', 'userSpaceOnUse').attr('patternTransform', 'rotate(45)');
+  const hatch = defs
+    .append('pattern')
+    .attr('id', 'rf-band-hatch')
+    .attr('width', 8)
+    .attr('height', 8)
+    .attr('patternUnits', 'userSpaceOnUse')
+    .attr('patternTransform', 'rotate(45)');
   hatch.append('rect').attr('width', 8).attr('height', 8).attr('fill', '#edf3ef');
-  hatch.append('line').attr('x1', 0).attr('y1', 0).attr('x2', 0).attr('y2', 8).attr('stroke', '#9bb8aa').attr('stroke-width', 2);
-  defs.append('clipPath').attr('id', 'rf-plot-clip').append('rect').attr('x', margin.left).attr('y', margin.top).attr('width', width - margin.left - margin.right).attr('height', height - margin.top - margin.bottom);
+  hatch
+    .append('line')
+    .attr('x1', 0)
+    .attr('y1', 0)
+    .attr('x2', 0)
+    .attr('y2', 8)
+    .attr('stroke', '#9bb8aa')
+    .attr('stroke-width', 2);
+  defs
+    .append('clipPath')
+    .attr('id', 'rf-plot-clip')
+    .append('rect')
+    .attr('x', margin.left)
+    .attr('y', margin.top)
+    .attr('width', width - margin.left - margin.right)
+    .attr('height', height - margin.top - margin.bottom);
 
   svg
     .append('rect')
@@ -98,13 +162,33 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
     .attr('font-weight', 700)
     .text('duty band');
 
-  svg.append('g').attr('transform', `translate(0,${height - margin.bottom})`).call(axisBottom(x).ticks(8));
+  svg
+    .append('g')
+    .attr('transform', `translate(0,${height - margin.bottom})`)
+    .call(axisBottom(x).ticks(8));
   svg.append('g').attr('transform', `translate(${margin.left},0)`).call(axisLeft(y).ticks(8));
-  svg.append('text').attr('x', (margin.left + width - margin.right) / 2).attr('y', height - 10).attr('text-anchor', 'middle').attr('font-weight', 700).text(`Flow (${model.flowUnit})`);
-  svg.append('text').attr('transform', `translate(16,${(margin.top + height - margin.bottom) / 2}) rotate(-90)`).attr('text-anchor', 'middle').attr('font-weight', 700).text(`Head (${model.headUnit})`);
+  svg
+    .append('text')
+    .attr('x', (margin.left + width - margin.right) / 2)
+    .attr('y', height - 10)
+    .attr('text-anchor', 'middle')
+    .attr('font-weight', 700)
+    .text(`Flow (${model.flowUnit})`);
+  svg
+    .append('text')
+    .attr('transform', `translate(16,${(margin.top + height - margin.bottom) / 2}) rotate(-90)`)
+    .attr('text-anchor', 'middle')
+    .attr('font-weight', 700)
+    .text(`Head (${model.headUnit})`);
 
   const plot = svg.append('g').attr('clip-path', 'url(#rf-plot-clip)');
-  plot.append('path').attr('class', 'rf-system-curve').attr('d', path(model.systemCurve)).attr('fill', 'none').attr('stroke', '#1f2624').attr('stroke-width', 3.5);
+  plot
+    .append('path')
+    .attr('class', 'rf-system-curve')
+    .attr('d', path(model.systemCurve))
+    .attr('fill', 'none')
+    .attr('stroke', '#1f2624')
+    .attr('stroke-width', 3.5);
 
   model.candidates.forEach((candidate, index) => {
     const style = chartStyle(index);
@@ -112,7 +196,15 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
     if (candidate.preferredRange) {
       const { flowMin, flowMax } = candidate.preferredRange;
       const inRange = candidate.curve.filter((point) => point.flow >= flowMin && point.flow <= flowMax);
-      group.append('path').attr('class', 'rf-preferred-band').attr('d', path(inRange)).attr('fill', 'none').attr('stroke', style.colour).attr('stroke-width', 9).attr('stroke-opacity', 0.28).attr('stroke-linecap', 'round');
+      group
+        .append('path')
+        .attr('class', 'rf-preferred-band')
+        .attr('d', path(inRange))
+        .attr('fill', 'none')
+        .attr('stroke', style.colour)
+        .attr('stroke-width', 9)
+        .attr('stroke-opacity', 0.28)
+        .attr('stroke-linecap', 'round');
     }
     group
       .append('path')
@@ -155,18 +247,60 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
   const legend = svg.append('g').attr('transform', `translate(${width - margin.right + 18},${margin.top})`);
   type LegendRow = Selection<SVGGElement, unknown, null, undefined>;
   const entries: Array<{ label: string; draw: (row: LegendRow) => void }> = [
-    { label: 'System curve', draw: (row) => row.append('line').attr('x2', 28).attr('stroke', '#1f2624').attr('stroke-width', 3.5) },
-    { label: 'Duty band', draw: (row) => row.append('rect').attr('y', -7).attr('width', 28).attr('height', 14).attr('fill', 'url(#rf-band-hatch)').attr('stroke', '#9bb8aa') },
+    {
+      label: 'System curve',
+      draw: (row) => row.append('line').attr('x2', 28).attr('stroke', '#1f2624').attr('stroke-width', 3.5),
+    },
+    {
+      label: 'Duty band',
+      draw: (row) =>
+        row
+          .append('rect')
+          .attr('y', -7)
+          .attr('width', 28)
+          .attr('height', 14)
+          .attr('fill', 'url(#rf-band-hatch)')
+          .attr('stroke', '#9bb8aa'),
+    },
     ...model.candidates.map((candidate, index) => ({
       label: candidate.label,
       draw: (row: LegendRow) => {
         const style = chartStyle(index);
-        row.append('line').attr('x2', 28).attr('stroke', style.colour).attr('stroke-width', 2.2).attr('stroke-dasharray', style.dash || null);
-        row.append('path').attr('d', symbol(marks[index % marks.length], 80)()).attr('transform', 'translate(14,0)').attr('fill', style.colour).attr('stroke', style.colour);
+        row
+          .append('line')
+          .attr('x2', 28)
+          .attr('stroke', style.colour)
+          .attr('stroke-width', 2.2)
+          .attr('stroke-dasharray', style.dash || null);
+        row
+          .append('path')
+          .attr('d', symbol(marks[index % marks.length], 80)())
+          .attr('transform', 'translate(14,0)')
+          .attr('fill', style.colour)
+          .attr('stroke', style.colour);
       },
     })),
-    { label: 'Preferred region (wide band)', draw: (row) => row.append('line').attr('x2', 28).attr('stroke', '#5f6b68').attr('stroke-width', 9).attr('stroke-opacity', 0.28) },
-    { label: 'Hollow mark: one pump failed', draw: (row) => row.append('circle').attr('cx', 14).attr('r', 5).attr('fill', '#ffffff').attr('stroke', '#1f2624').attr('stroke-width', 2) },
+    {
+      label: 'Preferred region (wide band)',
+      draw: (row) =>
+        row
+          .append('line')
+          .attr('x2', 28)
+          .attr('stroke', '#5f6b68')
+          .attr('stroke-width', 9)
+          .attr('stroke-opacity', 0.28),
+    },
+    {
+      label: 'Hollow mark: one pump failed',
+      draw: (row) =>
+        row
+          .append('circle')
+          .attr('cx', 14)
+          .attr('r', 5)
+          .attr('fill', '#ffffff')
+          .attr('stroke', '#1f2624')
+          .attr('stroke-width', 2),
+    },
   ];
   let top = 0;
   for (const entry of entries) {
@@ -174,7 +308,13 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
     const row = legend.append('g').attr('class', 'rf-legend-entry').attr('transform', `translate(0,${top})`);
     entry.draw(row);
     const text = row.append('text');
-    lines.forEach((line, lineIndex) => text.append('tspan').attr('x', 36).attr('dy', lineIndex === 0 ? '0.32em' : '1.2em').text(line));
+    lines.forEach((line, lineIndex) =>
+      text
+        .append('tspan')
+        .attr('x', 36)
+        .attr('dy', lineIndex === 0 ? '0.32em' : '1.2em')
+        .text(line),
+    );
     top += 10 + 14 * lines.length;
   }
 }

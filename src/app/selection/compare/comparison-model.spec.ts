@@ -2,7 +2,16 @@ import type { SelectionCandidate } from '../../../../shared/api/api-schemas';
 import { toPipeSystem, exampleDraft } from '../system-draft';
 import { candidateLabel, comparisonModel } from './comparison-model';
 
-const point = { flow: 100, head: 20, flowPerPump: 50, percentOfBep: 95, region: 'preferred', inputPower: 0.8, efficiency: 0.5, warnings: [] };
+const point = {
+  flow: 100,
+  head: 20,
+  flowPerPump: 50,
+  percentOfBep: 95,
+  region: 'preferred',
+  inputPower: 0.8,
+  efficiency: 0.5,
+  warnings: [],
+};
 const candidate = {
   rank: 1,
   pumpId: 7,
@@ -28,13 +37,19 @@ describe('comparison model', () => {
   it('draws the design in other units: 100 gpm is 378.5 L/min, 20 ft is 6.096 m', () => {
     const us = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' } as const;
     const si = { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm', power: 'kW' } as const;
-    const model = comparisonModel({ system: toPipeSystem(exampleDraft()), band: { flowMin: 90, flowMax: 130 }, units: us }, [candidate], si)!;
+    const model = comparisonModel(
+      { system: toPipeSystem(exampleDraft()), band: { flowMin: 90, flowMax: 130 }, units: us },
+      [candidate],
+      si,
+    )!;
     expect(model.flowUnit).toBe('L/min');
     // 1 US gal = 3.785411784 L exactly
     expect(model.candidates[0].operatingPoint.flow).toBeCloseTo(378.5411784, 6);
     expect(model.candidates[0].operatingPoint.head).toBeCloseTo(6.096, 9);
     // the system curve starts at the static head, 14.5 ft
     expect(model.systemCurve[0].head).toBeCloseTo(14.5 * 0.3048, 9);
-    expect(comparisonModel({ system: toPipeSystem(exampleDraft()), band: { flowMin: 90, flowMax: 130 }, units: us }, [], si)).toBeNull();
+    expect(
+      comparisonModel({ system: toPipeSystem(exampleDraft()), band: { flowMin: 90, flowMax: 130 }, units: us }, [], si),
+    ).toBeNull();
   });
 });

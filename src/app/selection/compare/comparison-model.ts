@@ -28,12 +28,22 @@ export function unitConverter(from: CalculationUnits, to: CalculationUnits) {
 }
 
 /** What the comparison chart draws, in the shown units; null with no candidate. */
-export function comparisonModel(design: ComparedDesign, candidates: readonly SelectionCandidate[], shown: CalculationUnits): ChartModel | null {
+export function comparisonModel(
+  design: ComparedDesign,
+  candidates: readonly SelectionCandidate[],
+  shown: CalculationUnits,
+): ChartModel | null {
   if (candidates.length === 0) return null;
   const convert = unitConverter(design.units, shown);
   const point = (value: ChartPoint): ChartPoint => ({ flow: convert.flow(value.flow), head: convert.head(value.head) });
   const system = compileDraft(design.system, design.units);
-  const topFlow = flowToSI(Math.max(design.band.flowMax * 1.3, ...candidates.flatMap((candidate) => candidate.curve.map((sample) => sample.flow))), design.units.flow);
+  const topFlow = flowToSI(
+    Math.max(
+      design.band.flowMax * 1.3,
+      ...candidates.flatMap((candidate) => candidate.curve.map((sample) => sample.flow)),
+    ),
+    design.units.flow,
+  );
   const systemCurve = Array.from({ length: systemCurveSteps + 1 }, (_, step) => {
     const flow = (topFlow * step) / systemCurveSteps;
     return { flow: flowFromSI(flow, shown.flow), head: headFromSI(system.evaluate(flow), shown.head) };
@@ -43,17 +53,18 @@ export function comparisonModel(design: ComparedDesign, candidates: readonly Sel
     band: { flowMin: convert.flow(design.band.flowMin), flowMax: convert.flow(design.band.flowMax) },
     flowUnit: shown.flow,
     headUnit: shown.head,
-    candidates: candidates.map(
-      (candidate): ChartCandidate => ({
-        key: candidateKey(candidate),
-        label: candidateLabel(candidate),
-        curve: candidate.curve.map(point),
-        preferredRange: candidate.preferredRange
-          ? { flowMin: convert.flow(candidate.preferredRange.flowMin), flowMax: convert.flow(candidate.preferredRange.flowMax) }
-          : null,
-        operatingPoint: point(candidate.operatingPoint),
-        oneFailed: candidate.oneFailed ? point(candidate.oneFailed) : null,
-      }),
-    ),
+    candidates: candidates.map((candidate): ChartCandidate => ({
+      key: candidateKey(candidate),
+      label: candidateLabel(candidate),
+      curve: candidate.curve.map(point),
+      preferredRange: candidate.preferredRange
+        ? {
+            flowMin: convert.flow(candidate.preferredRange.flowMin),
+            flowMax: convert.flow(candidate.preferredRange.flowMax),
+          }
+        : null,
+      operatingPoint: point(candidate.operatingPoint),
+      oneFailed: candidate.oneFailed ? point(candidate.oneFailed) : null,
+    })),
   };
 }

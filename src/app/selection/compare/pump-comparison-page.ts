@@ -1,5 +1,14 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, inject, signal, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  computed,
+  effect,
+  inject,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
@@ -33,7 +42,11 @@ export class PumpComparisonPage {
   private readonly convert = computed(() => unitConverter(this.draft.units(), this.displayUnits()));
 
   protected readonly model = computed((): ChartModel | null =>
-    comparisonModel({ system: this.draft.pipeSystem(), band: this.draft.band(), units: this.draft.units() }, this.candidates(), this.displayUnits()),
+    comparisonModel(
+      { system: this.draft.pipeSystem(), band: this.draft.band(), units: this.draft.units() },
+      this.candidates(),
+      this.displayUnits(),
+    ),
   );
 
   /** The hovered or focused point, told in words. */

@@ -1,7 +1,13 @@
 import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators, type AbstractControl, type ValidationErrors } from '@angular/forms';
+import {
+  NonNullableFormBuilder,
+  ReactiveFormsModule,
+  Validators,
+  type AbstractControl,
+  type ValidationErrors,
+} from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -20,7 +26,9 @@ type PlanMethod = 'modules' | 'turnover' | 'weir';
  * Where the planner's fields start, in each unit system's own numbers (invented, roughly the same
  * small pond in both): per-module flow, pond volume, weir width.
  */
-const planStarts: Readonly<Record<UnitSystem, { perModuleMin: number; perModuleMax: number; volume: number; weirWidth: number }>> = {
+const planStarts: Readonly<
+  Record<UnitSystem, { perModuleMin: number; perModuleMax: number; volume: number; weirWidth: number }>
+> = {
   us: { perModuleMin: 30, perModuleMax: 45, volume: 6000, weirWidth: 36 },
   si: { perModuleMin: 115, perModuleMax: 170, volume: 23, weirWidth: 900 },
 };
@@ -34,7 +42,16 @@ function bandInOrder(group: AbstractControl): ValidationErrors | null {
 /** Step 2: the duty band from the filtration plan, by one of three rules of thumb, or typed in. */
 @Component({
   selector: 'rf-flow-planner-page',
-  imports: [DecimalPipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, MatSelectModule],
+  imports: [
+    DecimalPipe,
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatRadioModule,
+    MatSelectModule,
+  ],
   templateUrl: './flow-planner-page.html',
   styleUrls: ['../design-page.scss', './flow-planner-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -55,7 +72,12 @@ export class FlowPlannerPage {
 
   protected readonly plan = this.formBuilder.group({
     method: this.formBuilder.control<PlanMethod>('modules'),
-    moduleCount: this.formBuilder.control(3, [Validators.required, Validators.min(1), Validators.max(200), Validators.pattern(/^\d+$/)]),
+    moduleCount: this.formBuilder.control(3, [
+      Validators.required,
+      Validators.min(1),
+      Validators.max(200),
+      Validators.pattern(/^\d+$/),
+    ]),
     perModuleMin: this.formBuilder.control(this.starts.perModuleMin, [Validators.required, Validators.min(0.01)]),
     perModuleMax: this.formBuilder.control(this.starts.perModuleMax, [Validators.required, Validators.min(0.01)]),
     volume: this.formBuilder.control(this.starts.volume, [Validators.required, Validators.min(0.01)]),
@@ -74,23 +96,39 @@ export class FlowPlannerPage {
     { validators: bandInOrder },
   );
 
-  private readonly planValue = toSignal(this.plan.valueChanges.pipe(startWith(null), map(() => this.plan.getRawValue())), {
-    initialValue: this.plan.getRawValue(),
-  });
+  private readonly planValue = toSignal(
+    this.plan.valueChanges.pipe(
+      startWith(null),
+      map(() => this.plan.getRawValue()),
+    ),
+    {
+      initialValue: this.plan.getRawValue(),
+    },
+  );
 
   /** The band the chosen rule gives, or null while its fields are incomplete. */
   protected readonly suggestion = computed((): FlowBand | null => {
     const plan = this.planValue();
     const flowUnit = this.units().flow;
     const rate = (id: string) => weirSheets.find((sheet) => sheet.id === id)?.gphPerInch ?? 100;
-    const fields = { modules: ['moduleCount', 'perModuleMin', 'perModuleMax'], turnover: ['volume', 'turnoversMin', 'turnoversMax'], weir: ['weirWidth'] }[plan.method];
+    const fields = {
+      modules: ['moduleCount', 'perModuleMin', 'perModuleMax'],
+      turnover: ['volume', 'turnoversMin', 'turnoversMax'],
+      weir: ['weirWidth'],
+    }[plan.method];
     if (fields.some((field) => this.plan.get(field)?.invalid)) return null;
     const band =
       plan.method === 'modules'
         ? bandFromModules(plan.moduleCount, plan.perModuleMin, plan.perModuleMax)
         : plan.method === 'turnover'
           ? bandFromTurnover(plan.volume, this.definition().volume, plan.turnoversMin, plan.turnoversMax, flowUnit)
-          : bandFromWeir(plan.weirWidth, this.definition().weirWidth, rate(plan.sheetMin), rate(plan.sheetMax), flowUnit);
+          : bandFromWeir(
+              plan.weirWidth,
+              this.definition().weirWidth,
+              rate(plan.sheetMin),
+              rate(plan.sheetMax),
+              flowUnit,
+            );
     return { flowMin: Math.min(band.flowMin, band.flowMax), flowMax: Math.max(band.flowMin, band.flowMax) };
   });
 

@@ -23,7 +23,13 @@ const GALLONS_PER_CUBIC_METRE = 1000 / 3.785411784;
  * times an hour (common practice: at least once an hour, two or three times for fish-heavy ponds).
  * @param volume in US gallons (`gal`) or cubic metres (`m3`)
  */
-export function bandFromTurnover(volume: number, volumeUnit: 'gal' | 'm3', turnoversMin: number, turnoversMax: number, flowUnit: FlowUnit): FlowBand {
+export function bandFromTurnover(
+  volume: number,
+  volumeUnit: 'gal' | 'm3',
+  turnoversMin: number,
+  turnoversMax: number,
+  flowUnit: FlowUnit,
+): FlowBand {
   const gallons = volumeUnit === 'gal' ? volume : volume * GALLONS_PER_CUBIC_METRE;
   const toUnit = (perHour: number) => flowFromSI(flowToSI(gallons * perHour, 'gph'), flowUnit);
   return { flowMin: toUnit(turnoversMin), flowMax: toUnit(turnoversMax) };
@@ -42,7 +48,13 @@ export const weirSheets = [
  * inch for an average sheet, 50 light, 150-200 heavy).
  * @param width in inches (`in`) or millimetres (`mm`)
  */
-export function bandFromWeir(width: number, widthUnit: 'in' | 'mm', gphPerInchMin: number, gphPerInchMax: number, flowUnit: FlowUnit): FlowBand {
+export function bandFromWeir(
+  width: number,
+  widthUnit: 'in' | 'mm',
+  gphPerInchMin: number,
+  gphPerInchMax: number,
+  flowUnit: FlowUnit,
+): FlowBand {
   const inches = widthUnit === 'in' ? width : width / 25.4;
   const toUnit = (gphPerInch: number) => flowFromSI(flowToSI(inches * gphPerInch, 'gph'), flowUnit);
   return { flowMin: toUnit(gphPerInchMin), flowMax: toUnit(gphPerInchMax) };

@@ -14,7 +14,9 @@ import { ProjectsApi } from './projects-api';
   template: `
     <section class="rf-card" aria-labelledby="rf-projects-title">
       <h2 id="rf-projects-title">Your saved projects</h2>
-      <p class="rf-muted">Open a project to re-check it when the site changes; the search runs again on the new numbers.</p>
+      <p class="rf-muted">
+        Open a project to re-check it when the site changes; the search runs again on the new numbers.
+      </p>
       @if (projects() === null) {
         <p>Loading…</p>
       } @else if (projects()!.length === 0) {
@@ -34,8 +36,22 @@ import { ProjectsApi } from './projects-api';
                 <td>{{ project.name }}</td>
                 <td>{{ project.updatedAt | date: 'medium' }}</td>
                 <td class="rf-project-actions">
-                  <button mat-flat-button type="button" (click)="open(project.id)" [attr.aria-label]="'Open ' + project.name">Open</button>
-                  <button mat-stroked-button type="button" (click)="remove(project.id)" [attr.aria-label]="'Delete ' + project.name">Delete</button>
+                  <button
+                    mat-flat-button
+                    type="button"
+                    (click)="open(project.id)"
+                    [attr.aria-label]="'Open ' + project.name"
+                  >
+                    Open
+                  </button>
+                  <button
+                    mat-stroked-button
+                    type="button"
+                    (click)="remove(project.id)"
+                    [attr.aria-label]="'Delete ' + project.name"
+                  >
+                    Delete
+                  </button>
                 </td>
               </tr>
             }

@@ -34,7 +34,9 @@ export class SelectionReportPage {
 
   protected readonly candidates = computed((): SelectionCandidate[] => {
     const compared = this.draft.comparedCandidates();
-    return compared.length > 0 ? compared : (this.draft.results()?.candidates ?? []).slice(0, reportedWithoutComparison);
+    return compared.length > 0
+      ? compared
+      : (this.draft.results()?.candidates ?? []).slice(0, reportedWithoutComparison);
   });
   protected readonly fromComparison = computed(() => this.draft.comparedCandidates().length > 0);
   protected readonly staticHead = computed(() => staticHeadOf(this.draft.system()));
@@ -46,8 +48,16 @@ export class SelectionReportPage {
       const size = series?.sizes.find((candidate) => candidate.id === segment.size);
       const fittings = segment.fittings
         .filter((fitting) => fitting.count > 0)
-        .map((fitting) => `${fitting.count} × ${FITTINGS.find((entry) => entry.kind === fitting.kind)?.label ?? fitting.kind}`);
-      return { pipe: `${series?.label ?? segment.series}, ${size?.nominalLabel ?? segment.size}`, length: segment.length, fittings, extraK: segment.extraK };
+        .map(
+          (fitting) =>
+            `${fitting.count} × ${FITTINGS.find((entry) => entry.kind === fitting.kind)?.label ?? fitting.kind}`,
+        );
+      return {
+        pipe: `${series?.label ?? segment.series}, ${size?.nominalLabel ?? segment.size}`,
+        length: segment.length,
+        fittings,
+        extraK: segment.extraK,
+      };
     }),
   );
 
@@ -69,7 +79,11 @@ export class SelectionReportPage {
   constructor() {
     effect(() => {
       const element = this.chart()?.nativeElement;
-      const model = comparisonModel({ system: this.draft.pipeSystem(), band: this.draft.band(), units: this.units() }, this.candidates(), this.units());
+      const model = comparisonModel(
+        { system: this.draft.pipeSystem(), band: this.draft.band(), units: this.units() },
+        this.candidates(),
+        this.units(),
+      );
       if (element && model) drawComparisonChart(element, model, { focus: () => undefined });
     });
   }

@@ -1,7 +1,15 @@
 import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { FormArray, FormControl, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators, type ValidatorFn } from '@angular/forms';
+import {
+  FormArray,
+  FormControl,
+  FormGroup,
+  NonNullableFormBuilder,
+  ReactiveFormsModule,
+  Validators,
+  type ValidatorFn,
+} from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -10,7 +18,15 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { map, startWith } from 'rxjs';
-import { FITTINGS, flowFromSI, flowToSI, headFromSI, lengthFromSI, PIPE_SERIES, type FrictionMethod } from '../../../../shared/hydraulics';
+import {
+  FITTINGS,
+  flowFromSI,
+  flowToSI,
+  headFromSI,
+  lengthFromSI,
+  PIPE_SERIES,
+  type FrictionMethod,
+} from '../../../../shared/hydraulics';
 import { SelectionDraft } from '../selection-draft';
 import { compileDraft, staticHeadOf, toPipeSystem, type SegmentDraft, type SystemDraft } from '../system-draft';
 import { SystemCurvePreview, type CurvePoint } from './system-curve-preview';
@@ -59,36 +75,46 @@ export class SystemBuilderPage {
 
   protected readonly form = this.buildForm(this.draft.system());
 
-  private readonly value = toSignal(this.form.valueChanges.pipe(startWith(null), map(() => this.form.getRawValue() as SystemDraft)), {
-    initialValue: this.form.getRawValue() as SystemDraft,
+  private readonly value = toSignal(
+    this.form.valueChanges.pipe(
+      startWith(null),
+      map(() => this.form.getRawValue() as SystemDraft),
+    ),
+    {
+      initialValue: this.form.getRawValue() as SystemDraft,
+    },
+  );
+  private readonly status = toSignal(this.form.statusChanges.pipe(startWith(this.form.status)), {
+    initialValue: this.form.status,
   });
-  private readonly status = toSignal(this.form.statusChanges.pipe(startWith(this.form.status)), { initialValue: this.form.status });
 
   protected readonly staticHead = computed(() => staticHeadOf(this.value()));
 
   /** The preview, or the engine's reason why it cannot be drawn. */
-  protected readonly preview = computed((): { points: CurvePoint[]; atBand: { min: number; max: number }; velocity: number } | { problem: string } => {
-    if (this.status() !== 'VALID') return { problem: 'Complete the fields marked in red to see the system curve.' };
-    const units = this.units();
-    const band = this.draft.band();
-    try {
-      const curve = compileDraft(toPipeSystem(this.value()), units);
-      const top = flowToSI(band.flowMax * 1.6, units.flow);
-      const points = Array.from({ length: previewSteps + 1 }, (_, step) => {
-        const flow = (top * step) / previewSteps;
-        return { flow: flowFromSI(flow, units.flow), head: headFromSI(curve.evaluate(flow), units.head) };
-      });
-      const headAt = (flow: number) => headFromSI(curve.evaluate(flowToSI(flow, units.flow)), units.head);
-      const smallestArea = Math.min(...curve.segments.map((segment) => segment.area));
-      return {
-        points,
-        atBand: { min: headAt(band.flowMin), max: headAt(band.flowMax) },
-        velocity: lengthFromSI(flowToSI(band.flowMax, units.flow) / smallestArea, units.length),
-      };
-    } catch (error) {
-      return { problem: error instanceof Error ? error.message : String(error) };
-    }
-  });
+  protected readonly preview = computed(
+    (): { points: CurvePoint[]; atBand: { min: number; max: number }; velocity: number } | { problem: string } => {
+      if (this.status() !== 'VALID') return { problem: 'Complete the fields marked in red to see the system curve.' };
+      const units = this.units();
+      const band = this.draft.band();
+      try {
+        const curve = compileDraft(toPipeSystem(this.value()), units);
+        const top = flowToSI(band.flowMax * 1.6, units.flow);
+        const points = Array.from({ length: previewSteps + 1 }, (_, step) => {
+          const flow = (top * step) / previewSteps;
+          return { flow: flowFromSI(flow, units.flow), head: headFromSI(curve.evaluate(flow), units.head) };
+        });
+        const headAt = (flow: number) => headFromSI(curve.evaluate(flowToSI(flow, units.flow)), units.head);
+        const smallestArea = Math.min(...curve.segments.map((segment) => segment.area));
+        return {
+          points,
+          atBand: { min: headAt(band.flowMin), max: headAt(band.flowMax) },
+          velocity: lengthFromSI(flowToSI(band.flowMax, units.flow) / smallestArea, units.length),
+        };
+      } catch (error) {
+        return { problem: error instanceof Error ? error.message : String(error) };
+      }
+    },
+  );
 
   protected readonly velocityLimit = computed(() => lengthFromSI(1.524, this.units().length));
 
@@ -121,7 +147,15 @@ export class SystemBuilderPage {
 
   protected addSegment(): void {
     const last = this.segments.at(this.segments.length - 1)?.getRawValue();
-    this.segments.push(this.segmentForm({ series: last?.series ?? 'pvc-sch40', size: last?.size ?? 'pvc-sch40-2', length: 10, extraK: 0, fittings: [] }));
+    this.segments.push(
+      this.segmentForm({
+        series: last?.series ?? 'pvc-sch40',
+        size: last?.size ?? 'pvc-sch40-2',
+        length: 10,
+        extraK: 0,
+        fittings: [],
+      }),
+    );
   }
 
   protected removeSegment(index: number): void {
@@ -137,7 +171,8 @@ export class SystemBuilderPage {
   }
 
   private buildForm(system: SystemDraft) {
-    const number = (value: number, ...validators: ValidatorFn[]) => this.formBuilder.control(value, [Validators.required, ...validators]);
+    const number = (value: number, ...validators: ValidatorFn[]) =>
+      this.formBuilder.control(value, [Validators.required, ...validators]);
     return this.formBuilder.group({
       staticMode: this.formBuilder.control<'direct' | 'levels'>(system.staticMode),
       staticHead: number(system.staticHead, Validators.min(-150), Validators.max(1500)),
@@ -146,7 +181,10 @@ export class SystemBuilderPage {
       outletPressureHead: number(system.outletPressureHead, Validators.min(0), Validators.max(1500)),
       waterTemperatureC: number(system.waterTemperatureC, Validators.min(0), Validators.max(40)),
       frictionMethod: this.formBuilder.control<FrictionMethod>(system.frictionMethod),
-      segments: this.formBuilder.array(system.segments.map((segment) => this.segmentForm(segment)), Validators.minLength(1)),
+      segments: this.formBuilder.array(
+        system.segments.map((segment) => this.segmentForm(segment)),
+        Validators.minLength(1),
+      ),
     });
   }
 
@@ -154,8 +192,16 @@ export class SystemBuilderPage {
     return this.formBuilder.group({
       series: this.formBuilder.control(segment.series),
       size: this.formBuilder.control(segment.size),
-      length: this.formBuilder.control(segment.length, [Validators.required, Validators.min(0.01), Validators.max(60_000)]),
-      extraK: this.formBuilder.control(segment.extraK, [Validators.required, Validators.min(0), Validators.max(10_000)]),
+      length: this.formBuilder.control(segment.length, [
+        Validators.required,
+        Validators.min(0.01),
+        Validators.max(60_000),
+      ]),
+      extraK: this.formBuilder.control(segment.extraK, [
+        Validators.required,
+        Validators.min(0),
+        Validators.max(10_000),
+      ]),
       fittings: this.formBuilder.array(segment.fittings.map((fitting) => this.fittingForm(fitting))),
     });
   }
@@ -163,7 +209,12 @@ export class SystemBuilderPage {
   private fittingForm(fitting: { kind: string; count: number }): FittingForm {
     return this.formBuilder.group({
       kind: this.formBuilder.control(fitting.kind),
-      count: this.formBuilder.control(fitting.count, [Validators.required, Validators.min(0), Validators.max(1000), Validators.pattern(/^\d+$/)]),
+      count: this.formBuilder.control(fitting.count, [
+        Validators.required,
+        Validators.min(0),
+        Validators.max(1000),
+        Validators.pattern(/^\d+$/),
+      ]),
     });
   }
 }

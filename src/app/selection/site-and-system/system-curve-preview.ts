@@ -22,7 +22,13 @@ const margin = { top: 16, right: 16, bottom: 42, left: 52 };
         </pattern>
       </defs>
       @if (bandRect(); as rect) {
-        <rect [attr.x]="rect.x" [attr.y]="margin.top" [attr.width]="rect.width" [attr.height]="plotHeight" fill="url(#rf-preview-band)" />
+        <rect
+          [attr.x]="rect.x"
+          [attr.y]="margin.top"
+          [attr.width]="rect.width"
+          [attr.height]="plotHeight"
+          fill="url(#rf-preview-band)"
+        />
       }
       @for (tick of xTicks(); track tick.value) {
         <g [attr.transform]="'translate(' + tick.position + ',0)'">
@@ -37,8 +43,16 @@ const margin = { top: 16, right: 16, bottom: 42, left: 52 };
         </g>
       }
       <path [attr.d]="path()" class="rf-system-line" />
-      <text [attr.x]="width / 2" [attr.y]="height - 6" text-anchor="middle" class="rf-axis-title">Flow ({{ flowUnit() }})</text>
-      <text [attr.transform]="'translate(14,' + height / 2 + ') rotate(-90)'" text-anchor="middle" class="rf-axis-title">Head ({{ headUnit() }})</text>
+      <text [attr.x]="width / 2" [attr.y]="height - 6" text-anchor="middle" class="rf-axis-title">
+        Flow ({{ flowUnit() }})
+      </text>
+      <text
+        [attr.transform]="'translate(14,' + height / 2 + ') rotate(-90)'"
+        text-anchor="middle"
+        class="rf-axis-title"
+      >
+        Head ({{ headUnit() }})
+      </text>
     </svg>
   `,
   styles: `
@@ -78,23 +92,39 @@ export class SystemCurvePreview {
 
   private readonly x = computed(() => {
     const last = this.points().at(-1)?.flow ?? 1;
-    return scaleLinear().domain([0, last]).range([margin.left, width - margin.right]).nice();
+    return scaleLinear()
+      .domain([0, last])
+      .range([margin.left, width - margin.right])
+      .nice();
   });
   private readonly y = computed(() => {
     const highest = Math.max(1, ...this.points().map((point) => point.head));
     const lowest = Math.min(0, ...this.points().map((point) => point.head));
-    return scaleLinear().domain([lowest, highest * 1.05]).range([height - margin.bottom, margin.top]).nice();
+    return scaleLinear()
+      .domain([lowest, highest * 1.05])
+      .range([height - margin.bottom, margin.top])
+      .nice();
   });
 
   protected readonly path = computed(() => {
     const x = this.x();
     const y = this.y();
-    return line<CurvePoint>()
-      .x((point) => x(point.flow))
-      .y((point) => y(point.head))(this.points() as CurvePoint[]) ?? '';
+    return (
+      line<CurvePoint>()
+        .x((point) => x(point.flow))
+        .y((point) => y(point.head))(this.points() as CurvePoint[]) ?? ''
+    );
   });
-  protected readonly xTicks = computed(() => this.x().ticks(6).map((value) => ({ value, position: this.x()(value) })));
-  protected readonly yTicks = computed(() => this.y().ticks(5).map((value) => ({ value, position: this.y()(value) })));
+  protected readonly xTicks = computed(() =>
+    this.x()
+      .ticks(6)
+      .map((value) => ({ value, position: this.x()(value) })),
+  );
+  protected readonly yTicks = computed(() =>
+    this.y()
+      .ticks(5)
+      .map((value) => ({ value, position: this.y()(value) })),
+  );
   protected readonly bandRect = computed(() => {
     const band = this.band();
     if (!band) return null;
