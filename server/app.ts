@@ -15,7 +15,7 @@ import { createSelectionHandlers } from './selection/selection-handlers';
 import { createAccountHandlers, createOperationGuards } from './accounts/account-routes';
 import { accountsDependenciesFrom, type AccountsDependencies } from './accounts/accounts-dependencies';
 import { createCalculationHandlers } from './calculations/calculation-handlers';
-import { CatalogSnapshot } from './selection/catalog-snapshot';
+import { CatalogSnapshot } from './catalog/catalog-snapshot';
 import { createCatalogHandlers } from './catalog/catalog-handlers';
 import { createProjectHandlers } from './projects/project-handlers';
 import { createCurveImportHandlers } from './catalog/curve-import-handlers';

@@ -6,7 +6,7 @@ import { unprocessable } from '../calculations/engine-problem';
 import { preferredBandOf } from '../calculations/pump-request';
 import { answerUnits, echoedUnits, powerUnitOf } from '../calculations/request-units';
 import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
-import type { CatalogPump, CatalogSnapshot } from './catalog-snapshot';
+import type { CatalogPump, CatalogSnapshot } from '../catalog/catalog-snapshot';
 import { sampledCombinedCurve, searchCatalog, type RankedCandidate, type SelectionQuery } from './selection-search';
 
 const defaultArrangements = [1, 2];

@@ -17,7 +17,7 @@ import {
   type DutyWarning,
 } from '../calculations/arrangement-duty';
 import { preferredFlowRange } from '../calculations/pump-request';
-import type { CatalogPump, CatalogState } from './catalog-snapshot';
+import type { CatalogPump, CatalogState } from '../catalog/catalog-snapshot';
 
 /*
  * The duty-point search over the catalog snapshot, in SI. For each pump and each number of

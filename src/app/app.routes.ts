@@ -22,7 +22,7 @@ export const appRoutes: Routes = [
     data: { roles: ['admin'] },
     loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes),
   },
-  { path: 'design', loadChildren: () => import('./selection/design.routes').then((m) => m.designRoutes) },
+  { path: 'design', loadChildren: () => import('./design/design.routes').then((m) => m.designRoutes) },
   {
     path: 'catalog',
     canActivate: [signedInGuard],

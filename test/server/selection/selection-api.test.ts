@@ -7,7 +7,7 @@ import type { OpenAPIV3_1 } from 'openapi-types';
 import { openApiDocument } from '../../../server/api/openapi-document';
 import { createApp } from '../../../server/app';
 import { createLogger } from '../../../server/logging';
-import { STAMP_REUSE_MS } from '../../../server/selection/catalog-snapshot';
+import { STAMP_REUSE_MS } from '../../../server/catalog/catalog-snapshot';
 import {
   classifyOperatingRegion,
   compileSystemCurve,
