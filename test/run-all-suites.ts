@@ -87,6 +87,20 @@ async function runTypeCheck(env: NodeJS.ProcessEnv): Promise<SuiteResult> {
   return { name: 'type check (tsc)', passed: exitCode === 0 ? 1 : 0, failed: exitCode === 0 ? 0 : 1 };
 }
 
+async function runLint(env: NodeJS.ProcessEnv): Promise<SuiteResult[]> {
+  const binary = (name: string, ...path: string[]) => join(projectRoot, 'node_modules', name, ...path);
+  const eslintExit = await runChild(process.execPath, [binary('eslint', 'bin', 'eslint.js'), '.'], env);
+  const prettierExit = await runChild(
+    process.execPath,
+    [binary('prettier', 'bin', 'prettier.cjs'), '--check', '.'],
+    env,
+  );
+  return [
+    { name: 'lint (eslint)', passed: eslintExit === 0 ? 1 : 0, failed: eslintExit === 0 ? 0 : 1 },
+    { name: 'format (prettier)', passed: prettierExit === 0 ? 1 : 0, failed: prettierExit === 0 ? 0 : 1 },
+  ];
+}
+
 async function main(): Promise<number> {
   const workFolder = mkdtempSync(join(tmpdir(), 'riffle-test-'));
   const databasePort = await freeLoopbackPort();
@@ -135,6 +149,8 @@ async function main(): Promise<number> {
     };
     say('type check');
     results.push(await runTypeCheck(env));
+    say('lint and format');
+    results.push(...(await runLint(env)));
     say('mocha suites');
     results.push(await runMocha(env, workFolder));
     say('Angular unit tests');
