@@ -36,14 +36,21 @@ function readJson<T>(file: string): T | undefined {
   return existsSync(file) ? (JSON.parse(readFileSync(file, 'utf8')) as T) : undefined;
 }
 
+/** `npm test -- FILE...` runs only those mocha files (with the database), for work on one feature. */
+const chosenMochaFiles = process.argv.slice(2);
+
 async function runMocha(env: NodeJS.ProcessEnv, workFolder: string): Promise<SuiteResult> {
   const countsFile = join(workFolder, 'mocha-counts.json');
+  const chosen =
+    chosenMochaFiles.length > 0 ? ['--no-config', '--node-option', 'import=tsx', '--timeout', '20000'] : [];
   const exitCode = await runChild(
     process.execPath,
     [
       join(projectRoot, 'node_modules', 'mocha', 'bin', 'mocha.js'),
+      ...chosen,
       '--reporter',
       join(projectRoot, 'test', 'support', 'counting-reporter.cjs'),
+      ...chosenMochaFiles,
     ],
     { ...env, RIFFLE_TEST_COUNTS_FILE: countsFile },
   );
@@ -147,14 +154,19 @@ async function main(): Promise<number> {
       RIFFLE_SMTP_PORT: String(smtp.port),
       RIFFLE_MAILBOX_FOLDER: mailboxFolder,
     };
-    say('type check');
-    results.push(await runTypeCheck(env));
-    say('lint and format');
-    results.push(...(await runLint(env)));
-    say('mocha suites');
-    results.push(await runMocha(env, workFolder));
-    say('Angular unit tests');
-    results.push(await runAngularSpecs(env, workFolder));
+    if (chosenMochaFiles.length > 0) {
+      say(`mocha: ${chosenMochaFiles.join(' ')}`);
+      results.push(await runMocha(env, workFolder));
+    } else {
+      say('type check');
+      results.push(await runTypeCheck(env));
+      say('lint and format');
+      results.push(...(await runLint(env)));
+      say('mocha suites');
+      results.push(await runMocha(env, workFolder));
+      say('Angular unit tests');
+      results.push(await runAngularSpecs(env, workFolder));
+    }
   } catch (error) {
     console.error(error);
     results.push({ name: 'set-up', passed: 0, failed: 1 });
