@@ -7,7 +7,8 @@ import { preferredBandOf } from '../calculations/pump-request';
 import { answerUnits, echoedUnits, powerUnitOf } from '../calculations/request-units';
 import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
 import type { CatalogPump, CatalogSnapshot } from '../catalog/catalog-snapshot';
-import { sampledCombinedCurve, searchCatalog, type RankedCandidate, type SelectionQuery } from './selection-search';
+import type { RankedCandidate, SelectionQuery } from './selection-query';
+import { sampledCombinedCurve, searchCatalog } from './selection-search';
 
 const defaultArrangements = [1, 2];
 const defaultLimit = 20;

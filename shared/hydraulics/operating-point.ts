@@ -1,3 +1,4 @@
+import { bracketedNewton, type FunctionWithSlope } from './bracketed-newton';
 import type { CompiledSystemCurve } from './system-curve';
 
 /*
@@ -25,38 +26,53 @@ export type OperatingPointResult =
   | { ok: true; flow: number; head: number; iterations: number }
   | { ok: false; reason: NoOperatingPointReason; message: string };
 
-const MAX_ITERATIONS = 60;
-/** System head and slope of the current iterate (one solve runs at a time: JavaScript is single-threaded). */
-const systemScratch = new Float64Array(2);
+/** Pump head minus system head and its slope at a flow, for the pump and system of the current solve. */
+class PumpSurplus implements FunctionWithSlope {
+  coefficients: readonly number[] = [];
+  system: CompiledSystemCurve | null = null;
+  private readonly systemOut = new Float64Array(2);
+
+  valueAndSlope(flow: number, out: Float64Array): void {
+    const coefficients = this.coefficients;
+    let pumpHead = 0;
+    let pumpSlope = 0;
+    for (let power = coefficients.length - 1; power >= 0; power -= 1) {
+      pumpSlope = pumpSlope * flow + pumpHead;
+      pumpHead = pumpHead * flow + coefficients[power];
+    }
+    (this.system as CompiledSystemCurve).headAndSlope(flow, this.systemOut);
+    out[0] = pumpHead - this.systemOut[0];
+    out[1] = pumpSlope - this.systemOut[1];
+  }
+}
+
+const surplus = new PumpSurplus();
+
+function pumpHeadAt(coefficients: readonly number[], flow: number): number {
+  let head = 0;
+  for (let power = coefficients.length - 1; power >= 0; power -= 1) {
+    head = head * flow + coefficients[power];
+  }
+  return head;
+}
 
 /**
  * Solves H_pump(Q) = H_system(Q) for Q in [flowMin, flowMax].
  *
- * Method: safeguarded Newton on d(Q) = H_pump(Q) - H_system(Q). The bracket
- * [flowMin, flowMax] is checked first (d >= 0 at the left end, d <= 0 at the
- * right end, else a reason is returned); the first iterate is the
- * regula-falsi point of that bracket in Q^2 (pump and system curves are both
- * close to parabolas); each Newton step that would leave the current bracket
- * (or meets a non-negative slope) is replaced by bisection, so convergence is
- * guaranteed; the bracket shrinks around the root at every step. Pump head
- * and slope come from one Horner pass, the system's from one call of its
- * compiled headAndSlope. A Newton step below 1e-7 of flowMax is taken as the
- * last: Newton converges quadratically, so it leaves an error of order 1e-14
- * of flowMax (typically 3-4 iterations in all). Source: W. H. Press et al.,
- * Numerical Recipes, 3rd ed. (2007), section 9.4 ("rtsafe").
+ * Method: safeguarded Newton (bracketedNewton) on d(Q) = H_pump(Q) - H_system(Q). The bracket
+ * [flowMin, flowMax] is checked first (d >= 0 at the left end, d <= 0 at the right end, else a
+ * reason is returned); the first iterate is the regula-falsi point of that bracket in Q^2 (pump
+ * and system curves are both close to parabolas). Pump head and slope come from one Horner pass,
+ * the system's from one call of its compiled headAndSlope. A Newton step below 1e-7 of flowMax is
+ * taken as the last: it leaves an error of order 1e-14 of flowMax (typically 3-4 iterations in
+ * all). Source: W. H. Press et al., Numerical Recipes, 3rd ed. (2007), section 9.4 ("rtsafe").
  */
 export function solveOperatingPoint(pump: HeadCurve, system: CompiledSystemCurve): OperatingPointResult {
   const coefficients = pump.headCoefficients;
-  const top = coefficients.length - 1;
-  let lo = pump.flowMin;
-  let hi = pump.flowMax;
-  const tolerance = 1e-12 * hi;
-  const finalStep = 1e-7 * hi;
+  const lo = pump.flowMin;
+  const hi = pump.flowMax;
 
-  let pumpLo = 0;
-  for (let power = top; power >= 0; power -= 1) {
-    pumpLo = pumpLo * lo + coefficients[power];
-  }
+  const pumpLo = pumpHeadAt(coefficients, lo);
   const differenceLo = pumpLo - system.evaluate(lo);
   if (differenceLo < 0) {
     return lo === 0
@@ -71,10 +87,7 @@ export function solveOperatingPoint(pump: HeadCurve, system: CompiledSystemCurve
           message: 'the curves would cross before the first published point of the pump curve',
         };
   }
-  let pumpHi = 0;
-  for (let power = top; power >= 0; power -= 1) {
-    pumpHi = pumpHi * hi + coefficients[power];
-  }
+  const pumpHi = pumpHeadAt(coefficients, hi);
   const differenceHi = pumpHi - system.evaluate(hi);
   if (differenceHi > 0) {
     return {
@@ -90,47 +103,14 @@ export function solveOperatingPoint(pump: HeadCurve, system: CompiledSystemCurve
     return { ok: true, flow: hi, head: pumpHi, iterations: 0 };
   }
 
-  // regula falsi in Q^2: both curves are close to parabolas in Q, so this first guess is close
-  let flow = Math.sqrt(lo * lo + ((hi * hi - lo * lo) * differenceLo) / (differenceLo - differenceHi));
-  let head = Number.NaN;
-  for (let iteration = 1; iteration <= MAX_ITERATIONS; iteration += 1) {
-    let pumpHead = 0;
-    let pumpSlope = 0;
-    for (let power = top; power >= 0; power -= 1) {
-      pumpSlope = pumpSlope * flow + pumpHead;
-      pumpHead = pumpHead * flow + coefficients[power];
-    }
-    head = pumpHead;
-    system.headAndSlope(flow, systemScratch);
-    const difference = pumpHead - systemScratch[0];
-    if (difference === 0) {
-      return { ok: true, flow, head, iterations: iteration };
-    }
-    if (difference > 0) {
-      lo = flow;
-    } else {
-      hi = flow;
-    }
-    const slope = pumpSlope - systemScratch[1];
-    const newtonStep = slope < 0 ? -difference / slope : Number.NaN;
-    let next = flow + newtonStep;
-    if (Math.abs(newtonStep) <= finalStep) {
-      if (!(next >= lo && next <= hi)) {
-        return { ok: true, flow, head, iterations: iteration };
-      }
-      let nextHead = 0;
-      for (let power = top; power >= 0; power -= 1) {
-        nextHead = nextHead * next + coefficients[power];
-      }
-      return { ok: true, flow: next, head: nextHead, iterations: iteration };
-    }
-    if (!(next > lo && next < hi)) {
-      next = 0.5 * (lo + hi);
-      if (hi - lo <= tolerance) {
-        return { ok: true, flow, head, iterations: iteration };
-      }
-    }
-    flow = next;
-  }
-  return { ok: true, flow, head, iterations: MAX_ITERATIONS };
+  const start = Math.sqrt(lo * lo + ((hi * hi - lo * lo) * differenceLo) / (differenceLo - differenceHi));
+  surplus.coefficients = coefficients;
+  surplus.system = system;
+  const { root, iterations } = bracketedNewton(surplus, lo, hi, start, {
+    finalStep: 1e-7 * hi,
+    bracketWidth: 1e-12 * hi,
+    maxIterations: 60,
+  });
+  surplus.system = null;
+  return { ok: true, flow: root, head: pumpHeadAt(coefficients, root), iterations };
 }

@@ -1,0 +1,104 @@
+import { annualEnergy, energyCost, VELOCITY_WARNING_LIMIT, type CompiledSystemCurve } from '../../shared/hydraulics';
+import { dutyOfParallelPumps, type DutyOutcome, type DutyPoint } from '../calculations/arrangement-duty';
+import { preferredFlowRange } from '../calculations/pump-request';
+import type { CatalogPump } from '../catalog/catalog-snapshot';
+import type { RankedCandidate, SelectionQuery, SelectionWarningCode } from './selection-query';
+import { tierOf } from './selection-ranking';
+
+/** Velocity warning for the whole system at a total flow: the smallest bore carries the highest velocity. */
+function velocityExceeded(system: CompiledSystemCurve, flow: number): boolean {
+  return system.segments.some((segment) => flow / segment.area > VELOCITY_WARNING_LIMIT);
+}
+
+function percent(value: number | null): string {
+  return value === null ? '' : ` (${Math.round(value)} % of BEP)`;
+}
+
+/**
+ * A pair the engine has solved, worked out in full for the answer: band, region, one-failed
+ * check, energy, warnings, tier and the reasons in words; null when a filter leaves it out.
+ */
+export function rankCandidate(
+  pump: CatalogPump,
+  running: number,
+  point: DutyPoint,
+  query: SelectionQuery,
+): RankedCandidate | null {
+  if (query.onlyPreferredRegion && point.region !== 'preferred') return null;
+  if (
+    query.maxInputPowerPerPump !== null &&
+    point.inputPower !== null &&
+    point.inputPower / running > query.maxInputPowerPerPump
+  )
+    return null;
+  const inBand = point.flow >= query.flowMin * (1 - 1e-9) && point.flow <= query.flowMax * (1 + 1e-9);
+  const reasons: string[] = [];
+  if (inBand) reasons.push('in the duty band');
+  else reasons.push(point.flow < query.flowMin ? 'below the duty band' : 'above the duty band');
+  if (point.region === 'preferred') reasons.push(`in the preferred operating region${percent(point.percentOfBep)}`);
+  else if (point.region === 'allowable')
+    reasons.push(`outside POR, inside the maker's allowable region${percent(point.percentOfBep)}`);
+  else if (point.region === 'outside') reasons.push(`outside POR${percent(point.percentOfBep)}`);
+  else reasons.push('no efficiency data: the BEP and the preferred region are unknown');
+
+  let oneFailed: DutyPoint | null = null;
+  let oneFailedMeetsMinimum: boolean | null = null;
+  if (query.standby) {
+    // the standby starts in the failed pump's place: the arrangement runs on at the same point
+    oneFailed = point;
+    oneFailedMeetsMinimum = point.flow >= query.flowMin * (1 - 1e-9);
+    reasons.push(
+      oneFailedMeetsMinimum
+        ? 'one failed: the standby takes over at the same point'
+        : 'below the band minimum even with the standby',
+    );
+  } else if (running >= 2) {
+    const failed: DutyOutcome = dutyOfParallelPumps(
+      pump,
+      query.system,
+      running - 1,
+      query.band,
+      query.density,
+      query.motorEfficiency,
+    );
+    if (failed.ok) {
+      oneFailed = failed.point;
+      oneFailedMeetsMinimum = failed.point.flow >= query.flowMin * (1 - 1e-9);
+      reasons.push(
+        oneFailedMeetsMinimum ? 'one failed: still at or above the band minimum' : 'below band with one failed',
+      );
+      if (failed.point.warnings.includes('run-out')) reasons.push('run-out with one failed');
+    } else {
+      oneFailedMeetsMinimum = false;
+      reasons.push(
+        failed.reason === 'beyond-curve'
+          ? 'run-out with one failed: the rest run past their curve'
+          : 'with one failed the rest deliver nothing',
+      );
+    }
+  } else if (query.requireOneFailed) {
+    reasons.push('a single pump: no flow at all when it fails');
+  }
+  const warnings: SelectionWarningCode[] = [...point.warnings];
+  if (velocityExceeded(query.system, point.flow)) warnings.push('velocity');
+  if (point.warnings.includes('run-out')) reasons.push('run-out');
+  if (point.warnings.includes('dead-head')) reasons.push('near dead-head');
+
+  const tier = tierOf(inBand, point.region === 'preferred', !query.requireOneFailed || oneFailedMeetsMinimum === true);
+  const annualKWh = point.inputPower === null ? null : annualEnergy(point.inputPower, query.hoursPerDay);
+  const perPump = preferredFlowRange(pump.fit, query.band, pump.declaredPreferred);
+  return {
+    pump,
+    running,
+    point,
+    oneFailed,
+    inBand,
+    oneFailedMeetsMinimum,
+    annualKWh,
+    annualCost: annualKWh === null || query.tariffPerKWh === null ? null : energyCost(annualKWh, query.tariffPerKWh),
+    warnings,
+    tier,
+    reasons,
+    preferredRange: perPump ? { flowMin: perPump.flowMin * running, flowMax: perPump.flowMax * running } : null,
+  };
+}
