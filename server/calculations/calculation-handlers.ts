@@ -22,6 +22,7 @@ import {
   type CompiledSystemCurve,
   type NoOperatingPointReason,
 } from '../../shared/hydraulics';
+import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { ProblemError } from '../api/problem-details';
 import { dutyOfParallelPumps, type DutyPoint, type PumpOnFile } from './arrangement-duty';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
@@ -91,7 +92,8 @@ export function createCalculationHandlers(
         const flow = flowToSI(flowInUnits, body.units.flow);
         requirePlausibleFlow(flow, `/body/flows/${index}`);
         const breakdown = systemBreakdown(curve, flow);
-        for (const warning of breakdown.warnings) if (!warning.startsWith('segment ')) warnings.add(warning);
+        for (const issue of breakdown.issues)
+          if (issue.code !== 'segment-velocity') warnings.add(engineIssueText(issue));
         if (breakdown.segments.some((segment) => segment.velocity > VELOCITY_WARNING_LIMIT)) {
           for (const warning of velocityWarnings(curve, flow, body.units)) warnings.add(warning);
         }

@@ -5,11 +5,11 @@ import {
   headToSI,
   lengthToSI,
   systemBreakdown,
-  VELOCITY_WARNING_LIMIT,
   waterDensity,
   type CompiledSystemCurve,
   type PipeSegmentInput,
 } from '../../shared/hydraulics';
+import { engineIssueText, type IssueValueText } from '../../shared/messages/engine-issue-text';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
 import { answerUnits } from './request-units';
 
@@ -111,14 +111,13 @@ export function requirePlausibleFlow(flow: number, pointer: string): void {
 /** Velocity warnings of the system at one flow (SI), in the request's units. */
 export function velocityWarnings(curve: CompiledSystemCurve, flow: number, units: CalculationUnits): string[] {
   const to = answerUnits(units);
-  const breakdown = systemBreakdown(curve, flow);
-  const limit = to.length(VELOCITY_WARNING_LIMIT);
-  return breakdown.segments
-    .filter((segment) => segment.velocity > VELOCITY_WARNING_LIMIT)
-    .map(
-      (segment) =>
-        `at ${round(to.flow(flow))} ${units.flow} segment ${segment.index}: velocity ${round(to.length(segment.velocity))} ${units.length}/s exceeds ${round(limit)} ${units.length}/s, the common-practice limit for plastic pipe`,
-    );
+  const valueText: IssueValueText = {
+    flow: (value) => `${round(to.flow(value))} ${units.flow}`,
+    velocity: (value) => `${round(to.length(value))} ${units.length}/s`,
+  };
+  return systemBreakdown(curve, flow)
+    .issues.filter((issue) => issue.code === 'segment-velocity')
+    .map((issue) => engineIssueText(issue, valueText));
 }
 
 /** Two decimals for messages; answers themselves carry full precision. */

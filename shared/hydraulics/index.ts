@@ -3,6 +3,7 @@
  * browser alike. Units are converted only at the edges (units.ts).
  */
 export * from './hydraulics-error';
+export * from './engine-issues';
 export * from './physical-constants';
 export * from './units';
 export * from './water-properties';

@@ -1,6 +1,7 @@
 import { HAZEN_WILLIAMS_FLOW_EXPONENT, hazenWilliamsResistance, headLossDarcyWeisbach } from './friction';
 import { HydraulicsInputError } from './hydraulics-error';
 import { STANDARD_GRAVITY } from './physical-constants';
+import type { EngineIssue } from './engine-issues';
 import type { CompiledSystemCurve } from './system-curve';
 
 /** Velocity above which plastic pipe risks water hammer: 5 ft/s (common practice for plastic pipe). */
@@ -29,7 +30,8 @@ export interface SystemBreakdown {
   frictionHead: number;
   minorHead: number;
   segments: SegmentBreakdown[];
-  warnings: string[];
+  /** Hazen-Williams outside 4-25 C, and every segment above VELOCITY_WARNING_LIMIT. */
+  issues: EngineIssue[];
 }
 
 function checkFlow(flow: number): void {
@@ -46,11 +48,13 @@ function checkFlow(flow: number): void {
  */
 export function systemBreakdown(system: CompiledSystemCurve, flow: number): SystemBreakdown {
   checkFlow(flow);
-  const warnings: string[] = [];
+  const issues: EngineIssue[] = [];
   if (system.frictionMethod === 'hazen-williams' && (system.temperature < 4 || system.temperature > 25)) {
-    warnings.push(
-      `Hazen-Williams is fitted to water at about 4-25 C; at ${system.temperature} C prefer Darcy-Weisbach`,
-    );
+    issues.push({
+      code: 'hazen-williams-temperature',
+      params: { temperature: system.temperature },
+      pointer: '/temperature',
+    });
   }
   const segments = system.segments.map((segment, index): SegmentBreakdown => {
     const velocity = flow / segment.area;
@@ -67,9 +71,11 @@ export function systemBreakdown(system: CompiledSystemCurve, flow: number): Syst
           system.kinematicViscosity,
         );
     if (velocity > VELOCITY_WARNING_LIMIT) {
-      warnings.push(
-        `segment ${index}: velocity ${velocity.toFixed(2)} m/s exceeds 1.52 m/s (5 ft/s), the common-practice limit for plastic pipe`,
-      );
+      issues.push({
+        code: 'segment-velocity',
+        params: { segment: index, flow, velocity, limit: VELOCITY_WARNING_LIMIT },
+        pointer: `/segments/${index}`,
+      });
     }
     return {
       index,
@@ -91,6 +97,6 @@ export function systemBreakdown(system: CompiledSystemCurve, flow: number): Syst
     frictionHead,
     minorHead,
     segments,
-    warnings,
+    issues,
   };
 }

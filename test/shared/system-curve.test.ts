@@ -14,6 +14,7 @@ import {
   waterKinematicViscosity,
   type SystemCurveInput,
 } from '../../shared/hydraulics';
+import { engineIssueText } from '../../shared/messages/engine-issue-text';
 
 const gpm = (value: number) => flowToSI(value, 'gpm');
 const feet = (value: number) => lengthToSI(value, 'ft');
@@ -164,10 +165,11 @@ describe('system curve', () => {
       ],
     });
     const area = (Math.PI * pipeSizeById('pvc-sch40-1').insideDiameter ** 2) / 4;
-    expect(systemBreakdown(system, 1.5 * area).warnings).to.deep.equal([]);
-    const warnings = systemBreakdown(system, 1.55 * area).warnings;
-    expect(warnings).to.have.length(1);
-    expect(warnings[0]).to.match(/^segment 0: velocity 1\.55 m\/s/);
+    expect(systemBreakdown(system, 1.5 * area).issues).to.deep.equal([]);
+    const issues = systemBreakdown(system, 1.55 * area).issues;
+    expect(issues).to.have.length(1);
+    expect(issues[0]).to.deep.include({ code: 'segment-velocity', pointer: '/segments/0' });
+    expect(engineIssueText(issues[0])).to.match(/segment 0: velocity 1\.55 m\/s exceeds 1\.52 m\/s/);
   });
 
   it('either throws HydraulicsInputError or evaluates to finite heads, whatever numbers it is given (property)', () => {
