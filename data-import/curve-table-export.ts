@@ -1,5 +1,6 @@
 import type { CurveFileUnits } from '../shared/api/api-schemas';
 import {
+  convertDiameter,
   flowFromSI,
   headFromSI,
   powerFromSI,
@@ -92,7 +93,7 @@ export async function exportCurveTable(supplier: Supplier): Promise<CurveTableEx
     'USD',
   );
   const size = (millimetres: number | null) =>
-    millimetres === null ? null : exact(units.size === 'in' ? millimetres / 25.4 : millimetres);
+    millimetres === null ? null : exact(units.size === 'in' ? convertDiameter(millimetres, 'mm', 'in') : millimetres);
   const points = pumps.flatMap((pump) => pump.currentRevision?.points ?? []);
   const ranges = pumps.flatMap((pump) => pump.currentRevision?.declaredRanges ?? []);
   const has = {

@@ -1,4 +1,5 @@
 import {
+  convertDiameter,
   flowFromSI,
   headFromSI,
   STANDARD_GRAVITY,
@@ -161,7 +162,7 @@ function round(value: number, digits: number): number {
 }
 
 const density = waterDensity(20);
-const inchesPerMm = 1 / 25.4;
+const inchesPerMm = convertDiameter(1, 'mm', 'in');
 
 /** The rows of one invented pump, in the supplier's file units. */
 function pumpRows(

@@ -1,4 +1,5 @@
 import { HydraulicsInputError, requirePositive } from './hydraulics-error';
+import { diameterToSI } from './units';
 
 /*
  * Resistance coefficients of fittings and valves, K in h_m = K V^2 / 2g.
@@ -13,7 +14,7 @@ import { HydraulicsInputError, requirePositive } from './hydraulics-error';
  */
 
 /** Crane's roughness of clean commercial steel, 0.0018 in, in m. */
-const CRANE_STEEL_ROUGHNESS = 0.0018 * 0.0254;
+const CRANE_STEEL_ROUGHNESS = diameterToSI(0.0018, 'in');
 
 export const FITTING_KINDS = [
   'elbow-90-standard',

@@ -1,4 +1,5 @@
 import { HydraulicsInputError } from './hydraulics-error';
+import { diameterToSI } from './units';
 
 /*
  * Pipe sizes by series. Inch dimensions are those the standards tabulate;
@@ -11,7 +12,7 @@ import { HydraulicsInputError } from './hydraulics-error';
  *     roughness 0.045 mm (commercial steel, Moody 1944).
  */
 
-const INCH = 0.0254;
+const INCH = diameterToSI(1, 'in');
 
 export const PIPE_MATERIALS = ['pvc', 'hdpe', 'steel', 'flexible-pvc'] as const;
 export type PipeMaterial = (typeof PIPE_MATERIALS)[number];

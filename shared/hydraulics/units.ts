@@ -21,6 +21,10 @@ export const LENGTH_UNITS = ['m', 'ft'] as const;
 export const DIAMETER_UNITS = ['mm', 'in', 'm'] as const;
 /** Pressure units accepted at the API edge (gauge or absolute as the caller states). */
 export const PRESSURE_UNITS = ['Pa', 'kPa', 'bar', 'psi'] as const;
+/** Volume units (pond and tank volumes). */
+export const VOLUME_UNITS = ['m3', 'L', 'gal'] as const;
+/** Velocity units: a length unit per second. */
+export const VELOCITY_UNITS = ['m/s', 'ft/s'] as const;
 /** Power units accepted at the API edge and in curve tables (hp is mechanical horsepower, 745.699872 W). */
 export const POWER_UNITS = ['W', 'kW', 'hp'] as const;
 
@@ -30,6 +34,8 @@ export type LengthUnit = (typeof LENGTH_UNITS)[number];
 export type DiameterUnit = (typeof DIAMETER_UNITS)[number];
 export type PressureUnit = (typeof PRESSURE_UNITS)[number];
 export type PowerUnit = (typeof POWER_UNITS)[number];
+export type VolumeUnit = (typeof VOLUME_UNITS)[number];
+export type VelocityUnit = (typeof VELOCITY_UNITS)[number];
 
 function factorsToSI<U extends string>(mathjsNames: Record<U, string>, siName: string): Readonly<Record<U, number>> {
   const factors = {} as Record<U, number>;
@@ -54,6 +60,8 @@ const LENGTH_FACTORS = factorsToSI<LengthUnit>({ m: 'm', ft: 'ft' }, 'm');
 const DIAMETER_FACTORS = factorsToSI<DiameterUnit>({ mm: 'mm', in: 'inch', m: 'm' }, 'm');
 const PRESSURE_FACTORS = factorsToSI<PressureUnit>({ Pa: 'Pa', kPa: 'kPa', bar: 'bar', psi: 'psi' }, 'Pa');
 const POWER_FACTORS = factorsToSI<PowerUnit>({ W: 'W', kW: 'kW', hp: 'hp' }, 'W');
+const VOLUME_FACTORS = factorsToSI<VolumeUnit>({ m3: 'm^3', L: 'liter', gal: 'gallon' }, 'm^3');
+const VELOCITY_FACTORS = factorsToSI<VelocityUnit>({ 'm/s': 'm/s', 'ft/s': 'ft/s' }, 'm/s');
 
 /** A pair of conversions between `U` and the SI unit of one quantity. */
 interface Conversion<U extends string> {
@@ -95,6 +103,8 @@ const LENGTH = conversion(LENGTH_FACTORS, LENGTH_UNITS, 'length', '/lengthUnit')
 const DIAMETER = conversion(DIAMETER_FACTORS, DIAMETER_UNITS, 'diameter', '/diameterUnit');
 const PRESSURE = conversion(PRESSURE_FACTORS, PRESSURE_UNITS, 'pressure', '/pressureUnit');
 const POWER = conversion(POWER_FACTORS, POWER_UNITS, 'power', '/powerUnit');
+const VOLUME = conversion(VOLUME_FACTORS, VOLUME_UNITS, 'volume', '/volumeUnit');
+const VELOCITY = conversion(VELOCITY_FACTORS, VELOCITY_UNITS, 'velocity', '/velocityUnit');
 
 /** Flow in `unitName` to m3/s. Unknown unit -> HydraulicsInputError listing FLOW_UNITS. */
 export const flowToSI = FLOW.toSI;
@@ -118,6 +128,8 @@ export const convertLength = LENGTH.between;
 export const diameterToSI = DIAMETER.toSI;
 /** Diameter in m to `unitName`. */
 export const diameterFromSI = DIAMETER.fromSI;
+/** Diameter from one unit to another, e.g. mm to in. */
+export const convertDiameter = DIAMETER.between;
 /** Pressure in `unitName` to Pa. */
 export const pressureToSI = PRESSURE.toSI;
 /** Pressure in Pa to `unitName`. */
@@ -126,6 +138,14 @@ export const pressureFromSI = PRESSURE.fromSI;
 export const powerToSI = POWER.toSI;
 /** Power in W to `unitName`. */
 export const powerFromSI = POWER.fromSI;
+/** Volume in `unitName` to m3. */
+export const volumeToSI = VOLUME.toSI;
+/** Volume in m3 to `unitName`. */
+export const volumeFromSI = VOLUME.fromSI;
+/** Velocity in `unitName` to m/s. */
+export const velocityToSI = VELOCITY.toSI;
+/** Velocity in m/s to `unitName`. */
+export const velocityFromSI = VELOCITY.fromSI;
 
 /**
  * Pressure to the equivalent column of water: h = p / (rho g).

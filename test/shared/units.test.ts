@@ -22,6 +22,11 @@ import {
   pressureFromSI,
   pressureToHead,
   pressureToSI,
+  velocityFromSI,
+  velocityToSI,
+  volumeFromSI,
+  volumeToSI,
+  convertDiameter,
   waterDensity,
   type FlowUnit,
 } from '../../shared/hydraulics';
@@ -83,6 +88,16 @@ describe('units', () => {
     expect(convertHead(14.5, 'ft', 'm')).to.be.closeTo(4.4196, 1e-12);
     expect(convertLength(73.152, 'm', 'ft')).to.be.closeTo(240, 1e-12);
     expect(() => convertFlow(1, 'gpm', 'cfs' as never)).to.throw(/accepted units: gpm, gph/);
+  });
+
+  it('converts volumes and velocities by the same definitions (US gallon 3.785411784 L, foot 0.3048 m, NIST SP 811 Appendix B)', () => {
+    expect(volumeToSI(1000, 'gal')).to.be.closeTo(3.785411784, 1e-12);
+    expect(volumeToSI(250, 'L')).to.be.closeTo(0.25, 1e-15);
+    expect(volumeFromSI(1, 'gal')).to.be.closeTo(264.172052358, 1e-9);
+    expect(velocityToSI(5, 'ft/s')).to.be.closeTo(1.524, 1e-15);
+    expect(velocityFromSI(1.524, 'ft/s')).to.be.closeTo(5, 1e-14);
+    expect(convertDiameter(25.4, 'mm', 'in')).to.be.closeTo(1, 1e-15);
+    expect(() => volumeToSI(1, 'ft3' as never)).to.throw(HydraulicsInputError, /accepted units: m3, L, gal/);
   });
 
   it('names the accepted units when a unit is unknown', () => {

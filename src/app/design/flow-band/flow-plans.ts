@@ -1,4 +1,4 @@
-import { flowFromSI, flowToSI, type FlowUnit } from '../../../../shared/hydraulics';
+import { convertDiameter, flowFromSI, flowToSI, volumeFromSI, type FlowUnit } from '../../../../shared/hydraulics';
 
 /*
  * Rules of thumb that turn a filtration plan into a duty band. They are common practice of the
@@ -15,9 +15,6 @@ export function bandFromModules(moduleCount: number, perModuleMin: number, perMo
   return { flowMin: moduleCount * perModuleMin, flowMax: moduleCount * perModuleMax };
 }
 
-/** US gallons in one m3 (1 gal = 3.785411784 L, exact). */
-const GALLONS_PER_CUBIC_METRE = 1000 / 3.785411784;
-
 /**
  * Pond turnover: the whole volume passed through the filter `turnoversMin` to `turnoversMax`
  * times an hour (common practice: at least once an hour, two or three times for fish-heavy ponds).
@@ -30,7 +27,7 @@ export function bandFromTurnover(
   turnoversMax: number,
   flowUnit: FlowUnit,
 ): FlowBand {
-  const gallons = volumeUnit === 'gal' ? volume : volume * GALLONS_PER_CUBIC_METRE;
+  const gallons = volumeUnit === 'gal' ? volume : volumeFromSI(volume, 'gal');
   const toUnit = (perHour: number) => flowFromSI(flowToSI(gallons * perHour, 'gph'), flowUnit);
   return { flowMin: toUnit(turnoversMin), flowMax: toUnit(turnoversMax) };
 }
@@ -55,7 +52,7 @@ export function bandFromWeir(
   gphPerInchMax: number,
   flowUnit: FlowUnit,
 ): FlowBand {
-  const inches = widthUnit === 'in' ? width : width / 25.4;
+  const inches = widthUnit === 'in' ? width : convertDiameter(width, 'mm', 'in');
   const toUnit = (gphPerInch: number) => flowFromSI(flowToSI(inches * gphPerInch, 'gph'), flowUnit);
   return { flowMin: toUnit(gphPerInchMin), flowMax: toUnit(gphPerInchMax) };
 }

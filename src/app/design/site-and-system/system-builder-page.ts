@@ -19,12 +19,14 @@ import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { map, startWith } from 'rxjs';
 import {
+  diameterFromSI,
   FITTINGS,
   flowFromSI,
   flowToSI,
   headFromSI,
   lengthFromSI,
   PIPE_SERIES,
+  VELOCITY_WARNING_LIMIT,
   type FrictionMethod,
 } from '../../../../shared/hydraulics';
 import { SelectionDraft } from '../selection-draft';
@@ -116,7 +118,7 @@ export class SystemBuilderPage {
     },
   );
 
-  protected readonly velocityLimit = computed(() => lengthFromSI(1.524, this.units().length));
+  protected readonly velocityLimit = computed(() => lengthFromSI(VELOCITY_WARNING_LIMIT, this.units().length));
 
   constructor() {
     this.form.valueChanges.subscribe(() => {
@@ -134,7 +136,7 @@ export class SystemBuilderPage {
 
   protected insideDiameterLabel(size: { insideDiameter: number }): string {
     const unit = this.units().diameter;
-    const value = unit === 'in' ? size.insideDiameter / 0.0254 : size.insideDiameter * 1000;
+    const value = diameterFromSI(size.insideDiameter, unit);
     return `${value.toFixed(unit === 'in' ? 3 : 1)} ${unit} bore`;
   }
 
