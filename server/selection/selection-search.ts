@@ -3,6 +3,7 @@ import {
   energyCost,
   parallelHeadCurve,
   polynomialValue,
+  preferredFlowRegion,
   solveOperatingPoint,
   STANDARD_GRAVITY,
   VELOCITY_WARNING_LIMIT,
@@ -16,7 +17,6 @@ import {
   type DutyPoint,
   type DutyWarning,
 } from '../calculations/arrangement-duty';
-import { preferredFlowRange } from '../calculations/pump-request';
 import type { CatalogPump, CatalogState } from '../catalog/catalog-snapshot';
 
 /*
@@ -325,7 +325,7 @@ function rankCandidate(
 
   const tier = tierOf(inBand, point.region === 'preferred', !query.requireOneFailed || oneFailedMeetsMinimum === true);
   const annualKWh = point.inputPower === null ? null : annualEnergy(point.inputPower, query.hoursPerDay);
-  const perPump = preferredFlowRange(pump.fit, query.band, pump.declaredPreferred);
+  const perPump = preferredFlowRegion(pump.fit, query.band, pump.declaredPreferred);
   return {
     pump,
     running,
@@ -433,11 +433,19 @@ function tierInBand(
 ): number {
   if (!redundancyMetBySignTest(packed, index, running, query, table)) return 1;
   const declaredMin = packed.declaredMin[index];
-  const perPumpMin = declaredMin === declaredMin ? declaredMin : (packed.bepFlow[index] * query.band.minPercent) / 100;
-  const perPumpMax =
-    declaredMin === declaredMin ? packed.declaredMax[index] : (packed.bepFlow[index] * query.band.maxPercent) / 100;
-  const preferredLow = Math.max(low, running * perPumpMin);
-  const preferredHigh = Math.min(high, running * perPumpMax);
+  const bepFlow = packed.bepFlow[index];
+  const perPump = preferredFlowRegion(
+    {
+      bep: bepFlow === bepFlow ? { flow: bepFlow } : null,
+      flowMin: packed.flowMin[index],
+      flowMax: packed.flowMax[index],
+    },
+    query.band,
+    declaredMin === declaredMin ? { flowMin: declaredMin, flowMax: packed.declaredMax[index] } : null,
+  );
+  if (!perPump) return 1;
+  const preferredLow = Math.max(low, running * perPump.flowMin);
+  const preferredHigh = Math.min(high, running * perPump.flowMax);
   if (!(preferredLow <= preferredHigh)) return 1;
   const offset = index * 4;
   const crossesAfterLow = cubicAt(packed.coefficients, offset, preferredLow / running) >= table.head(preferredLow);
