@@ -49,15 +49,6 @@ export interface PumpOnFile {
   declaredPreferred?: { flowMin: number; flowMax: number } | null;
 }
 
-/** The supplier's declared preferred range wins over the band around BEP; the AOR still counts outside it. */
-function regionOf(pump: PumpOnFile, flow: number, byBand: OperatingRegion): OperatingRegion {
-  const declared = pump.declaredPreferred;
-  if (!declared) return byBand;
-  if (flow >= declared.flowMin && flow <= declared.flowMax) return 'preferred';
-  const aor = pump.fit.allowableRegion;
-  return aor && flow >= aor.flowMin && flow <= aor.flowMax ? 'allowable' : 'outside';
-}
-
 /**
  * The duty of `running` identical pumps in parallel on `system`. Region: inside the supplier's
  * declared preferred range when there is one, else the engine's band around BEP (ANSI/HI 9.6.3).
@@ -76,8 +67,7 @@ export function dutyOfParallelPumps(
   if (!solved.ok) return solved;
   const { fit } = pump;
   const flowPerPump = Math.min(Math.max(solved.totalFlow / running, fit.flowMin), fit.flowMax);
-  const classified = classifyOperatingRegion(fit, flowPerPump, band);
-  const region = regionOf(pump, flowPerPump, classified.region);
+  const classified = classifyOperatingRegion(fit, flowPerPump, band, pump.declaredPreferred ?? null);
   const power = powerAtOperatingPoint(fit, flowPerPump, solved.head, density, { motor: motorEfficiency });
   const warnings: DutyWarning[] = [];
   if (flowPerPump >= fit.flowMax - RUN_OUT_SHARE * (fit.flowMax - fit.flowMin)) warnings.push('run-out');
@@ -90,7 +80,7 @@ export function dutyOfParallelPumps(
       head: solved.head,
       flowPerPump,
       percentOfBep: classified.percentOfBep,
-      region,
+      region: classified.region,
       efficiency: pumpEfficiencyAt(fit, flowPerPump),
       inputPower: power.electrical === null ? null : power.electrical * running,
       warnings,

@@ -17,6 +17,7 @@ import {
   FITTINGS,
   flowToSI,
   PIPE_SERIES,
+  preferredFlowRegion,
   systemBreakdown,
   VELOCITY_WARNING_LIMIT,
   type CompiledSystemCurve,
@@ -26,7 +27,7 @@ import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { ProblemError } from '../api/problem-details';
 import { dutyOfParallelPumps, type DutyPoint, type PumpOnFile } from './arrangement-duty';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
-import { fitInlinePump, preferredBandOf, preferredFlowRange, summarizeFit } from './pump-request';
+import { fitInlinePump, preferredBandOf, summarizeFit } from './pump-request';
 import { answerUnits, echoedUnits } from './request-units';
 import { plausibleLimits, prepareSystem, requirePlausibleFlow, round, velocityWarnings } from './system-request';
 
@@ -158,7 +159,7 @@ export function createCalculationHandlers(
         units: echoedUnits(body.units),
         operatingPoint: operatingPointSummary(duty.point, body.units),
         oneFailed: oneFailed?.ok ? operatingPointSummary(oneFailed.point, body.units) : null,
-        fit: summarizeFit(pump.fit, body.units, preferredFlowRange(pump.fit, band, pump.declaredPreferred)),
+        fit: summarizeFit(pump.fit, body.units, preferredFlowRegion(pump.fit, band, pump.declaredPreferred)),
         warnings,
       };
       response.json(answer);

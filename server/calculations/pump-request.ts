@@ -46,17 +46,6 @@ export function preferredBandOf(band: PreferredBandInput | undefined, pointer = 
   return withRequestPointers(() => checkPreferredBand(band), pointerInto(pointer));
 }
 
-/** The preferred region in flow per pump, m3/s: a declared one when the supplier states it, else the band around BEP. */
-export function preferredFlowRange(
-  fit: PumpCurveFit,
-  band: PreferredBand,
-  declared?: { flowMin: number; flowMax: number } | null,
-): { flowMin: number; flowMax: number } | null {
-  if (declared) return declared;
-  if (!fit.bep) return null;
-  return { flowMin: (fit.bep.flow * band.minPercent) / 100, flowMax: (fit.bep.flow * band.maxPercent) / 100 };
-}
-
 /** A fit as the answer shows it, in the request's units; efficiencies in percent. */
 export function summarizeFit(
   fit: PumpCurveFit,

@@ -1,4 +1,4 @@
-import { STANDARD_GRAVITY } from '../../shared/hydraulics';
+import { preferredFlowRegion, STANDARD_GRAVITY } from '../../shared/hydraulics';
 import { cubicAt, type PackedCurves } from './packed-curves';
 import type { SelectionQuery } from './selection-query';
 import type { BandSystemTable } from './system-table';
@@ -87,11 +87,19 @@ export function tierInBand(
 ): number {
   if (!redundancyMetBySignTest(packed, index, running, query, table)) return 1;
   const declaredMin = packed.declaredMin[index];
-  const perPumpMin = declaredMin === declaredMin ? declaredMin : (packed.bepFlow[index] * query.band.minPercent) / 100;
-  const perPumpMax =
-    declaredMin === declaredMin ? packed.declaredMax[index] : (packed.bepFlow[index] * query.band.maxPercent) / 100;
-  const preferredLow = Math.max(low, running * perPumpMin);
-  const preferredHigh = Math.min(high, running * perPumpMax);
+  const bepFlow = packed.bepFlow[index];
+  const perPump = preferredFlowRegion(
+    {
+      bep: bepFlow === bepFlow ? { flow: bepFlow } : null,
+      flowMin: packed.flowMin[index],
+      flowMax: packed.flowMax[index],
+    },
+    query.band,
+    declaredMin === declaredMin ? { flowMin: declaredMin, flowMax: packed.declaredMax[index] } : null,
+  );
+  if (!perPump) return 1;
+  const preferredLow = Math.max(low, running * perPump.flowMin);
+  const preferredHigh = Math.min(high, running * perPump.flowMax);
   if (!(preferredLow <= preferredHigh)) return 1;
   const offset = index * 4;
   const crossesAfterLow = cubicAt(packed.coefficients, offset, preferredLow / running) >= table.head(preferredLow);

@@ -1,6 +1,11 @@
-import { annualEnergy, energyCost, VELOCITY_WARNING_LIMIT, type CompiledSystemCurve } from '../../shared/hydraulics';
+import {
+  annualEnergy,
+  energyCost,
+  preferredFlowRegion,
+  VELOCITY_WARNING_LIMIT,
+  type CompiledSystemCurve,
+} from '../../shared/hydraulics';
 import { dutyOfParallelPumps, type DutyOutcome, type DutyPoint } from '../calculations/arrangement-duty';
-import { preferredFlowRange } from '../calculations/pump-request';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
 import type { RankedCandidate, SelectionQuery, SelectionWarningCode } from './selection-query';
 import { tierOf } from './selection-ranking';
@@ -86,7 +91,7 @@ export function rankCandidate(
 
   const tier = tierOf(inBand, point.region === 'preferred', !query.requireOneFailed || oneFailedMeetsMinimum === true);
   const annualKWh = point.inputPower === null ? null : annualEnergy(point.inputPower, query.hoursPerDay);
-  const perPump = preferredFlowRange(pump.fit, query.band, pump.declaredPreferred);
+  const perPump = preferredFlowRegion(pump.fit, query.band, pump.declaredPreferred);
   return {
     pump,
     running,

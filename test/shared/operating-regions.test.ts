@@ -4,6 +4,7 @@ import {
   HydraulicsInputError,
   checkPreferredBand,
   classifyOperatingRegion,
+  preferredFlowRegion,
 } from '../../shared/hydraulics';
 
 const fit = { bep: { flow: 0.01, head: 10, efficiency: 0.7 }, allowableRegion: null };
@@ -37,6 +38,32 @@ describe('operating regions', () => {
       region: 'unknown-bep',
       percentOfBep: null,
     });
+  });
+
+  it("puts the supplier's declared preferred range before the band, with or without a BEP", () => {
+    const declared = { flowMin: 0.005, flowMax: 0.006 };
+    const withAor = { ...fit, allowableRegion: { flowMin: 0.004, flowMax: 0.013 } };
+    expect(classifyOperatingRegion(withAor, 0.0055, DEFAULT_PREFERRED_BAND, declared).region).to.equal('preferred');
+    expect(classifyOperatingRegion(withAor, 0.01, DEFAULT_PREFERRED_BAND, declared).region).to.equal('allowable');
+    expect(classifyOperatingRegion(fit, 0.01, DEFAULT_PREFERRED_BAND, declared).region).to.equal('outside');
+    expect(
+      classifyOperatingRegion({ bep: null, allowableRegion: null }, 0.0055, DEFAULT_PREFERRED_BAND, declared),
+    ).to.deep.equal({ region: 'preferred', percentOfBep: null });
+  });
+
+  it('gives the preferred region in flow, kept inside the published flows', () => {
+    const published = { bep: { flow: 0.01 }, flowMin: 0, flowMax: 0.02 };
+    const region = preferredFlowRegion(published)!;
+    expect(region.flowMin).to.be.closeTo(0.007, 1e-12);
+    expect(region.flowMax).to.be.closeTo(0.012, 1e-12);
+    expect(preferredFlowRegion({ ...published, flowMin: 0.008, flowMax: 0.011 })).to.deep.equal({
+      flowMin: 0.008,
+      flowMax: 0.011,
+    });
+    expect(preferredFlowRegion({ ...published, flowMax: 0.006 })).to.equal(null);
+    expect(preferredFlowRegion({ ...published, bep: null })).to.equal(null);
+    const declared = { flowMin: 0.001, flowMax: 0.03 };
+    expect(preferredFlowRegion({ ...published, bep: null }, DEFAULT_PREFERRED_BAND, declared)).to.equal(declared);
   });
 
   it('rejects an inverted or non-positive band', () => {

@@ -5,6 +5,7 @@ import {
   DEFAULT_PREFERRED_BAND,
   flowFromSI,
   headFromSI,
+  preferredFlowRegion,
   pumpEfficiencyAt,
   pumpHeadAt,
   type PumpCurveFit,
@@ -19,14 +20,13 @@ export interface PreferredBandShown {
 
 /**
  * The preferred band to draw: the supplier's declared range when given, else the default POR of
- * ANSI/HI 9.6.3 (70-120 % of BEP flow, DEFAULT_PREFERRED_BAND), kept inside the published flows.
+ * ANSI/HI 9.6.3 (70-120 % of BEP flow, DEFAULT_PREFERRED_BAND), kept inside the published flows
+ * (preferredFlowRegion).
  */
 export function preferredBandOf(fit: StoredPumpCurveFit | null, declared: FlowRange | null): PreferredBandShown | null {
   if (declared) return { range: declared, source: 'supplier' };
-  if (!fit?.bep) return null;
-  const flowMin = Math.max(fit.flowMin, (fit.bep.flow * DEFAULT_PREFERRED_BAND.minPercent) / 100);
-  const flowMax = Math.min(fit.flowMax, (fit.bep.flow * DEFAULT_PREFERRED_BAND.maxPercent) / 100);
-  return flowMax > flowMin ? { range: { flowMin, flowMax }, source: 'bep' } : null;
+  const range = fit ? preferredFlowRegion(fit, DEFAULT_PREFERRED_BAND) : null;
+  return range ? { range, source: 'bep' } : null;
 }
 
 const samples = 60;
