@@ -8,7 +8,7 @@ import {
   type HeadUnit,
   type PowerUnit,
 } from '../shared/hydraulics';
-import { CurveDeclaredRange, CurvePoint, CurveRevision, Pump, type Supplier } from '../server/database/models';
+import type { PumpKind, PumpStatus } from '../shared/vocabularies';
 import { pointColumns, pumpColumns, type CurveTableColumn } from './curve-table-format';
 import { formatCurveTable, type CurveTableDraft } from './curve-table-writer';
 
@@ -26,6 +26,33 @@ function mostCommon<T extends string>(values: ReadonlyArray<T | undefined>, fall
   return [...counts.entries()].sort((a, b) => b[1] - a[1])[0]?.[0] ?? fallback;
 }
 
+/** A stored pump with its current curve revision, as the catalog store reads it (SI units). */
+export interface StoredPumpCurve {
+  modelCode: string;
+  displayName: string;
+  kind: PumpKind;
+  nominalSpeedRpm: number | null;
+  voltageV: number | null;
+  phaseCount: number | null;
+  dischargeSizeMm: number | null;
+  solidsHandlingMm: number | null;
+  listPrice: string | null;
+  priceCurrency: string | null;
+  status: PumpStatus;
+  currentRevision?: {
+    fileUnits: object;
+    notes: string | null;
+    points?: ReadonlyArray<{
+      flowM3s: number;
+      headM: number;
+      powerW: number | null;
+      efficiency: number | null;
+      npshRequiredM: number | null;
+    }>;
+    declaredRanges?: ReadonlyArray<{ region: 'preferred' | 'allowable'; flowMinM3s: number; flowMaxM3s: number }>;
+  } | null;
+}
+
 export interface CurveTableExport {
   text: string;
   pumpCount: number;
@@ -36,27 +63,10 @@ export interface CurveTableExport {
  * A supplier's current curves as a curve table (format version 1, data-import/README.md), to keep,
  * edit and load again. Each quantity is written in the unit most of the pumps' own files used;
  * a pump loaded in other units is converted. Retired pumps are written with their status. A
- * price in another currency than the file's is left out, and a comment says so.
+ * price in another currency than the file's is left out, and a comment says so. Pumps in model-code
+ * order, points in curve order.
  */
-export async function exportCurveTable(supplier: Supplier): Promise<CurveTableExport> {
-  const pumps = await Pump.findAll({
-    where: { supplierId: supplier.id },
-    include: [
-      {
-        model: CurveRevision,
-        as: 'currentRevision',
-        required: true,
-        include: [
-          { model: CurvePoint, as: 'points' },
-          { model: CurveDeclaredRange, as: 'declaredRanges' },
-        ],
-      },
-    ],
-    order: [
-      ['modelCode', 'ASC'],
-      [{ model: CurveRevision, as: 'currentRevision' }, { model: CurvePoint, as: 'points' }, 'position', 'ASC'],
-    ],
-  });
+export function curveTableOf(supplier: { name: string; code: string }, pumps: StoredPumpCurve[]): CurveTableExport {
   const declared = pumps.map((pump) => (pump.currentRevision?.fileUnits ?? {}) as Partial<CurveFileUnits>);
   const units: CurveFileUnits = {
     flow: mostCommon<FlowUnit>(

@@ -1,5 +1,4 @@
 import { FLOW_UNITS, HEAD_UNITS, POWER_UNITS, type PowerUnit } from '../shared/hydraulics';
-import type { PumpKind, PumpStatus } from '../server/database/models/pump';
 
 /*
  * Riffle's own curve-table format, version 1 (described with an example in README.md): a format
@@ -82,9 +81,6 @@ export const columnUnitDirective: Partial<Record<CurveTableColumn, UnitDirective
   solids_size: 'size-unit',
   list_price: 'currency',
 };
-
-export const pumpKindValues: readonly PumpKind[] = ['submersible', 'external-centrifugal', 'mixed-flow'];
-export const pumpStatusValues: readonly PumpStatus[] = ['active', 'retired'];
 
 /**
  * A head rise between neighbouring points up to this fraction of the curve's highest head is

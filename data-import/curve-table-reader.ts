@@ -3,7 +3,7 @@ import { Readable, Transform, pipeline, type TransformCallback } from 'node:stre
 import { parse, CsvError } from 'csv-parse';
 import { diameterToSI, flowToSI, headToSI, powerToSI, type FlowUnit, type HeadUnit } from '../shared/hydraulics';
 import type { CurveFileUnits, CurveImportIssue } from '../shared/api/api-schemas';
-import type { PumpKind, PumpStatus } from '../server/database/models/pump';
+import { pumpKinds, pumpStatuses, type PumpKind, type PumpStatus } from '../shared/vocabularies';
 import {
   columnUnitDirective,
   curveTableFormatName,
@@ -13,8 +13,6 @@ import {
   freeDirectives,
   pointColumns,
   pumpColumns,
-  pumpKindValues,
-  pumpStatusValues,
   requiredColumns,
   unitDirectives,
   type CurveTableColumn,
@@ -655,6 +653,7 @@ class TableState {
       );
       return null;
     }
+    // eslint-disable-next-line no-control-regex -- control characters are exactly what this rule refuses
     if (/[\u0000-\u0008\u000B\u000C\u000E-\u001F]/.test(text)) {
       this.errors.add(issue(values.row, column, 'the text holds control characters', 'printable text'));
       return null;
@@ -745,7 +744,7 @@ class TableState {
     if (phases === 2) this.errors.add(issue(values.row, 'phases', '2 is not a supply Riffle knows', '1 or 3'));
     return {
       displayName: this.text(values, 'display_name', 160, true) ?? '',
-      kind: this.choice(values, 'kind', pumpKindValues) ?? 'submersible',
+      kind: this.choice(values, 'kind', pumpKinds) ?? 'submersible',
       nominalSpeedRpm: this.number(values, 'speed_rpm', 'in rpm', { integer: true, min: 100, max: 20000 }) ?? null,
       voltageV: this.number(values, 'voltage', 'in V', { integer: true, min: 1, max: 1000 }) ?? null,
       phaseCount: phases === 2 ? null : (phases ?? null),
@@ -753,7 +752,7 @@ class TableState {
       solidsHandlingMm: size('solids_size'),
       listPrice: typeof price === 'number' ? Math.round(price * 100) / 100 : null,
       priceCurrency: typeof price === 'number' ? (this.unitOf('currency') ?? null) : null,
-      status: this.choice(values, 'status', pumpStatusValues, 'active') ?? 'active',
+      status: this.choice(values, 'status', pumpStatuses, 'active') ?? 'active',
       notes: this.text(values, 'notes', 2000, false),
     };
   }

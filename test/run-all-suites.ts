@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { projectRoot } from '../server/config';
 import { createSequelize } from '../server/database/connection';
-import { seedMissingDemoData } from '../server/database/demo-seed';
+import { seedMissingDemoData } from '../server/demo/demo-seed';
 import { createMigrator } from '../server/database/migrator';
 import { initialiseModels } from '../server/database/models';
 import { PrivateMariaDb } from '../server/database/private-mariadb';

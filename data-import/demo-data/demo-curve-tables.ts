@@ -7,7 +7,7 @@ import {
   type FlowUnit,
   type HeadUnit,
 } from '../../shared/hydraulics';
-import type { PumpKind } from '../../server/database/models/pump';
+import type { PumpKind } from '../../shared/vocabularies';
 import type { CurveTableColumn } from '../curve-table-format';
 import { formatCurveTable, type CurveTableDraft } from '../curve-table-writer';
 import { seededRandom } from './seeded-random';

@@ -1,5 +1,5 @@
 import type { ApiOperation } from '../api/openapi-document';
-import { apiScopes, roles, type ApiScope, type Role } from './authenticated-user';
+import { apiScopes, roles, type ApiScope, type Role } from '../../shared/vocabularies';
 
 /** Who may call an operation, as its `security` and `x-riffle-access` in openapi.yaml declare. */
 export type AccessDeclaration =

@@ -1,5 +1,5 @@
 import type { OutgoingMessage } from '../mail/mailer';
-import type { Role } from './authenticated-user';
+import type { Role } from '../../shared/vocabularies';
 
 const roleWords: Record<Role, string> = {
   admin: 'site admin (accounts, suppliers and roles)',

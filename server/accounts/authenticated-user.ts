@@ -1,12 +1,6 @@
 import type { Request } from 'express';
+import type { Role } from '../../shared/vocabularies';
 import { ProblemError } from '../api/problem-details';
-
-export const roles = ['admin', 'supplier-admin', 'designer', 'integrator'] as const;
-export type Role = (typeof roles)[number];
-
-/** What a personal API token may be used for; an operation's `x-riffle-access.scopes` names them. */
-export const apiScopes = ['catalog:read', 'calculations:run', 'projects:write', 'curves:import'] as const;
-export type ApiScope = (typeof apiScopes)[number];
 
 /** Who is calling: set on the request by the bearer guard, from a session or a personal API token. */
 export interface AuthenticatedUser {

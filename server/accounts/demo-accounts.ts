@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import { Supplier, User } from '../database/models';
-import type { Role } from './authenticated-user';
+import type { Role } from '../../shared/vocabularies';
 import { hashPassword } from './passwords';
 
 /** The shared password of the invented demo accounts; demo mode only, never in production. */

@@ -11,7 +11,7 @@ import type {
   SupplierList,
 } from '../../shared/api/api-schemas';
 import { flowToSI, headToSI, type FlowUnit, type HeadUnit } from '../../shared/hydraulics';
-import { siUnits } from '../../data-import/curve-import';
+import { siUnits } from '../../data-import/curve-import-plan';
 import { ProblemError } from '../api/problem-details';
 
 /*

@@ -6,7 +6,7 @@ import type { Sequelize } from 'sequelize';
 import { createApp, defaultClientFolder } from '../app';
 import { ConfigError, loadConfig } from '../config';
 import { createSequelize } from '../database/connection';
-import { seedMissingDemoData } from '../database/demo-seed';
+import { seedMissingDemoData } from '../demo/demo-seed';
 import { createMigrator } from '../database/migrator';
 import { initialiseModels } from '../database/models';
 import { MariaDbStartError, PrivateMariaDb } from '../database/private-mariadb';

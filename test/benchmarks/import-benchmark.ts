@@ -12,7 +12,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Readable } from 'node:stream';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { importCurveTable } from '../../data-import/curve-import';
+import { importCurveTable } from '../../server/catalog/curve-import-transaction';
 import { createSequelize } from '../../server/database/connection';
 import { createMigrator } from '../../server/database/migrator';
 import { initialiseModels, Supplier } from '../../server/database/models';

@@ -1,9 +1,9 @@
 import { Readable } from 'node:stream';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { CurveImportReport } from '../../shared/api/api-schemas';
-import { importCurveTable } from '../../data-import/curve-import';
-import { seedDemoCurvesWhenNone } from '../../data-import/demo-data/demo-curve-seed';
-import { demoSuppliers } from '../../server/database/demo-seed';
+import { importCurveTable } from '../../server/catalog/curve-import-transaction';
+import { seedDemoCurvesWhenNone } from '../../server/demo/demo-curve-seed';
+import { demoSuppliers } from '../../server/demo/demo-seed';
 import { Supplier } from '../../server/database/models';
 
 export const catalogTables = [

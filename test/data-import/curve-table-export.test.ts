@@ -1,7 +1,7 @@
 import { expect } from 'chai';
 import type { Sequelize } from 'sequelize';
 import request from 'supertest';
-import { exportCurveTable } from '../../data-import/curve-table-export';
+import { exportCurveTable } from '../../server/catalog/curve-table-export-query';
 import { createApp } from '../../server/app';
 import { Supplier } from '../../server/database/models';
 import { createLogger } from '../../server/logging';

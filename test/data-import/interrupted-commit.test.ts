@@ -75,7 +75,7 @@ describe('an interrupted commit leaves no partial revision', function () {
       const before = await catalogRowCounts(sequelize);
       const child = spawn(
         process.execPath,
-        ['--import', 'tsx', join(projectRoot, 'data-import', 'import-command.ts'), '--supplier', 'BULKTEST', file],
+        ['--import', 'tsx', join(projectRoot, 'server', 'launch', 'import-command.ts'), '--supplier', 'BULKTEST', file],
         {
           cwd: projectRoot,
           env: {

@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import type { ApiScope, Role } from '../../server/accounts/authenticated-user';
+import type { ApiScope, Role } from '../../shared/vocabularies';
 import { hashPassword } from '../../server/accounts/passwords';
 import { openSession } from '../../server/accounts/sessions';
 import { newSecretToken } from '../../server/accounts/secret-tokens';

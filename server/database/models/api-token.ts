@@ -8,7 +8,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import type { ApiScope } from '../../accounts/authenticated-user';
+import type { ApiScope } from '../../../shared/vocabularies';
 import type { User } from './user';
 import { credentialChangeHooks } from './credential-changes';
 

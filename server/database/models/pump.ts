@@ -8,13 +8,9 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import { pumpKinds, pumpStatuses, type PumpKind, type PumpStatus } from '../../../shared/vocabularies';
 import type { CurveRevision } from './curve-revision';
 import type { Supplier } from './supplier';
-
-export const pumpKinds = ['submersible', 'external-centrifugal', 'mixed-flow'] as const;
-export type PumpKind = (typeof pumpKinds)[number];
-export const pumpStatuses = ['active', 'retired'] as const;
-export type PumpStatus = (typeof pumpStatuses)[number];
 
 /** A supplier's pump model; its curves are the revisions, the current one named by currentRevisionId. */
 export class Pump extends Model<InferAttributes<Pump>, InferCreationAttributes<Pump>> {

@@ -7,7 +7,7 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
-import { roles, type Role } from '../../accounts/authenticated-user';
+import { roles, type Role } from '../../../shared/vocabularies';
 import type { Supplier } from './supplier';
 import { credentialChangeHooks } from './credential-changes';
 

@@ -2,7 +2,7 @@ import { expect } from 'chai';
 import type { OpenAPIV3_1 } from 'openapi-types';
 import request from 'supertest';
 import { readAccessDeclaration } from '../../../server/accounts/access-declaration';
-import { apiScopes, roles, type ApiScope, type Role } from '../../../server/accounts/authenticated-user';
+import { apiScopes, roles, type ApiScope, type Role } from '../../../shared/vocabularies';
 import { listOperations, openApiDocument, type ApiOperation } from '../../../server/api/openapi-document';
 import { createApp } from '../../../server/app';
 import { Supplier, type User } from '../../../server/database/models';

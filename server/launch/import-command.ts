@@ -5,13 +5,14 @@ import { basename, join } from 'node:path';
 import { userInfo } from 'node:os';
 import { parseArgs } from 'node:util';
 import cliProgress from 'cli-progress';
-import type { CurveImportReport } from '../shared/api/api-schemas';
-import { ConfigError, loadConfig } from '../server/config';
-import { createSequelize } from '../server/database/connection';
-import { createMigrator } from '../server/database/migrator';
-import { initialiseModels, Supplier } from '../server/database/models';
-import { MariaDbStartError, PrivateMariaDb } from '../server/database/private-mariadb';
-import { describeIssue, importCurveTable, type ImportPhase } from './curve-import';
+import type { CurveImportReport } from '../../shared/api/api-schemas';
+import { describeIssue, type ImportPhase } from '../../data-import/curve-import-plan';
+import { importCurveTable } from '../catalog/curve-import-transaction';
+import { ConfigError, loadConfig } from '../config';
+import { createSequelize } from '../database/connection';
+import { createMigrator } from '../database/migrator';
+import { initialiseModels, Supplier } from '../database/models';
+import { MariaDbStartError, PrivateMariaDb } from '../database/private-mariadb';
 
 const usage = 'usage: npm run import -- --supplier CODE FILE.csv [--dry-run]';
 

@@ -1,9 +1,9 @@
 import { createReadStream } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import type { Sequelize } from 'sequelize';
-import { Pump, Supplier } from '../../server/database/models';
-import { importCurveTable } from '../curve-import';
-import { demoCurveFiles } from './demo-curve-tables';
+import { demoCurveFiles } from '../../data-import/demo-data/demo-curve-tables';
+import { importCurveTable } from '../catalog/curve-import-transaction';
+import { Pump, Supplier } from '../database/models';
 
 /**
  * Loads the demo curve tables (invented pumps) through the ordinary import path when the catalog
@@ -19,7 +19,7 @@ export async function seedDemoCurvesWhenNone(sequelize: Sequelize): Promise<numb
     const report = await importCurveTable({
       sequelize,
       supplier,
-      source: createReadStream(fileURLToPath(new URL(`./${fileName}`, import.meta.url))),
+      source: createReadStream(fileURLToPath(new URL(`../../data-import/demo-data/${fileName}`, import.meta.url))),
       fileName,
       dryRun: false,
       actor: { userId: null, label: 'demo seed', channel: 'demo-seed' },

@@ -1,7 +1,7 @@
 import type { Sequelize } from 'sequelize';
-import { seedDemoCurvesWhenNone } from '../../data-import/demo-data/demo-curve-seed';
+import { seedDemoCurvesWhenNone } from './demo-curve-seed';
 import { seedDemoAccountsWhenNone } from '../accounts/demo-accounts';
-import { Supplier } from './models';
+import { Supplier } from '../database/models';
 
 /** Invented suppliers for the demo; no real maker or distributor is meant. */
 export const demoSuppliers = [
