@@ -130,32 +130,24 @@ export const SI_PLAUSIBLE_UNITS: PlausibleUnits = Object.freeze({
   diameter: 'm',
 });
 
+/** The engine's conversions for each quantity, with the unit of `units` it takes. */
+const CONVERSIONS = {
+  head: { toSI: headToSI, fromSI: headFromSI },
+  length: { toSI: lengthToSI, fromSI: lengthFromSI },
+  diameter: { toSI: diameterToSI, fromSI: diameterFromSI },
+  flow: { toSI: flowToSI, fromSI: flowFromSI },
+} as const;
+
+type UnitName = PlausibleUnits[PlausibleQuantity];
+
 /** A limit (SI) in the user's units. */
 export function limitInUnits(quantity: PlausibleQuantity, value: number, units: PlausibleUnits): number {
-  switch (quantity) {
-    case 'head':
-      return headFromSI(value, units.head);
-    case 'length':
-      return lengthFromSI(value, units.length);
-    case 'diameter':
-      return diameterFromSI(value, units.diameter);
-    case 'flow':
-      return flowFromSI(value, units.flow);
-  }
+  return (CONVERSIONS[quantity].fromSI as (value: number, unit: UnitName) => number)(value, units[quantity]);
 }
 
 /** A value typed in the user's units, in SI. */
 export function valueToSI(quantity: PlausibleQuantity, value: number, units: PlausibleUnits): number {
-  switch (quantity) {
-    case 'head':
-      return headToSI(value, units.head);
-    case 'length':
-      return lengthToSI(value, units.length);
-    case 'diameter':
-      return diameterToSI(value, units.diameter);
-    case 'flow':
-      return flowToSI(value, units.flow);
-  }
+  return (CONVERSIONS[quantity].toSI as (value: number, unit: UnitName) => number)(value, units[quantity]);
 }
 
 /** checkPlausible for a value typed in the user's units, as a form holds it. */
