@@ -2,28 +2,18 @@ import type { CalculationUnits, PipeSystem } from '../../shared/api/api-schemas'
 import {
   checkPlausible,
   compileSystemCurve,
-  diameterToSI,
-  headToSI,
-  lengthToSI,
   systemBreakdown,
   VELOCITY_WARNING_LIMIT,
   plausibilityMessage,
   SI_PLAUSIBLE_UNITS,
   waterDensity,
   type CompiledSystemCurve,
-  type PipeSegmentInput,
   type PlausibleLimitName,
   type PlausibleUnits,
 } from '../../shared/hydraulics';
+import { SYSTEM_FIELD_RENAMES, systemInputOf } from '../../shared/api/system-input';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
 import { answerUnits } from './request-units';
-
-/*
- * The request's `system` turned into the engine's SI input, checked against plausible sizes,
- * and compiled. The contract's names differ from the engine's in three places.
- */
-
-const systemRenames = { temperature: 'waterTemperatureC', pipeSizeId: 'pipe', extraK: 'minorLossK' };
 
 /** Refuses a value (SI) outside its plausible limit with a 422 stating the limit in the request's units. */
 export function requirePlausible(
@@ -44,43 +34,22 @@ export interface PreparedSystem {
 
 /** Converts, checks and compiles `system`; every problem is a 422 pointing under `pointer`. */
 export function prepareSystem(units: CalculationUnits, system: PipeSystem, pointer = '/body/system'): PreparedSystem {
-  const staticHead = headToSI(system.staticHead, units.head);
-  requirePlausible('staticHead', staticHead, `${pointer}/staticHead`, units);
-  const outletPressureHead = headToSI(system.outletPressureHead ?? 0, units.head);
-  requirePlausible('outletPressureHead', outletPressureHead, `${pointer}/outletPressureHead`, units);
-  const segments = system.segments.map((segment, index): PipeSegmentInput => {
+  const input = systemInputOf(system, units);
+  requirePlausible('staticHead', input.staticHead, `${pointer}/staticHead`, units);
+  requirePlausible('outletPressureHead', input.outletPressureHead ?? 0, `${pointer}/outletPressureHead`, units);
+  input.segments.forEach((segment, index) => {
     const at = `${pointer}/segments/${index}`;
-    const length = lengthToSI(segment.length, units.length);
-    requirePlausible('segmentLength', length, `${at}/length`, units);
-    const insideDiameter =
-      segment.insideDiameter === undefined ? undefined : diameterToSI(segment.insideDiameter, units.diameter);
-    if (insideDiameter !== undefined) requirePlausible('insideDiameter', insideDiameter, `${at}/insideDiameter`, units);
-    const roughness = segment.roughness === undefined ? undefined : diameterToSI(segment.roughness, units.diameter);
-    if (roughness !== undefined) requirePlausible('roughness', roughness, `${at}/roughness`, units);
-    return {
-      length,
-      pipeSizeId: segment.pipe,
-      insideDiameter,
-      material: segment.material,
-      hazenWilliamsC: segment.hazenWilliamsC,
-      roughness,
-      fittings: segment.fittings,
-      extraK: segment.minorLossK,
-    };
+    requirePlausible('segmentLength', segment.length, `${at}/length`, units);
+    if (segment.insideDiameter !== undefined)
+      requirePlausible('insideDiameter', segment.insideDiameter, `${at}/insideDiameter`, units);
+    if (segment.roughness !== undefined) requirePlausible('roughness', segment.roughness, `${at}/roughness`, units);
   });
-  const temperature = system.waterTemperatureC ?? 20;
   return withRequestPointers(
-    () => ({
-      curve: compileSystemCurve({
-        staticHead,
-        outletPressureHead,
-        segments,
-        temperature,
-        frictionMethod: system.frictionMethod,
-      }),
-      density: waterDensity(temperature),
-    }),
-    pointerInto(pointer, systemRenames),
+    () => {
+      const curve = compileSystemCurve(input);
+      return { curve, density: waterDensity(curve.temperature) };
+    },
+    pointerInto(pointer, SYSTEM_FIELD_RENAMES),
   );
 }
 
