@@ -1,5 +1,6 @@
 import {
   annualEnergy,
+  annualEnergyUnchecked,
   energyCost,
   parallelHeadCurve,
   polynomialValue,
@@ -609,7 +610,9 @@ function screenPoint(
   const inBand = flow >= query.flowMin * (1 - 1e-9) && flow <= query.flowMax * (1 + 1e-9);
   const redundancyMet = redundancyMetBySignTest(packed, index, running, query, table);
   const energy =
-    power === power ? Math.min((power * running * query.hoursPerDay * 365) / 1000, TIER_SPAN - 1) : TIER_SPAN - 1;
+    power === power
+      ? Math.min(annualEnergyUnchecked(power * running, query.hoursPerDay), TIER_SPAN - 1)
+      : TIER_SPAN - 1;
   return tierOf(inBand, preferred, redundancyMet) * TIER_SPAN + energy;
 }
 
