@@ -18,6 +18,7 @@ import {
   flowToSI,
   PIPE_SERIES,
   preferredFlowRegion,
+  SI_PLAUSIBLE_UNITS,
   systemBreakdown,
   VELOCITY_WARNING_LIMIT,
   type CompiledSystemCurve,
@@ -29,7 +30,7 @@ import { dutyOfParallelPumps, type DutyPoint, type PumpOnFile } from './arrangem
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
 import { fitInlinePump, preferredBandOf, summarizeFit } from './pump-request';
 import { answerUnits, echoedUnits } from './request-units';
-import { plausibleLimits, prepareSystem, requirePlausibleFlow, round, velocityWarnings } from './system-request';
+import { prepareSystem, requirePlausible, requirePlausibleFlow, round, velocityWarnings } from './system-request';
 
 /** Where the calculations find a catalog pump's current curve. */
 export interface CurrentPumpCurves {
@@ -91,7 +92,7 @@ export function createCalculationHandlers(
       const warnings = new Set<string>();
       const points = body.flows.map((flowInUnits, index) => {
         const flow = flowToSI(flowInUnits, body.units.flow);
-        requirePlausibleFlow(flow, `/body/flows/${index}`);
+        requirePlausibleFlow(flow, `/body/flows/${index}`, body.units);
         const breakdown = systemBreakdown(curve, flow);
         for (const issue of breakdown.issues)
           if (issue.code !== 'segment-velocity') warnings.add(engineIssueText(issue));
@@ -193,12 +194,10 @@ export function createCalculationHandlers(
       let frictionFactor: number | null = null;
       if (query.insideDiameter !== undefined) {
         const bore = diameterToSI(query.insideDiameter, diameterUnitOf(request));
-        if (bore < plausibleLimits.insideDiameterMin || bore > plausibleLimits.insideDiameterMax) {
-          throw unprocessable(
-            '/query/insideDiameter',
-            'inside diameter is outside the plausible range for a water feature',
-          );
-        }
+        requirePlausible('insideDiameter', bore, '/query/insideDiameter', {
+          ...SI_PLAUSIBLE_UNITS,
+          diameter: diameterUnitOf(request),
+        });
         frictionFactor = craneFullyTurbulentFrictionFactor(bore);
       }
       const answer: FittingsResponse = {

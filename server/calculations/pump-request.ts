@@ -9,12 +9,9 @@ import {
   type PreferredBand,
   type PumpCurveFit,
 } from '../../shared/hydraulics';
-import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
+import { pointerInto, withRequestPointers } from './engine-problem';
 import { answerUnits, powerUnitOf } from './request-units';
-import { plausibleLimits } from './system-request';
-
-/** Highest pump head Riffle accepts on a curve, m: beyond any water-feature pump (a typing slip). */
-const PLAUSIBLE_PUMP_HEAD = 1000;
+import { requirePlausible } from './system-request';
 
 /** Fits an inline published curve; every problem is a 422 pointing under `pointer` (`/body/pump`). */
 export function fitInlinePump(units: CalculationUnits, pump: InlinePump, pointer = '/body/pump'): PumpCurveFit {
@@ -22,11 +19,9 @@ export function fitInlinePump(units: CalculationUnits, pump: InlinePump, pointer
   const points = pump.curve.map((point, index) => {
     const at = `${pointer}/curve/${index}`;
     const flow = flowToSI(point.flow, units.flow);
-    if (flow > plausibleLimits.flowMax)
-      throw unprocessable(`${at}/flow`, 'flow is outside the plausible range for a water feature');
+    requirePlausible('pumpCurveFlow', flow, `${at}/flow`, units);
     const head = headToSI(point.head, units.head);
-    if (head > PLAUSIBLE_PUMP_HEAD)
-      throw unprocessable(`${at}/head`, 'head is outside the plausible range for a water feature');
+    requirePlausible('pumpCurveHead', head, `${at}/head`, units);
     return {
       flow,
       head,

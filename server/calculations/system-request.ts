@@ -1,43 +1,29 @@
 import type { CalculationUnits, PipeSystem } from '../../shared/api/api-schemas';
 import {
+  checkPlausible,
   compileSystemCurve,
-  diameterToSI,
-  headToSI,
-  lengthToSI,
   systemBreakdown,
+  plausibilityMessage,
+  SI_PLAUSIBLE_UNITS,
   waterDensity,
   type CompiledSystemCurve,
-  type PipeSegmentInput,
+  type PlausibleLimitName,
+  type PlausibleUnits,
 } from '../../shared/hydraulics';
+import { SYSTEM_FIELD_RENAMES, systemInputOf } from '../../shared/api/system-input';
 import { engineIssueText, type IssueValueText } from '../../shared/messages/engine-issue-text';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
 import { answerUnits } from './request-units';
 
-/*
- * The request's `system` turned into the engine's SI input, checked against plausible sizes,
- * and compiled. The contract's names differ from the engine's in three places.
- */
-
-const systemRenames = { temperature: 'waterTemperatureC', pipeSizeId: 'pipe', extraK: 'minorLossK' };
-
-/**
- * Riffle's own plausibility limits, SI: the contract accepts any positive number, but a 40 km
- * pipe or a 1 mm bore in a water feature is a typing slip (a unit mix-up, a lost decimal point),
- * so it is refused with the field named instead of computed.
- */
-export const plausibleLimits = Object.freeze({
-  staticHead: 500,
-  outletPressureHead: 500,
-  segmentLength: 20_000,
-  insideDiameterMin: 0.003,
-  insideDiameterMax: 2,
-  roughnessMax: 0.01,
-  flowMax: 10,
-});
-
-function requirePlausible(value: number, min: number, max: number, pointer: string, what: string): void {
-  if (value < min || value > max)
-    throw unprocessable(pointer, `${what} is outside the plausible range for a water feature`);
+/** Refuses a value (SI) outside its plausible limit with a 422 stating the limit in the request's units. */
+export function requirePlausible(
+  limit: PlausibleLimitName,
+  value: number,
+  pointer: string,
+  units: PlausibleUnits,
+): void {
+  const violation = checkPlausible(limit, value);
+  if (violation) throw unprocessable(pointer, plausibilityMessage(violation, units));
 }
 
 export interface PreparedSystem {
@@ -48,64 +34,28 @@ export interface PreparedSystem {
 
 /** Converts, checks and compiles `system`; every problem is a 422 pointing under `pointer`. */
 export function prepareSystem(units: CalculationUnits, system: PipeSystem, pointer = '/body/system'): PreparedSystem {
-  const staticHead = headToSI(system.staticHead, units.head);
-  requirePlausible(Math.abs(staticHead), 0, plausibleLimits.staticHead, `${pointer}/staticHead`, 'static head');
-  const outletPressureHead = headToSI(system.outletPressureHead ?? 0, units.head);
-  requirePlausible(
-    outletPressureHead,
-    0,
-    plausibleLimits.outletPressureHead,
-    `${pointer}/outletPressureHead`,
-    'outlet pressure head',
-  );
-  const segments = system.segments.map((segment, index): PipeSegmentInput => {
+  const input = systemInputOf(system, units);
+  requirePlausible('staticHead', input.staticHead, `${pointer}/staticHead`, units);
+  requirePlausible('outletPressureHead', input.outletPressureHead ?? 0, `${pointer}/outletPressureHead`, units);
+  input.segments.forEach((segment, index) => {
     const at = `${pointer}/segments/${index}`;
-    const length = lengthToSI(segment.length, units.length);
-    requirePlausible(length, 0, plausibleLimits.segmentLength, `${at}/length`, 'segment length');
-    const insideDiameter =
-      segment.insideDiameter === undefined ? undefined : diameterToSI(segment.insideDiameter, units.diameter);
-    if (insideDiameter !== undefined) {
-      requirePlausible(
-        insideDiameter,
-        plausibleLimits.insideDiameterMin,
-        plausibleLimits.insideDiameterMax,
-        `${at}/insideDiameter`,
-        'inside diameter',
-      );
-    }
-    const roughness = segment.roughness === undefined ? undefined : diameterToSI(segment.roughness, units.diameter);
-    if (roughness !== undefined)
-      requirePlausible(roughness, 0, plausibleLimits.roughnessMax, `${at}/roughness`, 'roughness');
-    return {
-      length,
-      pipeSizeId: segment.pipe,
-      insideDiameter,
-      material: segment.material,
-      hazenWilliamsC: segment.hazenWilliamsC,
-      roughness,
-      fittings: segment.fittings,
-      extraK: segment.minorLossK,
-    };
+    requirePlausible('segmentLength', segment.length, `${at}/length`, units);
+    if (segment.insideDiameter !== undefined)
+      requirePlausible('insideDiameter', segment.insideDiameter, `${at}/insideDiameter`, units);
+    if (segment.roughness !== undefined) requirePlausible('roughness', segment.roughness, `${at}/roughness`, units);
   });
-  const temperature = system.waterTemperatureC ?? 20;
   return withRequestPointers(
-    () => ({
-      curve: compileSystemCurve({
-        staticHead,
-        outletPressureHead,
-        segments,
-        temperature,
-        frictionMethod: system.frictionMethod,
-      }),
-      density: waterDensity(temperature),
-    }),
-    pointerInto(pointer, systemRenames),
+    () => {
+      const curve = compileSystemCurve(input);
+      return { curve, density: waterDensity(curve.temperature) };
+    },
+    pointerInto(pointer, SYSTEM_FIELD_RENAMES),
   );
 }
 
 /** Checks a flow (already SI) against the plausible range. */
-export function requirePlausibleFlow(flow: number, pointer: string): void {
-  requirePlausible(flow, 0, plausibleLimits.flowMax, pointer, 'flow');
+export function requirePlausibleFlow(flow: number, pointer: string, units: PlausibleUnits = SI_PLAUSIBLE_UNITS): void {
+  requirePlausible('flow', flow, pointer, units);
 }
 
 /** Velocity warnings of the system at one flow (SI), in the request's units. */

@@ -16,6 +16,9 @@ import type { CurrentPumpCurves } from '../calculations/calculation-handlers';
 /** How long one stamp read answers for, ms. */
 export const STAMP_REUSE_MS = 250;
 
+/** The clock stamp reuse is measured on, ms; settable so a test can move time on without waiting. */
+export const snapshotClock = { now: (): number => performance.now() };
+
 export interface CatalogPump extends PumpOnFile {
   pumpId: number;
   supplierId: number;
@@ -108,8 +111,8 @@ export class CatalogSnapshot implements CurrentPumpCurves {
 
   private readStamp(): Promise<string> {
     if (this.pendingStamp) return this.pendingStamp;
-    if (performance.now() - this.stampReadAt < STAMP_REUSE_MS) return Promise.resolve(this.lastStamp);
-    const startedAt = performance.now();
+    if (snapshotClock.now() - this.stampReadAt < STAMP_REUSE_MS) return Promise.resolve(this.lastStamp);
+    const startedAt = snapshotClock.now();
     this.pendingStamp = this.sequelize
       .query<{ stamp: string }>(stampQuery, { type: QueryTypes.SELECT })
       .then((rows) => {

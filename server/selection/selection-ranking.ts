@@ -1,4 +1,4 @@
-import { preferredFlowRegion, STANDARD_GRAVITY } from '../../shared/hydraulics';
+import { annualEnergyUnchecked, preferredFlowRegion, STANDARD_GRAVITY } from '../../shared/hydraulics';
 import { cubicAt, type PackedCurves } from './packed-curves';
 import type { SelectionQuery } from './selection-query';
 import type { BandSystemTable } from './system-table';
@@ -67,7 +67,9 @@ export function screenPoint(
   const inBand = flow >= query.flowMin * (1 - 1e-9) && flow <= query.flowMax * (1 + 1e-9);
   const redundancyMet = redundancyMetBySignTest(packed, index, running, query, table);
   const energy =
-    power === power ? Math.min((power * running * query.hoursPerDay * 365) / 1000, TIER_SPAN - 1) : TIER_SPAN - 1;
+    power === power
+      ? Math.min(annualEnergyUnchecked(power * running, query.hoursPerDay), TIER_SPAN - 1)
+      : TIER_SPAN - 1;
   return tierOf(inBand, preferred, redundancyMet) * TIER_SPAN + energy;
 }
 

@@ -23,3 +23,4 @@ export * from './operating-regions';
 export * from './power-and-energy';
 export * from './affinity-laws';
 export * from './npsh';
+export * from './plausible-limits';

@@ -72,11 +72,22 @@ export function powerAtOperatingPoint(
   };
 }
 
+/** Days of running in the year the energy figures count: a common year (common practice). */
+export const RUNNING_DAYS_PER_YEAR = 365;
+
+/**
+ * Annual energy, kWh, for `hoursPerDay` of running on RUNNING_DAYS_PER_YEAR days: E = P h 365 / 1000.
+ * No checks: the search ranks with it on its hot path; annualEnergy is the checked form.
+ */
+export function annualEnergyUnchecked(inputPower: number, hoursPerDay: number): number {
+  return (inputPower * hoursPerDay * RUNNING_DAYS_PER_YEAR) / 1000;
+}
+
 /** Annual energy, kWh, for `hoursPerDay` of running on 365 days: E = P h 365 / 1000. */
 export function annualEnergy(inputPower: number, hoursPerDay: number): number {
   requireNonNegative(inputPower, '/inputPower', 'input power');
   requireInRange(hoursPerDay, 0, 24, '/hoursPerDay', 'hours per day');
-  return (inputPower * hoursPerDay * 365) / 1000;
+  return annualEnergyUnchecked(inputPower, hoursPerDay);
 }
 
 /** Energy cost for `kilowattHours` at `tariff` (currency per kWh). */

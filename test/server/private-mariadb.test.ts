@@ -1,10 +1,29 @@
 import { expect } from 'chai';
 import { mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { connect, createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { MariaDbStartError, PrivateMariaDb } from '../../server/database/private-mariadb';
 import { freeLoopbackPort } from '../support/free-port';
+
+/**
+ * Resolves once nothing listens on `port` any more (a SIGKILLed server's threads let go of it a
+ * moment after the process is signalled): waits on the socket, not on a clock.
+ */
+async function portReleased(port: number): Promise<void> {
+  for (;;) {
+    const refused = await new Promise<boolean>((resolve) => {
+      const socket = connect(port, '127.0.0.1');
+      socket.once('connect', () => {
+        socket.destroy();
+        resolve(false);
+      });
+      socket.once('error', () => resolve(true));
+    });
+    if (refused) return;
+    await new Promise((resolve) => setImmediate(resolve));
+  }
+}
 
 describe('private MariaDB instance', function () {
   this.timeout(120_000);
@@ -21,7 +40,7 @@ describe('private MariaDB instance', function () {
     expect(again.pid).to.equal(first.pid);
 
     process.kill(first.pid, 'SIGKILL');
-    await new Promise((resolve) => setTimeout(resolve, 500));
+    await portReleased(port);
     const recovered = await PrivateMariaDb.startOrReuse({ folder, port });
     expect(recovered.startedNow).to.equal(true);
     expect(recovered.pid).to.not.equal(first.pid);

@@ -1,12 +1,6 @@
 import type { CalculationUnits, DesignSystem, PipeSystem } from '../../../shared/api/api-schemas';
-import {
-  compileSystemCurve,
-  convertHead,
-  convertLength,
-  headToSI,
-  lengthToSI,
-  type CompiledSystemCurve,
-} from '../../../shared/hydraulics';
+import { systemInputOf } from '../../../shared/api/system-input';
+import { compileSystemCurve, convertHead, convertLength, type CompiledSystemCurve } from '../../../shared/hydraulics';
 
 /** The system as the designer's form holds it, in the draft's unit system (the contract's DesignSystem). */
 export type SystemDraft = DesignSystem;
@@ -38,18 +32,7 @@ export function toPipeSystem(draft: SystemDraft): PipeSystem {
  * server stays the authority for every figure it answers.
  */
 export function compileDraft(system: PipeSystem, units: CalculationUnits): CompiledSystemCurve {
-  return compileSystemCurve({
-    staticHead: headToSI(system.staticHead, units.head),
-    outletPressureHead: headToSI(system.outletPressureHead ?? 0, units.head),
-    frictionMethod: system.frictionMethod,
-    temperature: system.waterTemperatureC,
-    segments: system.segments.map((segment) => ({
-      length: lengthToSI(segment.length, units.length),
-      pipeSizeId: segment.pipe,
-      fittings: segment.fittings,
-      extraK: segment.minorLossK,
-    })),
-  });
+  return compileSystemCurve(systemInputOf(system, units));
 }
 
 /** Seven significant figures: survey levels keep well under a millimetre, and switching back gives the typed numbers again. */

@@ -1,3 +1,4 @@
+import { mock } from 'node:test';
 import { expect } from 'chai';
 import { createHash } from 'node:crypto';
 import { Writable } from 'node:stream';
@@ -198,11 +199,17 @@ describe('bearer tokens: sessions and personal API tokens', function () {
   it('never trusts a remembered session past its own expiry', async () => {
     const { user } = await createUserWithSession(scratch.sequelize, 'designer');
     const { token, hash } = newSecretToken('session');
-    // whole seconds, as the column keeps them
-    await Session.create({ userId: user.id, tokenHash: hash, expiresAt: new Date(Date.now() + 2000) });
-    await me(token).expect(200);
-    await new Promise((resolve) => setTimeout(resolve, 2100));
-    await me(token).expect(401);
+    // the clock passes the expiry without waiting for it
+    mock.timers.enable({ apis: ['Date'], now: Date.now() });
+    try {
+      // whole seconds, as the column keeps them
+      await Session.create({ userId: user.id, tokenHash: hash, expiresAt: new Date(Date.now() + 2000) });
+      await me(token).expect(200);
+      mock.timers.tick(2100);
+      await me(token).expect(401);
+    } finally {
+      mock.timers.reset();
+    }
   });
 
   it('applies a role change by an admin to a session at once, though the session was just used', async () => {

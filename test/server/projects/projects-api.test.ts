@@ -1,3 +1,4 @@
+import { mock } from 'node:test';
 import { expect } from 'chai';
 import type { OpenAPIV3_1 } from 'openapi-types';
 import request from 'supertest';
@@ -53,12 +54,19 @@ describe('projects: saved designs', function () {
     const second = (await designer.post('/projects', { name: '  Lower pond  ', design: example.design }).expect(201))
       .body as Project;
     expect(second.name).to.equal('Lower pond');
-    await new Promise((resolve) => setTimeout(resolve, 1100));
-    const updated = (
-      await designer
-        .put(`/projects/${created.id}`, { name: 'Hillside cascade, longer run', design: changed })
-        .expect(200)
-    ).body as Project;
+    // the clock moves on a second (updatedAt keeps whole seconds) without waiting for it
+    mock.timers.enable({ apis: ['Date'], now: Date.now() });
+    let updated: Project;
+    try {
+      mock.timers.tick(1100);
+      updated = (
+        await designer
+          .put(`/projects/${created.id}`, { name: 'Hillside cascade, longer run', design: changed })
+          .expect(200)
+      ).body as Project;
+    } finally {
+      mock.timers.reset();
+    }
     expect(updated.design.system.segments[0].length).to.equal(260);
     expect(Date.parse(updated.updatedAt)).to.be.greaterThan(Date.parse(created.updatedAt));
 

@@ -29,6 +29,7 @@ import {
   VELOCITY_WARNING_LIMIT,
   type FrictionMethod,
 } from '../../../../shared/hydraulics';
+import { plausibleValidator } from '../plausible-inputs';
 import { SelectionDraft } from '../selection-draft';
 import { compileDraft, staticHeadOf, toPipeSystem, type SegmentDraft, type SystemDraft } from '../system-draft';
 import { SystemCurvePreview, type CurvePoint } from './system-curve-preview';
@@ -177,10 +178,10 @@ export class SystemBuilderPage {
       this.formBuilder.control(value, [Validators.required, ...validators]);
     return this.formBuilder.group({
       staticMode: this.formBuilder.control<'direct' | 'levels'>(system.staticMode),
-      staticHead: number(system.staticHead, Validators.min(-150), Validators.max(1500)),
+      staticHead: number(system.staticHead, plausibleValidator('staticHead', this.units)),
       intakeLevel: number(system.intakeLevel),
       dischargeLevel: number(system.dischargeLevel),
-      outletPressureHead: number(system.outletPressureHead, Validators.min(0), Validators.max(1500)),
+      outletPressureHead: number(system.outletPressureHead, plausibleValidator('outletPressureHead', this.units)),
       waterTemperatureC: number(system.waterTemperatureC, Validators.min(0), Validators.max(40)),
       frictionMethod: this.formBuilder.control<FrictionMethod>(system.frictionMethod),
       segments: this.formBuilder.array(
@@ -197,7 +198,7 @@ export class SystemBuilderPage {
       length: this.formBuilder.control(segment.length, [
         Validators.required,
         Validators.min(0.01),
-        Validators.max(60_000),
+        plausibleValidator('segmentLength', this.units),
       ]),
       extraK: this.formBuilder.control(segment.extraK, [
         Validators.required,

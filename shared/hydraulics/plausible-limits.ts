@@ -1,0 +1,178 @@
+import {
+  diameterFromSI,
+  diameterToSI,
+  flowFromSI,
+  flowToSI,
+  headFromSI,
+  headToSI,
+  lengthFromSI,
+  lengthToSI,
+  type DiameterUnit,
+  type FlowUnit,
+  type HeadUnit,
+  type LengthUnit,
+} from './units';
+
+/*
+ * Riffle's own plausibility limits, SI: the contract accepts any positive number, but a 40 km
+ * pipe or a 1 mm bore in a water feature is a typing slip (a unit mix-up, a lost decimal point),
+ * so it is refused with the field named instead of computed. One table for the API and the
+ * client's forms, so both refuse the same inputs; limits are inclusive (the limit itself passes).
+ */
+
+/** Which unit a limited input is typed in. */
+export type PlausibleQuantity = 'head' | 'length' | 'diameter' | 'flow';
+
+export interface PlausibleLimit {
+  /** The input as a message names it. */
+  label: string;
+  quantity: PlausibleQuantity;
+  /** Lowest plausible value, SI; null where the engine's own checks are the floor. */
+  min: number | null;
+  /** Highest plausible value, SI. */
+  max: number;
+  /** What the limit stands for. */
+  meaning: string;
+}
+
+const MOST_FLOW = 10;
+
+export const PLAUSIBLE_LIMITS = Object.freeze({
+  staticHead: {
+    label: 'static head',
+    quantity: 'head',
+    min: -500,
+    max: 500,
+    meaning: 'lift (or fall) from the intake level to the discharge level, m: 500 m is beyond any water feature',
+  },
+  outletPressureHead: {
+    label: 'outlet pressure head',
+    quantity: 'head',
+    min: 0,
+    max: 500,
+    meaning: 'pressure wanted at the outlet as head of water, m',
+  },
+  segmentLength: {
+    label: 'segment length',
+    quantity: 'length',
+    min: 0,
+    max: 20_000,
+    meaning: 'length of one pipe segment, m: 20 km is no water feature',
+  },
+  insideDiameter: {
+    label: 'inside diameter',
+    quantity: 'diameter',
+    min: 0.003,
+    max: 2,
+    meaning: 'bore of a pipe, m: 3 mm to 2 m',
+  },
+  roughness: {
+    label: 'roughness',
+    quantity: 'diameter',
+    min: 0,
+    max: 0.01,
+    meaning: 'absolute roughness of a pipe wall, m: 10 mm is beyond corroded cast iron',
+  },
+  flow: {
+    label: 'flow',
+    quantity: 'flow',
+    min: 0,
+    max: MOST_FLOW,
+    meaning: 'a flow asked for (system curve, duty band), m3/s',
+  },
+  pumpCurveFlow: {
+    label: 'flow',
+    quantity: 'flow',
+    min: null,
+    max: MOST_FLOW,
+    meaning: 'a flow of a published pump curve point, m3/s (its sign is the curve fit’s check)',
+  },
+  pumpCurveHead: {
+    label: 'head',
+    quantity: 'head',
+    min: null,
+    max: 1000,
+    meaning: 'a head of a published pump curve point, m: beyond any water-feature pump',
+  },
+} satisfies Record<string, PlausibleLimit>);
+
+export type PlausibleLimitName = keyof typeof PLAUSIBLE_LIMITS;
+
+/** A value outside its plausible range: a code and its parameters, for a message in any units. */
+export interface PlausibilityViolation {
+  code: 'above-plausible-max' | 'below-plausible-min';
+  limit: PlausibleLimitName;
+  /** The limit passed, SI. */
+  bound: number;
+}
+
+/** Null when `value` (SI) lies inside the named limit, else what it breaks. */
+export function checkPlausible(limit: PlausibleLimitName, value: number): PlausibilityViolation | null {
+  const { min, max } = PLAUSIBLE_LIMITS[limit] as PlausibleLimit;
+  if (value > max) return { code: 'above-plausible-max', limit, bound: max };
+  if (min !== null && value < min) return { code: 'below-plausible-min', limit, bound: min };
+  return null;
+}
+
+/** The units a message states limits in. */
+export interface PlausibleUnits {
+  flow: FlowUnit;
+  head: HeadUnit;
+  length: LengthUnit;
+  diameter: DiameterUnit;
+}
+
+/** SI throughout, for a message where the request names no units. */
+export const SI_PLAUSIBLE_UNITS: PlausibleUnits = Object.freeze({
+  flow: 'm3/s',
+  head: 'm',
+  length: 'm',
+  diameter: 'm',
+});
+
+/** The engine's conversions for each quantity, with the unit of `units` it takes. */
+const CONVERSIONS = {
+  head: { toSI: headToSI, fromSI: headFromSI },
+  length: { toSI: lengthToSI, fromSI: lengthFromSI },
+  diameter: { toSI: diameterToSI, fromSI: diameterFromSI },
+  flow: { toSI: flowToSI, fromSI: flowFromSI },
+} as const;
+
+type UnitName = PlausibleUnits[PlausibleQuantity];
+
+/** A limit (SI) in the user's units. */
+export function limitInUnits(quantity: PlausibleQuantity, value: number, units: PlausibleUnits): number {
+  return (CONVERSIONS[quantity].fromSI as (value: number, unit: UnitName) => number)(value, units[quantity]);
+}
+
+/** A value typed in the user's units, in SI. */
+export function valueToSI(quantity: PlausibleQuantity, value: number, units: PlausibleUnits): number {
+  return (CONVERSIONS[quantity].toSI as (value: number, unit: UnitName) => number)(value, units[quantity]);
+}
+
+/** checkPlausible for a value typed in the user's units, as a form holds it. */
+export function checkPlausibleInUnits(
+  limit: PlausibleLimitName,
+  value: number,
+  units: PlausibleUnits,
+): PlausibilityViolation | null {
+  return checkPlausible(limit, valueToSI(PLAUSIBLE_LIMITS[limit].quantity, value, units));
+}
+
+/**
+ * Four significant figures, rounded toward the inside of the range, so the figure a message
+ * states is itself accepted.
+ */
+function stated(value: number, inward: 'down' | 'up'): number {
+  if (value === 0) return 0;
+  const step = 10 ** (Math.floor(Math.log10(Math.abs(value))) - 3);
+  return (inward === 'down' ? Math.floor(value / step) : Math.ceil(value / step)) * step;
+}
+
+/** "static head must be at most 1640 ft": the violation stated in the user's units. */
+export function plausibilityMessage(violation: PlausibilityViolation, units: PlausibleUnits): string {
+  const { label, quantity } = PLAUSIBLE_LIMITS[violation.limit];
+  const above = violation.code === 'above-plausible-max';
+  const figure = Number(stated(limitInUnits(quantity, violation.bound, units), above ? 'down' : 'up').toPrecision(4));
+  return `${label} must be at ${above ? 'most' : 'least'} ${figure} ${units[quantity]}`;
+}
