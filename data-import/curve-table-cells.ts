@@ -1,0 +1,258 @@
+import type { CurveImportIssue } from '../shared/api/api-schemas';
+import { diameterToSI, flowToSI, headToSI, powerToSI, type FlowUnit, type HeadUnit } from '../shared/hydraulics';
+import { pumpKinds, pumpStatuses } from '../shared/vocabularies';
+import {
+  curveTableLimits,
+  formulaLeadCharacters,
+  type CurveTableColumn,
+  type PowerUnitName,
+  type UnitDirective,
+} from './curve-table-format';
+import type { ReadPoint, ReadPumpDetails } from './curve-table-reader';
+
+/*
+ * The cell rules of a curve table: each column's parse and check, turning a row's text cells into
+ * SI values or issues naming the row and the column. Pure functions on a row and the file's
+ * context (its units, its decimal mark, the issue list), so the reader's state holds only where it
+ * is in the file.
+ */
+
+/** What a cell rule needs of the file: where issues go, its decimal mark and its unit lines. */
+export interface CellContext {
+  readonly errors: IssueList;
+  readonly decimalComma: boolean;
+  unitOf(directive: UnitDirective | 'currency'): string | undefined;
+}
+
+const numberPattern = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
+type Issue = CurveImportIssue;
+
+export function issue(row: number | null, column: string | null, message: string, expected?: string): Issue {
+  return { row, column, message, ...(expected ? { expected } : {}) };
+}
+
+/** What the cells of one row say, before the pump is assembled. */
+export interface RowValues {
+  row: number;
+  cells: Partial<Record<CurveTableColumn, string>>;
+}
+
+/** Collects errors, listing the first ones and counting the rest. */
+export class IssueList {
+  readonly listed: Issue[] = [];
+  omitted = 0;
+
+  add(entry: Issue): void {
+    if (this.listed.length < curveTableLimits.maxErrorsListed) this.listed.push(entry);
+    else this.omitted += 1;
+  }
+
+  get count(): number {
+    return this.listed.length + this.omitted;
+  }
+}
+
+function textCell(
+  cells: CellContext,
+  values: RowValues,
+  column: 'display_name' | 'notes',
+  maxLength: number,
+  required: boolean,
+): string | null {
+  let text = values.cells[column] ?? '';
+  if (text.startsWith("'") && formulaLeadCharacters.some((character) => text[1] === character)) text = text.slice(1);
+  if (text === '') {
+    if (required)
+      cells.errors.add(
+        issue(values.row, column, `the ${column} is blank on the pump's first row`, 'a name of 1-160 characters'),
+      );
+    return null;
+  }
+  if (text.length > maxLength) {
+    cells.errors.add(
+      issue(values.row, column, `the text is ${text.length} characters long`, `at most ${maxLength} characters`),
+    );
+    return null;
+  }
+  // eslint-disable-next-line no-control-regex -- control characters are exactly what this rule refuses
+  if (/[\u0000-\u0008\u000B\u000C\u000E-\u001F]/.test(text)) {
+    cells.errors.add(issue(values.row, column, 'the text holds control characters', 'printable text'));
+    return null;
+  }
+  return text;
+}
+
+/** A number cell, or undefined when blank; an issue (and null) when it is not a number in range. */
+export function numberCell(
+  cells: CellContext,
+  values: RowValues,
+  column: CurveTableColumn,
+  what: string,
+  range: { min?: number; above?: number; max?: number; integer?: boolean },
+): number | null | undefined {
+  const cell = values.cells[column];
+  if (cell === undefined || cell === '') return undefined;
+  const text = cells.decimalComma ? cell.replace(',', '.') : cell;
+  // Built only for an error: this runs for every cell of a large file.
+  const expected = () =>
+    [
+      range.integer ? 'a whole number' : 'a number',
+      what,
+      range.min !== undefined ? `from ${range.min}` : range.above !== undefined ? `above ${range.above}` : '',
+      range.max !== undefined ? `up to ${range.max}` : '',
+    ]
+      .filter(Boolean)
+      .join(' ');
+  if (!numberPattern.test(text)) {
+    cells.errors.add(
+      issue(
+        values.row,
+        column,
+        `"${cell.slice(0, 40)}" is not a number`,
+        `${expected()}${cells.decimalComma ? ' (decimal point or comma)' : ' (decimal point)'}`,
+      ),
+    );
+    return null;
+  }
+  const value = Number(text);
+  const outOfRange =
+    !Number.isFinite(value) ||
+    (range.integer && !Number.isInteger(value)) ||
+    (range.min !== undefined && value < range.min) ||
+    (range.above !== undefined && value <= range.above) ||
+    (range.max !== undefined && value > range.max);
+  if (outOfRange) {
+    cells.errors.add(issue(values.row, column, `${cell} is out of range`, expected()));
+    return null;
+  }
+  return value;
+}
+
+function choiceCell<T extends string>(
+  cells: CellContext,
+  values: RowValues,
+  column: CurveTableColumn,
+  choices: readonly T[],
+  fallback?: T,
+): T | null {
+  const cell = values.cells[column] ?? '';
+  if (cell === '' && fallback) return fallback;
+  if (!(choices as readonly string[]).includes(cell)) {
+    cells.errors.add(
+      issue(
+        values.row,
+        column,
+        cell === ''
+          ? `the ${column} is blank on the pump's first row`
+          : `"${cell.slice(0, 40)}" is not a ${column} Riffle knows`,
+        `one of ${choices.join(', ')}`,
+      ),
+    );
+    return null;
+  }
+  return cell as T;
+}
+
+export function readDetails(cells: CellContext, values: RowValues): ReadPumpDetails {
+  const sizeUnit = cells.unitOf('size-unit') === 'in' ? 'in' : 'mm';
+  const size = (column: 'discharge_size' | 'solids_size') => {
+    const value = numberCell(cells, values, column, `in ${sizeUnit}`, { above: 0, max: sizeUnit === 'in' ? 40 : 1000 });
+    return typeof value === 'number' ? diameterToSI(value, sizeUnit) * 1000 : null;
+  };
+  const price = numberCell(cells, values, 'list_price', `in ${cells.unitOf('currency') ?? 'the currency line'}`, {
+    min: 0,
+    max: 1e9,
+  });
+  const phases = numberCell(cells, values, 'phases', '(1 or 3)', { integer: true, min: 1, max: 3 });
+  if (phases === 2) cells.errors.add(issue(values.row, 'phases', '2 is not a supply Riffle knows', '1 or 3'));
+  return {
+    displayName: textCell(cells, values, 'display_name', 160, true) ?? '',
+    kind: choiceCell(cells, values, 'kind', pumpKinds) ?? 'submersible',
+    nominalSpeedRpm: numberCell(cells, values, 'speed_rpm', 'in rpm', { integer: true, min: 100, max: 20000 }) ?? null,
+    voltageV: numberCell(cells, values, 'voltage', 'in V', { integer: true, min: 1, max: 1000 }) ?? null,
+    phaseCount: phases === 2 ? null : (phases ?? null),
+    dischargeSizeMm: size('discharge_size'),
+    solidsHandlingMm: size('solids_size'),
+    listPrice: typeof price === 'number' ? Math.round(price * 100) / 100 : null,
+    priceCurrency: typeof price === 'number' ? (cells.unitOf('currency') ?? null) : null,
+    status: choiceCell(cells, values, 'status', pumpStatuses, 'active') ?? 'active',
+    notes: textCell(cells, values, 'notes', 2000, false),
+  };
+}
+
+export function readRange(
+  cells: CellContext,
+  values: RowValues,
+  region: 'preferred' | 'allowable',
+): { flowMin: number; flowMax: number } | null {
+  const flowUnit = cells.unitOf('flow-unit') as FlowUnit;
+  const minColumn = `${region}_flow_min` as const;
+  const maxColumn = `${region}_flow_max` as const;
+  const min = numberCell(cells, values, minColumn, `in ${flowUnit}`, { min: 0 });
+  const max = numberCell(cells, values, maxColumn, `in ${flowUnit}`, { above: 0 });
+  if (min === null || max === null) return null;
+  if (min === undefined && max === undefined) return null;
+  if (min === undefined || max === undefined) {
+    const missing = min === undefined ? minColumn : maxColumn;
+    cells.errors.add(
+      issue(
+        values.row,
+        missing,
+        `the ${region} range has only one end`,
+        `both ${minColumn} and ${maxColumn}, or neither`,
+      ),
+    );
+    return null;
+  }
+  if (!(max > min)) {
+    cells.errors.add(
+      issue(
+        values.row,
+        maxColumn,
+        `the ${region} range ends (${max}) before it starts (${min})`,
+        `${maxColumn} greater than ${minColumn}`,
+      ),
+    );
+    return null;
+  }
+  return { flowMin: flowToSI(min, flowUnit), flowMax: flowToSI(max, flowUnit) };
+}
+
+export function readPoint(cells: CellContext, values: RowValues): ReadPoint | null {
+  const flowUnit = cells.unitOf('flow-unit') as FlowUnit;
+  const headUnit = cells.unitOf('head-unit') as HeadUnit;
+  const flow = numberCell(cells, values, 'flow', `in ${flowUnit}`, { min: 0 });
+  const head = numberCell(cells, values, 'head', `in ${headUnit}`, { above: 0 });
+  for (const [column, value] of [
+    ['flow', flow],
+    ['head', head],
+  ] as const) {
+    if (value === undefined)
+      cells.errors.add(
+        issue(values.row, column, `the ${column} is blank`, `a number in ${column === 'flow' ? flowUnit : headUnit}`),
+      );
+  }
+  const powerUnit = cells.unitOf('power-unit') as PowerUnitName | undefined;
+  const power = numberCell(cells, values, 'power', `in ${powerUnit}`, { min: 0 });
+  const efficiencyUnit = cells.unitOf('efficiency-unit');
+  const efficiency = numberCell(
+    cells,
+    values,
+    'efficiency',
+    efficiencyUnit === '%' ? 'in % (0-100)' : 'as a fraction (0-1)',
+    { min: 0, max: efficiencyUnit === '%' ? 100 : 1 },
+  );
+  const npshUnit = cells.unitOf('npsh-unit') as HeadUnit | undefined;
+  const npsh = numberCell(cells, values, 'npsh_required', `in ${npshUnit}`, { above: 0 });
+  if (typeof flow !== 'number' || typeof head !== 'number' || power === null || efficiency === null || npsh === null)
+    return null;
+  return {
+    row: values.row,
+    flow: flowToSI(flow, flowUnit),
+    head: headToSI(head, headUnit),
+    ...(power !== undefined && powerUnit ? { power: powerToSI(power, powerUnit) } : {}),
+    ...(efficiency !== undefined ? { efficiency: efficiencyUnit === '%' ? efficiency / 100 : efficiency } : {}),
+    ...(npsh !== undefined && npshUnit ? { npshRequired: headToSI(npsh, npshUnit) } : {}),
+  };
+}
