@@ -17,6 +17,7 @@ const debianPackagesFor = {
     'mariadb-server': 'the database server',
     chromium: 'the browser for browser tests',
     'python3-fluids': 'reference values for the hydraulics tests',
+    'python3-iapws': 'reference values for the water-property tests',
   },
 };
 

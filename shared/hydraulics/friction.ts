@@ -72,7 +72,11 @@ export function headLossHazenWilliams(
   );
 }
 
-/** Reynolds number Re = V D / nu (V in m/s, D in m, nu in m2/s). */
+/**
+ * Reynolds number Re = V D / nu (V in m/s, D in m, nu in m2/s); dimensionless (definition).
+ * @example
+ * reynoldsNumber(1, 0.05, 1e-6) // => 50000
+ */
 export function reynoldsNumber(velocity: number, insideDiameter: number, kinematicViscosity: number): number {
   return (Math.abs(velocity) * insideDiameter) / kinematicViscosity;
 }
@@ -109,6 +113,8 @@ const LN10 = Math.LN10;
  * particular reference to the transition region between the smooth and rough
  * pipe laws", J. Inst. Civil Eng. 11(4), 133-156 (1939). Valid for turbulent
  * flow, Re >= ~4000, any eps/D.
+ * @example
+ * frictionFactorColebrook(1e5, 1e-4) // => 0.0185139
  */
 export function frictionFactorColebrook(reynolds: number, relativeRoughness: number): number {
   let x = 1 / Math.sqrt(frictionFactorSwameeJain(reynolds, relativeRoughness));
