@@ -73,7 +73,7 @@ export function chartStyle(index: number): ChartStyle {
   };
 }
 
-export const chartSize = { width: 900, height: 520 };
+const chartSize = { width: 900, height: 520 };
 const margin = { top: 20, right: 290, bottom: 50, left: 60 };
 const font = 'Lato, Helvetica, Arial, sans-serif';
 

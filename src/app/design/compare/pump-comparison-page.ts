@@ -15,7 +15,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { candidateKey, SelectionDraft } from '../selection-draft';
 import { unitSystems, type UnitSystem } from '../unit-systems';
-import { downloadPng, downloadSvg } from './chart-export';
+import { downloadPng, downloadSvg } from '../../shared/chart-export';
 import { chartStyle, drawComparisonChart, type ChartModel } from './comparison-chart';
 import { candidateLabel, comparisonModel, unitConverter } from './comparison-model';
 
