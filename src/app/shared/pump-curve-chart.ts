@@ -1,5 +1,16 @@
-import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, input, viewChild } from '@angular/core';
-import { axisBottom, axisLeft, axisRight, line, scaleLinear, select } from 'd3';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  afterRenderEffect,
+  computed,
+  input,
+  viewChild,
+} from '@angular/core';
+import { axisBottom, axisLeft, axisRight } from 'd3-axis';
+import { scaleLinear } from 'd3-scale';
+import { select } from 'd3-selection';
+import { line } from 'd3-shape';
 import type { CurvePointSi, FlowRange, StoredPumpCurveFit } from '../../../shared/api/api-schemas';
 import {
   DEFAULT_PREFERRED_BAND,
@@ -74,7 +85,7 @@ export class PumpCurveChart {
   });
 
   constructor() {
-    effect(() => this.draw());
+    afterRenderEffect({ write: () => this.draw() });
   }
 
   private draw(): void {

@@ -1,11 +1,9 @@
+import { axisBottom, axisLeft } from 'd3-axis';
+import { scaleLinear } from 'd3-scale';
+import { select, type Selection } from 'd3-selection';
 import {
-  axisBottom,
-  axisLeft,
   line,
-  scaleLinear,
-  select,
   symbol,
-  type Selection,
   symbolCircle,
   symbolCross,
   symbolDiamond,
@@ -14,7 +12,7 @@ import {
   symbolTimes,
   symbolTriangle,
   symbolWye,
-} from 'd3';
+} from 'd3-shape';
 
 /*
  * The comparison chart, drawn with d3 into one SVG whose look lives in attributes (not page CSS),

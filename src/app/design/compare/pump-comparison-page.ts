@@ -3,8 +3,8 @@ import {
   ChangeDetectionStrategy,
   Component,
   ElementRef,
+  afterRenderEffect,
   computed,
-  effect,
   inject,
   signal,
   viewChild,
@@ -68,13 +68,15 @@ export class PumpComparisonPage {
   });
 
   constructor() {
-    effect(() => {
-      const element = this.chart()?.nativeElement;
-      const model = this.model();
-      if (!element || !model) return;
-      drawComparisonChart(element, model, {
-        focus: (key, which) => this.focused.set(key === null ? null : { key, which }),
-      });
+    afterRenderEffect({
+      write: () => {
+        const element = this.chart()?.nativeElement;
+        const model = this.model();
+        if (!element || !model) return;
+        drawComparisonChart(element, model, {
+          focus: (key, which) => this.focused.set(key === null ? null : { key, which }),
+        });
+      },
     });
   }
 

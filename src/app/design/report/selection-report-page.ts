@@ -1,5 +1,13 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, inject, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  afterRenderEffect,
+  computed,
+  inject,
+  viewChild,
+} from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
@@ -77,14 +85,16 @@ export class SelectionReportPage {
   protected readonly label = candidateLabel;
 
   constructor() {
-    effect(() => {
-      const element = this.chart()?.nativeElement;
-      const model = comparisonModel(
-        { system: this.draft.pipeSystem(), band: this.draft.band(), units: this.units() },
-        this.candidates(),
-        this.units(),
-      );
-      if (element && model) drawComparisonChart(element, model, { focus: () => undefined });
+    afterRenderEffect({
+      write: () => {
+        const element = this.chart()?.nativeElement;
+        const model = comparisonModel(
+          { system: this.draft.pipeSystem(), band: this.draft.band(), units: this.units() },
+          this.candidates(),
+          this.units(),
+        );
+        if (element && model) drawComparisonChart(element, model, { focus: () => undefined });
+      },
     });
   }
 
