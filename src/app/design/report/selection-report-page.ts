@@ -1,10 +1,11 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { DatePipe, DecimalPipe, formatNumber } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
   ElementRef,
   afterRenderEffect,
   computed,
+  LOCALE_ID,
   inject,
   viewChild,
 } from '@angular/core';
@@ -80,6 +81,15 @@ export class SelectionReportPage {
     } catch {
       return null;
     }
+  });
+
+  private readonly locale = inject(LOCALE_ID);
+  /** The duty band's sentence goes on without a space before its semicolon, so it is one text. */
+  protected readonly headAtBandNote = computed(() => {
+    const heads = this.headAtBand();
+    if (!heads) return '';
+    const head = (value: number) => formatNumber(value, this.locale, '1.1-1');
+    return `; the system needs ${head(heads.min)} to ${head(heads.max)} ${this.units().head} of total dynamic head over it.`;
   });
 
   protected readonly label = candidateLabel;
