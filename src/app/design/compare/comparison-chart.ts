@@ -13,6 +13,7 @@ import {
   symbolTriangle,
   symbolWye,
 } from 'd3-shape';
+import { appendAxisTitles } from '../../shared/chart-frame';
 
 /*
  * The comparison chart, drawn with d3 into one SVG whose look lives in attributes (not page CSS),
@@ -165,19 +166,12 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
     .attr('transform', `translate(0,${height - margin.bottom})`)
     .call(axisBottom(x).ticks(8));
   svg.append('g').attr('transform', `translate(${margin.left},0)`).call(axisLeft(y).ticks(8));
-  svg
-    .append('text')
-    .attr('x', (margin.left + width - margin.right) / 2)
-    .attr('y', height - 10)
-    .attr('text-anchor', 'middle')
-    .attr('font-weight', 700)
-    .text(`Flow (${model.flowUnit})`);
-  svg
-    .append('text')
-    .attr('transform', `translate(16,${(margin.top + height - margin.bottom) / 2}) rotate(-90)`)
-    .attr('text-anchor', 'middle')
-    .attr('font-weight', 700)
-    .text(`Head (${model.headUnit})`);
+  appendAxisTitles(
+    svg,
+    { width, height, margin },
+    { flow: `Flow (${model.flowUnit})`, head: `Head (${model.headUnit})` },
+    { baselineFromBottom: 10, font: { 'font-weight': 700 } },
+  );
 
   const plot = svg.append('g').attr('clip-path', 'url(#rf-plot-clip)');
   plot
