@@ -44,6 +44,7 @@ describe('pump selection in Chromium', function () {
       before,
     );
     expect(await page.locator('rf-system-curve-preview svg path').count()).to.be.greaterThan(0);
+    await saveScreenshot(page, 'site-and-system');
   });
 
   it('keeps the measured system when the design switches to metric and back', async () => {

@@ -20,7 +20,7 @@ import { RouterLink } from '@angular/router';
 import { catchError, map, of } from 'rxjs';
 import type { PumpPage } from '../../../shared/api/api-schemas';
 import { CatalogApi, type PumpQuery } from './catalog-api';
-import { displayUnitChoices, kindLabels, showFlow, showHead } from './display-units';
+import { displayUnitChoices, kindLabels, showFlow, showHead } from '../shared/display-units';
 
 /** Min must not exceed max, for the pair of controls named. */
 function orderedRange(minName: string, maxName: string): ValidatorFn {

@@ -8,8 +8,8 @@ import { RouterLink } from '@angular/router';
 import { catchError, combineLatest, map, of, switchMap } from 'rxjs';
 import type { PumpDetail } from '../../../shared/api/api-schemas';
 import { CatalogApi } from './catalog-api';
-import { displayUnitChoices, kindLabels, showFlow, showHead } from './display-units';
-import { PumpCurveChart, preferredBandOf } from './pump-curve-chart';
+import { displayUnitChoices, kindLabels, showFlow, showHead } from '../shared/display-units';
+import { PumpCurveChart, preferredBandOf } from '../shared/pump-curve-chart';
 
 type Loaded = { detail: PumpDetail } | { problem: string };
 

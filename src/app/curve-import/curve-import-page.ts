@@ -8,9 +8,9 @@ import { MatTableModule } from '@angular/material/table';
 import { catchError, map, of } from 'rxjs';
 import type { CurveImportIssue, CurveImportRecord, CurveImportReport } from '../../../shared/api/api-schemas';
 import { CatalogApi } from '../catalog/catalog-api';
-import { displayUnitChoices, kindLabels, showFlow, showHead } from '../catalog/display-units';
-import { PumpCurveChart } from '../catalog/pump-curve-chart';
-import { attachmentFileName, saveFile } from '../core/file-download';
+import { displayUnitChoices, kindLabels, showFlow, showHead } from '../shared/display-units';
+import { PumpCurveChart } from '../shared/pump-curve-chart';
+import { attachmentFileName, saveFile } from '../shared/file-download';
 import { SessionService } from '../core/session-service';
 import { CurveImportApi } from './curve-import-api';
 

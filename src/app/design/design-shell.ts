@@ -1,5 +1,5 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatDialog } from '@angular/material/dialog';
@@ -167,16 +167,11 @@ export class DesignShell {
     () => this.session.signedIn() && this.session.hasRole(['designer', 'integrator', 'admin']),
   );
   private readonly dialog = inject(MatDialog);
-  /** What the last save did, or why it failed. */
-  protected readonly saveNote = signal<string | null>(null);
-
-  constructor() {
-    // a note about the last save is old news once the design changes
-    effect(() => {
-      this.draft.design();
-      this.saveNote.set(null);
-    });
-  }
+  /** What the last save did, or why it failed; old news, so cleared, once the design changes. */
+  protected readonly saveNote = linkedSignal<unknown, string | null>({
+    source: () => this.draft.design(),
+    computation: () => null,
+  });
 
   protected setUnits(unitSystem: UnitSystem): void {
     this.draft.setUnitSystem(unitSystem);

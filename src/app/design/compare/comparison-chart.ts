@@ -1,11 +1,9 @@
+import { axisBottom, axisLeft } from 'd3-axis';
+import { scaleLinear } from 'd3-scale';
+import { select, type Selection } from 'd3-selection';
 import {
-  axisBottom,
-  axisLeft,
   line,
-  scaleLinear,
-  select,
   symbol,
-  type Selection,
   symbolCircle,
   symbolCross,
   symbolDiamond,
@@ -14,7 +12,8 @@ import {
   symbolTimes,
   symbolTriangle,
   symbolWye,
-} from 'd3';
+} from 'd3-shape';
+import { appendAxisTitles } from '../../shared/chart-frame';
 
 /*
  * The comparison chart, drawn with d3 into one SVG whose look lives in attributes (not page CSS),
@@ -73,7 +72,7 @@ export function chartStyle(index: number): ChartStyle {
   };
 }
 
-export const chartSize = { width: 900, height: 520 };
+const chartSize = { width: 900, height: 520 };
 const margin = { top: 20, right: 290, bottom: 50, left: 60 };
 const font = 'Lato, Helvetica, Arial, sans-serif';
 
@@ -167,19 +166,12 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
     .attr('transform', `translate(0,${height - margin.bottom})`)
     .call(axisBottom(x).ticks(8));
   svg.append('g').attr('transform', `translate(${margin.left},0)`).call(axisLeft(y).ticks(8));
-  svg
-    .append('text')
-    .attr('x', (margin.left + width - margin.right) / 2)
-    .attr('y', height - 10)
-    .attr('text-anchor', 'middle')
-    .attr('font-weight', 700)
-    .text(`Flow (${model.flowUnit})`);
-  svg
-    .append('text')
-    .attr('transform', `translate(16,${(margin.top + height - margin.bottom) / 2}) rotate(-90)`)
-    .attr('text-anchor', 'middle')
-    .attr('font-weight', 700)
-    .text(`Head (${model.headUnit})`);
+  appendAxisTitles(
+    svg,
+    { width, height, margin },
+    { flow: `Flow (${model.flowUnit})`, head: `Head (${model.headUnit})` },
+    { baselineFromBottom: 10, font: { 'font-weight': 700 } },
+  );
 
   const plot = svg.append('g').attr('clip-path', 'url(#rf-plot-clip)');
   plot

@@ -3,8 +3,8 @@ import {
   ChangeDetectionStrategy,
   Component,
   ElementRef,
+  afterRenderEffect,
   computed,
-  effect,
   inject,
   signal,
   viewChild,
@@ -15,7 +15,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { candidateKey, SelectionDraft } from '../selection-draft';
 import { unitSystems, type UnitSystem } from '../unit-systems';
-import { downloadPng, downloadSvg } from './chart-export';
+import { downloadPng, downloadSvg } from '../../shared/chart-export';
 import { chartStyle, drawComparisonChart, type ChartModel } from './comparison-chart';
 import { candidateLabel, comparisonModel, unitConverter } from './comparison-model';
 
@@ -68,13 +68,15 @@ export class PumpComparisonPage {
   });
 
   constructor() {
-    effect(() => {
-      const element = this.chart()?.nativeElement;
-      const model = this.model();
-      if (!element || !model) return;
-      drawComparisonChart(element, model, {
-        focus: (key, which) => this.focused.set(key === null ? null : { key, which }),
-      });
+    afterRenderEffect({
+      write: () => {
+        const element = this.chart()?.nativeElement;
+        const model = this.model();
+        if (!element || !model) return;
+        drawComparisonChart(element, model, {
+          focus: (key, which) => this.focused.set(key === null ? null : { key, which }),
+        });
+      },
     });
   }
 

@@ -1,5 +1,14 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, inject, viewChild } from '@angular/core';
+import { DatePipe, DecimalPipe, formatNumber } from '@angular/common';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  afterRenderEffect,
+  computed,
+  LOCALE_ID,
+  inject,
+  viewChild,
+} from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
@@ -74,17 +83,28 @@ export class SelectionReportPage {
     }
   });
 
+  private readonly locale = inject(LOCALE_ID);
+  /** The duty band's sentence goes on without a space before its semicolon, so it is one text. */
+  protected readonly headAtBandNote = computed(() => {
+    const heads = this.headAtBand();
+    if (!heads) return '';
+    const head = (value: number) => formatNumber(value, this.locale, '1.1-1');
+    return `; the system needs ${head(heads.min)} to ${head(heads.max)} ${this.units().head} of total dynamic head over it.`;
+  });
+
   protected readonly label = candidateLabel;
 
   constructor() {
-    effect(() => {
-      const element = this.chart()?.nativeElement;
-      const model = comparisonModel(
-        { system: this.draft.pipeSystem(), band: this.draft.band(), units: this.units() },
-        this.candidates(),
-        this.units(),
-      );
-      if (element && model) drawComparisonChart(element, model, { focus: () => undefined });
+    afterRenderEffect({
+      write: () => {
+        const element = this.chart()?.nativeElement;
+        const model = comparisonModel(
+          { system: this.draft.pipeSystem(), band: this.draft.band(), units: this.units() },
+          this.candidates(),
+          this.units(),
+        );
+        if (element && model) drawComparisonChart(element, model, { focus: () => undefined });
+      },
     });
   }
 

@@ -1,5 +1,16 @@
-import { ChangeDetectionStrategy, Component, ElementRef, computed, effect, input, viewChild } from '@angular/core';
-import { axisBottom, axisLeft, axisRight, line, scaleLinear, select } from 'd3';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  afterRenderEffect,
+  computed,
+  input,
+  viewChild,
+} from '@angular/core';
+import { axisBottom, axisLeft, axisRight } from 'd3-axis';
+import { scaleLinear } from 'd3-scale';
+import { select } from 'd3-selection';
+import { line } from 'd3-shape';
 import type { CurvePointSi, FlowRange, StoredPumpCurveFit } from '../../../shared/api/api-schemas';
 import {
   DEFAULT_PREFERRED_BAND,
@@ -10,6 +21,7 @@ import {
   pumpHeadAt,
   type PumpCurveFit,
 } from '../../../shared/hydraulics';
+import { appendAxisTitles } from './chart-frame';
 import type { DisplayUnits } from './display-units';
 
 /** Where the preferred band comes from: the supplier's declaration, or 70-120 % of BEP flow. */
@@ -74,7 +86,7 @@ export class PumpCurveChart {
   });
 
   constructor() {
-    effect(() => this.draw());
+    afterRenderEffect({ write: () => this.draw() });
   }
 
   private draw(): void {
@@ -199,19 +211,12 @@ export class PumpCurveChart {
     }
 
     if (!compact) {
-      root
-        .append('text')
-        .attr('x', (margin.left + width - margin.right) / 2)
-        .attr('y', height - 8)
-        .attr('text-anchor', 'middle')
-        .attr('font-size', 13)
-        .text(`Flow (${units.flow})`);
-      root
-        .append('text')
-        .attr('transform', `translate(16,${(margin.top + height - margin.bottom) / 2}) rotate(-90)`)
-        .attr('text-anchor', 'middle')
-        .attr('font-size', 13)
-        .text(`Head (${units.head})`);
+      appendAxisTitles(
+        root,
+        { width, height, margin },
+        { flow: `Flow (${units.flow})`, head: `Head (${units.head})` },
+        { baselineFromBottom: 8, font: { 'font-size': 13 } },
+      );
       if (fit?.efficiencyCoefficients) {
         root
           .append('text')
