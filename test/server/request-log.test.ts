@@ -41,8 +41,8 @@ describe('request log', function () {
     expect(captured).not.to.include('cookie-value');
     type Entry = { req?: { id: unknown }; res?: unknown; responseTime?: unknown };
     const entry = lines.map((line) => JSON.parse(line) as Entry).find((line) => line.req);
-    expect(entry?.req).to.deep.equal({ id: entry?.req.id, method: 'GET', path: '/api/v1/auth/me' });
-    expect(entry?.req.id).to.not.equal(undefined);
+    expect(entry?.req).to.deep.equal({ id: entry?.req?.id, method: 'GET', path: '/api/v1/auth/me' });
+    expect(entry?.req?.id).to.not.equal(undefined);
     expect(entry?.res).to.deep.equal({ statusCode: 200 });
     expect(entry?.responseTime).to.be.a('number');
   });
