@@ -9,6 +9,7 @@ import swaggerUi from 'swagger-ui-express';
 import { openApiDocument, openApiText } from './api/openapi-document';
 import { createOperationRouter } from './api/operation-router';
 import { createProblemHandler, notFoundHandler } from './api/problem-details';
+import { requestLogOptions } from './logging';
 import { loadConfig, projectRoot } from './config';
 import { createHealthHandlers } from './health/health-handlers';
 import { createSelectionHandlers } from './selection/selection-handlers';
@@ -27,6 +28,8 @@ export interface AppDependencies {
   clientFolder?: string;
   /** Mail, the address e-mailed links point to, and rate limits; from the configuration when left out. */
   accounts?: Partial<AccountsDependencies>;
+  /** Proxies whose forwarding headers are believed; from the configuration when left out. */
+  trustedProxies?: string[];
 }
 
 export const riffleVersion = (
@@ -36,10 +39,13 @@ export const riffleVersion = (
 export const defaultClientFolder = join(projectRoot, 'dist', 'riffle', 'browser');
 
 /** Builds the whole web application; it never listens, so tests can drive it directly. */
-export function createApp({ sequelize, logger, clientFolder, accounts }: AppDependencies): Express {
+export function createApp({ sequelize, logger, clientFolder, accounts, trustedProxies }: AppDependencies): Express {
+  const config = loadConfig();
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // request.ip (audit log, rate limits) follows X-Forwarded-For only from the listed proxies.
+  const proxies = trustedProxies ?? config.trustedProxies;
+  app.set('trust proxy', proxies.length > 0 ? proxies : false);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -54,7 +60,9 @@ export function createApp({ sequelize, logger, clientFolder, accounts }: AppDepe
       crossOriginEmbedderPolicy: false,
     }),
   );
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (request) => !request.url?.startsWith('/api/') } }));
+  app.use(
+    pinoHttp({ ...requestLogOptions, logger, autoLogging: { ignore: (request) => !request.url?.startsWith('/api/') } }),
+  );
   app.use(express.json({ limit: '1mb' }));
 
   app.get('/api/v1/openapi.yaml', (_request, response) => {
@@ -73,7 +81,7 @@ export function createApp({ sequelize, logger, clientFolder, accounts }: AppDepe
   // Calculations and selection: one in-memory view of the catalog's current curves.
   const catalogSnapshot = new CatalogSnapshot(sequelize);
   // Accounts and access: sign-in, tokens, admin, and the guard every operation's declaration asks for.
-  const accountsDependencies = accountsDependenciesFrom(loadConfig(), accounts);
+  const accountsDependencies = accountsDependenciesFrom(config, accounts);
   const handlers = {
     ...createHealthHandlers(sequelize, riffleVersion),
     ...createSelectionHandlers(catalogSnapshot),

@@ -1,3 +1,4 @@
+import { isIP } from 'node:net';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -25,6 +26,12 @@ export interface RiffleConfig {
   /** Where links in e-mails point: the address users reach Riffle at. */
   publicUrl: string;
   mail: MailConfig;
+  /**
+   * Proxies whose `X-Forwarded-For` is believed (addresses, CIDRs, or `loopback`, `linklocal`,
+   * `uniquelocal`); empty by default, so the client address is the connection's own and no caller
+   * can forge it for the audit log or the rate limits.
+   */
+  trustedProxies: string[];
 }
 
 /**
@@ -88,6 +95,27 @@ function readMail(env: NodeJS.ProcessEnv, varDir: string): MailConfig {
   };
 }
 
+const proxyNames = ['loopback', 'linklocal', 'uniquelocal'];
+
+function readTrustedProxies(env: NodeJS.ProcessEnv): string[] {
+  const entries = (env.RIFFLE_TRUSTED_PROXIES ?? '')
+    .split(',')
+    .map((entry) => entry.trim())
+    .filter((entry) => entry !== '');
+  for (const entry of entries) {
+    const [address, bits, extra] = entry.split('/');
+    const family = isIP(address);
+    const maxBits = family === 6 ? 128 : 32;
+    const bitsValid = bits === undefined || (/^\d{1,3}$/.test(bits) && Number(bits) <= maxBits);
+    if (!proxyNames.includes(entry) && (family === 0 || !bitsValid || extra !== undefined)) {
+      throw new ConfigError(
+        `RIFFLE_TRUSTED_PROXIES must list addresses, CIDRs (10.0.0.0/8) or ${proxyNames.join(', ')}, separated by commas; "${entry}" is none of these`,
+      );
+    }
+  }
+  return entries;
+}
+
 /** Reads and checks the environment once; every unusable value is a ConfigError naming the variable. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): RiffleConfig {
   const mode = readChoice(env, 'NODE_ENV', ['development', 'production', 'test'] as const, 'development');
@@ -116,5 +144,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): RiffleConfig {
     logLevel: readChoice(env, 'RIFFLE_LOG_LEVEL', logLevels, mode === 'test' ? 'silent' : 'info'),
     publicUrl: (env.RIFFLE_PUBLIC_URL || `http://${httpHost}:${httpPort}`).replace(/\/+$/, ''),
     mail: readMail(env, varDir),
+    trustedProxies: readTrustedProxies(env),
   };
 }

@@ -12,6 +12,7 @@ import { currentUser } from './authenticated-user';
 import { newSecretToken } from './secret-tokens';
 import { revokeAllSessions } from './sessions';
 import { normaliseEmail, toAdminUser } from './user-views';
+import { checkedName } from '../api/checked-text';
 
 function unprocessable(pointer: string, detail: string): ProblemError {
   return new ProblemError(422, 'Not possible', detail, [{ pointer, detail }], 'not-possible');
@@ -92,7 +93,15 @@ export function createAdminHandlers(
             detail: `${user.supplierId ?? 'none'} -> ${supplierId ?? 'none'}`,
           });
         if (disabled !== user.disabled) events.push({ ...about, action: disabled ? 'user-disabled' : 'user-enabled' });
-        await user.update({ name: changes.name?.trim() ?? user.name, role, supplierId, disabled }, { transaction });
+        await user.update(
+          {
+            name: changes.name === undefined ? user.name : checkedName(changes.name, '/body/name'),
+            role,
+            supplierId,
+            disabled,
+          },
+          { transaction },
+        );
         if (disabled) await revokeAllSessions(user.id, transaction);
         for (const event of events) await recordAuditEvent(request, event, transaction);
         return user;

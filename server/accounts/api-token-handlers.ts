@@ -6,6 +6,7 @@ import { ApiToken } from '../database/models';
 import { recordAuditEvent } from './audit-log';
 import { currentUser } from './authenticated-user';
 import { newSecretToken } from './secret-tokens';
+import { checkedName } from '../api/checked-text';
 
 const dayMs = 24 * 3600_000;
 
@@ -44,7 +45,7 @@ export function createApiTokenHandlers(sequelize: Sequelize): Record<string, Req
         const apiToken = await ApiToken.create(
           {
             userId: user.id,
-            name: body.name.trim(),
+            name: checkedName(body.name, '/body/name'),
             tokenPrefix: prefix,
             tokenHash: hash,
             scopes: body.scopes,

@@ -17,6 +17,7 @@ import { hashPassword, passwordWeakness, verifyPassword } from './passwords';
 import { hashSecretToken, newSecretToken } from './secret-tokens';
 import { openSession, presentedToken, revokeAllSessions, revokeSession } from './sessions';
 import { normaliseEmail, toAccountUser } from './user-views';
+import { checkedName } from '../api/checked-text';
 
 const resetAnswer = `If that address has a Riffle account, a reset link is on its way. It works once, within 1 hour.`;
 
@@ -201,7 +202,7 @@ export function createAuthHandlers(
         const user = await User.create(
           {
             email: invitation.email,
-            name: body.name.trim(),
+            name: checkedName(body.name, '/body/name'),
             role: invitation.role,
             supplierId: invitation.supplierId,
             passwordHash,

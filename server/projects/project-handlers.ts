@@ -5,6 +5,7 @@ import { currentUser } from '../accounts/authenticated-user';
 import { ProblemError } from '../api/problem-details';
 import { unprocessable } from '../calculations/engine-problem';
 import { Project } from '../database/models';
+import { checkedName } from '../api/checked-text';
 
 /*
  * A designer's saved designs. Each caller sees its own projects only: another's is as absent as
@@ -35,7 +36,7 @@ function checkedInput(request: Request): ProjectInput {
   });
   if (input.design.band.flowMin > input.design.band.flowMax)
     throw unprocessable('/body/design/band/flowMax', 'must not be less than flowMin');
-  return { name: input.name.trim(), design: input.design };
+  return { name: checkedName(input.name, '/body/name'), design: input.design };
 }
 
 async function ownProject(request: Request): Promise<Project> {

@@ -781,7 +781,7 @@ export interface components {
             hoursPerDay: number;
             /** @description Currency per kWh; without it annualCost is null. */
             tariffPerKWh?: number;
-            /** @description Percent, applied when the curve gives pump shaft power; default 100 (curve power taken as input power). */
+            /** @description Percent (at least 0.1, the lowest the engine accepts), applied when the curve gives pump shaft power; default 100 (curve power taken as input power). */
             motorEfficiency?: number;
         };
         SelectionRequest: {

@@ -29,4 +29,17 @@ describe('configuration from the environment', () => {
     expect(loadConfig({ NODE_ENV: 'production' }).demo).to.equal(false);
     expect(() => loadConfig({ NODE_ENV: 'production', RIFFLE_DEMO: 'yes' })).to.throw(ConfigError, 'production');
   });
+
+  it('trusts no proxy unless RIFFLE_TRUSTED_PROXIES lists some', () => {
+    expect(loadConfig({}).trustedProxies).to.deep.equal([]);
+    expect(
+      loadConfig({ RIFFLE_TRUSTED_PROXIES: '127.0.0.1, 10.0.0.0/8,fd00::/8,loopback' }).trustedProxies,
+    ).to.deep.equal(['127.0.0.1', '10.0.0.0/8', 'fd00::/8', 'loopback']);
+  });
+
+  for (const value of ['proxy.example', '10.0.0.0/33', '300.1.1.1', '10.0.0.1/8/1']) {
+    it(`refuses RIFFLE_TRUSTED_PROXIES=${value}`, () => {
+      expect(() => loadConfig({ RIFFLE_TRUSTED_PROXIES: value })).to.throw(ConfigError, 'RIFFLE_TRUSTED_PROXIES');
+    });
+  }
 });

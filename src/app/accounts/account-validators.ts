@@ -1,4 +1,5 @@
 import { AbstractControl, ValidationErrors, ValidatorFn, Validators } from '@angular/forms';
+import { visibleTextPattern } from '../../../shared/text-rules';
 
 /** The server's rule, checked early in the browser: it also refuses common passwords and ones containing the e-mail address. */
 export const passwordMinLength = 10;
@@ -13,8 +14,8 @@ export const newPasswordValidators: ValidatorFn[] = [
 export const passwordsMatch: ValidatorFn = (group: AbstractControl): ValidationErrors | null =>
   group.get('password')?.value === group.get('confirmation')?.value ? null : { mismatch: true };
 
-/** Names and labels as the server accepts them: something visible, no angle brackets or control characters. */
-export const visibleTextPattern = /^[^<>\p{Cc}]*[^\s<>\p{Cc}][^<>\p{Cc}]*$/u;
+/** Names and labels as the server accepts them (the shared text rule). */
+export { visibleTextPattern };
 
 export const personNameValidators: ValidatorFn[] = [
   Validators.required,
