@@ -1,13 +1,8 @@
-import {
-  HydraulicsInputError,
-  requireFinite,
-  requireInRange,
-  requireNonNegative,
-  requirePositive,
-} from './hydraulics-error';
+import { HydraulicsInputError, requireFinite, requireNonNegative, requirePositive } from './hydraulics-error';
 import { leastSquaresPolynomial } from './least-squares';
 import { STANDARD_GRAVITY } from './physical-constants';
 import { maximumOver, polynomialShifted, polynomialValue, totalRiseOver } from './polynomial';
+import { validatePumpCurvePoints } from './pump-curve-points';
 import { waterDensity } from './water-properties';
 
 /*
@@ -91,55 +86,6 @@ const TEST_WATER_DENSITY = waterDensity(20);
 
 /** Rise (fraction of the highest head) below which a fitted curve counts as non-increasing: round-off only. */
 const HEAD_RISE_TOLERANCE = 1e-9;
-
-/** Largest flow (m3/s), head (m) and power (W) a curve point may carry: far beyond any pump Riffle selects. */
-const POINT_LIMITS = Object.freeze({ flow: 100, head: 1e4, power: 1e9 });
-
-function validatePoints(points: readonly PumpCurvePoint[]): void {
-  if (!Array.isArray(points) || points.length < 3) {
-    throw new HydraulicsInputError(
-      '/points',
-      `a pump curve needs at least three points, got ${Array.isArray(points) ? points.length : 0}`,
-    );
-  }
-  points.forEach((point, index) => {
-    const field = `/points/${index}`;
-    requireInRange(point.flow, 0, POINT_LIMITS.flow, `${field}/flow`, 'flow (m3/s)');
-    requirePositive(point.head, `${field}/head`, 'head');
-    requireInRange(point.head, 0, POINT_LIMITS.head, `${field}/head`, 'head (m)');
-    if (point.power !== undefined) {
-      requireInRange(point.power, 0, POINT_LIMITS.power, `${field}/power`, 'power (W)');
-    }
-    if (point.efficiency !== undefined) {
-      requireInRange(point.efficiency, 0, 1, `${field}/efficiency`, 'efficiency (fraction)');
-    }
-    if (point.npshRequired !== undefined) {
-      requirePositive(point.npshRequired, `${field}/npshRequired`, 'NPSH required');
-    }
-    if (index > 0) {
-      const previous = points[index - 1];
-      if (!(point.flow > previous.flow)) {
-        throw new HydraulicsInputError(
-          `${field}/flow`,
-          `flows must be strictly increasing: ${point.flow} follows ${previous.flow}`,
-        );
-      }
-      if (point.head > previous.head) {
-        throw new HydraulicsInputError(
-          `${field}/head`,
-          `head rises from ${previous.head} m to ${point.head} m; Riffle accepts only curves whose head does not rise with flow`,
-        );
-      }
-    }
-  });
-  for (const key of ['power', 'efficiency'] as const) {
-    const given = points.filter((point) => point[key] !== undefined).length;
-    if (given > 0 && given < points.length) {
-      const missing = points.findIndex((point) => point[key] === undefined);
-      throw new HydraulicsInputError(`/points/${missing}/${key}`, `${key} must be given on every point or on none`);
-    }
-  }
-}
 
 /**
  * Degree rule: a cubic when there are at least five points spread over at
@@ -308,7 +254,7 @@ function locateBep(
  * flows not strictly increasing, or head rising with flow.
  */
 export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCurveFitOptions = {}): PumpCurveFit {
-  validatePoints(points);
+  validatePumpCurvePoints(points);
   const flows = points.map((point) => point.flow);
   const heads = points.map((point) => point.head);
   const flowMin = flows[0];
