@@ -12,20 +12,16 @@ import {
   type RowValues,
 } from './curve-table-cells';
 import {
-  columnUnitDirective,
   curveTableFormatName,
   curveTableFormatVersion,
   curveTableLimits,
   formulaLeadCharacters,
-  freeDirectives,
-  pointColumns,
   pumpColumns,
-  requiredColumns,
-  unitDirectives,
   type CurveTableColumn,
   type PumpColumn,
   type UnitDirective,
 } from './curve-table-format';
+import { readDirective, readFormatLine, readHeader, type Directives } from './curve-table-preamble';
 import { CountingHash, csvProblem, csvRecords, FileTooLargeError, splitAtHeader } from './curve-table-stream';
 
 /*
@@ -173,7 +169,7 @@ class TableState implements CellContext {
   readonly fileWarnings: CurveImportIssue[] = [];
   pointRowCount = 0;
   private phase: 'format' | 'directives' | 'rows' | 'refused' = 'format';
-  private readonly directives = new Map<string, { value: string; row: number }>();
+  private readonly directives: Directives = new Map();
   private header: (CurveTableColumn | null)[] = [];
   private current: {
     pump: ReadPump;
@@ -186,149 +182,15 @@ class TableState implements CellContext {
 
   take(record: string[], row: number): void {
     if (this.phase === 'refused') return;
-    if (this.phase === 'format') this.takeFormatLine(record, row);
-    else if (this.phase === 'directives') {
-      if (record[0] === 'model_code') this.takeHeader(record, row);
-      else this.takeDirective(record, row);
+    if (this.phase === 'format') {
+      this.formatVersion = readFormatLine(record, row, this.errors);
+      this.phase = this.formatVersion === null ? 'refused' : 'directives';
+    } else if (this.phase === 'directives') {
+      if (record[0] === 'model_code') {
+        this.header = readHeader(record, row, this.directives, this.errors);
+        this.phase = this.errors.count > 0 ? 'refused' : 'rows';
+      } else readDirective(record, row, this.directives, this.errors);
     } else this.takeRow(record, row);
-  }
-
-  private takeFormatLine(record: string[], row: number): void {
-    const expected = `the format line "${curveTableFormatName},${curveTableFormatVersion}" first`;
-    if (record[0] !== curveTableFormatName) {
-      this.errors.add(
-        issue(
-          row,
-          null,
-          `this is not a Riffle curve table: the first line is "${record.join(',').slice(0, 60)}"`,
-          expected,
-        ),
-      );
-      this.phase = 'refused';
-      return;
-    }
-    const version = Number(record[1]);
-    if (!Number.isInteger(version) || version !== curveTableFormatVersion) {
-      this.errors.add(
-        issue(
-          row,
-          'version',
-          `format version "${record[1] ?? ''}" is not one this Riffle reads`,
-          `version ${curveTableFormatVersion}`,
-        ),
-      );
-      this.phase = 'refused';
-      return;
-    }
-    this.formatVersion = version;
-    this.phase = 'directives';
-  }
-
-  private takeDirective(record: string[], row: number): void {
-    const [name, value = '', ...rest] = record;
-    const known = [...Object.keys(unitDirectives), ...freeDirectives];
-    if (!known.includes(name)) {
-      this.errors.add(
-        issue(
-          row,
-          name,
-          `"${name}" is not a unit line this format knows, and the header row (starting with model_code) has not come yet`,
-          `one of ${known.join(', ')}, or the header row`,
-        ),
-      );
-      return;
-    }
-    if (rest.some((cell) => cell !== '')) {
-      this.errors.add(issue(row, name, `the ${name} line has more than one value`, 'the name and one value'));
-      return;
-    }
-    if (name === 'note') return;
-    if (this.directives.has(name)) {
-      this.errors.add(
-        issue(
-          row,
-          name,
-          `${name} is given twice (first on row ${this.directives.get(name)!.row})`,
-          'each unit line once',
-        ),
-      );
-      return;
-    }
-    if (name === 'currency') {
-      if (!/^[A-Z]{3}$/.test(value)) {
-        this.errors.add(
-          issue(row, name, `"${value}" is not a currency code`, 'a three-letter ISO 4217 code such as USD or EUR'),
-        );
-        return;
-      }
-    } else {
-      const accepted = unitDirectives[name as UnitDirective] as readonly string[];
-      if (!accepted.includes(value)) {
-        this.errors.add(
-          issue(row, name, `"${value}" is not a unit Riffle knows for ${name}`, `one of ${accepted.join(', ')}`),
-        );
-        return;
-      }
-    }
-    this.directives.set(name, { value, row });
-  }
-
-  private takeHeader(record: string[], row: number): void {
-    this.phase = 'rows';
-    const known: readonly string[] = [...pumpColumns, ...pointColumns];
-    const seen = new Set<string>();
-    this.header = record.map((name) => {
-      if (!known.includes(name)) {
-        this.errors.add(
-          issue(
-            row,
-            name || '(blank)',
-            `"${name}" is not a column of this format`,
-            `columns among ${known.join(', ')}`,
-          ),
-        );
-        return null;
-      }
-      if (seen.has(name)) {
-        this.errors.add(issue(row, name, `column ${name} appears twice in the header`, 'each column once'));
-        return null;
-      }
-      seen.add(name);
-      return name as CurveTableColumn;
-    });
-    for (const name of requiredColumns) {
-      if (!seen.has(name))
-        this.errors.add(
-          issue(row, name, `the header has no ${name} column`, `the columns ${requiredColumns.join(', ')}`),
-        );
-    }
-    for (const [directive, where] of [
-      ['flow-unit', 'flow'],
-      ['head-unit', 'head'],
-    ] as const) {
-      if (!this.directives.has(directive))
-        this.errors.add(
-          issue(
-            row,
-            where,
-            `no ${directive} line is given above the header`,
-            `a line "${directive},..." with one of ${unitDirectives[directive].join(', ')}`,
-          ),
-        );
-    }
-    for (const [column, directive] of Object.entries(columnUnitDirective)) {
-      if (seen.has(column) && !this.directives.has(directive)) {
-        this.errors.add(
-          issue(
-            row,
-            column,
-            `the ${column} column needs a ${directive} line above the header`,
-            `a line "${directive},..."`,
-          ),
-        );
-      }
-    }
-    if (this.errors.count > 0) this.phase = 'refused';
   }
 
   unitOf(directive: UnitDirective | 'currency'): string | undefined {
