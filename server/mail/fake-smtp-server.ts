@@ -1,7 +1,7 @@
 import { SMTPServer } from 'smtp-server';
 import type { AddressInfo } from 'node:net';
 import { storeMailboxMessage } from './mailbox';
-import { decodeEncodedWords, parsePlainMessage } from './mime-text';
+import { readReceivedMessage } from './received-message';
 
 export interface FakeSmtpServer {
   port: number;
@@ -27,19 +27,18 @@ export async function startFakeSmtpServer(options: { port: number; mailboxFolder
       stream.on('data', (chunk: Buffer) => chunks.push(chunk));
       stream.on('error', callback);
       stream.on('end', () => {
-        try {
-          const message = parsePlainMessage(Buffer.concat(chunks).toString('utf8'));
-          storeMailboxMessage(options.mailboxFolder, {
-            receivedAt: new Date().toISOString(),
-            from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
-            to: session.envelope.rcptTo.map((recipient) => recipient.address),
-            subject: decodeEncodedWords(message.headers.get('subject') ?? ''),
-            text: message.text,
-          });
-          callback();
-        } catch (error) {
-          callback(error as Error);
-        }
+        readReceivedMessage(Buffer.concat(chunks))
+          .then((message) => {
+            storeMailboxMessage(options.mailboxFolder, {
+              receivedAt: new Date().toISOString(),
+              from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
+              to: session.envelope.rcptTo.map((recipient) => recipient.address),
+              subject: message.subject,
+              text: message.text,
+            });
+            callback();
+          })
+          .catch((error: Error) => callback(error));
       });
     },
   });
