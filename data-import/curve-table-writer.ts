@@ -1,3 +1,4 @@
+import { stringify } from 'csv-stringify/sync';
 import {
   curveTableFormatName,
   curveTableFormatVersion,
@@ -26,27 +27,31 @@ export function spreadsheetSafeText(text: string): string {
   return formulaLeadCharacters.some((character) => text.startsWith(character)) ? `'${text}` : text;
 }
 
-function cell(value: string | number | null | undefined, column: CurveTableColumn, delimiter: ',' | ';'): string {
+function cellText(value: string | number | null | undefined, column: CurveTableColumn, delimiter: ',' | ';'): string {
   if (value === null || value === undefined) return '';
   let text = typeof value === 'number' ? Number(value.toPrecision(6)).toString() : value;
   if (typeof value === 'number' && delimiter === ';') text = text.replace('.', ',');
   if (typeof value === 'string' && textColumns.has(column)) text = spreadsheetSafeText(text);
-  return /["\r\n]/.test(text) || text.includes(delimiter) || text !== text.trim()
-    ? `"${text.replaceAll('"', '""')}"`
-    : text;
+  return text;
 }
 
-/** The text of a curve-table file (format version 1, see README.md). */
+/**
+ * The text of a curve-table file (format version 1, see README.md). csv-stringify quotes a cell
+ * holding the delimiter, a quote or a line break; a cell with leading or trailing blanks is
+ * quoted too, so that the reader keeps them.
+ */
 export function formatCurveTable(draft: CurveTableDraft): string {
   const delimiter = draft.delimiter ?? ',';
-  const lines = [
-    ...(draft.comments ?? []).map((comment) => `# ${comment}`),
-    [curveTableFormatName, curveTableFormatVersion].join(delimiter),
+  const records = [
+    [curveTableFormatName, String(curveTableFormatVersion)],
     ...Object.entries(draft.units)
-      .filter(([, value]) => value !== undefined)
-      .map(([name, value]) => [name, value].join(delimiter)),
-    draft.columns.join(delimiter),
-    ...draft.rows.map((row) => draft.columns.map((column) => cell(row[column], column, delimiter)).join(delimiter)),
+      .filter((entry): entry is [string, string] => entry[1] !== undefined)
+      .map(([name, value]) => [name, value]),
+    [...draft.columns],
+    ...draft.rows.map((row) => draft.columns.map((column) => cellText(row[column], column, delimiter))),
   ];
-  return `${lines.join('\n')}\n`;
+  const comments = (draft.comments ?? []).map((comment) => `# ${comment}\n`).join('');
+  return (
+    comments + stringify(records, { delimiter, record_delimiter: '\n', quoted_match: [/^\s/, /\s$/, '\r'], eof: true })
+  );
 }
