@@ -34,7 +34,7 @@ export interface PlannedPump {
 }
 
 export interface CheckedCurveTable {
-  read: ReadCurveTable & { errorsOmitted: number };
+  read: ReadCurveTable;
   powerBasis: PowerBasis;
   pumps: Array<{ read: ReadPump; checked: CheckedPump }>;
   /** Any error at all, listed or not: nothing may be written. */
@@ -66,7 +66,7 @@ function byRow(a: CurveImportIssue, b: CurveImportIssue): number {
 
 /** Fits and checks every pump of a read file; the file's and the curves' errors sorted by row. */
 export function checkCurveTable(
-  read: ReadCurveTable & { errorsOmitted: number },
+  read: ReadCurveTable,
   onChecked?: (done: number, total: number) => void,
 ): CheckedCurveTable {
   const powerBasis: PowerBasis = read.fileUnits?.powerBasis ?? 'shaft';

@@ -77,6 +77,8 @@ export interface ReadCurveTable {
   fileChecksum: string;
   fileBytes: number;
   errors: CurveImportIssue[];
+  /** Errors found beyond the listed ones, counted only. */
+  errorsOmitted: number;
   warnings: CurveImportIssue[];
 }
 
@@ -88,10 +90,7 @@ export interface ReadOptions {
 }
 
 /** Reads the file; never throws for what is in the file, every problem becomes an issue. */
-export async function readCurveTable(
-  input: Readable,
-  options: ReadOptions = {},
-): Promise<ReadCurveTable & { errorsOmitted: number }> {
+export async function readCurveTable(input: Readable, options: ReadOptions = {}): Promise<ReadCurveTable> {
   const maxFileBytes = options.maxFileBytes ?? curveTableLimits.maxFileBytes;
   const maxPointRows = options.maxPointRows ?? curveTableLimits.maxPointRows;
   const counter = new CountingHash(maxFileBytes, options.onBytes);

@@ -5,43 +5,33 @@ import type { components } from './api/openapi-types';
 
 type Schemas = components['schemas'];
 
-/** Both ways assignable: the list names exactly the contract's values. */
-type SameWords<List extends readonly string[], Contract extends string> = [List[number]] extends [Contract]
-  ? [Contract] extends [List[number]]
-    ? List
-    : never
-  : never;
-
-function wordList<const List extends readonly string[], Contract extends string>(
-  list: List & SameWords<List, Contract>,
-): List {
-  return list;
+/**
+ * A word list checked against the contract's union both ways: each word is one of the contract's
+ * (the element type) and none of the contract's is missing (the intersection becomes `never`).
+ */
+function wordList<Contract extends string>() {
+  return <const List extends readonly Contract[]>(
+    list: List & ([Exclude<Contract, List[number]>] extends [never] ? unknown : never),
+  ): List => list;
 }
 
 /** Who a signed-in user is; `x-riffle-access.roles` of an operation names them. */
-export const roles = wordList<['admin', 'supplier-admin', 'designer', 'integrator'], Schemas['Role']>([
-  'admin',
-  'supplier-admin',
-  'designer',
-  'integrator',
-]);
+export const roles = wordList<Schemas['Role']>()(['admin', 'supplier-admin', 'designer', 'integrator']);
 export type Role = (typeof roles)[number];
 
 /** What a personal API token may be used for; an operation's `x-riffle-access.scopes` names them. */
-export const apiScopes = wordList<
-  ['catalog:read', 'calculations:run', 'projects:write', 'curves:import'],
-  Schemas['ApiScope']
->(['catalog:read', 'calculations:run', 'projects:write', 'curves:import']);
+export const apiScopes = wordList<Schemas['ApiScope']>()([
+  'catalog:read',
+  'calculations:run',
+  'projects:write',
+  'curves:import',
+]);
 export type ApiScope = (typeof apiScopes)[number];
 
 /** How a pump is built and installed. */
-export const pumpKinds = wordList<['submersible', 'external-centrifugal', 'mixed-flow'], Schemas['PumpKind']>([
-  'submersible',
-  'external-centrifugal',
-  'mixed-flow',
-]);
+export const pumpKinds = wordList<Schemas['PumpKind']>()(['submersible', 'external-centrifugal', 'mixed-flow']);
 export type PumpKind = (typeof pumpKinds)[number];
 
 /** Whether a pump is offered; retired pumps keep their curves for saved projects and the export. */
-export const pumpStatuses = wordList<['active', 'retired'], Schemas['PumpSummary']['status']>(['active', 'retired']);
+export const pumpStatuses = wordList<Schemas['PumpSummary']['status']>()(['active', 'retired']);
 export type PumpStatus = (typeof pumpStatuses)[number];
