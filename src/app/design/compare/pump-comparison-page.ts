@@ -25,7 +25,7 @@ import { candidateLabel, comparisonModel, unitConverter } from './comparison-mod
   selector: 'rf-pump-comparison-page',
   imports: [DecimalPipe, RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule],
   templateUrl: './pump-comparison-page.html',
-  styleUrls: ['../design-page.scss', './pump-comparison-page.scss'],
+  styleUrls: ['../design-page.scss', '../../shared/chart-frame.scss', './pump-comparison-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PumpComparisonPage {
