@@ -32,10 +32,12 @@ export class AccountPage {
   protected readonly tokens = signal<ApiTokenSummary[]>([]);
   protected readonly loaded = signal(false);
   protected readonly columns = ['name', 'prefix', 'scopes', 'createdAt', 'lastUsedAt', 'expiresAt', 'actions'];
-  /** The tokens a password reset took away, for the note above the table. */
-  protected readonly revokedByReset = computed(() =>
-    this.tokens().filter((token) => token.revokedReason === 'password-reset'),
-  );
+  /** The tokens the latest password reset took away, for the note above the table. */
+  protected readonly revokedByReset = computed(() => {
+    const byReset = this.tokens().filter((token) => token.revokedReason === 'password-reset');
+    const latest = byReset.reduce((last, token) => (token.revokedAt! > last ? token.revokedAt! : last), '');
+    return byReset.filter((token) => token.revokedAt === latest);
+  });
 
   constructor() {
     this.reload();
