@@ -13,7 +13,10 @@ import * as rootFinding from '../../shared/hydraulics/root-finding';
  * A block is TypeScript-like lines using the engine's exports (and those of the engine's internal
  * modules); a line `expression // => value` states a result, which must agree with the computed
  * one to the digits written (half a unit in the last digit given); a result written as a quoted
- * string, true, false or null must be exactly that.
+ * string, true, false or null must be exactly that. Then checks that every runtime function the
+ * engine exports (shared/hydraulics/index.ts) is documented: @param for each parameter, @returns
+ * and an @example. No exceptions are needed: the unit conversions, though bound from one factory,
+ * each carry their own block; a class states no @returns (its constructor makes the instance).
  */
 
 const root = join(import.meta.dirname, '..', '..', 'shared');
@@ -131,4 +134,99 @@ describe('doc-comment examples of the engine', () => {
       }
     });
   }
+});
+
+/** What the runtime export is: a function or a class, whose source text names its parameters. */
+type RuntimeFunction = (...args: never[]) => unknown;
+
+/** The parameter names of a function or of a class's constructor, read from its source text. */
+function parameterNames(value: RuntimeFunction): string[] {
+  const text = Function.prototype.toString.call(value);
+  const start = text.startsWith('class') ? text.indexOf('(', text.indexOf('constructor')) : text.indexOf('(');
+  if (text.startsWith('class') && !text.includes('constructor')) return [];
+  let depth = 0;
+  let current = '';
+  const parts: string[] = [];
+  for (const character of text.slice(start + 1)) {
+    if (character === '(' || character === '[' || character === '{') depth += 1;
+    if (character === ')' || character === ']' || character === '}') {
+      if (depth === 0) break;
+      depth -= 1;
+    }
+    if (character === ',' && depth === 0) {
+      parts.push(current);
+      current = '';
+    } else current += character;
+  }
+  parts.push(current);
+  return parts.map((part) => part.split('=')[0].trim()).filter((name) => name !== '');
+}
+
+/**
+ * The doc comment of an exported name: the `/** ... *\/` block right above its declaration; for a
+ * class, with the class body up to its constructor (where the constructor's own block sits).
+ */
+function docOf(name: string): string | null {
+  for (const { text } of sources) {
+    const declaration = new RegExp(`/\\*\\*((?:[^*]|\\*(?!/))*)\\*/\\s*export (?:function|const|class) ${name}\\b`);
+    const match = declaration.exec(text);
+    if (!match) continue;
+    if (!text.slice(match.index).includes(`export class ${name}`)) return match[1];
+    const classStart = match.index + match[0].length;
+    return match[1] + text.slice(classStart, text.indexOf('constructor(', classStart));
+  }
+  return null;
+}
+
+/** What a runtime export's documentation lacks; empty when it is complete. */
+function missingDocumentation(name: string, value: RuntimeFunction): string[] {
+  const doc = docOf(name);
+  if (doc === null) return ['a doc comment'];
+  const isClass = Function.prototype.toString.call(value).startsWith('class');
+  const missing = parameterNames(value)
+    .filter((parameter) => !new RegExp(`@param ${parameter}\\b`).test(doc))
+    .map((parameter) => `@param ${parameter}`);
+  // A constructor's result is the instance its class describes, so a class states no @returns.
+  if (!isClass && !doc.includes('@returns')) missing.push('@returns');
+  if (!doc.includes('@example')) missing.push('@example');
+  return missing;
+}
+
+describe('doc comments of the engine are complete', () => {
+  const functions = (Object.entries(hydraulics) as Array<[string, unknown]>).filter(
+    (entry): entry is [string, RuntimeFunction] => typeof entry[1] === 'function',
+  );
+
+  it('reads parameter names from functions, arrows and constructors', () => {
+    expect(parameterNames(hydraulics.headLossDarcyWeisbach)).to.deep.equal([
+      'length',
+      'flow',
+      'insideDiameter',
+      'roughness',
+      'kinematicViscosity',
+      'method',
+      'field',
+    ]);
+    expect(parameterNames(hydraulics.flowToSI)).to.deep.equal(['value', 'unitName', 'field']);
+    expect(parameterNames(hydraulics.CubicHermiteTable as unknown as RuntimeFunction)).to.deep.equal([
+      'low',
+      'high',
+      'intervals',
+      'sample',
+    ]);
+  });
+
+  it('names what an undocumented function lacks', () => {
+    const bare = Object.assign(() => 0, {});
+    expect(missingDocumentation('notExportedAnywhere', bare)).to.deep.equal(['a doc comment']);
+  });
+
+  it('gives every exported function @param for each parameter, @returns and @example', () => {
+    expect(functions.length).to.be.greaterThan(80);
+    const incomplete = functions
+      .map(([name, value]) => ({ name, missing: missingDocumentation(name, value) }))
+      .filter(({ missing }) => missing.length > 0)
+      .map(({ name, missing }) => `${name}: ${missing.join(', ')}`);
+    expect(incomplete, `incomplete doc comments:\n${incomplete.join('\n')}`).to.deep.equal([]);
+  });
 });
