@@ -13,10 +13,11 @@ import * as rootFinding from '../../shared/hydraulics/root-finding';
  * A block is TypeScript-like lines using the engine's exports (and those of the engine's internal
  * modules); a line `expression // => value` states a result, which must agree with the computed
  * one to the digits written (half a unit in the last digit given); a result written as a quoted
- * string, true, false or null must be exactly that. Then checks that every runtime function the
- * engine exports (shared/hydraulics/index.ts) is documented: @param for each parameter, @returns
- * and an @example. No exceptions are needed: the unit conversions, though bound from one factory,
- * each carry their own block; a class states no @returns (its constructor makes the instance).
+ * string, true, false or null must be exactly that. Then checks that every runtime function
+ * exported by the engine (shared/hydraulics/index.ts), its internal modules and the contract
+ * mapping is documented: @param for each parameter, @returns and an @example. No exceptions are
+ * needed: the unit conversions, though bound from one factory, each carry their own block; a
+ * class states no @returns (its constructor makes the instance).
  */
 
 const root = join(import.meta.dirname, '..', '..', 'shared');
@@ -193,7 +194,8 @@ function missingDocumentation(name: string, value: RuntimeFunction): string[] {
 }
 
 describe('doc comments of the engine are complete', () => {
-  const functions = (Object.entries(hydraulics) as Array<[string, unknown]>).filter(
+  // the engine's exports, its internal modules' and the contract mapping's
+  const functions = (Object.entries(namespace) as Array<[string, unknown]>).filter(
     (entry): entry is [string, RuntimeFunction] => typeof entry[1] === 'function',
   );
 
