@@ -12,14 +12,14 @@ import { STANDARD_GRAVITY } from './physical-constants';
  * point; real flow in that band is unsteady and no correlation predicts it.
  */
 
-/** Reynolds number below which flow is taken as laminar. */
+/** Reynolds number below which flow is taken as laminar: ~2300, the usual engineering value (White, Fluid Mechanics, 7th ed., ch. 6). */
 export const LAMINAR_REYNOLDS_LIMIT = 2300;
-/** Reynolds number from which flow is taken as fully turbulent. */
+/** Reynolds number from which flow is taken as fully turbulent: 4000, where the Moody chart's turbulent curves begin (Moody 1944). */
 export const TURBULENT_REYNOLDS_LIMIT = 4000;
 
 export type FrictionFactorMethod = 'colebrook' | 'swamee-jain';
 
-/** Exponent of flow in the SI Hazen-Williams formula. */
+/** Exponent of flow in the SI Hazen-Williams formula (see hazenWilliamsResistance for the source). */
 export const HAZEN_WILLIAMS_FLOW_EXPONENT = 1.852;
 /** Exponent of diameter in the SI Hazen-Williams formula. */
 const HAZEN_WILLIAMS_DIAMETER_EXPONENT = 4.8704;
@@ -37,7 +37,7 @@ const HAZEN_WILLIAMS_SI_CONSTANT = 10.67;
  * Source: A. Hazen, G. S. Williams, "Hydraulic Tables" (1905, 3rd ed. 1920); SI constant as in
  * USDA NRCS National Engineering Handbook Part 623 ch. 3 and most hydraulics texts.
  * Validity: water at ~4-25 C in turbulent flow (the formula has no viscosity term); C 1-200
- * accepted, 100-150 for the pipes of the catalogue (see pipe-catalogue).
+ * accepted, 120-150 for the pipes of the catalogue (see pipe-catalogue).
  *
  * @param length - pipe length, m (>= 0)
  * @param insideDiameter - inside diameter, m (> 0)
@@ -98,7 +98,7 @@ export function headLossHazenWilliams(
 /**
  * Reynolds number Re = |V| D / nu, the ratio of inertial to viscous forces in pipe flow
  * (definition; O. Reynolds, Phil. Trans. R. Soc. 174 (1883); White, Fluid Mechanics, 7th ed.,
- * section 6.1). Valid for any Newtonian fluid; no checks (it sits on the friction hot path).
+ * ch. 6). Valid for any Newtonian fluid; no checks (it sits on the friction hot path).
  * @param velocity - mean velocity, m/s (its sign is ignored)
  * @param insideDiameter - inside diameter, m
  * @param kinematicViscosity - kinematic viscosity, m2/s
@@ -113,7 +113,7 @@ export function reynoldsNumber(velocity: number, insideDiameter: number, kinemat
 
 /**
  * Laminar Darcy friction factor f = 64/Re, from the Hagen-Poiseuille solution for fully developed
- * laminar flow in a round pipe (White, Fluid Mechanics, 7th ed., section 6.4). Valid for
+ * laminar flow in a round pipe (White, Fluid Mechanics, 7th ed., ch. 6). Valid for
  * Re < ~2300, independent of roughness.
  * @param reynolds - Reynolds number, dimensionless (> 0)
  * @returns Darcy friction factor, dimensionless
@@ -236,7 +236,7 @@ export function darcyFrictionFactor(
 /**
  * Darcy-Weisbach head loss h_f = f (L/D) V^2 / 2g, m, with V = 4Q / (pi D^2) and f from
  * darcyFrictionFactor (its regime rule). Source: H. Darcy (1857), J. Weisbach (1845); White,
- * Fluid Mechanics, 7th ed., section 6.4 (the Darcy-Weisbach relation). Valid for any Newtonian
+ * Fluid Mechanics, 7th ed., ch. 6 (head loss and the friction factor). Valid for any Newtonian
  * liquid in full pipes at any Reynolds number (Colebrook's range above 4000, see
  * frictionFactorColebrook).
  * @param length - pipe length, m (>= 0)

@@ -13,7 +13,7 @@ import { waterDensity, waterVapourPressure } from './water-properties';
  * @param altitude - height above mean sea level, m (-500 to 11000)
  * @returns atmospheric pressure, Pa absolute
  * @example
- * // the ICAO/ISO standard atmosphere tabulates 89 875 Pa at 1000 m; python3-fluids 1.0.22
+ * // the ICAO/ISO standard atmosphere tabulates 89 875 Pa at 1000 m (quoted from memory); python3-fluids 1.0.22
  * // ATMOSPHERE_1976(1000).P (the same troposphere, unrounded constants) gives 89876.3 Pa
  * standardAtmosphericPressure(0) // => 101325
  * standardAtmosphericPressure(1000) // => 89875
@@ -71,6 +71,9 @@ export interface NpshGuidance {
 /**
  * Clean-water guidance of ANSI/HI 9.6.1: NPSH margin ratio of at least 1.1
  * and at least 0.6 m; Riffle requires both (the greater margin governs).
+ * @example
+ * DEFAULT_NPSH_GUIDANCE.ratio // => 1.1
+ * DEFAULT_NPSH_GUIDANCE.difference // => 0.6
  */
 export const DEFAULT_NPSH_GUIDANCE: NpshGuidance = Object.freeze({ ratio: 1.1, difference: 0.6 });
 

@@ -249,7 +249,11 @@ function buildSeries(definition: SeriesDefinition): PipeSeries {
   });
 }
 
-/** Every series in the catalogue, each with its sizes and source. */
+/**
+ * Every series in the catalogue, each with its sizes and the standard its dimensions come from.
+ * @example
+ * PIPE_SERIES.find((series) => series.id === 'pvc-sch40').sizes.length > 0 // => true
+ */
 export const PIPE_SERIES: readonly PipeSeries[] = Object.freeze(SERIES_DEFINITIONS.map(buildSeries));
 
 /**

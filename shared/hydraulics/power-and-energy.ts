@@ -95,7 +95,11 @@ export function powerAtOperatingPoint(
   };
 }
 
-/** Days of running in the year the energy figures count: a common year (common practice). */
+/**
+ * Days of running in the year the energy figures count: a common year (common practice).
+ * @example
+ * RUNNING_DAYS_PER_YEAR // => 365
+ */
 export const RUNNING_DAYS_PER_YEAR = 365;
 
 /**

@@ -4,7 +4,11 @@ import { STANDARD_GRAVITY } from './physical-constants';
 import type { EngineIssue } from './engine-issues';
 import type { CompiledSystemCurve } from './system-curve';
 
-/** Velocity above which plastic pipe risks water hammer: 5 ft/s (common practice for plastic pipe). */
+/**
+ * Velocity above which plastic pipe risks water hammer: 5 ft/s (common practice for plastic pipe), in m/s.
+ * @example
+ * velocityFromSI(VELOCITY_WARNING_LIMIT, 'ft/s') // => 5
+ */
 export const VELOCITY_WARNING_LIMIT = 1.524;
 
 export interface SegmentBreakdown {

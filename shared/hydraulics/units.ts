@@ -333,7 +333,7 @@ export const velocityFromSI = VELOCITY.fromSI;
 
 /**
  * Pressure to the equivalent column of water: h = p / (rho g) (hydrostatics; White, Fluid
- * Mechanics, 7th ed., section 2.3), g the standard 9.80665 m/s2. Valid for any liquid at rest.
+ * Mechanics, 7th ed., ch. 2), g the standard 9.80665 m/s2. Valid for any liquid at rest.
  * @param value - pressure in `unitName` (gauge or absolute, as the caller means it)
  * @param unitName - one of PRESSURE_UNITS
  * @param density - liquid density, kg/m3 (see water-properties)
@@ -354,8 +354,8 @@ export function pressureToHead(
 }
 
 /**
- * Head of water to pressure: p = rho g h (hydrostatics; White, Fluid Mechanics, 7th ed., section
- * 2.3), g the standard 9.80665 m/s2.
+ * Head of water to pressure: p = rho g h (hydrostatics; White, Fluid Mechanics, 7th ed., ch. 2), g the
+ * standard 9.80665 m/s2.
  * @param head - head of liquid, m
  * @param unitName - one of PRESSURE_UNITS
  * @param density - liquid density, kg/m3
