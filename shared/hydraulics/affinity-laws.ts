@@ -214,7 +214,7 @@ export function speedRatioForDutyPoint(pump: HeadCurve, dutyFlow: number, dutyHe
  * Specific speed in metric form, n_q = N sqrt(Q) / H^0.75 (N rpm, Q m3/s,
  * H m), at the best efficiency point, per stage and per impeller eye.
  * Source: ANSI/HI 1.1-1.2 (nomenclature: specific speed); Karassik, Pump Handbook.
- * Valid for any rotodynamic pump; n_q of about 10-300 spans radial to axial designs.
+ * Valid for any rotodynamic pump; n_q runs from about 10 (radial) to a few hundred (axial), quoted from memory.
  * @param speedRpm - rotational speed, rpm (> 0)
  * @param flow - flow at BEP per impeller eye, m3/s (> 0)
  * @param head - head at BEP per stage, m (> 0)
