@@ -9,7 +9,13 @@ const POINT_LIMITS = Object.freeze({ flow: 100, head: 1e4, power: 1e9 });
  * strictly increasing from zero or more, head positive and not rising with flow, power and
  * efficiency on every point or on none, each value inside a generous physical limit. Our own rules
  * (a fit through fewer points or a rising curve cannot be ranked honestly); values SI.
+ * @param points - published points: flow m3/s, head m, optional power W, efficiency 0-1, NPSH3 m
+ * @returns nothing: it throws on the first rule broken
  * @throws HydraulicsInputError naming the point and field (`/points/2/head`)
+ * @example
+ * let field = null
+ * try { validatePumpCurvePoints([{ flow: 0, head: 10 }, { flow: 0.005, head: 11 }, { flow: 0.01, head: 5 }]) } catch (error) { field = error.field }
+ * field // => '/points/1/head'
  */
 export function validatePumpCurvePoints(points: readonly PumpCurvePoint[]): void {
   if (!Array.isArray(points) || points.length < 3) {
