@@ -31,10 +31,17 @@ describe('pump selection in Chromium', function () {
   it('builds the system from two measured levels and previews its curve', async () => {
     const { page } = app;
     await page.goto(`${app.url}/design/system`, { waitUntil: 'networkidle' });
+    // A typed static head past its limit blocks the form only while it is the one in use.
+    await page.fill('input[name=staticHead]', '2000');
+    await page.locator('input[name=staticHead]').blur();
+    await page.locator('mat-error', { hasText: 'static head must be at most 1640 ft' }).waitFor();
     await page.getByText('From two measured water levels').click();
     await page.fill('input[name=intakeLevel]', '100');
     await page.fill('input[name=dischargeLevel]', '114.5');
     await page.locator('.rf-derived', { hasText: 'Static head 14.5 ft' }).waitFor();
+    expect(await page.getByRole('link', { name: /Next: flow band/ }).getAttribute('aria-disabled')).to.not.equal(
+      'true',
+    );
     // 1900 ft between the levels: above the 500 m static head limit, as the API would say
     await page.fill('input[name=dischargeLevel]', '2000');
     await page.locator('.rf-problem[role=alert]', { hasText: 'static head must be at most 1640 ft' }).waitFor();

@@ -127,6 +127,12 @@ export class SystemBuilderPage {
   protected readonly velocityLimit = computed(() => lengthFromSI(VELOCITY_WARNING_LIMIT, this.units().length));
 
   constructor() {
+    // The typed static head counts only when it is the one in use: a stale value hidden behind the levels must not block the form.
+    const { staticMode, staticHead } = this.form.controls;
+    const useStaticMode = (mode: 'direct' | 'levels') =>
+      mode === 'levels' ? staticHead.disable({ emitEvent: false }) : staticHead.enable({ emitEvent: false });
+    useStaticMode(staticMode.value);
+    staticMode.valueChanges.subscribe(useStaticMode);
     this.form.valueChanges.subscribe(() => {
       if (this.form.valid) this.draft.setSystem(this.form.getRawValue() as SystemDraft);
     });
