@@ -195,7 +195,7 @@ export type PumpDetailRead =
 export function createPumpCatalogQueries(sequelize: Sequelize) {
   /** Every supplier by code, with its active pumps that have a curve. */
   async function listSuppliers(): Promise<SupplierList['suppliers']> {
-    const rows = (await Supplier.findAll({
+    const suppliers = await Supplier.findAll({
       attributes: ['id', 'code', 'name', [fn('COUNT', col('pumps.id')), 'pumpCount']],
       include: [
         {
@@ -208,9 +208,13 @@ export function createPumpCatalogQueries(sequelize: Sequelize) {
       ],
       group: ['Supplier.id', 'Supplier.code', 'Supplier.name'],
       order: [['code', 'ASC']],
-      raw: true,
-    })) as unknown as Array<{ id: number; code: string; name: string; pumpCount: number | string }>;
-    return rows.map((row) => ({ id: row.id, code: row.code, name: row.name, pumpCount: Number(row.pumpCount) }));
+    });
+    return suppliers.map((supplier) => ({
+      id: supplier.id,
+      code: supplier.code,
+      name: supplier.name,
+      pumpCount: Number(supplier.get('pumpCount')),
+    }));
   }
 
   /** One page of the pumps that pass the filter, and how many pass in all. */
