@@ -2,10 +2,12 @@ import type { Request, RequestHandler } from 'express';
 import type {
   CalculationUnits,
   DiameterUnit,
+  FittingsQuery,
   FittingsResponse,
   OperatingPointRequest,
   OperatingPointResponse,
   OperatingPointSummary,
+  PipeSizesQuery,
   PipeSizesResponse,
   SystemCurveRequest,
   SystemCurveResponse,
@@ -78,7 +80,7 @@ export function dutyWarningMessages(point: DutyPoint, system: CompiledSystemCurv
 }
 
 function diameterUnitOf(request: Request): DiameterUnit {
-  return ((request.query as { diameter?: DiameterUnit }).diameter ?? 'in') as DiameterUnit;
+  return (request.query as PipeSizesQuery | FittingsQuery).diameter ?? 'in';
 }
 
 export function createCalculationHandlers(
@@ -190,7 +192,7 @@ export function createCalculationHandlers(
     },
 
     listFittings: (request, response) => {
-      const query = request.query as { insideDiameter?: number };
+      const query = request.query as FittingsQuery;
       let frictionFactor: number | null = null;
       if (query.insideDiameter !== undefined) {
         const bore = diameterToSI(query.insideDiameter, diameterUnitOf(request));

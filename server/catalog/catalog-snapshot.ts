@@ -2,6 +2,7 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import type { PumpCurveFit } from '../../shared/hydraulics';
 import type { PumpOnFile } from '../calculations/arrangement-duty';
 import type { CurrentPumpCurves } from '../calculations/calculation-handlers';
+import type { PumpRow } from './pump-catalog-queries';
 
 /*
  * The catalog as the search needs it: every active pump with its current curve revision's
@@ -38,18 +39,14 @@ export interface CatalogState {
   readonly derived: Map<string, unknown>;
 }
 
-interface PumpRow {
-  pump_id: number;
-  supplier_id: number;
-  supplier_name: string;
-  model_code: string;
-  display_name: string;
-  kind: string;
+/** An active pump's current curve: the catalog's pump row with the revision's stored fit and preferred range. */
+type CurrentCurveRow = Pick<PumpRow, 'supplier_id' | 'supplier_name' | 'model_code' | 'display_name' | 'kind'> & {
+  pump_id: PumpRow['id'];
   revision_id: number;
   fit: string | PumpCurveFit;
   preferred_min: number | null;
   preferred_max: number | null;
-}
+};
 
 const stampQuery = `
   SELECT CONCAT_WS('/',
@@ -68,7 +65,7 @@ const pumpsQuery = `
   WHERE p.status = 'active'
   ORDER BY p.id`;
 
-function toCatalogPump(row: PumpRow): CatalogPump {
+function toCatalogPump(row: CurrentCurveRow): CatalogPump {
   const fit = (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as PumpCurveFit;
   return {
     pumpId: row.pump_id,
@@ -127,7 +124,7 @@ export class CatalogSnapshot implements CurrentPumpCurves {
   }
 
   private async load(stamp: string): Promise<CatalogState> {
-    const rows = await this.sequelize.query<PumpRow>(pumpsQuery, { type: QueryTypes.SELECT });
+    const rows = await this.sequelize.query<CurrentCurveRow>(pumpsQuery, { type: QueryTypes.SELECT });
     const pumps = rows.map(toCatalogPump);
     const state: CatalogState = {
       stamp,

@@ -1,6 +1,6 @@
 // Names for the contract's schemas, so both sides import `Health` rather than the generated path.
 // The generated file comes from openapi.yaml: `npm run generate:api-types`.
-import type { components } from './openapi-types';
+import type { components, operations } from './openapi-types';
 
 type Schemas = components['schemas'];
 
@@ -96,3 +96,11 @@ export type DesignSearch = Schemas['DesignSearch'];
 export type ProjectInput = Schemas['ProjectInput'];
 export type Project = Schemas['Project'];
 export type ProjectList = Schemas['ProjectList'];
+
+// Query parameters of the contract's operations, as the server reads them once validated and coerced.
+type QueryOf<Operation extends keyof operations> = NonNullable<operations[Operation]['parameters']['query']>;
+export type PumpListQuery = QueryOf<'listPumps'>;
+export type PumpSortKey = NonNullable<PumpListQuery['sort']>;
+export type PumpRevisionQuery = QueryOf<'getPump'>;
+export type PipeSizesQuery = QueryOf<'listPipeSizes'>;
+export type FittingsQuery = QueryOf<'listFittings'>;

@@ -1,24 +1,13 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { PumpDetail, PumpPage, SupplierList } from '../../../shared/api/api-schemas';
-
-/** Query of `GET /pumps`: filters in the units named, sort, page. */
-export interface PumpQuery {
-  kind?: string;
-  supplierId?: number;
-  search?: string;
-  flowMin?: number;
-  flowMax?: number;
-  headMin?: number;
-  headMax?: number;
-  flowUnit?: string;
-  headUnit?: string;
-  sort?: string;
-  order?: 'asc' | 'desc';
-  page?: number;
-  pageSize?: number;
-}
+import type {
+  PumpDetail,
+  PumpListQuery,
+  PumpPage,
+  PumpRevisionQuery,
+  SupplierList,
+} from '../../../shared/api/api-schemas';
 
 /** The catalog operations, one method each. */
 @Injectable({ providedIn: 'root' })
@@ -29,7 +18,7 @@ export class CatalogApi {
     return this.http.get<SupplierList>('/api/v1/suppliers');
   }
 
-  listPumps(query: PumpQuery): Observable<PumpPage> {
+  listPumps(query: PumpListQuery): Observable<PumpPage> {
     let params = new HttpParams();
     for (const [name, value] of Object.entries(query)) {
       if (value !== undefined && value !== null && value !== '') params = params.set(name, String(value));
@@ -37,7 +26,7 @@ export class CatalogApi {
     return this.http.get<PumpPage>('/api/v1/pumps', { params });
   }
 
-  getPump(pumpId: number, revision?: number): Observable<PumpDetail> {
+  getPump(pumpId: number, revision?: PumpRevisionQuery['revision']): Observable<PumpDetail> {
     const params = revision === undefined ? undefined : new HttpParams().set('revision', String(revision));
     return this.http.get<PumpDetail>(`/api/v1/pumps/${pumpId}`, { params });
   }

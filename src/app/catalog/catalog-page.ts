@@ -18,8 +18,9 @@ import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { catchError, map, of } from 'rxjs';
-import type { PumpPage } from '../../../shared/api/api-schemas';
-import { CatalogApi, type PumpQuery } from './catalog-api';
+import type { PumpListQuery, PumpPage, PumpSortKey } from '../../../shared/api/api-schemas';
+import { pumpKinds } from '../../../shared/vocabularies';
+import { CatalogApi } from './catalog-api';
 import { displayUnitChoices, kindLabels, showFlow, showHead } from '../shared/display-units';
 
 /** Min must not exceed max, for the pair of controls named. */
@@ -55,7 +56,7 @@ export class CatalogPage {
   private readonly destroyRef = inject(DestroyRef);
 
   protected readonly unitChoices = displayUnitChoices;
-  protected readonly kinds = Object.entries(kindLabels).map(([value, label]) => ({ value, label }));
+  protected readonly kinds = pumpKinds.map((value) => ({ value, label: kindLabels[value] }));
   protected readonly kindLabels = kindLabels;
   protected readonly showFlow = showFlow;
   protected readonly showHead = showHead;
@@ -65,7 +66,15 @@ export class CatalogPage {
     { name: 'headMin', label: 'Head from', quantity: 'head' },
     { name: 'headMax', label: 'Head to', quantity: 'head' },
   ] as const;
-  protected readonly columns = ['modelCode', 'displayName', 'kind', 'supplier', 'flowMax', 'headMax', 'bepEfficiency'];
+  protected readonly columns: readonly PumpSortKey[] = [
+    'modelCode',
+    'displayName',
+    'kind',
+    'supplier',
+    'flowMax',
+    'headMax',
+    'bepEfficiency',
+  ];
   protected readonly suppliers = toSignal(
     this.api.listSuppliers().pipe(
       map((list) => list.suppliers),
@@ -140,8 +149,8 @@ export class CatalogPage {
   private load(): void {
     const value = this.filters.getRawValue();
     const units = displayUnitChoices[this.unitIndex()];
-    const query: PumpQuery = {
-      kind: value.kind || undefined,
+    const query: PumpListQuery = {
+      kind: pumpKinds.find((kind) => kind === value.kind),
       supplierId: value.supplierId ?? undefined,
       search: value.search?.trim() || undefined,
       flowMin: value.flowMin ?? undefined,
@@ -150,7 +159,7 @@ export class CatalogPage {
       headMax: value.headMax ?? undefined,
       flowUnit: units.flow,
       headUnit: units.head,
-      sort: this.sort().active,
+      sort: this.columns.find((column) => column === this.sort().active) ?? 'modelCode',
       order: this.sort().direction === 'desc' ? 'desc' : 'asc',
       page: this.pageIndex() + 1,
       pageSize: this.pageSize(),

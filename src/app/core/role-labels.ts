@@ -1,13 +1,19 @@
-import type { Role } from '../../../shared/api/api-schemas';
+import { roles, type Role } from '../../../shared/vocabularies';
 
-/** The roles in the words the pages use, in the order a site admin usually picks them. */
-export const roleChoices: ReadonlyArray<{ role: Role; label: string }> = [
-  { role: 'designer', label: 'Designer' },
-  { role: 'integrator', label: 'Integrator' },
-  { role: 'supplier-admin', label: 'Supplier admin' },
-  { role: 'admin', label: 'Site admin' },
-];
+/** The roles in the words the pages use; a role added to the vocabulary without a label here does not compile. */
+export const roleLabels: Record<Role, string> = {
+  admin: 'Site admin',
+  'supplier-admin': 'Supplier admin',
+  designer: 'Designer',
+  integrator: 'Integrator',
+};
+
+/** The roles a site admin picks from, in the vocabulary's order, each with its label. */
+export const roleChoices: ReadonlyArray<{ role: Role; label: string }> = roles.map((role) => ({
+  role,
+  label: roleLabels[role],
+}));
 
 export function roleLabel(role: Role | null | undefined): string {
-  return roleChoices.find((choice) => choice.role === role)?.label ?? '';
+  return role ? roleLabels[role] : '';
 }

@@ -12,7 +12,7 @@ import type {
 } from '../../../shared/api/api-schemas';
 import { flowToSI, headToSI, pumpHeadAt } from '../../../shared/hydraulics';
 import { createApp } from '../../../server/app';
-import type { Supplier } from '../../../server/database/models';
+import { Pump, type Supplier } from '../../../server/database/models';
 import { createLogger } from '../../../server/logging';
 import { createApiToken, createUserWithSession, tableChecksums } from '../../support/accounts';
 import { createScratchDatabase } from '../../support/test-database';
@@ -221,6 +221,41 @@ describe('catalog and curve-import API', function () {
       .attach('file', Buffer.from(uploadTable), 'x.csv')
       .expect(400);
     expect(badFlag.body.pointer).to.equal('/body/dryRun');
+  });
+
+  it('counts only pumps with a curve; a pump without one is listed with empty curve fields and no revision', async () => {
+    const pumpCountOf = async (supplierId: number) =>
+      ((await get('/suppliers').expect(200)).body as SupplierList).suppliers.find(
+        (supplier) => supplier.id === supplierId,
+      )!.pumpCount;
+    const before = await pumpCountOf(suppliers[2].id);
+    const pump = await Pump.create({
+      supplierId: suppliers[2].id,
+      modelCode: 'NO-CURVE-1',
+      displayName: 'Pump without a curve',
+      kind: 'submersible',
+      nominalSpeedRpm: null,
+      voltageV: null,
+      phaseCount: null,
+      dischargeSizeMm: null,
+      solidsHandlingMm: null,
+      listPrice: '99.90',
+      priceCurrency: 'EUR',
+      currentRevisionId: null,
+    });
+    try {
+      expect(await pumpCountOf(suppliers[2].id)).to.equal(before);
+      const listed = (await get('/pumps?search=NO-CURVE').expect(200)).body as PumpPage;
+      expect(listed.items.map((item) => [item.id, item.currentRevisionNumber, item.flowMax, item.bep])).to.deep.equal([
+        [pump.id, null, null, null],
+      ]);
+      expect(listed.items[0].listPrice).to.deep.equal({ amount: 99.9, currency: 'EUR' });
+      const detail = (await get(`/pumps/${pump.id}`).expect(200)).body as PumpDetail;
+      expect(detail).to.deep.include({ revision: null, revisions: [] });
+      expect((await get(`/pumps/${pump.id}?revision=1`).expect(404)).body.pointer).to.equal('/query/revision');
+    } finally {
+      await pump.destroy();
+    }
   });
 
   it('answers 413 naming /body/file for a file over 16 MiB', async () => {
