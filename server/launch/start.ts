@@ -54,7 +54,14 @@ async function main(): Promise<void> {
     process.exit(1);
   }
   const logPath = join(config.varDir, 'log', 'riffle.log');
-  const logger = createLogger(config.logLevel, undefined, cappedLogFile(logPath));
+  let logFile: ReturnType<typeof cappedLogFile>;
+  try {
+    logFile = cappedLogFile(logPath);
+  } catch (error) {
+    say(`cannot write the log ${logPath}: ${(error as Error).message}; set RIFFLE_VAR_DIR to a writable folder`);
+    process.exit(1);
+  }
+  const logger = createLogger(config.logLevel, undefined, logFile);
   say(`log: ${logPath} (JSON lines; at ${logFileMaxBytes / 1024 / 1024} MiB it moves to riffle.log.1, 2 files kept)`);
   const stops: Array<{ what: string; stop: () => Promise<void> }> = [];
   let stopping = false;

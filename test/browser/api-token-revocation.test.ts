@@ -65,7 +65,10 @@ describe('API tokens, the password and a reset in Chromium', function () {
     await page.getByLabel('New password').fill(resetPassword);
     await page.getByLabel('The same password again').fill(resetPassword);
     await page.getByRole('button', { name: 'Save the password' }).click();
-    expect(await page.getByRole('status').innerText()).to.contain('your API tokens are revoked');
+    expect(await page.getByRole('status').innerText()).to.contain('This API token is revoked');
+    const listed = await page.locator('.rf-revoked-tokens li').allInnerTexts();
+    expect(listed).to.have.length(1);
+    expect(listed[0]).to.match(/^Estimating sheet \(rft_\w+…\)$/);
 
     await signIn(resetPassword);
     const note = page.getByRole('note');

@@ -4,6 +4,7 @@ import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { RouterLink } from '@angular/router';
+import type { RevokedApiTokens } from '../../../shared/api/api-schemas';
 import { AuthApi } from '../core/auth-api';
 import { describeHttpError } from '../core/problem-details';
 import { NewPasswordFields } from './new-password-fields';
@@ -26,7 +27,8 @@ export class ResetPasswordPage {
     { password: ['', newPasswordValidators], confirmation: [''] },
     { validators: passwordsMatch },
   );
-  protected readonly done = signal(false);
+  /** What the reset revoked, once it is done. */
+  protected readonly revoked = signal<RevokedApiTokens | null>(null);
   protected readonly problem = signal<string | null>(null);
 
   protected submit(): void {
@@ -38,7 +40,7 @@ export class ResetPasswordPage {
     }
     this.problem.set(null);
     this.authApi.resetPassword({ token, password: this.form.getRawValue().password }).subscribe({
-      next: () => this.done.set(true),
+      next: (revoked) => this.revoked.set(revoked),
       error: (error: HttpErrorResponse) => this.problem.set(describeHttpError(error)),
     });
   }

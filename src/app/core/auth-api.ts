@@ -7,6 +7,7 @@ import type {
   InvitationAcceptance,
   NewPasswordRequest,
   PasswordResetRequest,
+  RevokedApiTokens,
   SignInRequest,
   SignInResponse,
 } from '../../../shared/api/api-schemas';
@@ -33,8 +34,8 @@ export class AuthApi {
     return this.http.post<AcceptedMessage>('/api/v1/auth/forgot-password', request, problemShownByCaller());
   }
 
-  resetPassword(request: NewPasswordRequest): Observable<void> {
-    return this.http.post<void>('/api/v1/auth/reset-password', request, problemShownByCaller());
+  resetPassword(request: NewPasswordRequest): Observable<RevokedApiTokens> {
+    return this.http.post<RevokedApiTokens>('/api/v1/auth/reset-password', request, problemShownByCaller());
   }
 
   acceptInvitation(request: InvitationAcceptance): Observable<SignInResponse> {
