@@ -1,6 +1,12 @@
 import type { RequestHandler } from 'express';
 import { Op, type Sequelize, type Transaction } from 'sequelize';
-import type { AuditEventView, InvitationSummary, NewInvitation, UserChanges } from '../../shared/api/api-schemas';
+import type {
+  AuditEventsQuery,
+  AuditEventView,
+  InvitationSummary,
+  NewInvitation,
+  UserChanges,
+} from '../../shared/api/api-schemas';
 import { ProblemError } from '../api/problem-details';
 import { AuditEvent, Invitation, Supplier, User } from '../database/models';
 import { readMailbox } from '../mail/mailbox';
@@ -186,7 +192,7 @@ export function createAdminHandlers(
     },
 
     listAuditEvents: async (request, response) => {
-      const { limit = 100, before } = request.query as { limit?: number; before?: number };
+      const { limit = 100, before } = request.query as AuditEventsQuery;
       const events = await AuditEvent.findAll({
         where: before ? { id: { [Op.lt]: before } } : {},
         include: [

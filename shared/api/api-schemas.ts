@@ -104,3 +104,4 @@ export type PumpSortKey = NonNullable<PumpListQuery['sort']>;
 export type PumpRevisionQuery = QueryOf<'getPump'>;
 export type PipeSizesQuery = QueryOf<'listPipeSizes'>;
 export type FittingsQuery = QueryOf<'listFittings'>;
+export type AuditEventsQuery = QueryOf<'listAuditEvents'>;
