@@ -24,3 +24,4 @@ export * from './power-and-energy';
 export * from './affinity-laws';
 export * from './npsh';
 export * from './plausible-limits';
+export * from './pump-curve-points';

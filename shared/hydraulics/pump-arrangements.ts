@@ -1,3 +1,4 @@
+import type { EngineIssue } from './engine-issues';
 import { HydraulicsInputError } from './hydraulics-error';
 import { type HeadCurve, type NoOperatingPointReason, solveOperatingPoint } from './operating-point';
 import { polynomialScaled, polynomialValue } from './polynomial';
@@ -21,11 +22,15 @@ export type ArrangementResult =
       /** Flow of each running pump, m3/s (0 for a pump that cannot reach the common head). */
       pumpFlows: number[];
     }
-  | { ok: false; reason: NoOperatingPointReason; message: string };
+  | { ok: false; reason: NoOperatingPointReason; issue: EngineIssue };
 
 function requireCount(value: number, field: string, min: number): void {
   if (!Number.isInteger(value) || value < min) {
-    throw new HydraulicsInputError(field, `must be a whole number of at least ${min}, got ${value}`);
+    throw new HydraulicsInputError({
+      code: 'not-whole-number',
+      params: { what: field.slice(1), value, min },
+      pointer: field,
+    });
   }
 }
 
@@ -66,10 +71,11 @@ export function solveParallelIdentical(
   requireCount(installed, '/installed', 1);
   requireCount(running, '/running', 1);
   if (running > installed) {
-    throw new HydraulicsInputError(
-      '/running',
-      `running pumps (${running}) cannot exceed installed pumps (${installed})`,
-    );
+    throw new HydraulicsInputError({
+      code: 'running-exceeds-installed',
+      params: { running, installed },
+      pointer: '/running',
+    });
   }
   const point = solveOperatingPoint(parallelHeadCurve(pump, running), system);
   if (!point.ok) {
@@ -123,14 +129,11 @@ function systemFlowAtHead(system: CompiledSystemCurve, head: number, guess: numb
  */
 export function solveParallelUnequal(pumps: readonly HeadCurve[], system: CompiledSystemCurve): ArrangementResult {
   if (pumps.length === 0) {
-    throw new HydraulicsInputError('/pumps', 'at least one pump is needed');
+    throw new HydraulicsInputError({ code: 'no-pumps', params: {}, pointer: '/pumps' });
   }
   pumps.forEach((pump, index) => {
     if (pump.flowMin !== 0) {
-      throw new HydraulicsInputError(
-        `/pumps/${index}`,
-        'parallel operation of unequal pumps needs curves that start at zero flow (shut-off)',
-      );
+      throw new HydraulicsInputError({ code: 'parallel-needs-shut-off', params: {}, pointer: `/pumps/${index}` });
     }
   });
   const shutOffs = pumps.map((pump) => polynomialValue(pump.headCoefficients, 0));
@@ -139,7 +142,10 @@ export function solveParallelUnequal(pumps: readonly HeadCurve[], system: Compil
     return {
       ok: false,
       reason: 'below-static-head',
-      message: `the highest shut-off head ${highest.toFixed(2)} m does not exceed the static head ${system.staticHead.toFixed(2)} m`,
+      issue: {
+        code: 'highest-shut-off-below-static-head',
+        params: { shutOffHead: highest, staticHead: system.staticHead },
+      },
     };
   }
   const lowest = Math.max(...pumps.map((pump) => polynomialValue(pump.headCoefficients, pump.flowMax)));
@@ -150,7 +156,7 @@ export function solveParallelUnequal(pumps: readonly HeadCurve[], system: Compil
     return {
       ok: false,
       reason: 'beyond-curve',
-      message: 'at least one pump would run past the last published point of its curve (run-out)',
+      issue: { code: 'arrangement-run-out', params: {} },
     };
   }
   const head = findRootBracketed(surplus, lowest, highest);

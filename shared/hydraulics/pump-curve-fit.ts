@@ -1,3 +1,5 @@
+import { engineIssueText } from '../messages/engine-issue-text';
+import type { EngineIssue } from './engine-issues';
 import { HydraulicsInputError, requireFinite, requireNonNegative, requirePositive } from './hydraulics-error';
 import { leastSquaresPolynomial } from './least-squares';
 import { STANDARD_GRAVITY } from './physical-constants';
@@ -108,11 +110,10 @@ interface HeadCandidate {
   /** Powers of x = Q - origin used by the fit; leaving out power 1 holds the slope at zero there. */
   powers: number[];
   origin: 'first' | 'last';
-  description: string;
 }
 
-function candidate(degree: 2 | 3, powers: number[], origin: 'first' | 'last', description: string): HeadCandidate {
-  return { degree, powers, origin, description };
+function candidate(degree: 2 | 3, powers: number[], origin: 'first' | 'last'): HeadCandidate {
+  return { degree, powers, origin };
 }
 
 /**
@@ -130,7 +131,7 @@ function candidate(degree: 2 | 3, powers: number[], origin: 'first' | 'last', de
 function fitNonIncreasingHead(
   flows: readonly number[],
   heads: readonly number[],
-): { degree: 2 | 3; headCoefficients: number[]; note: string | null } {
+): { degree: 2 | 3; headCoefficients: number[]; note: EngineIssue | null } {
   const first = flows[0];
   const last = flows[flows.length - 1];
   const tolerance = HEAD_RISE_TOLERANCE * Math.max(...heads);
@@ -153,35 +154,35 @@ function fitNonIncreasingHead(
   };
 
   const preferred = preferredDegree(flows);
-  const unconstrained = fit(candidate(preferred, preferred === 3 ? [0, 1, 2, 3] : [0, 1, 2], 'first', ''));
+  const unconstrained = fit(candidate(preferred, preferred === 3 ? [0, 1, 2, 3] : [0, 1, 2], 'first'));
   if (!unconstrained.rises) {
     return { degree: preferred, headCoefficients: unconstrained.headCoefficients, note: null };
   }
   const alternatives: HeadCandidate[] = [
     ...(preferred === 3
-      ? [
-          candidate(3, [0, 2, 3], 'first', 'a cubic held flat at the first point'),
-          candidate(3, [0, 2, 3], 'last', 'a cubic held flat at the last point'),
-          candidate(2, [0, 1, 2], 'first', 'a quadratic'),
-        ]
+      ? [candidate(3, [0, 2, 3], 'first'), candidate(3, [0, 2, 3], 'last'), candidate(2, [0, 1, 2], 'first')]
       : []),
-    candidate(2, [0, 2], 'first', 'a quadratic held flat at the first point'),
-    candidate(2, [0, 2], 'last', 'a quadratic held flat at the last point'),
+    candidate(2, [0, 2], 'first'),
+    candidate(2, [0, 2], 'last'),
   ];
   const best = alternatives
     .map(fit)
     .filter((result) => !result.rises)
     .sort((a, b) => a.squares - b.squares)[0];
   if (!best) {
-    throw new HydraulicsInputError(
-      '/points',
-      'no quadratic or cubic through these points keeps head from rising with flow; add points near shut-off or check the data',
-    );
+    throw new HydraulicsInputError({ code: 'no-falling-fit', params: {}, pointer: '/points' });
   }
   return {
     degree: best.option.degree,
     headCoefficients: best.headCoefficients,
-    note: `the ${preferred === 3 ? 'cubic' : 'quadratic'} least-squares fit would rise within the data range; head is fitted as ${best.option.description} so that it does not rise`,
+    note: {
+      code: 'head-fit-constrained',
+      params: {
+        leastSquaresDegree: preferred,
+        degree: best.option.degree,
+        heldFlatAt: best.option.powers.includes(1) ? null : best.option.origin,
+      },
+    },
   };
 }
 
@@ -193,14 +194,15 @@ function pointEfficiencies(points: readonly PumpCurvePoint[]): number[] | null {
     return points.map((point, index) => {
       const power = point.power as number;
       if (power === 0) {
-        throw new HydraulicsInputError(`/points/${index}/power`, 'power must be greater than zero');
+        throw new HydraulicsInputError({ code: 'power-not-positive', params: {}, pointer: `/points/${index}/power` });
       }
       const efficiency = (TEST_WATER_DENSITY * STANDARD_GRAVITY * point.flow * point.head) / power;
       if (efficiency > 1) {
-        throw new HydraulicsInputError(
-          `/points/${index}/power`,
-          `power ${power} W is less than the water power ${(efficiency * power).toFixed(1)} W at this point`,
-        );
+        throw new HydraulicsInputError({
+          code: 'power-below-water-power',
+          params: { power, waterPower: efficiency * power },
+          pointer: `/points/${index}/power`,
+        });
       }
       return efficiency;
     });
@@ -254,20 +256,31 @@ function locateBep(
  * flows not strictly increasing, or head rising with flow.
  */
 export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCurveFitOptions = {}): PumpCurveFit {
+  return fitPumpCurveWithIssues(points, options).fit;
+}
+
+/**
+ * fitPumpCurve, with what the fit has to say as engine issues; the fit's `warnings` are their
+ * sentences (SI), made once here because fits are stored and these carry no unit-bound values.
+ */
+export function fitPumpCurveWithIssues(
+  points: readonly PumpCurvePoint[],
+  options: PumpCurveFitOptions = {},
+): { fit: PumpCurveFit; issues: EngineIssue[] } {
   validatePumpCurvePoints(points);
   const flows = points.map((point) => point.flow);
   const heads = points.map((point) => point.head);
   const flowMin = flows[0];
   const flowMax = flows[flows.length - 1];
-  const warnings: string[] = [];
+  const issues: EngineIssue[] = [];
 
   const { degree, headCoefficients, note } = fitNonIncreasingHead(flows, heads);
   if (note) {
-    warnings.push(note);
+    issues.push(note);
   }
   const shutOffHead = headCoefficients[0];
   if (flowMin > 0) {
-    warnings.push('shut-off head is extrapolated: the first point is not at zero flow');
+    issues.push({ code: 'shut-off-extrapolated', params: { flowMin } });
   }
 
   const residuals = points.map((point) => point.head - polynomialValue(headCoefficients, point.flow));
@@ -297,9 +310,6 @@ export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCur
         )
       : null;
   const npshPoints = points.filter((point) => point.npshRequired !== undefined);
-  if (npshPoints.length > 0 && npshPoints.length < 3) {
-    throw new HydraulicsInputError('/points', 'NPSH required needs at least three points when given');
-  }
   const npshRequired: FittedRange | null =
     npshPoints.length >= 3
       ? {
@@ -319,15 +329,16 @@ export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCur
     requireNonNegative(aorMin, '/allowableRegion/flowMin', 'allowable region minimum flow');
     requirePositive(aorMax, '/allowableRegion/flowMax', 'allowable region maximum flow');
     if (!(aorMax > aorMin)) {
-      throw new HydraulicsInputError(
-        '/allowableRegion/flowMax',
-        'allowable region maximum flow must exceed its minimum',
-      );
+      throw new HydraulicsInputError({
+        code: 'allowable-region-reversed',
+        params: {},
+        pointer: '/allowableRegion/flowMax',
+      });
     }
     allowableRegion = { flowMin: aorMin, flowMax: aorMax };
   }
 
-  return {
+  const fit: PumpCurveFit = {
     schemaVersion: 1,
     degree,
     headCoefficients,
@@ -341,8 +352,9 @@ export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCur
     ...locateBep(efficiencyCoefficients, headCoefficients, flowMin, flowMax),
     allowableRegion,
     statistics,
-    warnings,
+    warnings: issues.map((issue) => engineIssueText(issue)),
   };
+  return { fit, issues };
 }
 
 /** Throws unless `flow` lies within [flowMin, flowMax]: fitted curves are never extrapolated. */
@@ -350,10 +362,11 @@ export function requireFlowInRange(range: { flowMin: number; flowMax: number }, 
   requireFinite(flow, field, 'flow');
   const slack = 1e-12 * range.flowMax;
   if (flow < range.flowMin - slack || flow > range.flowMax + slack) {
-    throw new HydraulicsInputError(
-      field,
-      `flow ${flow} m3/s is outside the curve's published range ${range.flowMin}-${range.flowMax} m3/s`,
-    );
+    throw new HydraulicsInputError({
+      code: 'flow-outside-curve',
+      params: { flow, flowMin: range.flowMin, flowMax: range.flowMax },
+      pointer: field,
+    });
   }
   return flow;
 }
