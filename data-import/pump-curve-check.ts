@@ -36,6 +36,12 @@ const pointFields = {
   npshRequired: 'npsh_required',
 } as const;
 
+/** The fit's allowable-region inputs and the columns they came from. */
+const regionColumns: Readonly<Record<string, string>> = {
+  '/allowableRegion/flowMin': 'allowable_flow_min',
+  '/allowableRegion/flowMax': 'allowable_flow_max',
+};
+
 /** Maps an engine complaint (`/points/3/head`) to the row and column it came from, with the importer's code. */
 function engineIssue(pump: ReadPump, error: EngineInputError): ImportIssue {
   const match = /^\/points\/(\d+)\/(\w+)$/.exec(error.pointer);
@@ -58,14 +64,12 @@ function engineIssue(pump: ReadPump, error: EngineInputError): ImportIssue {
       });
     case 'npsh-too-few-points':
       return issue(row, 'npsh_required', 'npsh-on-few-points', { modelCode, count: error.params.count });
-    default: {
-      const where = point
-        ? { row, column }
-        : error.pointer.startsWith('/allowableRegion')
-          ? { row: pump.firstRow, column: 'allowable_flow_max' }
-          : { row: pump.firstRow, column: 'head' };
-      return issue(where.row, where.column, 'curve-refused', { modelCode, error, pointRow: point ? row : null });
-    }
+    default:
+      return issue(row, point ? column : (regionColumns[error.pointer] ?? 'head'), 'curve-refused', {
+        modelCode,
+        error,
+        pointRow: point ? row : null,
+      });
   }
 }
 
