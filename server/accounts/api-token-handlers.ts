@@ -1,29 +1,31 @@
 import type { RequestHandler } from 'express';
 import type { Sequelize } from 'sequelize';
-import type { ApiTokenSummary, CreatedApiToken, NewApiToken } from '../../shared/api/api-schemas';
+import type { CreatedApiToken, NewApiToken } from '../../shared/api/api-schemas';
 import { ProblemError } from '../api/problem-details';
-import { ApiToken } from '../database/models';
+import { ApiToken, User } from '../database/models';
 import { recordAuditEvent } from './audit-log';
 import { currentUser } from './authenticated-user';
+import { verifyPassword } from './passwords';
 import { newSecretToken } from './secret-tokens';
+import { toApiTokenSummary } from './user-views';
 import { checkedName } from '../api/checked-text';
 
 const dayMs = 24 * 3600_000;
 
-function toSummary(apiToken: ApiToken): ApiTokenSummary {
-  return {
-    id: apiToken.id,
-    name: apiToken.name,
-    prefix: apiToken.tokenPrefix,
-    scopes: apiToken.scopes,
-    createdAt: apiToken.createdAt.toISOString(),
-    lastUsedAt: apiToken.lastUsedAt?.toISOString() ?? null,
-    expiresAt: apiToken.expiresAt?.toISOString() ?? null,
-    revokedAt: apiToken.revokedAt?.toISOString() ?? null,
-  };
+function wrongPassword(): ProblemError {
+  return new ProblemError(
+    403,
+    'Wrong password',
+    'The password is not right; a new API token needs the password of the account',
+    [{ pointer: '/body/password', detail: 'is not right' }],
+    'wrong-password',
+  );
 }
 
-/** Personal API tokens: each user sees and revokes only their own. */
+/**
+ * Personal API tokens: each user sees and revokes only their own. Making one asks for the
+ * password again, so that a stolen session cannot leave behind a token that outlives a reset.
+ */
 export function createApiTokenHandlers(sequelize: Sequelize): Record<string, RequestHandler> {
   return {
     listApiTokens: async (request, response) => {
@@ -34,18 +36,29 @@ export function createApiTokenHandlers(sequelize: Sequelize): Record<string, Req
           ['id', 'DESC'],
         ],
       });
-      response.set('Cache-Control', 'no-store').json({ tokens: tokens.map(toSummary) });
+      response.set('Cache-Control', 'no-store').json({ tokens: tokens.map(toApiTokenSummary) });
     },
 
     createApiToken: async (request, response) => {
       const user = currentUser(request);
       const body = request.body as NewApiToken;
+      const name = checkedName(body.name, '/body/name');
+      const owner = await User.findByPk(user.id, { rejectOnEmpty: true });
+      if (!(await verifyPassword(owner.passwordHash, body.password))) {
+        await recordAuditEvent(request, {
+          action: 'api-token-create-failed',
+          subjectUserId: user.id,
+          email: owner.email,
+          detail: 'wrong password',
+        });
+        throw wrongPassword();
+      }
       const { token, hash, prefix } = newSecretToken('apiToken');
       const created = await sequelize.transaction(async (transaction) => {
         const apiToken = await ApiToken.create(
           {
             userId: user.id,
-            name: checkedName(body.name, '/body/name'),
+            name,
             tokenPrefix: prefix,
             tokenHash: hash,
             scopes: body.scopes,
@@ -65,7 +78,7 @@ export function createApiTokenHandlers(sequelize: Sequelize): Record<string, Req
         );
         return apiToken;
       });
-      const answer: CreatedApiToken = { token, apiToken: toSummary(created) };
+      const answer: CreatedApiToken = { token, apiToken: toApiTokenSummary(created) };
       response.status(201).set('Cache-Control', 'no-store').json(answer);
     },
 
@@ -84,7 +97,7 @@ export function createApiTokenHandlers(sequelize: Sequelize): Record<string, Req
             { pointer: '/path/tokenId', detail: 'is not one of your tokens' },
           ]);
         if (apiToken.revokedAt) return;
-        await apiToken.update({ revokedAt: new Date() }, { transaction });
+        await apiToken.update({ revokedAt: new Date(), revokedReason: 'owner' }, { transaction });
         await recordAuditEvent(
           request,
           {

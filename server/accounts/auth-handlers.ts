@@ -5,12 +5,14 @@ import type {
   NewPasswordRequest,
   PasswordChange,
   PasswordResetRequest,
+  RevokedApiTokens,
   SignInRequest,
 } from '../../shared/api/api-schemas';
 import { ProblemError } from '../api/problem-details';
 import { Invitation, PasswordResetLink, User } from '../database/models';
 import { passwordResetMessage } from './account-mail';
 import { lifetimes, type AccountsDependencies } from './accounts-dependencies';
+import { revokeLiveApiTokens } from './api-token-revocation';
 import { recordAuditEvent } from './audit-log';
 import { currentUser } from './authenticated-user';
 import { hashPassword, passwordWeakness, verifyPassword } from './passwords';
@@ -41,6 +43,11 @@ function refuseWeakPassword(password: string, email: string, pointer = '/body/pa
       [{ pointer, detail: weakness }],
       'weak-password',
     );
+}
+
+function revokedDetail({ revokedApiTokens }: RevokedApiTokens): string | undefined {
+  if (revokedApiTokens.length === 0) return undefined;
+  return `API tokens revoked: ${revokedApiTokens.map((apiToken) => apiToken.prefix).join(' ')}`;
 }
 
 /** Sign-in, sign-out, who-am-I, a password change, and the two e-mailed links: password reset and invitation. */
@@ -125,16 +132,27 @@ export function createAuthHandlers(
       }
       refuseWeakPassword(body.newPassword, user.email, '/body/newPassword');
       const passwordHash = await hashPassword(body.newPassword);
-      await sequelize.transaction(async (transaction) => {
+      const now = new Date();
+      const revoked = await sequelize.transaction(async (transaction) => {
         await User.update({ passwordHash }, { where: { id: user.id }, transaction });
-        await revokeAllSessions(user.id, transaction, new Date(), presentedToken(request));
+        await revokeAllSessions(user.id, transaction, now, presentedToken(request));
+        const tokens = body.revokeApiTokens
+          ? await revokeLiveApiTokens(user.id, 'password-change', transaction, now)
+          : { revokedApiTokenCount: 0, revokedApiTokens: [] };
         await recordAuditEvent(
           request,
-          { action: 'password-changed', actorUserId: user.id, subjectUserId: user.id, email: user.email },
+          {
+            action: 'password-changed',
+            actorUserId: user.id,
+            subjectUserId: user.id,
+            email: user.email,
+            detail: revokedDetail(tokens),
+          },
           transaction,
         );
+        return tokens;
       });
-      response.status(204).end();
+      response.set('Cache-Control', 'no-store').json(revoked);
     },
 
     requestPasswordReset: async (request, response) => {
@@ -157,7 +175,7 @@ export function createAuthHandlers(
       if (!link || !user) throw linkGone();
       refuseWeakPassword(body.password, user.email);
       const passwordHash = await hashPassword(body.password);
-      await sequelize.transaction(async (transaction) => {
+      const revoked = await sequelize.transaction(async (transaction) => {
         // Taking the link and changing the password in one step: a second use finds no unused link.
         const [taken] = await PasswordResetLink.update(
           { usedAt: now },
@@ -166,13 +184,22 @@ export function createAuthHandlers(
         if (taken !== 1) throw linkGone();
         await User.update({ passwordHash }, { where: { id: user.id }, transaction });
         await revokeAllSessions(user.id, transaction, now);
+        // A reset answers a suspected compromise: tokens a stolen session made must die with it.
+        const tokens = await revokeLiveApiTokens(user.id, 'password-reset', transaction, now);
         await recordAuditEvent(
           request,
-          { action: 'password-reset', actorUserId: user.id, subjectUserId: user.id, email: user.email },
+          {
+            action: 'password-reset',
+            actorUserId: user.id,
+            subjectUserId: user.id,
+            email: user.email,
+            detail: revokedDetail(tokens),
+          },
           transaction,
         );
+        return tokens;
       });
-      response.status(204).end();
+      response.set('Cache-Control', 'no-store').json(revoked);
     },
 
     acceptInvitation: async (request, response) => {

@@ -10,7 +10,7 @@ import { seedMissingDemoData } from '../demo/demo-seed';
 import { createMigrator } from '../database/migrator';
 import { initialiseModels } from '../database/models';
 import { MariaDbStartError, PrivateMariaDb } from '../database/private-mariadb';
-import { createLogger } from '../logging';
+import { cappedLogFile, createLogger, logFileMaxBytes } from '../logging';
 import { demoAccounts, demoPassword } from '../accounts/demo-accounts';
 import { startFakeSmtpServer } from '../mail/fake-smtp-server';
 import { createSmtpMailer } from '../mail/mailer';
@@ -53,7 +53,9 @@ async function main(): Promise<void> {
     say((error as Error).message);
     process.exit(1);
   }
-  const logger = createLogger(config.logLevel);
+  const logPath = join(config.varDir, 'log', 'riffle.log');
+  const logger = createLogger(config.logLevel, undefined, cappedLogFile(logPath));
+  say(`log: ${logPath} (JSON lines; at ${logFileMaxBytes / 1024 / 1024} MiB it moves to riffle.log.1, 2 files kept)`);
   const stops: Array<{ what: string; stop: () => Promise<void> }> = [];
   let stopping = false;
 

@@ -58,8 +58,8 @@ function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnin
   const { curve, density } = prepareSystem(body.units, body.system);
   const flowMin = flowToSI(body.duty.flowMin, body.units.flow);
   const flowMax = flowToSI(body.duty.flowMax, body.units.flow);
-  requirePlausibleFlow(flowMin, '/body/duty/flowMin');
-  requirePlausibleFlow(flowMax, '/body/duty/flowMax');
+  requirePlausibleFlow(flowMin, '/body/duty/flowMin', body.units);
+  requirePlausibleFlow(flowMax, '/body/duty/flowMax', body.units);
   if (flowMin > flowMax)
     throw unprocessable(
       '/body/duty/flowMax',

@@ -108,7 +108,9 @@ export interface paths {
         put?: never;
         /**
          * Set a new password with the e-mailed link's token
-         * @description The link works once and expires; every session of the user is signed out.
+         * @description The link works once and expires. A reset answers a suspected compromise, so every session
+         *     of the user is signed out and every live personal API token is revoked (reason
+         *     `password-reset`); the answer lists those tokens so that their owner knows what to make again.
          */
         post: operations["resetPassword"];
         delete?: never;
@@ -144,7 +146,12 @@ export interface paths {
         /** My personal API tokens (never the tokens themselves) */
         get: operations["listApiTokens"];
         put?: never;
-        /** Create a personal API token; the answer is the only time the token is shown */
+        /**
+         * Create a personal API token; the answer is the only time the token is shown
+         * @description Asks for the account's password again, so that a stolen session alone cannot make a token
+         *     that would outlive a password reset. A wrong password is a 403 naming `/body/password` and
+         *     counts towards the same limit as failed sign-ins (429).
+         */
         post: operations["createApiToken"];
         delete?: never;
         options?: never;
@@ -164,7 +171,7 @@ export interface paths {
         get?: never;
         put?: never;
         post?: never;
-        /** Revoke one of my API tokens */
+        /** Revoke one of my API tokens (reason `owner`) */
         delete: operations["revokeApiToken"];
         options?: never;
         head?: never;
@@ -182,7 +189,8 @@ export interface paths {
         /**
          * Change my password, giving the current one
          * @description For a signed-in session, not for API tokens. Every other session of the account is
-         *     signed out; this one stays. Personal API tokens keep working until they are revoked.
+         *     signed out; this one stays. Personal API tokens keep working unless `revokeApiTokens` is
+         *     true, which revokes every live one (reason `password-change`); the answer says which.
          *     A wrong current password counts towards the same limit as failed sign-ins (429).
          */
         put: operations["changePassword"];
@@ -1241,6 +1249,11 @@ export interface components {
         PasswordChange: {
             currentPassword: string;
             newPassword: components["schemas"]["NewPassword"];
+            /**
+             * @description Also revoke every live personal API token.
+             * @default false
+             */
+            revokeApiTokens: boolean;
         };
         InvitationAcceptance: {
             token: components["schemas"]["EmailLinkToken"];
@@ -1261,6 +1274,16 @@ export interface components {
             expiresAt: string | null;
             /** Format: date-time */
             revokedAt: string | null;
+            revokedReason: components["schemas"]["ApiTokenRevokedReason"] | null;
+        };
+        /**
+         * @description Who or what revoked the token: its owner, a password change that asked to, or a password reset.
+         * @enum {string}
+         */
+        ApiTokenRevokedReason: "owner" | "password-change" | "password-reset";
+        RevokedApiTokens: {
+            revokedApiTokenCount: number;
+            revokedApiTokens: components["schemas"]["ApiTokenSummary"][];
         };
         ApiTokenList: {
             tokens: components["schemas"]["ApiTokenSummary"][];
@@ -1271,6 +1294,8 @@ export interface components {
             scopes: components["schemas"]["ApiScope"][];
             /** @description Leave out for a token that does not expire. */
             expiresInDays?: number;
+            /** @description The account's password, asked again. */
+            password: string;
         };
         CreatedApiToken: {
             /** @description Shown this once; Riffle keeps only its hash. */
@@ -1442,6 +1467,15 @@ export interface components {
         };
         /** @description The new password is too short, too common or contains the e-mail address. */
         WeakPassword: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description Not allowed (as NotAllowed), or the password given again is not right; then the problem's errors point at `/body/password`. */
+        NotAllowedOrWrongPassword: {
             headers: {
                 [name: string]: unknown;
             };
@@ -1670,12 +1704,34 @@ export interface operations {
             };
         };
         responses: {
-            /** @description The password is changed. */
-            204: {
+            /** @description The password is changed; the sessions are signed out and the API tokens revoked. */
+            200: {
                 headers: {
                     [name: string]: unknown;
                 };
-                content?: never;
+                content: {
+                    /**
+                     * @example {
+                     *       "revokedApiTokenCount": 1,
+                     *       "revokedApiTokens": [
+                     *         {
+                     *           "id": 3,
+                     *           "name": "Estimating sheet",
+                     *           "prefix": "rft_Q2xLpa",
+                     *           "scopes": [
+                     *             "calculations:run"
+                     *           ],
+                     *           "createdAt": "2026-11-02T09:15:00.000Z",
+                     *           "lastUsedAt": "2026-11-30T16:40:00.000Z",
+                     *           "expiresAt": null,
+                     *           "revokedAt": "2026-12-01T08:00:00.000Z",
+                     *           "revokedReason": "password-reset"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["RevokedApiTokens"];
+                };
             };
             400: components["responses"]["BadRequest"];
             410: components["responses"]["LinkGone"];
@@ -1751,6 +1807,19 @@ export interface operations {
                      * @example {
                      *       "tokens": [
                      *         {
+                     *           "id": 4,
+                     *           "name": "Drawing export",
+                     *           "prefix": "rft_Hk7wQe",
+                     *           "scopes": [
+                     *             "catalog:read"
+                     *           ],
+                     *           "createdAt": "2026-12-01T09:00:00.000Z",
+                     *           "lastUsedAt": null,
+                     *           "expiresAt": "2027-03-01T09:00:00.000Z",
+                     *           "revokedAt": null,
+                     *           "revokedReason": null
+                     *         },
+                     *         {
                      *           "id": 3,
                      *           "name": "Estimating sheet",
                      *           "prefix": "rft_Q2xLpa",
@@ -1760,7 +1829,8 @@ export interface operations {
                      *           "createdAt": "2026-11-02T09:15:00.000Z",
                      *           "lastUsedAt": "2026-11-30T16:40:00.000Z",
                      *           "expiresAt": null,
-                     *           "revokedAt": null
+                     *           "revokedAt": "2026-12-01T08:00:00.000Z",
+                     *           "revokedReason": "password-reset"
                      *         }
                      *       ]
                      *     }
@@ -1788,7 +1858,8 @@ export interface operations {
                  *         "calculations:run",
                  *         "catalog:read"
                  *       ],
-                 *       "expiresInDays": 90
+                 *       "expiresInDays": 90,
+                 *       "password": "gravel-bed-weir-42"
                  *     }
                  */
                 "application/json": components["schemas"]["NewApiToken"];
@@ -1815,7 +1886,8 @@ export interface operations {
                      *         "createdAt": "2026-11-02T09:15:00.000Z",
                      *         "lastUsedAt": null,
                      *         "expiresAt": "2027-01-31T09:15:00.000Z",
-                     *         "revokedAt": null
+                     *         "revokedAt": null,
+                     *         "revokedReason": null
                      *       }
                      *     }
                      */
@@ -1824,7 +1896,8 @@ export interface operations {
             };
             400: components["responses"]["BadRequest"];
             401: components["responses"]["Unauthorized"];
-            403: components["responses"]["NotAllowed"];
+            403: components["responses"]["NotAllowedOrWrongPassword"];
+            429: components["responses"]["TooManyRequests"];
         };
     };
     revokeApiToken: {
@@ -1863,19 +1936,42 @@ export interface operations {
                 /**
                  * @example {
                  *       "currentPassword": "riffle-demo",
-                 *       "newPassword": "gravel-bed-weir-42"
+                 *       "newPassword": "gravel-bed-weir-42",
+                 *       "revokeApiTokens": true
                  *     }
                  */
                 "application/json": components["schemas"]["PasswordChange"];
             };
         };
         responses: {
-            /** @description The password is changed and the other sessions are signed out. */
-            204: {
+            /** @description The password is changed and the other sessions are signed out; the API tokens revoked, if asked. */
+            200: {
                 headers: {
                     [name: string]: unknown;
                 };
-                content?: never;
+                content: {
+                    /**
+                     * @example {
+                     *       "revokedApiTokenCount": 1,
+                     *       "revokedApiTokens": [
+                     *         {
+                     *           "id": 3,
+                     *           "name": "Estimating sheet",
+                     *           "prefix": "rft_Q2xLpa",
+                     *           "scopes": [
+                     *             "calculations:run"
+                     *           ],
+                     *           "createdAt": "2026-11-02T09:15:00.000Z",
+                     *           "lastUsedAt": "2026-11-30T16:40:00.000Z",
+                     *           "expiresAt": null,
+                     *           "revokedAt": "2026-12-01T08:00:00.000Z",
+                     *           "revokedReason": "password-change"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["RevokedApiTokens"];
+                };
             };
             400: components["responses"]["BadRequest"];
             401: components["responses"]["Unauthorized"];

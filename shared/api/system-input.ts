@@ -7,7 +7,11 @@ import type { CalculationUnits, PipeSystem } from './api-schemas';
  * in three places; SYSTEM_FIELD_RENAMES turns an engine field back into the contract's.
  */
 
-/** Engine field name -> the contract's name for it. */
+/**
+ * Engine field name -> the contract's name for it.
+ * @example
+ * SYSTEM_FIELD_RENAMES.extraK // => 'minorLossK'
+ */
 export const SYSTEM_FIELD_RENAMES: Readonly<Record<string, string>> = Object.freeze({
   temperature: 'waterTemperatureC',
   pipeSizeId: 'pipe',
@@ -29,7 +33,21 @@ function segmentInputOf(segment: PipeSystem['segments'][number], units: Calculat
   };
 }
 
-/** The system as compileSystemCurve takes it; heads in `units.head`, no outlet pressure meaning 0. */
+/**
+ * The system as compileSystemCurve takes it: lengths, bores, roughness and heads converted to SI by
+ * the engine's unit conversions (units.ts; NIST SP 811 factors), no outlet pressure meaning 0.
+ * @param system - the contract's system, in the request's units
+ * @param units - the request's units: `length` for lengths, `diameter` for bores and roughness, `head` for heads
+ * @returns the engine's SI input (m, C)
+ * @example
+ * // exact: 10 ft = 3.048 m, 100 ft = 30.48 m, 0.0018 in = 4.572e-5 m
+ * const units = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' }
+ * const input = systemInputOf({ staticHead: 10, frictionMethod: 'darcy-weisbach', segments: [{ length: 100, insideDiameter: 2.067, roughness: 0.0018 }] }, units)
+ * input.staticHead // => 3.048
+ * input.segments[0].length // => 30.48
+ * input.segments[0].roughness // => 4.572e-5
+ * compileSystemCurve(input).staticHead // => 3.048
+ */
 export function systemInputOf(system: PipeSystem, units: CalculationUnits): SystemCurveInput {
   return {
     staticHead: headToSI(system.staticHead, units.head),

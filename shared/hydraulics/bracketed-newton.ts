@@ -31,13 +31,16 @@ const scratch = new Float64Array(2);
  * so a step below `finalStep` leaves an error of about its square over the bracket. Source:
  * W. H. Press et al., Numerical Recipes, 3rd ed., Cambridge 2007, section 9.4 ("rtsafe").
  *
- * @param fn the function, falling across the bracket
- * @param low left bracket end where f > 0, in the unit of x
- * @param high right bracket end where f < 0
- * @param start first iterate, inside (low, high)
- * @param stopping the stopping rules, in the unit of x
- * @returns the root and the number of evaluations
+ * Valid for a function with a continuous derivative that falls across the bracket.
+ *
+ * @param fn - the function, falling across the bracket
+ * @param low - left bracket end where f > 0, in the unit of x
+ * @param high - right bracket end where f < 0, in the unit of x
+ * @param start - first iterate, inside (low, high)
+ * @param stopping - the stopping rules, in the unit of x
+ * @returns the root (unit of x) and the number of evaluations
  * @example
+ * // sqrt(2) = 1.41421356237...
  * const falling = { valueAndSlope: (x: number, out: Float64Array) => { out[0] = 2 - x * x; out[1] = -2 * x; } };
  * bracketedNewton(falling, 0, 2, 1, { finalStep: 1e-9, bracketWidth: 1e-12, maxIterations: 60 }).root // => 1.41421356237
  */

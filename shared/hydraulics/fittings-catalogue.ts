@@ -16,6 +16,7 @@ import { diameterToSI } from './units';
 /** Crane's roughness of clean commercial steel, 0.0018 in, in m. */
 const CRANE_STEEL_ROUGHNESS = diameterToSI(0.0018, 'in');
 
+/** Every fitting kind the catalogue knows, the ids a segment's fittings name. */
 export const FITTING_KINDS = [
   'elbow-90-standard',
   'elbow-90-long-radius',
@@ -58,7 +59,13 @@ function fixed(kind: FittingKind, label: string, k: number): FittingDefinition {
   return { kind, label, resistance: { method: 'fixed', k }, source: `${CRANE}: K = ${k}` };
 }
 
-/** The catalogue, in the order of FITTING_KINDS. */
+/**
+ * The catalogue, in the order of FITTING_KINDS, each entry with its Crane TP-410 source (Appendix
+ * A-29 multipliers n of K = n f_T, or fixed K for entrances and the exit).
+ * @example
+ * FITTINGS.length // => 17
+ * FITTINGS[0].kind // => 'elbow-90-standard'
+ */
 export const FITTINGS: readonly FittingDefinition[] = Object.freeze([
   crane('elbow-90-standard', '90-degree standard elbow', 30),
   crane(
@@ -91,7 +98,14 @@ const FITTINGS_BY_KIND: ReadonlyMap<string, FittingDefinition> = new Map(FITTING
  *   f_T = 0.25 / [log10((eps/D)/3.7)]^2, eps = 0.0018 in.
  * Source: Crane TP-410, Appendix A-26 (the rough-pipe limit of Colebrook's
  * equation). Valid for the bores of Crane's tables (1/2" to 24").
- * @param insideDiameter m
+ * @param insideDiameter - inside diameter of the fitting's pipe, m (> 0)
+ * @param field - JSON pointer named when the diameter is rejected
+ * @returns fully turbulent Darcy friction factor f_T, dimensionless
+ * @example
+ * // 2" and 3" Schedule 40 bores (2.067 in, 3.068 in); by hand with the formula above. python3-fluids
+ * // 1.0.22 ft_Crane, which solves Colebrook at a high Reynolds number instead, gives 0.017213 for 3"
+ * craneFullyTurbulentFrictionFactor(0.0525018) // => 0.018991
+ * craneFullyTurbulentFrictionFactor(0.0779272) // => 0.017315
  */
 export function craneFullyTurbulentFrictionFactor(insideDiameter: number, field = '/insideDiameter'): number {
   requirePositive(insideDiameter, field, 'inside diameter');
@@ -99,7 +113,14 @@ export function craneFullyTurbulentFrictionFactor(insideDiameter: number, field 
   return 0.25 / (logTerm * logTerm);
 }
 
-/** The catalogue entry for `kind`; unknown kind -> HydraulicsInputError naming the valid kinds. */
+/**
+ * The catalogue entry for `kind`; unknown kind -> HydraulicsInputError naming the valid kinds.
+ * @param kind - one of FITTING_KINDS
+ * @param field - JSON pointer named when the kind is unknown
+ * @returns the fitting's label, resistance rule and source
+ * @example
+ * fittingByKind('check-valve-swing').resistance.multiplier // => 100
+ */
 export function fittingByKind(kind: string, field = '/kind'): FittingDefinition {
   const fitting = FITTINGS_BY_KIND.get(kind);
   if (!fitting) {
@@ -113,8 +134,17 @@ export function fittingByKind(kind: string, field = '/kind'): FittingDefinition 
 }
 
 /**
- * Resistance coefficient K of one fitting in a pipe of `insideDiameter` (m).
- * Crane fittings: K = n f_T(D); entrances and exit: fixed K. Source per entry.
+ * Resistance coefficient K of one fitting in a pipe of `insideDiameter` (m), for h_m = K V^2 / 2g.
+ * Crane fittings: K = n f_T(D); entrances and exit: fixed K. Source per entry (Crane TP-410,
+ * Appendix A-29). Valid for full-bore fittings in turbulent flow, Crane's bores 1/2" to 24".
+ * @param kind - one of FITTING_KINDS
+ * @param insideDiameter - inside diameter, m (> 0)
+ * @param field - JSON pointer named when the kind is unknown
+ * @returns resistance coefficient K, dimensionless
+ * @example
+ * // 90-degree standard elbow in 3" Schedule 40: 30 f_T = 30 x 0.017315 by hand; the exit is K = 1
+ * fittingK('elbow-90-standard', 0.0779272) // => 0.51945
+ * fittingK('exit', 0.0779272) // => 1
  */
 export function fittingK(kind: string, insideDiameter: number, field = '/kind'): number {
   const { resistance } = fittingByKind(kind, field);

@@ -12,14 +12,14 @@ import { STANDARD_GRAVITY } from './physical-constants';
  * point; real flow in that band is unsteady and no correlation predicts it.
  */
 
-/** Reynolds number below which flow is taken as laminar. */
+/** Reynolds number below which flow is taken as laminar: ~2300, the usual engineering value (White, Fluid Mechanics, 7th ed., ch. 6). */
 export const LAMINAR_REYNOLDS_LIMIT = 2300;
-/** Reynolds number from which flow is taken as fully turbulent. */
+/** Reynolds number from which flow is taken as fully turbulent: 4000, where the Moody chart's turbulent curves begin (Moody 1944). */
 export const TURBULENT_REYNOLDS_LIMIT = 4000;
 
 export type FrictionFactorMethod = 'colebrook' | 'swamee-jain';
 
-/** Exponent of flow in the SI Hazen-Williams formula. */
+/** Exponent of flow in the SI Hazen-Williams formula (see hazenWilliamsResistance for the source). */
 export const HAZEN_WILLIAMS_FLOW_EXPONENT = 1.852;
 /** Exponent of diameter in the SI Hazen-Williams formula. */
 const HAZEN_WILLIAMS_DIAMETER_EXPONENT = 4.8704;
@@ -32,10 +32,22 @@ const HAZEN_WILLIAMS_SI_CONSTANT = 10.67;
  * The US form h_f = 10.44 L Q^1.85 / (C^1.85 d^4.8655) (ft, gpm, in) differs
  * from it because of the rounded exponents: the SI form is 0.6 % lower at
  * 100 gpm in 3" pipe, and the two part by up to ~1.7 % at the extremes of
- * 5-3000 gpm in 1/2"-8" pipe (the tests pin these figures). Source: A. Hazen, G. S. Williams, "Hydraulic Tables" (1905, 3rd
- * ed. 1920); SI constant as in USDA NRCS National Engineering Handbook
- * Part 623 ch. 3 and most hydraulics texts. Valid for water at ~4-25 C in
- * turbulent flow; C per pipe material (see pipe-catalogue).
+ * 5-3000 gpm in 1/2"-8" pipe (the tests pin these figures).
+ *
+ * Source: A. Hazen, G. S. Williams, "Hydraulic Tables" (1905, 3rd ed. 1920); SI constant as in
+ * USDA NRCS National Engineering Handbook Part 623 ch. 3 and most hydraulics texts.
+ * Validity: water at ~4-25 C in turbulent flow (the formula has no viscosity term); C 1-200
+ * accepted, 120-150 for the pipes of the catalogue (see pipe-catalogue).
+ *
+ * @param length - pipe length, m (>= 0)
+ * @param insideDiameter - inside diameter, m (> 0)
+ * @param hazenWilliamsC - Hazen-Williams C, dimensionless (> 0)
+ * @param field - JSON pointer of the segment, prefixed to the field named by a rejected input
+ * @returns resistance r, m per (m3/s)^1.852
+ * @example
+ * // 100 m of 3" Schedule 40 PVC (bore 3.068 in, ASTM D1785), C 150; checked by hand:
+ * // 10.67 * 100 / (150^1.852 * 0.0779272^4.8704) in python3 gives 2.48863e4
+ * hazenWilliamsResistance(100, 0.0779272, 150) // => 2.48863e4
  */
 export function hazenWilliamsResistance(
   length: number,
@@ -54,9 +66,20 @@ export function hazenWilliamsResistance(
 }
 
 /**
- * Hazen-Williams head loss, SI form: h_f = 10.67 L Q^1.852 / (C^1.852 D^4.8704), m.
- * See hazenWilliamsResistance for source and validity.
- * @param flow m3/s (>= 0)
+ * Hazen-Williams head loss, SI form: h_f = 10.67 L Q^1.852 / (C^1.852 D^4.8704), m, i.e.
+ * hazenWilliamsResistance times Q^1.852. Source and validity (water ~4-25 C, turbulent flow) as
+ * hazenWilliamsResistance: Hazen & Williams, "Hydraulic Tables" (3rd ed. 1920); SI constant of
+ * USDA NRCS NEH Part 623 ch. 3.
+ * @param length - pipe length, m (>= 0)
+ * @param flow - volumetric flow, m3/s (>= 0)
+ * @param insideDiameter - inside diameter, m (> 0)
+ * @param hazenWilliamsC - Hazen-Williams C, dimensionless (> 0)
+ * @param field - JSON pointer of the segment, prefixed to the field named by a rejected input
+ * @returns friction head loss, m
+ * @example
+ * // 100 m of 3" Schedule 40 PVC, C 150, at 10 L/s (158.5 gpm); checked by hand in python3
+ * // with the same formula: 10.67 * 100 * 0.01^1.852 / (150^1.852 * 0.0779272^4.8704) = 4.9200 m
+ * headLossHazenWilliams(100, 0.01, 0.0779272, 150) // => 4.9200
  */
 export function headLossHazenWilliams(
   length: number,
@@ -73,15 +96,31 @@ export function headLossHazenWilliams(
 }
 
 /**
- * Reynolds number Re = V D / nu (V in m/s, D in m, nu in m2/s); dimensionless (definition).
+ * Reynolds number Re = |V| D / nu, the ratio of inertial to viscous forces in pipe flow
+ * (definition; O. Reynolds, Phil. Trans. R. Soc. 174 (1883); White, Fluid Mechanics, 7th ed.,
+ * ch. 6). Valid for any Newtonian fluid; no checks (it sits on the friction hot path).
+ * @param velocity - mean velocity, m/s (its sign is ignored)
+ * @param insideDiameter - inside diameter, m
+ * @param kinematicViscosity - kinematic viscosity, m2/s
+ * @returns Reynolds number, dimensionless
  * @example
+ * // 1 m/s in a 50 mm bore, nu 1e-6 m2/s (water near 20 C): exact by the definition
  * reynoldsNumber(1, 0.05, 1e-6) // => 50000
  */
 export function reynoldsNumber(velocity: number, insideDiameter: number, kinematicViscosity: number): number {
   return (Math.abs(velocity) * insideDiameter) / kinematicViscosity;
 }
 
-/** Laminar Darcy friction factor f = 64/Re (Hagen-Poiseuille). Valid Re < ~2300. */
+/**
+ * Laminar Darcy friction factor f = 64/Re, from the Hagen-Poiseuille solution for fully developed
+ * laminar flow in a round pipe (White, Fluid Mechanics, 7th ed., ch. 6). Valid for
+ * Re < ~2300, independent of roughness.
+ * @param reynolds - Reynolds number, dimensionless (> 0)
+ * @returns Darcy friction factor, dimensionless
+ * @example
+ * // exact: 64 / 2000
+ * frictionFactorLaminar(2000) // => 0.032
+ */
 export function frictionFactorLaminar(reynolds: number): number {
   requirePositive(reynolds, '/reynolds', 'Reynolds number');
   return 64 / reynolds;
@@ -92,7 +131,14 @@ export function frictionFactorLaminar(reynolds: number): number {
  *   f = 0.25 / [log10(eps/(3.7 D) + 5.74 / Re^0.9)]^2
  * Source: P. K. Swamee, A. K. Jain, "Explicit equations for pipe-flow
  * problems", J. Hydraulics Div. ASCE 102(HY5), 657-664 (1976). Within about
- * 1 % of Colebrook for 5e3 <= Re <= 1e8 and 1e-6 <= eps/D <= 1e-2.
+ * 1 % of Colebrook for 5e3 <= Re <= 1e8 and 1e-6 <= eps/D <= 1e-2 (the range the
+ * authors state); outside it the error grows.
+ * @param reynolds - Reynolds number, dimensionless (> 0; turbulent, see above)
+ * @param relativeRoughness - relative roughness eps/D, dimensionless (>= 0)
+ * @returns Darcy friction factor, dimensionless
+ * @example
+ * // python3-fluids 1.0.22 Swamee_Jain_1976(1e5, 1e-4) gives 0.0184524 (Colebrook: 0.0185139)
+ * frictionFactorSwameeJain(1e5, 1e-4) // => 0.0184524
  */
 export function frictionFactorSwameeJain(reynolds: number, relativeRoughness: number): number {
   requirePositive(reynolds, '/reynolds', 'Reynolds number');
@@ -112,9 +158,14 @@ const LN10 = Math.LN10;
  * 2-4 steps here). Source: C. F. Colebrook, "Turbulent flow in pipes, with
  * particular reference to the transition region between the smooth and rough
  * pipe laws", J. Inst. Civil Eng. 11(4), 133-156 (1939). Valid for turbulent
- * flow, Re >= ~4000, any eps/D.
+ * flow, Re >= ~4000 (Riffle's tables go to 1e8), any eps/D (0 for a smooth pipe).
+ * @param reynolds - Reynolds number, dimensionless (> 0)
+ * @param relativeRoughness - relative roughness eps/D, dimensionless (>= 0)
+ * @returns Darcy friction factor, dimensionless
  * @example
+ * // python3-fluids 1.0.22 Colebrook(1e5, 1e-4) gives 0.0185139; Colebrook(1e6, 1e-3) 0.0199435
  * frictionFactorColebrook(1e5, 1e-4) // => 0.0185139
+ * frictionFactorColebrook(1e6, 1e-3) // => 0.0199435
  */
 export function frictionFactorColebrook(reynolds: number, relativeRoughness: number): number {
   let x = 1 / Math.sqrt(frictionFactorSwameeJain(reynolds, relativeRoughness));
@@ -135,7 +186,16 @@ export function frictionFactorColebrook(reynolds: number, relativeRoughness: num
 
 /**
  * Friction factor in the transition band as a straight line through
- * (2300, 64/2300) and (4000, turbulentAt4000): returns [value, slope d f/d Re].
+ * (2300, 64/2300) and (4000, turbulentAt4000). Riffle's own rule (see the top of this file), not
+ * a published correlation: real flow at 2300 < Re < 4000 is intermittent and no correlation
+ * predicts it; the line keeps the system curve continuous. Valid for 2300 <= Re <= 4000.
+ * @param reynolds - Reynolds number, dimensionless
+ * @param turbulentAt4000 - the turbulent correlation's friction factor at Re 4000, dimensionless
+ * @returns [Darcy friction factor, its slope d f / d Re], both dimensionless
+ * @example
+ * // halfway along the line from 64/2300 = 0.0278261 to 0.04 (checked by hand)
+ * transitionFrictionFactor(3150, 0.04)[0] // => 0.0339130
+ * transitionFrictionFactor(3150, 0.04)[1] // => 7.16113e-6
  */
 export function transitionFrictionFactor(reynolds: number, turbulentAt4000: number): [number, number] {
   const laminarAt2300 = 64 / LAMINAR_REYNOLDS_LIMIT;
@@ -146,7 +206,17 @@ export function transitionFrictionFactor(reynolds: number, turbulentAt4000: numb
 /**
  * Darcy friction factor with Riffle's regime rule (top of this file): 64/Re
  * below Re 2300, Colebrook-White (default) or Swamee-Jain from 4000, a
- * straight-line blend between.
+ * straight-line blend between. Sources as frictionFactorLaminar, frictionFactorColebrook
+ * (Colebrook 1939, J. ICE 11(4)) and frictionFactorSwameeJain (J. Hydraulics Div. 102(HY5)).
+ * @param reynolds - Reynolds number, dimensionless (> 0)
+ * @param relativeRoughness - relative roughness eps/D, dimensionless (>= 0)
+ * @param method - turbulent correlation: 'colebrook' (default) or 'swamee-jain'
+ * @returns Darcy friction factor, dimensionless
+ * @example
+ * // laminar, exact 64/1000; turbulent as python3-fluids Colebrook(1e5, 1e-4) = 0.0185139
+ * darcyFrictionFactor(1000, 1e-4) // => 0.064
+ * darcyFrictionFactor(1e5, 1e-4) // => 0.0185139
+ * darcyFrictionFactor(1e5, 1e-4, 'swamee-jain') // => 0.0184524
  */
 export function darcyFrictionFactor(
   reynolds: number,
@@ -164,14 +234,23 @@ export function darcyFrictionFactor(
 }
 
 /**
- * Darcy-Weisbach head loss h_f = f (L/D) V^2 / 2g, m, with f from
- * darcyFrictionFactor. Source: H. Darcy (1857), J. Weisbach (1845); any
- * fluid-mechanics text (e.g. White, Fluid Mechanics, ch. 6).
- * @param length m (>= 0)
- * @param flow m3/s (>= 0)
- * @param insideDiameter m
- * @param roughness absolute roughness eps, m
- * @param kinematicViscosity m2/s
+ * Darcy-Weisbach head loss h_f = f (L/D) V^2 / 2g, m, with V = 4Q / (pi D^2) and f from
+ * darcyFrictionFactor (its regime rule). Source: H. Darcy (1857), J. Weisbach (1845); White,
+ * Fluid Mechanics, 7th ed., ch. 6 (head loss and the friction factor). Valid for any Newtonian
+ * liquid in full pipes at any Reynolds number (Colebrook's range above 4000, see
+ * frictionFactorColebrook).
+ * @param length - pipe length, m (>= 0)
+ * @param flow - volumetric flow, m3/s (>= 0)
+ * @param insideDiameter - inside diameter, m (> 0)
+ * @param roughness - absolute roughness eps, m (>= 0)
+ * @param kinematicViscosity - kinematic viscosity of the liquid, m2/s (> 0)
+ * @param method - turbulent correlation: 'colebrook' (default) or 'swamee-jain'
+ * @param field - JSON pointer of the segment, prefixed to the field named by a rejected input
+ * @returns friction head loss, m
+ * @example
+ * // 100 m of 3" Schedule 40 steel (bore 0.0779272 m), eps 0.045 mm, 10 L/s, water at 20 C;
+ * // python3-fluids 1.0.22 Colebrook at the same Re (162835) gives f = 0.0195645 and 5.62719 m
+ * headLossDarcyWeisbach(100, 0.01, 0.0779272, 4.5e-5, 1.0034e-6) // => 5.62719
  */
 export function headLossDarcyWeisbach(
   length: number,

@@ -17,6 +17,7 @@ export * from './system-curve';
 export * from './system-breakdown';
 export * from './polynomial';
 export * from './pump-curve-fit';
+export * from './pump-curve-evaluation';
 export * from './operating-point';
 export * from './pump-arrangements';
 export * from './operating-regions';

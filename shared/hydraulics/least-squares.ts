@@ -11,6 +11,14 @@ import { qr, usolve } from 'mathjs';
  * solved by back substitution (mathjs `usolve`). Source: G. H. Golub,
  * C. F. Van Loan, Matrix Computations, 4th ed. (2013), section 5.3.
  * Needs at least as many points as powers, with distinct x.
+ * @param xs - the points' x (for pump curves: flow, m3/s)
+ * @param ys - the points' y, one per x (head m, efficiency 0-1, power W ...)
+ * @param powers - the powers of x to fit, e.g. [0, 1, 2]
+ * @returns coefficients in ascending powers 0..max(powers), in the units of y per x^k
+ * @example
+ * // exact: points on y = 1 + 2x; and on y = 192 x - 12800 x^2 through the origin (powers 1 and 2)
+ * leastSquaresPolynomial([0, 1, 2, 3], [1, 3, 5, 7], [0, 1])[1] // => 2.00000000
+ * leastSquaresPolynomial([0.0025, 0.005, 0.01], [0.4, 0.64, 0.64], [1, 2])[2] // => -12800.0000
  */
 export function leastSquaresPolynomial(
   xs: readonly number[],

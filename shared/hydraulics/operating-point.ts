@@ -67,6 +67,20 @@ function pumpHeadAt(coefficients: readonly number[], flow: number): number {
  * the system's from one call of its compiled headAndSlope. A Newton step below 1e-7 of flowMax is
  * taken as the last: it leaves an error of order 1e-14 of flowMax (typically 3-4 iterations in
  * all). Source: W. H. Press et al., Numerical Recipes, 3rd ed. (2007), section 9.4 ("rtsafe").
+ * Validity: any head curve on [flowMin, flowMax] and any compiled system curve; the point is
+ * never extrapolated outside the published flows.
+ * @param pump - head coefficients (m, ascending powers of m3/s) and the published flow range, m3/s
+ * @param system - a compiled system curve (compileSystemCurve)
+ * @returns the operating point (flow m3/s, head m, evaluations made) or the reason there is none
+ * @example
+ * // pump H = 10 - 125000 Q^2 (m, m3/s) published to 8 L/s, on the 3 m lift of compileSystemCurve's
+ * // example; python3 brentq on the same two formulas gives Q = 5.06946 L/s, H = 6.78758 m
+ * const pump = { headCoefficients: [10, 0, -125000], flowMin: 0, flowMax: 0.008 }
+ * const system = compileSystemCurve({ staticHead: 3, segments: [{ length: 30, pipeSizeId: 'pvc-sch40-2', fittings: [{ kind: 'elbow-90-standard', count: 4 }, { kind: 'exit', count: 1 }] }], frictionMethod: 'hazen-williams' })
+ * solveOperatingPoint(pump, system).flow // => 0.00506946
+ * solveOperatingPoint(pump, system).head // => 6.78758
+ * const tooHigh = compileSystemCurve({ staticHead: 12, segments: [{ length: 30, pipeSizeId: 'pvc-sch40-2' }], frictionMethod: 'hazen-williams' })
+ * solveOperatingPoint(pump, tooHigh).reason // => 'below-static-head'
  */
 export function solveOperatingPoint(pump: HeadCurve, system: CompiledSystemCurve): OperatingPointResult {
   const coefficients = pump.headCoefficients;

@@ -14,10 +14,17 @@ import { diameterToSI } from './units';
 
 const INCH = diameterToSI(1, 'in');
 
+/** The pipe materials a segment may name, each with defaults in MATERIAL_DEFAULTS. */
 export const PIPE_MATERIALS = ['pvc', 'hdpe', 'steel', 'flexible-pvc'] as const;
 export type PipeMaterial = (typeof PIPE_MATERIALS)[number];
 
-/** Default Hazen-Williams C and absolute roughness (m) per material; sources above. */
+/**
+ * Default Hazen-Williams C and absolute roughness (m) per material; sources above (USDA NRCS CPS
+ * 430 and NFPA 13 for C = 150; Moody (1944) for roughness).
+ * @example
+ * MATERIAL_DEFAULTS.steel.roughness // => 4.5e-5
+ * MATERIAL_DEFAULTS.pvc.hazenWilliamsC // => 150
+ */
 export const MATERIAL_DEFAULTS: Readonly<Record<PipeMaterial, { hazenWilliamsC: number; roughness: number }>> =
   Object.freeze({
     pvc: { hazenWilliamsC: 150, roughness: 0.0015e-3 },
@@ -242,10 +249,19 @@ function buildSeries(definition: SeriesDefinition): PipeSeries {
   });
 }
 
-/** Every series in the catalogue, each with its sizes and source. */
+/**
+ * Every series in the catalogue, each with its sizes and the standard its dimensions come from.
+ * @example
+ * PIPE_SERIES.find((series) => series.id === 'pvc-sch40').sizes.length > 0 // => true
+ */
 export const PIPE_SERIES: readonly PipeSeries[] = Object.freeze(SERIES_DEFINITIONS.map(buildSeries));
 
-/** Every pipe size in the catalogue. */
+/**
+ * Every pipe size in the catalogue, bores in m from the inch dimensions of each series' standard.
+ * @example
+ * // 3" Schedule 40 PVC: ASTM D1785 bore 3.068 in; python3-fluids nearest_pipe(NPS=3, schedule='40D1785') gives 0.0779272 m
+ * PIPE_SIZES.find((size) => size.id === 'pvc-sch40-3').insideDiameter // => 0.0779272
+ */
 export const PIPE_SIZES: readonly PipeSize[] = Object.freeze(PIPE_SERIES.flatMap((series) => series.sizes));
 
 const SIZES_BY_ID: ReadonlyMap<string, PipeSize> = new Map(PIPE_SIZES.map((size) => [size.id, size]));
@@ -253,6 +269,13 @@ const SIZES_BY_ID: ReadonlyMap<string, PipeSize> = new Map(PIPE_SIZES.map((size)
 /**
  * The catalogue size with this id, e.g. `pvc-sch40-3`.
  * Unknown id -> HydraulicsInputError naming the series and how ids are formed.
+ * @param id - `<series>-<nominal inches>`, e.g. `pvc-sch40-1.5`
+ * @param field - JSON pointer named when the id is unknown
+ * @returns the size: bores in m, default C and roughness (m)
+ * @example
+ * // 2" Schedule 40 PVC, ASTM D1785: bore 2.067 in (the handbook's table; python3-fluids nearest_pipe agrees)
+ * pipeSizeById('pvc-sch40-2').insideDiameter // => 0.0525018
+ * pipeSizeById('pvc-sch40-2').hazenWilliamsC // => 150
  */
 export function pipeSizeById(id: string, field = '/pipeSizeId'): PipeSize {
   const size = SIZES_BY_ID.get(id);

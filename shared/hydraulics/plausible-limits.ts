@@ -37,6 +37,13 @@ export interface PlausibleLimit {
 
 const MOST_FLOW = 10;
 
+/**
+ * Riffle's plausibility limits by input, SI (our own judgement of what a water feature can need,
+ * each `meaning` saying why; not from a standard).
+ * @example
+ * PLAUSIBLE_LIMITS.segmentLength.max // => 20000
+ * PLAUSIBLE_LIMITS.insideDiameter.min // => 0.003
+ */
 export const PLAUSIBLE_LIMITS = Object.freeze({
   staticHead: {
     label: 'static head',
@@ -106,7 +113,15 @@ export interface PlausibilityViolation {
   bound: number;
 }
 
-/** Null when `value` (SI) lies inside the named limit, else what it breaks. */
+/**
+ * Null when `value` (SI) lies inside the named limit (inclusive), else what it breaks.
+ * @param limit - a name of PLAUSIBLE_LIMITS
+ * @param value - the input, SI (m, m3/s)
+ * @returns null, or the violation: code, limit name and the SI bound passed
+ * @example
+ * checkPlausible('segmentLength', 40000).bound // => 20000
+ * checkPlausible('segmentLength', 20000) // => null
+ */
 export function checkPlausible(limit: PlausibleLimitName, value: number): PlausibilityViolation | null {
   const { min, max } = PLAUSIBLE_LIMITS[limit] as PlausibleLimit;
   if (value > max) return { code: 'above-plausible-max', limit, bound: max };
@@ -122,7 +137,11 @@ export interface PlausibleUnits {
   diameter: DiameterUnit;
 }
 
-/** SI throughout, for a message where the request names no units. */
+/**
+ * SI throughout, for a message where the request names no units.
+ * @example
+ * SI_PLAUSIBLE_UNITS.flow // => 'm3/s'
+ */
 export const SI_PLAUSIBLE_UNITS: PlausibleUnits = Object.freeze({
   flow: 'm3/s',
   head: 'm',
@@ -140,17 +159,44 @@ const CONVERSIONS = {
 
 type UnitName = PlausibleUnits[PlausibleQuantity];
 
-/** A limit (SI) in the user's units. */
+/**
+ * A limit (SI) in the user's units, by the engine's conversions (units.ts).
+ * @param quantity - which kind of input: 'head', 'length', 'diameter' or 'flow'
+ * @param value - the limit, SI
+ * @param units - the user's unit for each quantity
+ * @returns the limit in the user's unit for that quantity
+ * @example
+ * // 500 m is 1640.42 ft (exact foot 0.3048 m)
+ * limitInUnits('head', 500, { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' }) // => 1640.42
+ */
 export function limitInUnits(quantity: PlausibleQuantity, value: number, units: PlausibleUnits): number {
   return (CONVERSIONS[quantity].fromSI as (value: number, unit: UnitName) => number)(value, units[quantity]);
 }
 
-/** A value typed in the user's units, in SI. */
+/**
+ * A value typed in the user's units, in SI, by the engine's conversions (units.ts).
+ * @param quantity - which kind of input: 'head', 'length', 'diameter' or 'flow'
+ * @param value - the value in the user's unit for that quantity
+ * @param units - the user's unit for each quantity
+ * @returns the value, SI
+ * @example
+ * // exact: 2 in = 0.0508 m
+ * valueToSI('diameter', 2, { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' }) // => 0.0508
+ */
 export function valueToSI(quantity: PlausibleQuantity, value: number, units: PlausibleUnits): number {
   return (CONVERSIONS[quantity].toSI as (value: number, unit: UnitName) => number)(value, units[quantity]);
 }
 
-/** checkPlausible for a value typed in the user's units, as a form holds it. */
+/**
+ * checkPlausible for a value typed in the user's units, as a form holds it.
+ * @param limit - a name of PLAUSIBLE_LIMITS
+ * @param value - the value in the user's unit for the limit's quantity
+ * @param units - the user's unit for each quantity
+ * @returns null, or the violation with its SI bound
+ * @example
+ * // 2000 ft is 609.6 m, above the 500 m limit of static head
+ * checkPlausibleInUnits('staticHead', 2000, { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' }).code // => 'above-plausible-max'
+ */
 export function checkPlausibleInUnits(
   limit: PlausibleLimitName,
   value: number,
@@ -169,7 +215,16 @@ function stated(value: number, inward: 'down' | 'up'): number {
   return (inward === 'down' ? Math.floor(value / step) : Math.ceil(value / step)) * step;
 }
 
-/** "static head must be at most 1640 ft": the violation stated in the user's units. */
+/**
+ * "static head must be at most 1640 ft": the violation stated in the user's units, the figure
+ * rounded to four significant figures toward the inside of the range so that it is itself accepted.
+ * @param violation - what checkPlausible returned
+ * @param units - the user's unit for each quantity
+ * @returns the sentence
+ * @example
+ * const units = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' }
+ * plausibilityMessage(checkPlausible('staticHead', 600), units) // => 'static head must be at most 1640 ft'
+ */
 export function plausibilityMessage(violation: PlausibilityViolation, units: PlausibleUnits): string {
   const { label, quantity } = PLAUSIBLE_LIMITS[violation.limit];
   const above = violation.code === 'above-plausible-max';

@@ -1,7 +1,8 @@
 import { requireFinite, requireInRange, requireNonNegative, requirePositive } from './hydraulics-error';
 import { STANDARD_GRAVITY } from './physical-constants';
 import { polynomialValue } from './polynomial';
-import { type PumpCurveFit, requireFlowInRange } from './pump-curve-fit';
+import { requireFlowInRange } from './pump-curve-evaluation';
+import type { PumpCurveFit } from './pump-curve-fit';
 
 /*
  * Power and energy. SI in: m3/s, m, kg/m3, W; energy out in kWh.
@@ -13,8 +14,17 @@ const CUBIC_METRES_PER_US_GALLON = 3.785411784e-3;
 /**
  * Hydraulic (water) power P_w = rho g Q H, W. The Hydraulic Institute's
  * customary form is water hp = Q(gpm) H(ft) SG / 3960 (ANSI/HI 1.6 / 14.6
- * definitions of pump power). Valid for any incompressible liquid.
- * @param flow m3/s  @param head m  @param density kg/m3
+ * definitions of pump power). Valid for any incompressible liquid. No checks (hot path).
+ * @param flow - volumetric flow, m3/s
+ * @param head - total dynamic head, m
+ * @param density - liquid density, kg/m3
+ * @returns water power, W
+ * @example
+ * // 100 gpm at 100 ft of water at 20 C (998.2 kg/m3, the 8.33 lb/gal behind the 3960, so SG 1):
+ * // the customary form 100 x 100 / 3960 gives 2.525 hp, within the rounding of its constant
+ * powerFromSI(hydraulicPower(flowToSI(100, 'gpm'), headToSI(100, 'ft'), 998.2), 'hp') // => 2.524
+ * // exact: 1000 x 9.80665 x 0.01 x 10
+ * hydraulicPower(0.01, 10, 1000) // => 980.665
  */
 export function hydraulicPower(flow: number, head: number, density: number): number {
   return density * STANDARD_GRAVITY * flow * head;
@@ -43,6 +53,20 @@ export interface PowerAtPoint {
  * P_w / (eta_pump eta_motor eta_drive) from the fitted efficiency.
  * Source: ANSI/HI 1.6 / 14.6 power definitions; domain formulas
  * P_in = P_w / (eta_pump eta_motor eta_drive). Flow must be within the fit's range.
+ * @param fit - a fitted curve (fitPumpCurve)
+ * @param flow - volumetric flow, m3/s, within the fit's range
+ * @param head - head at that flow, m
+ * @param density - water density, kg/m3 (waterDensity)
+ * @param efficiencies - motor and drive efficiencies, 0-1 (default 1 each)
+ * @returns water power and electrical input power, W, and the wire-to-water efficiency, 0-1
+ * @example
+ * // invented curve with eta = 192 Q - 12800 Q^2: at 5 L/s and 8.75 m, eta 0.64; by hand
+ * // P_w = 998.21 x 9.80665 x 0.005 x 8.75 = 428.27 W and P_in = 428.27 / (0.64 x 0.85) = 787.27 W
+ * const fit = fitPumpCurve([{ flow: 0, head: 10, efficiency: 0 }, { flow: 0.005, head: 8.75, efficiency: 0.64 }, { flow: 0.01, head: 5, efficiency: 0.64 }])
+ * const power = powerAtOperatingPoint(fit, 0.005, 8.75, 998.21, { motor: 0.85 })
+ * power.hydraulic // => 428.27
+ * power.electrical // => 787.27
+ * power.wireToWaterEfficiency // => 0.544
  */
 export function powerAtOperatingPoint(
   fit: PumpCurveFit,
@@ -72,25 +96,53 @@ export function powerAtOperatingPoint(
   };
 }
 
-/** Days of running in the year the energy figures count: a common year (common practice). */
+/**
+ * Days of running in the year the energy figures count: a common year (common practice).
+ * @example
+ * RUNNING_DAYS_PER_YEAR // => 365
+ */
 export const RUNNING_DAYS_PER_YEAR = 365;
 
 /**
- * Annual energy, kWh, for `hoursPerDay` of running on RUNNING_DAYS_PER_YEAR days: E = P h 365 / 1000.
- * No checks: the search ranks with it on its hot path; annualEnergy is the checked form.
+ * Annual energy, kWh, for `hoursPerDay` of running on RUNNING_DAYS_PER_YEAR days: E = P h 365 / 1000
+ * (energy = power x time, the handbook's rule). No checks: the search ranks with it on its hot
+ * path; annualEnergy is the checked form.
+ * @param inputPower - electrical input power, W
+ * @param hoursPerDay - hours of running per day
+ * @returns energy per year, kWh
+ * @example
+ * // exact: 1000 W x 8 h x 365 d
+ * annualEnergyUnchecked(1000, 8) // => 2920
  */
 export function annualEnergyUnchecked(inputPower: number, hoursPerDay: number): number {
   return (inputPower * hoursPerDay * RUNNING_DAYS_PER_YEAR) / 1000;
 }
 
-/** Annual energy, kWh, for `hoursPerDay` of running on 365 days: E = P h 365 / 1000. */
+/**
+ * Annual energy, kWh, for `hoursPerDay` of running on 365 days: E = P h 365 / 1000 (energy =
+ * power x time). Valid for 0-24 h a day and any power >= 0.
+ * @param inputPower - electrical input power, W (>= 0)
+ * @param hoursPerDay - hours of running per day (0-24)
+ * @returns energy per year, kWh
+ * @example
+ * // exact: 250 W around the clock, 250 x 24 x 365 / 1000
+ * annualEnergy(250, 24) // => 2190
+ */
 export function annualEnergy(inputPower: number, hoursPerDay: number): number {
   requireNonNegative(inputPower, '/inputPower', 'input power');
   requireInRange(hoursPerDay, 0, 24, '/hoursPerDay', 'hours per day');
   return annualEnergyUnchecked(inputPower, hoursPerDay);
 }
 
-/** Energy cost for `kilowattHours` at `tariff` (currency per kWh). */
+/**
+ * Energy cost = energy x tariff (the handbook's rule), in the tariff's currency.
+ * @param kilowattHours - energy, kWh (>= 0)
+ * @param tariff - price per kWh, any currency (>= 0)
+ * @returns cost, in the tariff's currency
+ * @example
+ * // exact: 2920 kWh at 0.15 per kWh
+ * energyCost(2920, 0.15) // => 438
+ */
 export function energyCost(kilowattHours: number, tariff: number): number {
   requireNonNegative(kilowattHours, '/energy', 'energy');
   requireNonNegative(tariff, '/tariff', 'tariff');
@@ -104,7 +156,17 @@ export interface SpecificEnergy {
   perThousandUsGallons: number;
 }
 
-/** Specific energy E/V = P / Q: kWh per m3 and per 1000 US gal. @param inputPower W @param flow m3/s */
+/**
+ * Specific energy E/V = P / Q: kWh per m3 (P / (Q x 3.6e6)) and per 1000 US gal (3.785411784 m3,
+ * NIST SP 811 (2008), Appendix B).
+ * @param inputPower - electrical input power, W (>= 0)
+ * @param flow - volumetric flow, m3/s (> 0)
+ * @returns energy per volume pumped, kWh/m3 and kWh per 1000 US gal
+ * @example
+ * // by hand: 1000 W / (0.01 m3/s x 3.6e6 J/kWh) = 0.027778 kWh/m3, x 3.785411784 = 0.10515
+ * specificEnergy(1000, 0.01).perCubicMetre // => 0.027778
+ * specificEnergy(1000, 0.01).perThousandUsGallons // => 0.10515
+ */
 export function specificEnergy(inputPower: number, flow: number): SpecificEnergy {
   requireNonNegative(inputPower, '/inputPower', 'input power');
   requirePositive(flow, '/flow', 'flow');

@@ -1,6 +1,6 @@
 import { engineIssueText } from '../messages/engine-issue-text';
 import type { EngineIssue } from './engine-issues';
-import { HydraulicsInputError, requireFinite, requireNonNegative, requirePositive } from './hydraulics-error';
+import { HydraulicsInputError, requireNonNegative, requirePositive } from './hydraulics-error';
 import { leastSquaresPolynomial } from './least-squares';
 import { STANDARD_GRAVITY } from './physical-constants';
 import { maximumOver, polynomialShifted, polynomialValue, totalRiseOver } from './polynomial';
@@ -44,11 +44,7 @@ export interface FittedRange {
   flowMax: number;
 }
 
-/**
- * A fitted pump curve: a plain JSON-serialisable object (store it and reload
- * it with JSON.parse; no refitting needed). Coefficients are SI, in ascending
- * powers of flow in m3/s.
- */
+/** A fitted pump curve, SI coefficients in ascending powers of flow (m3/s): plain JSON, reloaded without refitting. */
 export interface PumpCurveFit {
   schemaVersion: 1;
   /** Degree of the head polynomial. */
@@ -83,17 +79,15 @@ export interface PumpCurveFit {
   warnings: string[];
 }
 
-/** Density at which suppliers' power figures are converted to efficiency: water at 20 C (Kell 1975). */
+/** Density at which suppliers' power figures are converted to efficiency: water at 20 C (IAPWS-IF97, see waterDensity). */
 const TEST_WATER_DENSITY = waterDensity(20);
 
 /** Rise (fraction of the highest head) below which a fitted curve counts as non-increasing: round-off only. */
 const HEAD_RISE_TOLERANCE = 1e-9;
 
 /**
- * Degree rule: a cubic when there are at least five points spread over at
- * least half of the flow range (last - first >= 0.5 last); otherwise a
- * quadratic. Fewer points or clustered points cannot pin a cubic's extra
- * term and it would wander between them.
+ * Degree rule: a cubic for five or more points spread over at least half of the flow range (last -
+ * first >= 0.5 last), else a quadratic: fewer or clustered points let a cubic wander between them.
  */
 function preferredDegree(flows: readonly number[]): 2 | 3 {
   const first = flows[0];
@@ -117,16 +111,11 @@ function candidate(degree: 2 | 3, powers: number[], origin: 'first' | 'last'): H
 }
 
 /**
- * Head fit that does not rise over the data range (constrained, not merely
- * flagged). The unconstrained fit of the preferred degree is taken when it
- * does not rise. Otherwise, of these candidates the one with the least RMS
- * residual among those that do not rise is taken, and a warning says which:
- * a cubic held flat (zero slope) at the first or at the last point, an
- * unconstrained quadratic, a quadratic held flat at the first or the last
- * point (x = Q - Q_origin, the x term left out). A quadratic held flat at an
- * end cannot rise when its x^2 coefficient has the right sign, so some
- * candidate nearly always qualifies; if none does -> HydraulicsInputError on
- * /points.
+ * Head fit that does not rise over the data (constrained, not merely flagged): the unconstrained
+ * fit of the preferred degree when it does not rise; else, with a warning saying which, the
+ * least-RMS non-rising one of a cubic held flat (zero slope) at the first or last point, a
+ * quadratic, a quadratic held flat at the first or last point (x = Q - Q_origin, no x term: it
+ * cannot rise when its x^2 coefficient has the right sign); none -> HydraulicsInputError.
  */
 function fitNonIncreasingHead(
   flows: readonly number[],
@@ -240,28 +229,37 @@ function locateBep(
 }
 
 /**
- * Fits a pump curve to published points (least squares, see least-squares.ts).
- *
- * - Head: degree 2 or 3 by the rule in preferredDegree, constrained not to
- *   rise over the data range (fitNonIncreasingHead; each fallback is noted in
- *   warnings).
- * - Efficiency: through the origin (eta(0) = 0), powers 1-2, or 1-3 with a
- *   cubic head fit; from the points' efficiency, or eta = rho g Q H / P from
- *   their power (rho of water at 20 C).
- * - Power: same degree as head, with a constant term (shut-off power).
- * - NPSH required: quadratic over the points that give it (at least three).
- * - BEP: the maximum of fitted efficiency inside the data range; null with a
- *   reason when there is no efficiency or the maximum sits at an end.
- * Throws HydraulicsInputError for fewer than three points, non-finite values,
- * flows not strictly increasing, or head rising with flow.
+ * Fits a pump curve to published points by least squares (QR; Golub & Van Loan, Matrix Computations, 4th ed.,
+ * section 5.3): head of degree 2 or 3 that does not rise (preferredDegree and fitNonIncreasingHead, our own
+ * rules); efficiency through the origin, from the points' efficiency or eta = rho g Q H / P (ANSI/HI 1.6 /
+ * 14.6, water at 20 C); power of the head's degree; NPSH3 quadratic (3 or more points); BEP at the efficiency
+ * maximum inside the data, else null with a reason. Throws HydraulicsInputError for fewer than three points,
+ * non-finite values, flows not strictly increasing, or head rising with flow.
+ * @param points - published points: flow m3/s, head m, optional power W, efficiency 0-1, NPSH3 m
+ * @param options - what the power means (shaft or electrical) and the supplier's allowable region, m3/s
+ * @returns the fit (SI coefficients, BEP, statistics, warnings) as plain JSON, valid only on [flowMin, flowMax]
+ * @example
+ * // invented points on H = 10 - 50000 Q^2, eta = 192 Q - 12800 Q^2: BEP by hand 7.5 L/s, 0.72, 7.1875 m
+ * const fit = fitPumpCurve([{ flow: 0, head: 10, efficiency: 0 }, { flow: 0.0025, head: 9.6875, efficiency: 0.4 }, { flow: 0.005, head: 8.75, efficiency: 0.64 }, { flow: 0.0075, head: 7.1875, efficiency: 0.72 }, { flow: 0.01, head: 5, efficiency: 0.64 }])
+ * fit.bep.flow // => 0.00750000
+ * fit.bep.efficiency // => 0.720000
  */
 export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCurveFitOptions = {}): PumpCurveFit {
   return fitPumpCurveWithIssues(points, options).fit;
 }
 
 /**
- * fitPumpCurve, with what the fit has to say as engine issues; the fit's `warnings` are their
- * sentences (SI), made once here because fits are stored and these carry no unit-bound values.
+ * fitPumpCurve, with what the fit has to say as engine issues (codes with SI values); the fit's
+ * `warnings` are their sentences, made once here because fits are stored and these carry no
+ * values that depend on a reader's units.
+ * @param points - published points: flow m3/s, head m, optional power W, efficiency 0-1, NPSH3 m
+ * @param options - what the power means (shaft or electrical) and the supplier's allowable region, m3/s
+ * @returns the fit, as fitPumpCurve gives it, and its issues
+ * @example
+ * // invented points on H = 10 - 50000 Q^2 from 2.5 L/s: the shut-off head is extrapolated
+ * const { fit, issues } = fitPumpCurveWithIssues([{ flow: 0.0025, head: 9.6875 }, { flow: 0.005, head: 8.75 }, { flow: 0.0075, head: 7.1875 }, { flow: 0.01, head: 5 }])
+ * issues[0].code // => 'shut-off-extrapolated'
+ * fit.warnings[0] // => 'shut-off head is extrapolated: the first point is not at zero flow'
  */
 export function fitPumpCurveWithIssues(
   points: readonly PumpCurvePoint[],
@@ -355,37 +353,4 @@ export function fitPumpCurveWithIssues(
     warnings: issues.map((issue) => engineIssueText(issue)),
   };
   return { fit, issues };
-}
-
-/** Throws unless `flow` lies within [flowMin, flowMax]: fitted curves are never extrapolated. */
-export function requireFlowInRange(range: { flowMin: number; flowMax: number }, flow: number, field = '/flow'): number {
-  requireFinite(flow, field, 'flow');
-  const slack = 1e-12 * range.flowMax;
-  if (flow < range.flowMin - slack || flow > range.flowMax + slack) {
-    throw new HydraulicsInputError({
-      code: 'flow-outside-curve',
-      params: { flow, flowMin: range.flowMin, flowMax: range.flowMax },
-      pointer: field,
-    });
-  }
-  return flow;
-}
-
-/** Pump head at `flow`, m; outside the curve's range -> HydraulicsInputError. */
-export function pumpHeadAt(fit: PumpCurveFit, flow: number): number {
-  return polynomialValue(fit.headCoefficients, requireFlowInRange(fit, flow));
-}
-
-/** Fitted efficiency (0-1) at `flow`, or null when the curve has none; outside the range -> HydraulicsInputError. */
-export function pumpEfficiencyAt(fit: PumpCurveFit, flow: number): number | null {
-  requireFlowInRange(fit, flow);
-  return fit.efficiencyCoefficients ? polynomialValue(fit.efficiencyCoefficients, flow) : null;
-}
-
-/** Fitted NPSH required at `flow`, m, or null when not given; outside its range -> HydraulicsInputError. */
-export function pumpNpshRequiredAt(fit: PumpCurveFit, flow: number): number | null {
-  if (!fit.npshRequired) {
-    return null;
-  }
-  return polynomialValue(fit.npshRequired.coefficients, requireFlowInRange(fit.npshRequired, flow));
 }

@@ -10,7 +10,13 @@ const POINT_LIMITS = Object.freeze({ flow: 100, head: 1e4, power: 1e9 });
  * strictly increasing from zero or more, head positive and not rising with flow, power and
  * efficiency on every point or on none, each value inside a generous physical limit. Our own rules
  * (a fit through fewer points or a rising curve cannot be ranked honestly); values SI.
+ * @param points - published points: flow m3/s, head m, optional power W, efficiency 0-1, NPSH3 m
+ * @returns nothing: it throws on the first rule broken
  * @throws HydraulicsInputError naming the point and field (`/points/2/head`)
+ * @example
+ * let field = null
+ * try { validatePumpCurvePoints([{ flow: 0, head: 10 }, { flow: 0.005, head: 11 }, { flow: 0.01, head: 5 }]) } catch (error) { field = error.field }
+ * field // => '/points/1/head'
  */
 export function validatePumpCurvePoints(points: readonly PumpCurvePoint[]): void {
   const [first] = pumpCurvePointErrors(points);
@@ -18,8 +24,16 @@ export function validatePumpCurvePoints(points: readonly PumpCurvePoint[]): void
 }
 
 /**
- * Every breach of the rules above, in the order they are checked (the first is the one
- * validatePumpCurvePoints throws), so a caller reporting many at once applies the same rules.
+ * Every breach of the rules above, and of NPSH required given on three points or more or on none,
+ * in the order they are checked (the first is the one validatePumpCurvePoints throws), so a caller
+ * reporting many at once (the curve-table import) applies the same rules. Our own rules; values SI.
+ * @param points - published points: flow m3/s, head m, optional power W, efficiency 0-1, NPSH3 m
+ * @returns the refusals, each with its code, values and pointer; empty when the points are good
+ * @example
+ * const errors = pumpCurvePointErrors([{ flow: 0, head: 10 }, { flow: 0, head: 11 }, { flow: 0.01, head: 5 }])
+ * errors.length // => 2
+ * errors[0].pointer // => '/points/1/flow'
+ * errors[1].code // => 'head-rises'
  */
 export function pumpCurvePointErrors(points: readonly PumpCurvePoint[]): EngineInputError[] {
   if (!Array.isArray(points) || points.length < 3) {

@@ -5,7 +5,15 @@
  * root stays bracketed. Source: M. Dowell, P. Jarratt, "A modified regula
  * falsi method for computing the root of an equation", BIT 11, 168-174 (1971).
  * Stops when the bracket is narrower than `tolerance` (default 1e-13 of the
- * larger bracket end) or fn is exactly zero.
+ * larger bracket end) or fn is exactly zero; a bracket without a sign change -> RangeError.
+ * @param fn - the function, continuous on [lo, hi]
+ * @param lo - left end of the bracket, in the unit of x
+ * @param hi - right end of the bracket, in the unit of x
+ * @param tolerance - the bracket width that ends the search, in the unit of x
+ * @returns the root, in the unit of x
+ * @example
+ * // sqrt(2) = 1.41421356237...
+ * findRootBracketed((x) => x * x - 2, 0, 2) // => 1.41421356237
  */
 export function findRootBracketed(
   fn: (x: number) => number,

@@ -4,7 +4,11 @@ import { STANDARD_GRAVITY } from './physical-constants';
 import type { EngineIssue } from './engine-issues';
 import type { CompiledSystemCurve } from './system-curve';
 
-/** Velocity above which plastic pipe risks water hammer: 5 ft/s (common practice for plastic pipe). */
+/**
+ * Velocity above which plastic pipe risks water hammer: 5 ft/s (common practice for plastic pipe), in m/s.
+ * @example
+ * velocityFromSI(VELOCITY_WARNING_LIMIT, 'ft/s') // => 5
+ */
 export const VELOCITY_WARNING_LIMIT = 1.524;
 
 export interface SegmentBreakdown {
@@ -49,8 +53,24 @@ function checkFlow(flow: number): void {
 /**
  * Head breakdown at one flow, computed exactly (Colebrook solved, not
  * tabulated): static, outlet pressure, friction and minor head, and per
- * segment velocity, velocity head and a warning above 5 ft/s.
- * @param flow m3/s (>= 0)
+ * segment velocity V = Q/A, velocity head V^2/2g, minor head K V^2/2g and a warning above
+ * 5 ft/s (VELOCITY_WARNING_LIMIT, common practice). TDH = static + outlet pressure + friction
+ * + minor head (the handbook's TDH with the exit K counting the outlet velocity head, Crane
+ * TP-410 A-29); friction by friction.ts (Hazen & Williams 1920; Darcy-Weisbach with Colebrook
+ * 1939). Also reports Hazen-Williams used outside 4-25 C. Validity as compileSystemCurve.
+ * @param system - a compiled system curve (compileSystemCurve)
+ * @param flow - volumetric flow, m3/s (>= 0)
+ * @returns the heads in m, per-segment velocities in m/s, and the issues found
+ * @example
+ * const system = compileSystemCurve({ staticHead: 3, segments: [{ length: 30, pipeSizeId: 'pvc-sch40-2', fittings: [{ kind: 'elbow-90-standard', count: 4 }, { kind: 'exit', count: 1 }] }], frictionMethod: 'hazen-williams' })
+ * const budget = systemBreakdown(system, 0.003)
+ * // agrees with system.evaluate(0.003); python3 with the same formulas gives V = 1.3857 m/s,
+ * // friction 1.0866 m and minor 0.32103 m
+ * budget.totalHead // => 4.4076
+ * budget.segments[0].velocity // => 1.3857
+ * budget.frictionHead // => 1.0866
+ * budget.minorHead // => 0.32103
+ * budget.issues.length // => 0
  */
 export function systemBreakdown(system: CompiledSystemCurve, flow: number): SystemBreakdown {
   checkFlow(flow);

@@ -53,8 +53,28 @@ export interface CompiledSystemCurve {
  * Prepares a system curve for fast evaluation (see CompiledSystemCurve).
  * Hazen-Williams: H(Q) = Hs + a Q^1.852 + b Q^2 with a = sum 10.67 L/(C^1.852 D^4.8704)
  * and b = sum K/(2 g A^2). Darcy-Weisbach: Hs + sum c_i f_i(Re_i) Q^2 + b Q^2 with
- * f_i from the precomputed Colebrook table described above.
+ * f_i from a cubic Hermite table of Colebrook over ln Re (darcy-friction-table.ts; relative
+ * error of the friction head below 1e-8 for Re 4000-1e8, exact rules below 4000).
  * Throws HydraulicsInputError (with the field path) for invalid input.
+ *
+ * Sources: TDH as the sum of static, pressure and loss heads (ANSI/HI 1.1-1.2 definitions;
+ * Karassik, Pump Handbook, 4th ed., ch. 10); the loss formulas of friction.ts and K of
+ * fittings-catalogue.ts (Crane TP-410). Validity: water 0-40 C (Hazen-Williams ~4-25 C), full
+ * pipes, the ranges of SYSTEM_INPUT_LIMITS.
+ *
+ * @param input - static and outlet heads (m), segments, temperature (C) and friction method
+ * @returns the compiled curve: evaluate(Q) in m for Q in m3/s, slope, headAndSlope
+ * @example
+ * // 3 m lift through 30 m of 2" Sch 40 PVC with four standard elbows and an exit, 20 C water.
+ * // Checked by hand in python3 with the same formulas (bore 2.067 in, C 150, K = 4 x 30 f_T + 1,
+ * // f_T(2") = 0.0190 by Crane's formula): 3 + a Q^1.852 + b Q^2 = 4.4076 m at 3 L/s
+ * const system = compileSystemCurve({ staticHead: 3, segments: [{ length: 30, pipeSizeId: 'pvc-sch40-2', fittings: [{ kind: 'elbow-90-standard', count: 4 }, { kind: 'exit', count: 1 }] }], frictionMethod: 'hazen-williams' })
+ * system.evaluate(0) // => 3
+ * system.evaluate(0.003) // => 4.4076
+ * // Darcy-Weisbach on the same pipe (roughness 0.0015 mm, the PVC default); python3-fluids
+ * // Colebrook at nu = 1.00340e-6 m2/s (python3-iapws, 20 C) gives 4.4055 m
+ * const darcy = compileSystemCurve({ staticHead: 3, segments: [{ length: 30, pipeSizeId: 'pvc-sch40-2', fittings: [{ kind: 'elbow-90-standard', count: 4 }, { kind: 'exit', count: 1 }] }], frictionMethod: 'darcy-weisbach' })
+ * darcy.evaluate(0.003) // => 4.4055
  */
 export function compileSystemCurve(input: SystemCurveInput): CompiledSystemCurve {
   const maxHead = SYSTEM_INPUT_LIMITS.maxAbsoluteHead;

@@ -8,13 +8,16 @@ import { MATERIAL_DEFAULTS, PIPE_MATERIALS, type PipeMaterial, pipeSizeById } fr
  */
 
 export type FrictionMethod = 'hazen-williams' | 'darcy-weisbach';
+/** The friction methods a system may name: Hazen-Williams (SI form) or Darcy-Weisbach with Colebrook. */
 export const FRICTION_METHODS: readonly FrictionMethod[] = ['hazen-williams', 'darcy-weisbach'];
 
 /**
  * Ranges the engine accepts for a system (wide of any water feature or small
  * pump station, and narrow enough that no result overflows): lengths up to
  * 100 km, bores 1 mm to 5 m, heads within +-10 km, K up to 1e6, C 1-200,
- * roughness up to 50 mm.
+ * roughness up to 50 mm. Our own bounds, SI.
+ * @example
+ * SYSTEM_INPUT_LIMITS.maxLength // => 100000
  */
 export const SYSTEM_INPUT_LIMITS = Object.freeze({
   maxLength: 1e5,
@@ -73,7 +76,21 @@ export interface ResolvedSegment {
   totalK: number;
 }
 
-/** Resolves one segment to SI numbers; throws HydraulicsInputError naming the field. */
+/**
+ * Resolves one segment to SI numbers; throws HydraulicsInputError naming the field. The bore comes
+ * from the catalogue size or is given; C and roughness are given or the size's or material's
+ * defaults (pipe-catalogue); total K = extraK + sum count x K of each fitting (Crane TP-410 K = n
+ * f_T, fittings-catalogue); flow area A = pi D^2 / 4.
+ * @param segment - length (m), a catalogue size id or a bore (m), optional material, C, roughness (m), fittings, extra K
+ * @param index - the segment's position, for the JSON pointer of an error (`/segments/<index>`)
+ * @param method - the friction method, which decides whether C or roughness must be known
+ * @returns the segment in SI: length and bore (m), area (m2), C, roughness (m), total K
+ * @example
+ * // 3" Schedule 40 PVC (bore 3.068 in) with two standard elbows: K = 2 x 30 f_T, f_T = 0.017315 by Crane's formula
+ * const segment = resolveSegment({ length: 12, pipeSizeId: 'pvc-sch40-3', fittings: [{ kind: 'elbow-90-standard', count: 2 }] }, 0, 'hazen-williams')
+ * segment.totalK // => 1.0389
+ * segment.area // => 4.7694e-3
+ */
 export function resolveSegment(segment: PipeSegmentInput, index: number, method: FrictionMethod): ResolvedSegment {
   const field = `/segments/${index}`;
   requirePositive(segment.length, `${field}/length`, 'segment length');

@@ -107,52 +107,242 @@ const POWER = conversion(POWER_FACTORS, POWER_UNITS, 'power', '/powerUnit');
 const VOLUME = conversion(VOLUME_FACTORS, VOLUME_UNITS, 'volume', '/volumeUnit');
 const VELOCITY = conversion(VELOCITY_FACTORS, VELOCITY_UNITS, 'velocity', '/velocityUnit');
 
-/** Flow in `unitName` to m3/s. Unknown unit -> HydraulicsInputError listing FLOW_UNITS. */
+/**
+ * Flow in `unitName` to m3/s: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * @param value - flow in `unitName`
+ * @param unitName - one of FLOW_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns flow, m3/s
+ * @example
+ * // exact: 100 x 3.785411784 L / 60 s
+ * flowToSI(100, 'gpm') // => 6.30901964e-3
+ */
 export const flowToSI = FLOW.toSI;
-/** Flow in m3/s to `unitName`. */
+/**
+ * Flow in m3/s to `unitName`: value divided by the unit's factor (NIST SP 811 (2008), App. B).
+ * @param value - flow, m3/s
+ * @param unitName - one of FLOW_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns flow in `unitName`
+ * @example
+ * // exact
+ * flowFromSI(0.001, 'L/min') // => 60
+ */
 export const flowFromSI = FLOW.fromSI;
-/** Flow from one unit to another, e.g. gpm to L/min. */
+/**
+ * Flow from one accepted unit to another, through m3/s (NIST SP 811 (2008), App. B).
+ * @param value - flow in `from`
+ * @param from - one of FLOW_UNITS
+ * @param to - one of FLOW_UNITS
+ * @param field - JSON pointer named when the value or a unit is rejected
+ * @returns flow in `to`
+ * @example
+ * // exact: the trade's 1 gpm = 60 gph
+ * convertFlow(1, 'gpm', 'gph') // => 60
+ */
 export const convertFlow = FLOW.between;
-/** Head in `unitName` to m. */
+/**
+ * Head in `unitName` to m: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * @param value - head in `unitName`
+ * @param unitName - one of HEAD_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns head, m
+ * @example
+ * // exact: international foot 0.3048 m
+ * headToSI(100, 'ft') // => 30.48
+ */
 export const headToSI = HEAD.toSI;
-/** Head in m to `unitName`. */
+/**
+ * Head in m to `unitName`: value divided by the unit's factor (NIST SP 811 (2008), App. B).
+ * @param value - head, m
+ * @param unitName - one of HEAD_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns head in `unitName`
+ * @example
+ * // exact
+ * headFromSI(30.48, 'ft') // => 100
+ */
 export const headFromSI = HEAD.fromSI;
-/** Head from one unit to another. */
+/**
+ * Head from one accepted unit to another, through m (NIST SP 811 (2008), App. B).
+ * @param value - head in `from`
+ * @param from - one of HEAD_UNITS
+ * @param to - one of HEAD_UNITS
+ * @param field - JSON pointer named when the value or a unit is rejected
+ * @returns head in `to`
+ * @example
+ * // by hand: 10 / 0.3048
+ * convertHead(10, 'm', 'ft') // => 32.8084
+ */
 export const convertHead = HEAD.between;
-/** Pipe length in `unitName` to m. */
+/**
+ * Pipe length in `unitName` to m: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * @param value - pipe length in `unitName`
+ * @param unitName - one of LENGTH_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns pipe length, m
+ * @example
+ * // exact
+ * lengthToSI(250, 'ft') // => 76.2
+ */
 export const lengthToSI = LENGTH.toSI;
-/** Pipe length in m to `unitName`. */
+/**
+ * Pipe length in m to `unitName`: value divided by the unit's factor (NIST SP 811 (2008), App. B).
+ * @param value - pipe length, m
+ * @param unitName - one of LENGTH_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns pipe length in `unitName`
+ * @example
+ * // exact
+ * lengthFromSI(76.2, 'ft') // => 250
+ */
 export const lengthFromSI = LENGTH.fromSI;
-/** Pipe length from one unit to another. */
+/**
+ * Pipe length from one accepted unit to another, through m (NIST SP 811 (2008), App. B).
+ * @param value - pipe length in `from`
+ * @param from - one of LENGTH_UNITS
+ * @param to - one of LENGTH_UNITS
+ * @param field - JSON pointer named when the value or a unit is rejected
+ * @returns pipe length in `to`
+ * @example
+ * // exact
+ * convertLength(100, 'ft', 'm') // => 30.48
+ */
 export const convertLength = LENGTH.between;
-/** Diameter in `unitName` to m. */
+/**
+ * Diameter in `unitName` to m: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * @param value - diameter in `unitName`
+ * @param unitName - one of DIAMETER_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns diameter, m
+ * @example
+ * // exact: inch 25.4 mm; the bore of 3" Schedule 40
+ * diameterToSI(3.068, 'in') // => 0.0779272
+ */
 export const diameterToSI = DIAMETER.toSI;
-/** Diameter in m to `unitName`. */
+/**
+ * Diameter in m to `unitName`: value divided by the unit's factor (NIST SP 811 (2008), App. B).
+ * @param value - diameter, m
+ * @param unitName - one of DIAMETER_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns diameter in `unitName`
+ * @example
+ * // exact
+ * diameterFromSI(0.05, 'mm') // => 50
+ */
 export const diameterFromSI = DIAMETER.fromSI;
-/** Diameter from one unit to another, e.g. mm to in. */
+/**
+ * Diameter from one accepted unit to another, through m (NIST SP 811 (2008), App. B).
+ * @param value - diameter in `from`
+ * @param from - one of DIAMETER_UNITS
+ * @param to - one of DIAMETER_UNITS
+ * @param field - JSON pointer named when the value or a unit is rejected
+ * @returns diameter in `to`
+ * @example
+ * // exact
+ * convertDiameter(2, 'in', 'mm') // => 50.8
+ */
 export const convertDiameter = DIAMETER.between;
-/** Pressure in `unitName` to Pa. */
+/**
+ * Pressure in `unitName` to Pa: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * @param value - pressure in `unitName`
+ * @param unitName - one of PRESSURE_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns pressure, Pa
+ * @example
+ * // NIST SP 811 gives 1 psi = 6.894757 kPa
+ * pressureToSI(1, 'psi') // => 6894.757
+ */
 export const pressureToSI = PRESSURE.toSI;
-/** Pressure in Pa to `unitName`. */
+/**
+ * Pressure in Pa to `unitName`: value divided by the unit's factor (NIST SP 811 (2008), App. B).
+ * @param value - pressure, Pa
+ * @param unitName - one of PRESSURE_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns pressure in `unitName`
+ * @example
+ * // exact: bar 1e5 Pa
+ * pressureFromSI(250000, 'bar') // => 2.5
+ */
 export const pressureFromSI = PRESSURE.fromSI;
-/** Power in `unitName` to W. */
+/**
+ * Power in `unitName` to W: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * @param value - power in `unitName`
+ * @param unitName - one of POWER_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns power, W
+ * @example
+ * // NIST SP 811: mechanical horsepower 745.6999 W
+ * powerToSI(1, 'hp') // => 745.699872
+ */
 export const powerToSI = POWER.toSI;
-/** Power in W to `unitName`. */
+/**
+ * Power in W to `unitName`: value divided by the unit's factor (NIST SP 811 (2008), App. B).
+ * @param value - power, W
+ * @param unitName - one of POWER_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns power in `unitName`
+ * @example
+ * // exact
+ * powerFromSI(1500, 'kW') // => 1.5
+ */
 export const powerFromSI = POWER.fromSI;
-/** Volume in `unitName` to m3. */
+/**
+ * Volume in `unitName` to m3: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * @param value - volume in `unitName`
+ * @param unitName - one of VOLUME_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns volume, m3
+ * @example
+ * // exact: US gallon 3.785411784 L
+ * volumeToSI(1000, 'gal') // => 3.785411784
+ */
 export const volumeToSI = VOLUME.toSI;
-/** Volume in m3 to `unitName`. */
+/**
+ * Volume in m3 to `unitName`: value divided by the unit's factor (NIST SP 811 (2008), App. B).
+ * @param value - volume, m3
+ * @param unitName - one of VOLUME_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns volume in `unitName`
+ * @example
+ * // exact
+ * volumeFromSI(2, 'L') // => 2000
+ */
 export const volumeFromSI = VOLUME.fromSI;
-/** Velocity in `unitName` to m/s. */
+/**
+ * Velocity in `unitName` to m/s: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * @param value - velocity in `unitName`
+ * @param unitName - one of VELOCITY_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns velocity, m/s
+ * @example
+ * // exact: the 5 ft/s limit of plastic pipe
+ * velocityToSI(5, 'ft/s') // => 1.524
+ */
 export const velocityToSI = VELOCITY.toSI;
-/** Velocity in m/s to `unitName`. */
+/**
+ * Velocity in m/s to `unitName`: value divided by the unit's factor (NIST SP 811 (2008), App. B).
+ * @param value - velocity, m/s
+ * @param unitName - one of VELOCITY_UNITS
+ * @param field - JSON pointer named when the value or unit is rejected
+ * @returns velocity in `unitName`
+ * @example
+ * // exact
+ * velocityFromSI(1.524, 'ft/s') // => 5
+ */
 export const velocityFromSI = VELOCITY.fromSI;
 
 /**
- * Pressure to the equivalent column of water: h = p / (rho g).
- * @param value pressure in `unitName`
- * @param density water density, kg/m3 (see water-properties)
+ * Pressure to the equivalent column of water: h = p / (rho g) (hydrostatics; White, Fluid
+ * Mechanics, 7th ed., ch. 2), g the standard 9.80665 m/s2. Valid for any liquid at rest.
+ * @param value - pressure in `unitName` (gauge or absolute, as the caller means it)
+ * @param unitName - one of PRESSURE_UNITS
+ * @param density - liquid density, kg/m3 (see water-properties)
+ * @param field - JSON pointer named when the value or unit is rejected
  * @returns head, m
+ * @example
+ * // 1 bar of water at 20 C: 1e5 / (998.206 x 9.80665) = 10.2155 m by hand
+ * pressureToHead(1, 'bar', 998.206) // => 10.2155
  */
 export function pressureToHead(
   value: number,
@@ -165,10 +355,17 @@ export function pressureToHead(
 }
 
 /**
- * Head of water to pressure: p = rho g h.
- * @param head m
- * @param density kg/m3
+ * Head of water to pressure: p = rho g h (hydrostatics; White, Fluid Mechanics, 7th ed., ch. 2), g the
+ * standard 9.80665 m/s2.
+ * @param head - head of liquid, m
+ * @param unitName - one of PRESSURE_UNITS
+ * @param density - liquid density, kg/m3
+ * @param field - JSON pointer named when the unit is rejected
  * @returns pressure in `unitName`
+ * @example
+ * // 10 m of water at 1000 kg/m3: 98066.5 Pa exactly, 14.2233 psi by hand (6894.757 Pa/psi)
+ * headToPressure(10, 'kPa', 1000) // => 98.0665
+ * headToPressure(10, 'psi', 1000) // => 14.2233
  */
 export function headToPressure(head: number, unitName: PressureUnit, density: number, field = '/pressureUnit'): number {
   requirePositive(density, '/density', 'density');

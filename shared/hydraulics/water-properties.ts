@@ -7,9 +7,12 @@ import { requireInRange } from './hydraulics-error';
  * python3-iapws at test time.
  */
 
-/** Lowest water temperature the engine accepts, C. */
+/** Lowest water temperature the engine accepts, C: the freezing point at 101.325 kPa. */
 export const WATER_TEMPERATURE_MIN = 0;
-/** Highest water temperature the engine accepts, C. */
+/**
+ * Highest water temperature the engine accepts, C: the top of the range of outdoor water features
+ * and of the checks against python3-iapws (the formulations themselves hold far beyond it).
+ */
 export const WATER_TEMPERATURE_MAX = 40;
 
 function checkTemperature(temperature: number, field: string): void {
@@ -27,10 +30,12 @@ const WATER_GAS_CONSTANT = 461.526;
 const REGION_1_I = [
   0, 0, 0, 0, 0, 0, 0, 0, 1, 1, 1, 1, 1, 1, 2, 2, 2, 2, 2, 3, 3, 3, 4, 4, 4, 5, 8, 8, 21, 23, 29, 30, 31, 32,
 ];
+/** Exponents J_i of the region 1 Gibbs free energy, IAPWS R7-97(2012) Table 2 (in the order of REGION_1_I). */
 const REGION_1_J = [
   -2, -1, 0, 1, 2, 3, 4, 5, -9, -7, -1, 0, 1, 3, -3, 0, 1, 3, 17, -4, 0, 6, -5, -2, 10, -8, -11, -6, -29, -31, -38, -39,
   -40, -41,
 ];
+/** Coefficients n_i of the region 1 Gibbs free energy, IAPWS R7-97(2012) Table 2 (in the order of REGION_1_I). */
 const REGION_1_N = [
   0.14632971213167, -0.84548187169114, -0.3756360367204e1, 0.33855169168385e1, -0.95791963387872, 0.15772038513228,
   -0.16616417199501e-1, 0.81214629983568e-3, 0.28319080123804e-3, -0.60706301565874e-3, -0.18990068218419e-1,
@@ -61,12 +66,16 @@ function specificVolumeRegion1(kelvin: number, pressure: number): number {
 
 /**
  * Density of water at 101.325 kPa, kg/m3: 1 / v of IAPWS-IF97 region 1 (see specificVolumeRegion1;
- * IAPWS R7-97(2012), section 5). IF97 reproduces the scientific formulation IAPWS-95 to within
- * 0.01 kg/m3 over 0-40 C at this pressure (the tests compare it with python3-iapws).
- * @param temperature water temperature, C (0-40)
+ * IAPWS R7-97(2012), section 5, eq. 7 and Table 3). IF97 reproduces the scientific formulation
+ * IAPWS-95 to within 0.01 kg/m3 over 0-40 C at this pressure (the tests compare it with
+ * python3-iapws). Valid 0-40 C here (region 1 itself covers 273.15-623.15 K).
+ * @param temperature - water temperature, C (0-40)
+ * @param field - JSON pointer named when the temperature is rejected
  * @returns density, kg/m3
  * @example
+ * // IAPWS-95 via python3-iapws: 998.21 kg/m3 at 20 C, 999.70 at 10 C (the handbook's table)
  * waterDensity(20) // => 998.206
+ * waterDensity(10) // => 999.70
  */
 export function waterDensity(temperature: number, field = '/temperature'): number {
   checkTemperature(temperature, field);
@@ -97,11 +106,14 @@ const RESIDUAL_H = [
  *   mu1 = exp(rho_r sum_ij H_ij (1/Tr - 1)^i (rho_r - 1)^j),
  * Tr = T / 647.096 K, rho_r = rho / 322 kg/m3, rho from waterDensity. Source: IAPWS R12-08,
  * Release on the IAPWS Formulation 2008 for the Viscosity of Ordinary Water Substance,
- * eq. (10)-(12), Tables 1 and 2.
- * @param temperature water temperature, C (0-40)
+ * eq. (10)-(12), Tables 1 and 2. Valid 0-40 C here (the release covers the whole liquid range).
+ * @param temperature - water temperature, C (0-40)
+ * @param field - JSON pointer named when the temperature is rejected
  * @returns dynamic viscosity, Pa s
  * @example
+ * // IAPWS 2008 via python3-iapws: 1.0016 mPa s at 20 C, 1.3059 at 10 C (the handbook's table)
  * waterDynamicViscosity(20) // => 1.00160e-3
+ * waterDynamicViscosity(10) // => 1.3059e-3
  */
 export function waterDynamicViscosity(temperature: number, field = '/temperature'): number {
   const density = waterDensity(temperature, field);
@@ -121,8 +133,9 @@ export function waterDynamicViscosity(temperature: number, field = '/temperature
 
 /**
  * Kinematic viscosity nu = mu / rho, m2/s, from waterDynamicViscosity and waterDensity
- * (IAPWS R12-08 and R7-97(2012)).
- * @param temperature water temperature, C (0-40)
+ * (IAPWS R12-08 and R7-97(2012)). Valid 0-40 C.
+ * @param temperature - water temperature, C (0-40)
+ * @param field - JSON pointer named when the temperature is rejected
  * @returns kinematic viscosity, m2/s
  * @example
  * waterKinematicViscosity(20) // => 1.00340e-6
@@ -131,9 +144,13 @@ export function waterKinematicViscosity(temperature: number, field = '/temperatu
   return waterDynamicViscosity(temperature, field) / waterDensity(temperature, field);
 }
 
-/** Critical temperature (K) and pressure (Pa) of water, IAPWS-95. */
+/**
+ * Critical temperature (K) and pressure (Pa) of water, the constants T_c and p_c stated with
+ * eq. (1) of IAPWS SR1-86(1992) (the values of IAPWS-95).
+ */
 const CRITICAL_TEMPERATURE = VISCOSITY_CRITICAL_TEMPERATURE;
 const CRITICAL_PRESSURE = 22.064e6;
+/** Coefficients a1-a6 of the saturation-pressure equation, as stated with eq. (1) of IAPWS SR1-86(1992). */
 const WAGNER_PRUSS = [-7.85951783, 1.84408259, -11.7866497, 22.6807411, -15.9618719, 1.80122502] as const;
 
 /**
@@ -147,10 +164,13 @@ const WAGNER_PRUSS = [-7.85951783, 1.84408259, -11.7866497, 22.6807411, -15.9618
  * SR1-86(1992), Revised Supplementary Release on Saturation Properties of Ordinary
  * Water Substance; the tests compare it with IAPWS-95 saturation from python3-iapws.
  * Valid from the triple point to the critical point; accepted here 0-40 C.
- * @param temperature water temperature, C (0-40)
+ * @param temperature - water temperature, C (0-40)
+ * @param field - JSON pointer named when the temperature is rejected
  * @returns saturation pressure, Pa absolute
  * @example
+ * // IAPWS-95 saturation via python3-iapws: 2.339 kPa at 20 C, 4.247 kPa at 30 C (the handbook's table)
  * waterVapourPressure(20) // => 2339.2
+ * waterVapourPressure(30) // => 4247
  */
 export function waterVapourPressure(temperature: number, field = '/temperature'): number {
   checkTemperature(temperature, field);
@@ -179,7 +199,19 @@ export interface WaterProperties {
   vapourPressure: number;
 }
 
-/** All three properties at `temperature` (C, 0-40). */
+/**
+ * Density, kinematic viscosity and vapour pressure at one temperature, from waterDensity,
+ * waterKinematicViscosity and waterVapourPressure (IAPWS R7-97(2012), R12-08, SR1-86(1992)).
+ * @param temperature - water temperature, C (0-40)
+ * @param field - JSON pointer named when the temperature is rejected
+ * @returns the three properties in SI (kg/m3, m2/s, Pa absolute) with the temperature
+ * @example
+ * const water = waterProperties(20)
+ * // python3-iapws at 20 C: 998.21 kg/m3, 2.339 kPa
+ * water.density // => 998.21
+ * water.kinematicViscosity // => 1.0034e-6
+ * water.vapourPressure // => 2339
+ */
 export function waterProperties(temperature: number, field = '/temperature'): WaterProperties {
   return {
     temperature,

@@ -31,10 +31,24 @@ describe('pump selection in Chromium', function () {
   it('builds the system from two measured levels and previews its curve', async () => {
     const { page } = app;
     await page.goto(`${app.url}/design/system`, { waitUntil: 'networkidle' });
+    // A typed static head past its limit blocks the form only while it is the one in use.
+    await page.fill('input[name=staticHead]', '2000');
+    await page.locator('input[name=staticHead]').blur();
+    await page.locator('mat-error', { hasText: 'static head must be at most 1640 ft' }).waitFor();
     await page.getByText('From two measured water levels').click();
     await page.fill('input[name=intakeLevel]', '100');
     await page.fill('input[name=dischargeLevel]', '114.5');
     await page.locator('.rf-derived', { hasText: 'Static head 14.5 ft' }).waitFor();
+    expect(await page.getByRole('link', { name: /Next: flow band/ }).getAttribute('aria-disabled')).to.not.equal(
+      'true',
+    );
+    // 1900 ft between the levels: above the 500 m static head limit, as the API would say
+    await page.fill('input[name=dischargeLevel]', '2000');
+    await page.locator('.rf-problem[role=alert]', { hasText: 'static head must be at most 1640 ft' }).waitFor();
+    expect(await page.getByRole('link', { name: /Next: flow band/ }).getAttribute('aria-disabled')).to.equal('true');
+    await page.fill('input[name=dischargeLevel]', '114.5');
+    await page.locator('.rf-derived', { hasText: 'Static head 14.5 ft' }).waitFor();
+    expect(await page.locator('.rf-problem[role=alert]').count()).to.equal(0);
     await page.fill('input[name=length-0]', '260');
     // Hazen-Williams by hand would differ: the preview must move when the length does.
     const before = await page.locator('[role=status]', { hasText: 'TDH' }).textContent();
@@ -76,6 +90,10 @@ describe('pump selection in Chromium', function () {
     await page.fill('input[name=turnoversMax]', '1.3');
     // 6,000 gal once an hour is 100 gpm (1 gpm = 60 gph)
     await page.locator('.rf-suggestion', { hasText: '100 to 130 gpm' }).waitFor();
+    // 10 m3/s is 158503 gpm: the band's flows are held to the search's plausible flow
+    await page.fill('input[name=flowMax]', '200000');
+    await page.locator('input[name=flowMax]').blur();
+    await page.locator('mat-error', { hasText: 'flow must be at most 158500 gpm' }).waitFor();
     await page.getByRole('button', { name: /Use as the duty band/ }).click();
     await page.getByRole('button', { name: /Next: find candidates/ }).click();
     await page.waitForURL(/design\/candidates/);

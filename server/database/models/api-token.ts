@@ -8,11 +8,15 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import type { ApiTokenRevokedReason } from '../../../shared/api/api-schemas';
 import type { ApiScope } from '../../../shared/vocabularies';
 import type { User } from './user';
 import { credentialChangeHooks } from './credential-changes';
 
-/** A personal API token: its name, shown prefix, scopes and the SHA-256 of the token itself. */
+/**
+ * A personal API token: its name, shown prefix, scopes and the SHA-256 of the token itself; once
+ * revoked, when and why, so that its owner knows which tokens a password reset took away.
+ */
 export class ApiToken extends Model<InferAttributes<ApiToken>, InferCreationAttributes<ApiToken>> {
   declare id: CreationOptional<number>;
   declare userId: ForeignKey<User['id']>;
@@ -22,6 +26,7 @@ export class ApiToken extends Model<InferAttributes<ApiToken>, InferCreationAttr
   declare scopes: ApiScope[];
   declare expiresAt: Date | null;
   declare revokedAt: CreationOptional<Date | null>;
+  declare revokedReason: CreationOptional<ApiTokenRevokedReason | null>;
   declare lastUsedAt: CreationOptional<Date | null>;
   declare user?: NonAttribute<User>;
   declare createdAt: CreationOptional<Date>;
@@ -48,6 +53,7 @@ export class ApiToken extends Model<InferAttributes<ApiToken>, InferCreationAttr
         },
         expiresAt: { type: DataTypes.DATE, allowNull: true },
         revokedAt: { type: DataTypes.DATE, allowNull: true },
+        revokedReason: { type: DataTypes.STRING(20), allowNull: true },
         lastUsedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -16,6 +16,7 @@ export const auditActions = [
   'sign-out',
   'api-token-created',
   'api-token-revoked',
+  'api-token-create-failed',
   'role-changed',
   'supplier-changed',
   'user-disabled',

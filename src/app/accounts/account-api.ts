@@ -1,7 +1,13 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { ApiTokenList, CreatedApiToken, NewApiToken, PasswordChange } from '../../../shared/api/api-schemas';
+import type {
+  ApiTokenList,
+  CreatedApiToken,
+  NewApiToken,
+  PasswordChange,
+  RevokedApiTokens,
+} from '../../../shared/api/api-schemas';
 import { problemShownByCaller } from '../core/problem-details-interceptor';
 
 /** The signed-in user's own account: password and personal API tokens, one method per endpoint. */
@@ -21,7 +27,7 @@ export class AccountApi {
     return this.http.delete<void>(`/api/v1/account/api-tokens/${tokenId}`);
   }
 
-  changePassword(request: PasswordChange): Observable<void> {
-    return this.http.put<void>('/api/v1/account/password', request, problemShownByCaller());
+  changePassword(request: PasswordChange): Observable<RevokedApiTokens> {
+    return this.http.put<RevokedApiTokens>('/api/v1/account/password', request, problemShownByCaller());
   }
 }

@@ -12,7 +12,10 @@ import { AccountApi } from './account-api';
 import { ApiTokenDialog } from './api-token-dialog';
 import { ChangePasswordForm } from './change-password-form';
 
-/** Who is signed in, a password change, and their personal API tokens: create (shown once), list, revoke. */
+/**
+ * Who is signed in, a password change, and their personal API tokens: create (shown once), list,
+ * revoke; revoked tokens say when and why, so that after a password reset the user knows what to make again.
+ */
 @Component({
   selector: 'rf-account-page',
   imports: [DatePipe, MatCardModule, MatTableModule, MatButtonModule, MatIconModule, ChangePasswordForm],
@@ -29,6 +32,12 @@ export class AccountPage {
   protected readonly tokens = signal<ApiTokenSummary[]>([]);
   protected readonly loaded = signal(false);
   protected readonly columns = ['name', 'prefix', 'scopes', 'createdAt', 'lastUsedAt', 'expiresAt', 'actions'];
+  /** The tokens the latest password reset took away, for the note above the table. */
+  protected readonly revokedByReset = computed(() => {
+    const byReset = this.tokens().filter((token) => token.revokedReason === 'password-reset');
+    const latest = byReset.reduce((last, token) => (token.revokedAt! > last ? token.revokedAt! : last), '');
+    return byReset.filter((token) => token.revokedAt === latest);
+  });
 
   constructor() {
     this.reload();
@@ -51,7 +60,7 @@ export class AccountPage {
     this.accountApi.revokeApiToken(token.id).subscribe(() => this.reload());
   }
 
-  private reload(): void {
+  protected reload(): void {
     this.accountApi.listApiTokens().subscribe(({ tokens }) => {
       this.tokens.set(tokens);
       this.loaded.set(true);

@@ -53,6 +53,8 @@ export class ApiTokenDialog {
       ) as Record<ApiScope, FormControl<boolean>>,
     ),
     expiresInDays: [90],
+    // asked again so that a session left open, or stolen, cannot make a token on its own
+    password: ['', [Validators.required, Validators.maxLength(200)]],
   });
   protected readonly created = signal<CreatedApiToken | null>(null);
   protected readonly copied = signal(false);
@@ -60,7 +62,7 @@ export class ApiTokenDialog {
   protected readonly noScope = signal(false);
 
   protected create(): void {
-    const { name, scopes, expiresInDays } = this.form.getRawValue();
+    const { name, scopes, expiresInDays, password } = this.form.getRawValue();
     const chosen = apiScopeChoices.map(({ scope }) => scope).filter((scope) => scopes[scope]);
     this.noScope.set(chosen.length === 0);
     if (this.form.invalid || chosen.length === 0) {
@@ -69,10 +71,13 @@ export class ApiTokenDialog {
     }
     this.problem.set(null);
     this.accountApi
-      .createApiToken({ name, scopes: chosen, ...(expiresInDays > 0 ? { expiresInDays } : {}) })
+      .createApiToken({ name, scopes: chosen, password, ...(expiresInDays > 0 ? { expiresInDays } : {}) })
       .subscribe({
         next: (created) => this.created.set(created),
-        error: (error: HttpErrorResponse) => this.problem.set(describeHttpError(error)),
+        error: (error: HttpErrorResponse) => {
+          this.form.controls.password.reset();
+          this.problem.set(describeHttpError(error));
+        },
       });
   }
 

@@ -1,7 +1,8 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, output, signal } from '@angular/core';
 import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { describeHttpError } from '../core/problem-details';
@@ -9,10 +10,20 @@ import { AccountApi } from './account-api';
 import { newPasswordValidators, passwordsMatch } from './account-validators';
 import { NewPasswordFields } from './new-password-fields';
 
-/** Change the password from the account page: the current one, then the new one twice. */
+/**
+ * Change the password from the account page: the current one, then the new one twice, and whether
+ * the personal API tokens go too; emits how many tokens were revoked, so the page can list them.
+ */
 @Component({
   selector: 'rf-change-password-form',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, NewPasswordFields],
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    NewPasswordFields,
+  ],
   templateUrl: './change-password-form.html',
   styleUrl: './account-forms.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -27,9 +38,12 @@ export class ChangePasswordForm {
       { password: ['', newPasswordValidators], confirmation: [''] },
       { validators: passwordsMatch },
     ),
+    revokeApiTokens: [false],
   });
+  readonly tokensRevoked = output<number>();
   protected readonly saving = signal(false);
-  protected readonly done = signal(false);
+  /** How many API tokens the change revoked, once it is done. */
+  protected readonly done = signal<{ revokedApiTokenCount: number } | null>(null);
   protected readonly problem = signal<string | null>(null);
 
   protected submit(formDirective: FormGroupDirective): void {
@@ -37,15 +51,20 @@ export class ChangePasswordForm {
       this.form.markAllAsTouched();
       return;
     }
-    const { currentPassword, next } = this.form.getRawValue();
+    const { currentPassword, next, revokeApiTokens } = this.form.getRawValue();
     this.problem.set(null);
-    this.done.set(false);
+    this.done.set(null);
     this.saving.set(true);
-    this.accountApi.changePassword({ currentPassword, newPassword: next.password }).subscribe({
-      next: () => {
+    this.accountApi.changePassword({ currentPassword, newPassword: next.password, revokeApiTokens }).subscribe({
+      next: ({ revokedApiTokenCount }) => {
         this.saving.set(false);
-        this.done.set(true);
-        formDirective.resetForm();
+        this.done.set({ revokedApiTokenCount });
+        formDirective.resetForm({
+          currentPassword: '',
+          next: { password: '', confirmation: '' },
+          revokeApiTokens: false,
+        });
+        if (revokedApiTokenCount > 0) this.tokensRevoked.emit(revokedApiTokenCount);
       },
       error: (error: HttpErrorResponse) => {
         this.saving.set(false);

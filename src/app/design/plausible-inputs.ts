@@ -1,5 +1,6 @@
 import type { AbstractControl, ValidationErrors, ValidatorFn } from '@angular/forms';
 import type { CalculationUnits } from '../../../shared/api/api-schemas';
+import { staticHeadOf, type SystemDraft } from './system-draft';
 import { checkPlausibleInUnits, plausibilityMessage, type PlausibleLimitName } from '../../../shared/hydraulics';
 
 /**
@@ -22,5 +23,32 @@ export function plausibleValidator(limit: PlausibleLimitName, units: () => Calcu
     if (typeof value !== 'number' || !Number.isFinite(value)) return null;
     const problem = plausibleInputProblem(limit, value, units());
     return problem ? { plausible: problem } : null;
+  };
+}
+
+/**
+ * The contract's floor for lengths and flows (`exclusiveMinimum: 0`): more than zero, however
+ * little; the plausibility table's floor of zero lets zero itself through, the contract does not.
+ */
+export function aboveZero(control: AbstractControl): ValidationErrors | null {
+  const value: unknown = control.value;
+  return typeof value === 'number' && value <= 0 ? { aboveZero: true } : null;
+}
+
+/**
+ * The static head two measured levels give (discharge above intake), held to the static head's
+ * limit; on the form group, since neither level alone is the head.
+ */
+export function plausibleLevelsValidator(units: () => CalculationUnits): ValidatorFn {
+  return (group: AbstractControl): ValidationErrors | null => {
+    const draft = group.value as SystemDraft;
+    if (
+      draft.staticMode !== 'levels' ||
+      typeof draft.intakeLevel !== 'number' ||
+      typeof draft.dischargeLevel !== 'number'
+    )
+      return null;
+    const problem = plausibleInputProblem('staticHead', staticHeadOf(draft), units());
+    return problem ? { plausibleLevels: problem } : null;
   };
 }

@@ -1,4 +1,4 @@
-import { Injectable, computed, effect, signal } from '@angular/core';
+import { Injectable, computed, effect, linkedSignal, signal } from '@angular/core';
 import type {
   DesignDraft,
   DesignSearch,
@@ -29,6 +29,9 @@ interface StoredDraft {
   results: SelectionResponse | null;
   compared: string[];
 }
+
+/** The draft without the chosen candidates, which follow the results on their own. */
+type DraftState = Omit<StoredDraft, 'compared'>;
 
 const storageKey = 'riffle.design-draft.v1';
 
@@ -76,7 +79,8 @@ function readStored(): StoredDraft {
  */
 @Injectable({ providedIn: 'root' })
 export class SelectionDraft {
-  private readonly stored = signal<StoredDraft>(readStored());
+  private readonly restored = readStored();
+  private readonly stored = signal<DraftState>(this.restored);
 
   readonly project = computed(() => this.stored().project);
   /** The design as a project saves it. */
@@ -91,7 +95,12 @@ export class SelectionDraft {
   readonly band = computed(() => this.stored().band);
   readonly search = computed(() => this.stored().search);
   readonly results = computed(() => this.stored().results);
-  readonly compared = computed(() => this.stored().compared);
+  /** The candidates chosen for comparison: the stored choice at start, none again whenever the results change. */
+  private readonly chosen = linkedSignal<SelectionResponse | null, string[]>({
+    source: this.results,
+    computation: (_results, previous) => (previous === undefined ? this.restored.compared : []),
+  });
+  readonly compared = this.chosen.asReadonly();
   readonly comparedCandidates = computed(() => {
     const keys = new Set(this.compared());
     return (this.results()?.candidates ?? []).filter((candidate) => keys.has(candidateKey(candidate)));
@@ -100,7 +109,8 @@ export class SelectionDraft {
   constructor() {
     effect(() => {
       try {
-        sessionStorage.setItem(storageKey, JSON.stringify(this.stored()));
+        const draft: StoredDraft = { ...this.stored(), compared: this.chosen() };
+        sessionStorage.setItem(storageKey, JSON.stringify(draft));
       } catch {
         // A full or disabled storage only costs the reload memory.
       }
@@ -123,7 +133,6 @@ export class SelectionDraft {
       system: convertSystemDraft(draft.system, from, to),
       band: { ...draft.band, flowMin: flow(draft.band.flowMin), flowMax: flow(draft.band.flowMax) },
       results: null,
-      compared: [],
     }));
   }
 
@@ -137,7 +146,6 @@ export class SelectionDraft {
       band,
       search,
       results: null,
-      compared: [],
     });
   }
 
@@ -152,11 +160,11 @@ export class SelectionDraft {
   }
 
   setSystem(system: SystemDraft): void {
-    this.stored.update((draft) => ({ ...draft, system, results: null, compared: [] }));
+    this.stored.update((draft) => ({ ...draft, system, results: null }));
   }
 
   setBand(band: DutyBand): void {
-    this.stored.update((draft) => ({ ...draft, band, results: null, compared: [] }));
+    this.stored.update((draft) => ({ ...draft, band, results: null }));
   }
 
   setSearch(search: SearchSettings): void {
@@ -164,17 +172,16 @@ export class SelectionDraft {
   }
 
   setResults(results: SelectionResponse): void {
-    this.stored.update((draft) => ({ ...draft, results, compared: [] }));
+    this.stored.update((draft) => ({ ...draft, results }));
   }
 
   toggleCompared(key: string): void {
-    this.stored.update((draft) => {
-      const compared = draft.compared.includes(key)
-        ? draft.compared.filter((existing) => existing !== key)
-        : draft.compared.length < maxCompared
-          ? [...draft.compared, key]
-          : draft.compared;
-      return { ...draft, compared };
-    });
+    this.chosen.update((compared) =>
+      compared.includes(key)
+        ? compared.filter((existing) => existing !== key)
+        : compared.length < maxCompared
+          ? [...compared, key]
+          : compared,
+    );
   }
 }

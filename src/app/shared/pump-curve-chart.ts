@@ -7,7 +7,7 @@ import {
   input,
   viewChild,
 } from '@angular/core';
-import { axisBottom, axisLeft, axisRight } from 'd3-axis';
+import { axisRight } from 'd3-axis';
 import { scaleLinear } from 'd3-scale';
 import { select } from 'd3-selection';
 import { line } from 'd3-shape';
@@ -21,7 +21,7 @@ import {
   pumpHeadAt,
   type PumpCurveFit,
 } from '../../../shared/hydraulics';
-import { appendAxisTitles } from './chart-frame';
+import { appendAxisTitle, drawChartFrame, inheritFont } from './chart-frame';
 import type { DisplayUnits } from './display-units';
 
 /** Where the preferred band comes from: the supplier's declaration, or 70-120 % of BEP flow. */
@@ -43,24 +43,49 @@ export function preferredBandOf(fit: StoredPumpCurveFit | null, declared: FlowRa
 
 const samples = 60;
 
+/**
+ * The full chart's look and the compact one's. The compact drawing is half as large again as the
+ * table cell shows it, so the frame's one font size reads as small there as the cell wants.
+ */
+const looks = {
+  full: {
+    width: 720,
+    height: 400,
+    margin: { top: 16, right: 56, bottom: 46, left: 56 },
+    ticks: { flow: 8, head: 6 },
+    fitStroke: 2.5,
+    pointRadius: 4,
+    pointStroke: 1.5,
+    bepSize: 8,
+  },
+  compact: {
+    width: 330,
+    height: 165,
+    margin: { top: 9, right: 9, bottom: 22, left: 40 },
+    ticks: { flow: 3, head: 3 },
+    fitStroke: 2.25,
+    pointRadius: 3,
+    pointStroke: 2.25,
+    bepSize: 7.5,
+  },
+} as const;
+
 /** A pump's head curve (published points and fit), its efficiency, the BEP and the preferred band, drawn with D3. */
 @Component({
   selector: 'rf-pump-curve-chart',
   template: `<svg
     #chart
-    [attr.viewBox]="'0 0 ' + width() + ' ' + height()"
+    [attr.viewBox]="'0 0 ' + look().width + ' ' + look().height"
     role="img"
     [attr.aria-label]="description()"
   ></svg>`,
+  styleUrls: ['./chart-frame.scss'],
   styles: `
     :host {
       display: block;
     }
     svg {
-      width: 100%;
-      height: auto;
       overflow: visible;
-      font-family: Lato, sans-serif;
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -74,8 +99,7 @@ export class PumpCurveChart {
   readonly compact = input(false);
 
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('chart');
-  protected readonly width = computed(() => (this.compact() ? 220 : 720));
-  protected readonly height = computed(() => (this.compact() ? 110 : 400));
+  protected readonly look = computed(() => (this.compact() ? looks.compact : looks.full));
   protected readonly description = computed(() => {
     const fit = this.fit();
     const units = this.units();
@@ -94,50 +118,47 @@ export class PumpCurveChart {
     const fit = this.fit() as PumpCurveFit | null;
     const units = this.units();
     const compact = this.compact();
-    const [width, height] = [this.width(), this.height()];
-    const margin = compact ? { top: 6, right: 6, bottom: 14, left: 26 } : { top: 16, right: 56, bottom: 46, left: 56 };
-    const root = select(this.svg().nativeElement);
-    root.selectAll('*').remove();
-    if (points.length === 0) return;
+    const look = this.look();
+    const element = this.svg().nativeElement;
+    if (points.length === 0) {
+      select(element).selectAll('*').remove();
+      return;
+    }
 
     const flow = (value: number) => flowFromSI(value, units.flow);
     const head = (value: number) => headFromSI(value, units.head);
     const flowMax = Math.max(...points.map((point) => point.flow), fit?.flowMax ?? 0);
     const headMax = Math.max(...points.map((point) => point.head), fit?.shutOffHead ?? 0);
-    const x = scaleLinear()
-      .domain([0, flow(flowMax) * 1.05])
-      .range([margin.left, width - margin.right])
-      .nice();
-    const y = scaleLinear()
-      .domain([0, head(headMax) * 1.1])
-      .range([height - margin.bottom, margin.top])
-      .nice();
-    const efficiency = scaleLinear()
-      .domain([0, 100])
-      .range([height - margin.bottom, margin.top]);
+    const titled = !compact;
+    const { root, x, y, plot, under, marks } = drawChartFrame(element, {
+      width: look.width,
+      height: look.height,
+      margin: look.margin,
+      x: {
+        domain: [0, flow(flowMax) * 1.05],
+        ticks: look.ticks.flow,
+        title: titled ? `Flow (${units.flow})` : undefined,
+      },
+      y: {
+        domain: [0, head(headMax) * 1.1],
+        ticks: look.ticks.head,
+        title: titled ? `Head (${units.head})` : undefined,
+      },
+    });
+    const efficiency = scaleLinear().domain([0, 100]).range([plot.bottom, plot.top]);
 
     const band = preferredBandOf(this.fit(), this.preferred());
     if (band) {
-      root
+      under
         .append('rect')
         .attr('class', 'rf-band')
         .attr('x', x(flow(band.range.flowMin)))
         .attr('width', Math.max(0, x(flow(band.range.flowMax)) - x(flow(band.range.flowMin))))
-        .attr('y', margin.top)
-        .attr('height', height - margin.top - margin.bottom)
+        .attr('y', plot.top)
+        .attr('height', plot.bottom - plot.top)
         .attr('fill', '#1d5c63')
         .attr('fill-opacity', 0.12);
     }
-
-    const axisX = root
-      .append('g')
-      .attr('transform', `translate(0,${height - margin.bottom})`)
-      .call(axisBottom(x).ticks(compact ? 3 : 8));
-    const axisY = root
-      .append('g')
-      .attr('transform', `translate(${margin.left},0)`)
-      .call(axisLeft(y).ticks(compact ? 3 : 6));
-    for (const axis of [axisX, axisY]) axis.selectAll('text').attr('font-size', compact ? 8 : 12);
 
     if (fit) {
       const flows = Array.from(
@@ -147,18 +168,18 @@ export class PumpCurveChart {
       const headLine = line<number>()
         .x((q) => x(flow(q)))
         .y((q) => y(head(pumpHeadAt(fit, q))));
-      root
+      marks
         .append('path')
         .attr('class', 'rf-fit')
         .attr('d', headLine(flows))
         .attr('fill', 'none')
         .attr('stroke', '#12383d')
-        .attr('stroke-width', compact ? 1.5 : 2.5);
+        .attr('stroke-width', look.fitStroke);
       if (fit.efficiencyCoefficients && !compact) {
         const efficiencyLine = line<number>()
           .x((q) => x(flow(q)))
           .y((q) => efficiency(100 * (pumpEfficiencyAt(fit, q) ?? 0)));
-        root
+        marks
           .append('path')
           .attr('class', 'rf-efficiency')
           .attr('d', efficiencyLine(flows))
@@ -166,16 +187,16 @@ export class PumpCurveChart {
           .attr('stroke', '#b5643c')
           .attr('stroke-dasharray', '6 4')
           .attr('stroke-width', 2);
-        root
-          .append('g')
-          .attr('transform', `translate(${width - margin.right},0)`)
-          .call(axisRight(efficiency).ticks(5))
-          .selectAll('text')
-          .attr('font-size', 12);
+        inheritFont(
+          root.append('g').attr('transform', `translate(${plot.right},0)`).call(axisRight(efficiency).ticks(5)),
+        );
+        appendAxisTitle(root, 'Efficiency (%)')
+          .attr('transform', `translate(${look.width - 14},${(plot.top + plot.bottom) / 2}) rotate(90)`)
+          .attr('fill', '#7a3d1f');
       }
     }
 
-    root
+    marks
       .append('g')
       .attr('class', 'rf-points')
       .selectAll('circle')
@@ -183,48 +204,27 @@ export class PumpCurveChart {
       .join('circle')
       .attr('cx', (point) => x(flow(point.flow)))
       .attr('cy', (point) => y(head(point.head)))
-      .attr('r', compact ? 2 : 4)
+      .attr('r', look.pointRadius)
       .attr('fill', '#f4efe6')
       .attr('stroke', '#12383d')
-      .attr('stroke-width', 1.5);
+      .attr('stroke-width', look.pointStroke);
 
     if (fit?.bep) {
       const bx = x(flow(fit.bep.flow));
       const by = y(head(fit.bep.head));
-      root
+      const size = look.bepSize;
+      marks
         .append('path')
         .attr('class', 'rf-bep')
-        .attr(
-          'd',
-          `M${bx},${by - (compact ? 5 : 8)} L${bx + (compact ? 5 : 8)},${by} L${bx},${by + (compact ? 5 : 8)} L${bx - (compact ? 5 : 8)},${by} Z`,
-        )
+        .attr('d', `M${bx},${by - size} L${bx + size},${by} L${bx},${by + size} L${bx - size},${by} Z`)
         .attr('fill', '#b5643c');
       if (!compact) {
-        root
+        marks
           .append('text')
           .attr('x', bx + 12)
           .attr('y', by - 10)
-          .attr('font-size', 12)
           .attr('fill', '#7a3d1f')
           .text(`BEP ${(100 * fit.bep.efficiency).toFixed(0)} %`);
-      }
-    }
-
-    if (!compact) {
-      appendAxisTitles(
-        root,
-        { width, height, margin },
-        { flow: `Flow (${units.flow})`, head: `Head (${units.head})` },
-        { baselineFromBottom: 8, font: { 'font-size': 13 } },
-      );
-      if (fit?.efficiencyCoefficients) {
-        root
-          .append('text')
-          .attr('transform', `translate(${width - 14},${(margin.top + height - margin.bottom) / 2}) rotate(90)`)
-          .attr('text-anchor', 'middle')
-          .attr('font-size', 13)
-          .attr('fill', '#7a3d1f')
-          .text('Efficiency (%)');
       }
     }
   }

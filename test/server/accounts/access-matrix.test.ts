@@ -5,7 +5,8 @@ import { readAccessDeclaration } from '../../../server/accounts/access-declarati
 import { apiScopes, roles, type ApiScope, type Role } from '../../../shared/vocabularies';
 import { listOperations, openApiDocument, type ApiOperation } from '../../../server/api/openapi-document';
 import { createApp } from '../../../server/app';
-import { Supplier, type User } from '../../../server/database/models';
+import { newSecretToken } from '../../../server/accounts/secret-tokens';
+import { PasswordResetLink, Supplier, type User } from '../../../server/database/models';
 import { createLogger } from '../../../server/logging';
 import { createApiToken, createSession, createUserWithSession, tableChecksums } from '../../support/accounts';
 import { createScratchDatabase } from '../../support/test-database';
@@ -165,6 +166,44 @@ describe('access matrix over every operation of openapi.yaml', function () {
       }
     });
   }
+
+  // A password reset answers a suspected compromise: a token made before it, with every scope, opens nothing after it.
+  describe('an API token made before a password reset', () => {
+    const tokensByRole = new Map<Role, string>();
+
+    before(async () => {
+      for (const role of roles) {
+        const { user } = await createUserWithSession(
+          sequelize,
+          role,
+          role === 'supplier-admin' ? { supplierId: suppliers.own.id } : {},
+        );
+        const apiToken = await createApiToken(sequelize, user.id, apiScopes);
+        await request(app).get('/api/v1/auth/me').set('Authorization', `Bearer ${apiToken}`).expect(200);
+        const link = newSecretToken('emailLink');
+        await PasswordResetLink.create({
+          userId: user.id,
+          tokenHash: link.hash,
+          expiresAt: new Date(Date.now() + 3_600_000),
+        });
+        await request(app)
+          .post('/api/v1/auth/reset-password')
+          .send({ token: link.token, password: `reset-after-theft-${role}` })
+          .expect(200);
+        tokensByRole.set(role, apiToken);
+      }
+    });
+
+    for (const operation of operations) {
+      const access = readAccessDeclaration(operation, openApiDocument.security);
+      if (access.public || access.scopes.length === 0) continue;
+      it(`${operation.method.toUpperCase()} ${operation.path} (${operation.operationId}) -> 401 after the reset`, async () => {
+        const response = await call(operation, tokensByRole.get(access.roles[0]));
+        expect(response.status, describeStatus(response)).to.equal(401);
+        expect(response.type).to.equal('application/problem+json');
+      });
+    }
+  });
 
   // Operations that name a supplier in their path: a supplier-admin of another supplier is refused and nothing changes.
   for (const operation of operations.filter((candidate) =>

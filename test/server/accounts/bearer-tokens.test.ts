@@ -93,7 +93,12 @@ describe('bearer tokens: sessions and personal API tokens', function () {
     const created = await request(app)
       .post('/api/v1/account/api-tokens')
       .set('Authorization', `Bearer ${session}`)
-      .send({ name: 'Estimating sheet', scopes: ['calculations:run', 'catalog:read'], expiresInDays: 30 })
+      .send({
+        name: 'Estimating sheet',
+        scopes: ['calculations:run', 'catalog:read'],
+        expiresInDays: 30,
+        password: testPassword,
+      })
       .expect(201);
     const token: string = created.body.token;
     expect(token.startsWith(created.body.apiToken.prefix)).to.equal(true);
@@ -119,7 +124,7 @@ describe('bearer tokens: sessions and personal API tokens', function () {
     const created = await request(app)
       .post('/api/v1/account/api-tokens')
       .set('Authorization', `Bearer ${owner.token}`)
-      .send({ name: 'CAD plug-in', scopes: ['catalog:read'] })
+      .send({ name: 'CAD plug-in', scopes: ['catalog:read'], password: testPassword })
       .expect(201);
     await request(app)
       .delete(`/api/v1/account/api-tokens/${created.body.apiToken.id}`)

@@ -183,7 +183,7 @@ describe('invitations and password reset through the fake SMTP server', function
     await request(app)
       .post('/api/v1/auth/reset-password')
       .send({ token, password: 'new-pond-pump-phrase' })
-      .expect(204);
+      .expect(200);
     await request(app).get('/api/v1/auth/me').set('Authorization', `Bearer ${oldSession}`).expect(401);
     await request(app).post('/api/v1/auth/sign-in').send({ email: user.email, password: testPassword }).expect(401);
     await request(app)
@@ -226,7 +226,7 @@ describe('invitations and password reset through the fake SMTP server', function
     const created = await request(app)
       .post('/api/v1/account/api-tokens')
       .set('Authorization', `Bearer ${token}`)
-      .send({ name: 'Audit me', scopes: ['catalog:read'] })
+      .send({ name: 'Audit me', scopes: ['catalog:read'], password: testPassword })
       .expect(201);
     await request(app)
       .delete(`/api/v1/account/api-tokens/${created.body.apiToken.id}`)

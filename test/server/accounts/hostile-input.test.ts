@@ -6,7 +6,7 @@ import request from 'supertest';
 import { listOperations, openApiDocument } from '../../../server/api/openapi-document';
 import { createApp } from '../../../server/app';
 import { createLogger } from '../../../server/logging';
-import { createUserWithSession, tableChecksums } from '../../support/accounts';
+import { createUserWithSession, tableChecksums, testPassword } from '../../support/accounts';
 import { createScratchDatabase } from '../../support/test-database';
 
 /*
@@ -42,7 +42,7 @@ const validBodies: Record<string, Record<string, unknown>> = {
   requestPasswordReset: { email: 'nobody@accounts.test' },
   resetPassword: { token: `rfl_${'R'.repeat(43)}`, password: 'weir-and-gravel-bed' },
   acceptInvitation: { token: `rfl_${'A'.repeat(43)}`, name: 'Robin Fenwick', password: 'weir-and-gravel-bed' },
-  createApiToken: { name: 'Estimating sheet', scopes: ['catalog:read'] },
+  createApiToken: { name: 'Estimating sheet', scopes: ['catalog:read'], password: testPassword },
   updateUser: { name: 'Renamed', role: 'designer', supplierId: null, disabled: false },
   inviteUser: { email: 'invitee@accounts.test', role: 'designer', supplierId: null },
 };

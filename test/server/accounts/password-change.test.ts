@@ -42,7 +42,8 @@ describe('changing one’s own password', function () {
     const otherSession = await createSession(user.id);
     const apiToken = await createApiToken(scratch.sequelize, user.id, ['catalog:read']);
 
-    await change(token, { currentPassword: testPassword, newPassword }).expect(204);
+    const changed = await change(token, { currentPassword: testPassword, newPassword }).expect(200);
+    expect(changed.body).to.deep.equal({ revokedApiTokenCount: 0, revokedApiTokens: [] });
 
     await me(token).expect(200);
     await me(otherSession).expect(401);

@@ -2,10 +2,11 @@ import { expect } from 'chai';
 import request from 'supertest';
 import { createApp } from '../../../server/app';
 import { createLogger } from '../../../server/logging';
-import { limitInUnits, PLAUSIBLE_LIMITS, type PlausibleLimitName } from '../../../shared/hydraulics';
+import type { PlausibleLimitName } from '../../../shared/hydraulics';
 import { plausibleInputProblem } from '../../../src/app/design/plausible-inputs';
 import { unitSystems } from '../../../src/app/design/unit-systems';
 import { createUserWithSession } from '../../support/accounts';
+import { PLAUSIBLE_LIMIT_CASES } from '../../support/plausible-limit-cases';
 import { createScratchDatabase } from '../../support/test-database';
 
 /*
@@ -95,30 +96,18 @@ describe('plausibility limits, client and API alike', function () {
     return { status: response.status, named, pointer, detail };
   }
 
-  for (const limit of Object.keys(PLAUSIBLE_LIMITS) as PlausibleLimitName[]) {
-    const { min, max, quantity } = PLAUSIBLE_LIMITS[limit];
-    for (const system of ['us', 'si'] as const) {
-      const units = unitSystems[system].units;
-      const bounds: Array<{ bound: number; outward: 1 | -1 }> = [{ bound: max, outward: 1 }];
-      if (min !== null) bounds.push({ bound: min, outward: -1 });
-      for (const { bound, outward } of bounds) {
-        const edge = limitInUnits(quantity, bound, units);
-        const step = Math.max(Math.abs(edge), 1) * 1e-6;
-        it(`${limit} ${outward > 0 ? 'max' : 'min'} in ${system} units: refused just outside, accepted just inside`, async () => {
-          const outside = edge + outward * step;
-          const inside = edge - outward * step;
-          expect(plausibleInputProblem(limit, outside, units), 'client, outside').to.be.a('string');
-          expect(plausibleInputProblem(limit, inside, units), 'client, inside').to.equal(null);
-          const refused = await pointerOfAnswer(limit, outside, units);
-          expect(refused.named, refused.detail).to.equal(refused.pointer);
-          // below a floor of zero the contract itself refuses (400); every other limit is the engine's 422
-          expect(refused.status, refused.detail).to.equal(bound === 0 && outward < 0 ? 400 : 422);
-          if (refused.status === 422) expect(refused.detail).to.equal(plausibleInputProblem(limit, outside, units));
-          const accepted = await pointerOfAnswer(limit, inside, units);
-          expect(accepted.named, accepted.detail).to.not.equal(accepted.pointer);
-        });
-      }
-    }
+  for (const { limit, system, units, side, edge, outside, inside } of PLAUSIBLE_LIMIT_CASES) {
+    it(`${limit} ${side} in ${system} units: refused just outside, accepted just inside`, async () => {
+      expect(plausibleInputProblem(limit, outside, units), 'client, outside').to.be.a('string');
+      expect(plausibleInputProblem(limit, inside, units), 'client, inside').to.equal(null);
+      const refused = await pointerOfAnswer(limit, outside, units);
+      expect(refused.named, refused.detail).to.equal(refused.pointer);
+      // below a floor of zero the contract itself refuses (400); every other limit is the engine's 422
+      expect(refused.status, refused.detail).to.equal(edge === 0 && side === 'min' ? 400 : 422);
+      if (refused.status === 422) expect(refused.detail).to.equal(plausibleInputProblem(limit, outside, units));
+      const accepted = await pointerOfAnswer(limit, inside, units);
+      expect(accepted.named, accepted.detail).to.not.equal(accepted.pointer);
+    });
   }
 
   it('states the limit in the units of the request', async () => {

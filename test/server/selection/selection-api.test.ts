@@ -330,6 +330,17 @@ describe('POST /api/v1/selections', function () {
     },
     { name: 'a limit of zero', body: { ...search, limit: 0 }, status: 400, pointer: '/body/limit' },
   ];
+  it("states the band's plausible limit in the request's units", async () => {
+    const response = await post('/selections', { ...search, duty: { flowMin: 90, flowMax: 9e9 } }).expect(422);
+    // 10 m3/s is 158503 gpm; the message rounds inward to four figures, so the figure stated is accepted
+    expect(response.body.errors[0].detail).to.equal('flow must be at most 158500 gpm');
+    const metric = { ...search, units: { ...units, flow: 'L/min' }, duty: { flowMin: 400, flowMax: 9e9 } };
+    // 10 m3/s is 600 000 L/min
+    expect((await post('/selections', metric).expect(422)).body.errors[0].detail).to.equal(
+      'flow must be at most 600000 L/min',
+    );
+  });
+
   for (const { name, body, status, pointer } of badInputs) {
     it(`answers ${status} naming ${pointer} for ${name}`, async () => {
       const response = await post('/selections', body);

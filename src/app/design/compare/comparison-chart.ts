@@ -1,6 +1,4 @@
-import { axisBottom, axisLeft } from 'd3-axis';
-import { scaleLinear } from 'd3-scale';
-import { select, type Selection } from 'd3-selection';
+import type { Selection } from 'd3-selection';
 import {
   line,
   symbol,
@@ -13,11 +11,11 @@ import {
   symbolTriangle,
   symbolWye,
 } from 'd3-shape';
-import { appendAxisTitles } from '../../shared/chart-frame';
+import { appendHatchPattern, drawChartFrame } from '../../shared/chart-frame';
 
 /*
- * The comparison chart, drawn with d3 into one SVG whose look lives in attributes (not page CSS),
- * so the exported file looks the same as the page. Each candidate has its own colour, dash and
+ * The comparison chart, drawn with d3 into the charts' one frame (chart-frame.ts), whose look lives
+ * in attributes, so the exported file looks the same as the page. Each candidate has its own colour, dash and
  * mark, so the chart still reads printed in grey.
  */
 
@@ -73,8 +71,8 @@ export function chartStyle(index: number): ChartStyle {
 }
 
 const chartSize = { width: 900, height: 520 };
+/** The right margin holds the legend. */
 const margin = { top: 20, right: 290, bottom: 50, left: 60 };
-const font = 'Lato, Helvetica, Arial, sans-serif';
 
 export interface ChartHandlers {
   /** A candidate's point (or curve) was hovered or focused; null when it is left. */
@@ -83,21 +81,7 @@ export interface ChartHandlers {
 
 /** Draws the whole chart into `element`, replacing what was there. */
 export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, handlers: ChartHandlers): void {
-  const svg = select(element);
-  svg.selectAll('*').remove();
   const { width, height } = chartSize;
-  svg
-    .attr('viewBox', `0 0 ${width} ${height}`)
-    .attr('xmlns', 'http://www.w3.org/2000/svg')
-    .attr('font-family', font)
-    .attr('font-size', 12)
-    .attr('role', 'img')
-    .attr(
-      'aria-label',
-      `System curve, duty band and ${model.candidates.length} pump curves with their operating points`,
-    );
-  svg.append('rect').attr('width', width).attr('height', height).attr('fill', '#ffffff');
-
   const maxFlow = Math.max(
     model.band.flowMax * 1.3,
     ...model.candidates.flatMap((candidate) => candidate.curve.map((point) => point.flow)),
@@ -106,74 +90,53 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
     ...model.candidates.flatMap((candidate) => candidate.curve.map((point) => point.head)),
     ...model.systemCurve.map((point) => point.head),
   );
-  const x = scaleLinear()
-    .domain([0, maxFlow])
-    .range([margin.left, width - margin.right])
-    .nice();
-  const y = scaleLinear()
-    .domain([0, maxHead * 1.05])
-    .range([height - margin.bottom, margin.top])
-    .nice();
+  const frame = drawChartFrame(element, {
+    width,
+    height,
+    margin,
+    x: { domain: [0, maxFlow], ticks: 8, title: `Flow (${model.flowUnit})` },
+    y: { domain: [0, maxHead * 1.05], ticks: 8, title: `Head (${model.headUnit})` },
+  });
+  const { root: svg, x, y, plot: edges } = frame;
+  svg
+    .attr('role', 'img')
+    .attr(
+      'aria-label',
+      `System curve, duty band and ${model.candidates.length} pump curves with their operating points`,
+    );
   const path = line<ChartPoint>()
     .x((point) => x(point.flow))
     .y((point) => y(point.head));
 
-  const defs = svg.append('defs');
-  const hatch = defs
-    .append('pattern')
-    .attr('id', 'rf-band-hatch')
-    .attr('width', 8)
-    .attr('height', 8)
-    .attr('patternUnits', 'userSpaceOnUse')
-    .attr('patternTransform', 'rotate(45)');
-  hatch.append('rect').attr('width', 8).attr('height', 8).attr('fill', '#edf3ef');
-  hatch
-    .append('line')
-    .attr('x1', 0)
-    .attr('y1', 0)
-    .attr('x2', 0)
-    .attr('y2', 8)
-    .attr('stroke', '#9bb8aa')
-    .attr('stroke-width', 2);
-  defs
+  appendHatchPattern(svg, 'rf-band-hatch', { fill: '#edf3ef', line: '#9bb8aa' });
+  svg
+    .append('defs')
     .append('clipPath')
     .attr('id', 'rf-plot-clip')
     .append('rect')
-    .attr('x', margin.left)
-    .attr('y', margin.top)
-    .attr('width', width - margin.left - margin.right)
-    .attr('height', height - margin.top - margin.bottom);
+    .attr('x', edges.left)
+    .attr('y', edges.top)
+    .attr('width', edges.right - edges.left)
+    .attr('height', edges.bottom - edges.top);
 
-  svg
+  frame.under
     .append('rect')
     .attr('class', 'rf-duty-band')
     .attr('x', x(model.band.flowMin))
-    .attr('y', margin.top)
+    .attr('y', edges.top)
     .attr('width', Math.max(1, x(model.band.flowMax) - x(model.band.flowMin)))
-    .attr('height', height - margin.top - margin.bottom)
+    .attr('height', edges.bottom - edges.top)
     .attr('fill', 'url(#rf-band-hatch)');
-  svg
+  frame.marks
     .append('text')
     .attr('x', (x(model.band.flowMin) + x(model.band.flowMax)) / 2)
-    .attr('y', margin.top + 14)
+    .attr('y', edges.top + 14)
     .attr('text-anchor', 'middle')
     .attr('fill', '#33584a')
     .attr('font-weight', 700)
     .text('duty band');
 
-  svg
-    .append('g')
-    .attr('transform', `translate(0,${height - margin.bottom})`)
-    .call(axisBottom(x).ticks(8));
-  svg.append('g').attr('transform', `translate(${margin.left},0)`).call(axisLeft(y).ticks(8));
-  appendAxisTitles(
-    svg,
-    { width, height, margin },
-    { flow: `Flow (${model.flowUnit})`, head: `Head (${model.headUnit})` },
-    { baselineFromBottom: 10, font: { 'font-weight': 700 } },
-  );
-
-  const plot = svg.append('g').attr('clip-path', 'url(#rf-plot-clip)');
+  const plot = frame.marks.append('g').attr('clip-path', 'url(#rf-plot-clip)');
   plot
     .append('path')
     .attr('class', 'rf-system-curve')
@@ -217,7 +180,7 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
     const points: Array<[ChartPoint, 'operating' | 'one-failed']> = [[candidate.operatingPoint, 'operating']];
     if (candidate.oneFailed) points.push([candidate.oneFailed, 'one-failed']);
     for (const [point, which] of points) {
-      svg
+      frame.marks
         .append('path')
         .attr('class', which === 'operating' ? 'rf-operating-point' : 'rf-one-failed-point')
         .attr('d', shape())

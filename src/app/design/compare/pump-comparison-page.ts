@@ -6,6 +6,7 @@ import {
   afterRenderEffect,
   computed,
   inject,
+  linkedSignal,
   signal,
   viewChild,
 } from '@angular/core';
@@ -24,7 +25,7 @@ import { candidateLabel, comparisonModel, unitConverter } from './comparison-mod
   selector: 'rf-pump-comparison-page',
   imports: [DecimalPipe, RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule],
   templateUrl: './pump-comparison-page.html',
-  styleUrls: ['../design-page.scss', './pump-comparison-page.scss'],
+  styleUrls: ['../design-page.scss', '../../shared/chart-frame.scss', './pump-comparison-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PumpComparisonPage {
@@ -35,12 +36,6 @@ export class PumpComparisonPage {
   protected readonly display = signal<UnitSystem>(this.draft.unitSystem());
   protected readonly displayUnits = computed(() => unitSystems[this.display()].units);
   protected readonly candidates = this.draft.comparedCandidates;
-  protected readonly focused = signal<{ key: string; which: 'operating' | 'one-failed' } | null>(null);
-  protected readonly styles = computed(() => this.candidates().map((_, index) => chartStyle(index)));
-
-  /** Converts a flow or head from the design's units to the display's. */
-  private readonly convert = computed(() => unitConverter(this.draft.units(), this.displayUnits()));
-
   protected readonly model = computed((): ChartModel | null =>
     comparisonModel(
       { system: this.draft.pipeSystem(), band: this.draft.band(), units: this.draft.units() },
@@ -48,6 +43,16 @@ export class PumpComparisonPage {
       this.displayUnits(),
     ),
   );
+
+  /** The hovered or focused point; none once the chart is redrawn, since its marks (and the hover) are gone. */
+  protected readonly focused = linkedSignal<
+    ChartModel | null,
+    { key: string; which: 'operating' | 'one-failed' } | null
+  >({ source: this.model, computation: () => null });
+  protected readonly styles = computed(() => this.candidates().map((_, index) => chartStyle(index)));
+
+  /** Converts a flow or head from the design's units to the display's. */
+  private readonly convert = computed(() => unitConverter(this.draft.units(), this.displayUnits()));
 
   /** The hovered or focused point, told in words. */
   protected readonly details = computed(() => {

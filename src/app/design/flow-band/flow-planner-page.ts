@@ -16,6 +16,7 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { Router } from '@angular/router';
 import { map, startWith } from 'rxjs';
+import { aboveZero, plausibleValidator } from '../plausible-inputs';
 import { SelectionDraft } from '../selection-draft';
 import { unitSystems, type UnitSystem } from '../unit-systems';
 import { bandFromModules, bandFromTurnover, bandFromWeir, weirSheets, type FlowBand } from './flow-plans';
@@ -88,10 +89,13 @@ export class FlowPlannerPage {
     sheetMax: this.formBuilder.control<string>('heavy'),
   });
 
+  /** The search's own checks on a band flow: the contract's floor and the plausible ceiling, in the draft's units. */
+  private readonly flowValidators = [Validators.required, aboveZero, plausibleValidator('flow', this.units)];
+
   protected readonly band = this.formBuilder.group(
     {
-      flowMin: this.formBuilder.control(this.draft.band().flowMin, [Validators.required, Validators.min(0.001)]),
-      flowMax: this.formBuilder.control(this.draft.band().flowMax, [Validators.required, Validators.min(0.001)]),
+      flowMin: this.formBuilder.control(this.draft.band().flowMin, this.flowValidators),
+      flowMax: this.formBuilder.control(this.draft.band().flowMax, this.flowValidators),
     },
     { validators: bandInOrder },
   );

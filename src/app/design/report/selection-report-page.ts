@@ -31,7 +31,7 @@ const reportedWithoutComparison = 3;
   selector: 'rf-selection-report-page',
   imports: [DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule],
   templateUrl: './selection-report-page.html',
-  styleUrls: ['../design-page.scss', './selection-report-page.scss'],
+  styleUrls: ['../design-page.scss', '../../shared/chart-frame.scss', './selection-report-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SelectionReportPage {

@@ -29,7 +29,7 @@ import {
   VELOCITY_WARNING_LIMIT,
   type FrictionMethod,
 } from '../../../../shared/hydraulics';
-import { plausibleValidator } from '../plausible-inputs';
+import { aboveZero, plausibleLevelsValidator, plausibleValidator } from '../plausible-inputs';
 import { SelectionDraft } from '../selection-draft';
 import { compileDraft, staticHeadOf, toPipeSystem, type SegmentDraft, type SystemDraft } from '../system-draft';
 import { SystemCurvePreview, type CurvePoint } from './system-curve-preview';
@@ -42,6 +42,9 @@ type SegmentForm = FormGroup<{
   extraK: FormControl<number>;
   fittings: FormArray<FittingForm>;
 }>;
+
+/** The saved design's ceiling on a segment's extra K (the contract's DesignSystem `extraK` maximum). */
+const MOST_EXTRA_K = 10_000;
 
 /** Points of the preview: enough for a smooth curve, cheap for the engine. */
 const previewSteps = 40;
@@ -119,9 +122,17 @@ export class SystemBuilderPage {
     },
   );
 
+  protected readonly mostExtraK = MOST_EXTRA_K;
+
   protected readonly velocityLimit = computed(() => lengthFromSI(VELOCITY_WARNING_LIMIT, this.units().length));
 
   constructor() {
+    // The typed static head counts only when it is the one in use: a stale value hidden behind the levels must not block the form.
+    const { staticMode, staticHead } = this.form.controls;
+    const useStaticMode = (mode: 'direct' | 'levels') =>
+      mode === 'levels' ? staticHead.disable({ emitEvent: false }) : staticHead.enable({ emitEvent: false });
+    useStaticMode(staticMode.value);
+    staticMode.valueChanges.subscribe(useStaticMode);
     this.form.valueChanges.subscribe(() => {
       if (this.form.valid) this.draft.setSystem(this.form.getRawValue() as SystemDraft);
     });
@@ -176,19 +187,22 @@ export class SystemBuilderPage {
   private buildForm(system: SystemDraft) {
     const number = (value: number, ...validators: ValidatorFn[]) =>
       this.formBuilder.control(value, [Validators.required, ...validators]);
-    return this.formBuilder.group({
-      staticMode: this.formBuilder.control<'direct' | 'levels'>(system.staticMode),
-      staticHead: number(system.staticHead, plausibleValidator('staticHead', this.units)),
-      intakeLevel: number(system.intakeLevel),
-      dischargeLevel: number(system.dischargeLevel),
-      outletPressureHead: number(system.outletPressureHead, plausibleValidator('outletPressureHead', this.units)),
-      waterTemperatureC: number(system.waterTemperatureC, Validators.min(0), Validators.max(40)),
-      frictionMethod: this.formBuilder.control<FrictionMethod>(system.frictionMethod),
-      segments: this.formBuilder.array(
-        system.segments.map((segment) => this.segmentForm(segment)),
-        Validators.minLength(1),
-      ),
-    });
+    return this.formBuilder.group(
+      {
+        staticMode: this.formBuilder.control<'direct' | 'levels'>(system.staticMode),
+        staticHead: number(system.staticHead, plausibleValidator('staticHead', this.units)),
+        intakeLevel: number(system.intakeLevel),
+        dischargeLevel: number(system.dischargeLevel),
+        outletPressureHead: number(system.outletPressureHead, plausibleValidator('outletPressureHead', this.units)),
+        waterTemperatureC: number(system.waterTemperatureC, Validators.min(0), Validators.max(40)),
+        frictionMethod: this.formBuilder.control<FrictionMethod>(system.frictionMethod),
+        segments: this.formBuilder.array(
+          system.segments.map((segment) => this.segmentForm(segment)),
+          Validators.minLength(1),
+        ),
+      },
+      { validators: plausibleLevelsValidator(this.units) },
+    );
   }
 
   private segmentForm(segment: SegmentDraft): SegmentForm {
@@ -197,13 +211,13 @@ export class SystemBuilderPage {
       size: this.formBuilder.control(segment.size),
       length: this.formBuilder.control(segment.length, [
         Validators.required,
-        Validators.min(0.01),
+        aboveZero,
         plausibleValidator('segmentLength', this.units),
       ]),
       extraK: this.formBuilder.control(segment.extraK, [
         Validators.required,
         Validators.min(0),
-        Validators.max(10_000),
+        Validators.max(MOST_EXTRA_K),
       ]),
       fittings: this.formBuilder.array(segment.fittings.map((fitting) => this.fittingForm(fitting))),
     });
