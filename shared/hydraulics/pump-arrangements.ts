@@ -24,11 +24,11 @@ export type ArrangementResult =
     }
   | { ok: false; reason: NoOperatingPointReason; issue: EngineIssue };
 
-function requireCount(value: number, field: string, min: number): void {
+function requireCount(value: number, field: string, what: string, min: number): void {
   if (!Number.isInteger(value) || value < min) {
     throw new HydraulicsInputError({
       code: 'not-whole-number',
-      params: { what: field.slice(1), value, min },
+      params: { what, value, min },
       pointer: field,
     });
   }
@@ -48,7 +48,7 @@ function requireCount(value: number, field: string, min: number): void {
  * parallelHeadCurve(pump, 2).flowMax // => 0.016
  */
 export function parallelHeadCurve(pump: HeadCurve, running: number): HeadCurve {
-  requireCount(running, '/running', 1);
+  requireCount(running, '/running', 'running pumps', 1);
   return {
     headCoefficients: polynomialScaled(pump.headCoefficients, 1, running),
     flowMin: pump.flowMin * running,
@@ -69,7 +69,7 @@ export function parallelHeadCurve(pump: HeadCurve, running: number): HeadCurve {
  * seriesHeadCurve(pump, 2).headCoefficients[2] // => -250000
  */
 export function seriesHeadCurve(pump: HeadCurve, count: number): HeadCurve {
-  requireCount(count, '/count', 1);
+  requireCount(count, '/count', 'pump count', 1);
   return {
     headCoefficients: polynomialScaled(pump.headCoefficients, count, 1),
     flowMin: pump.flowMin,
@@ -103,8 +103,8 @@ export function solveParallelIdentical(
   installed: number,
   running: number,
 ): ArrangementResult & { installed: number; running: number } {
-  requireCount(installed, '/installed', 1);
-  requireCount(running, '/running', 1);
+  requireCount(installed, '/installed', 'installed pumps', 1);
+  requireCount(running, '/running', 'running pumps', 1);
   if (running > installed) {
     throw new HydraulicsInputError({
       code: 'running-exceeds-installed',

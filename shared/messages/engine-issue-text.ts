@@ -68,7 +68,7 @@ const ENGINE_INPUT_ERROR_TEXT: {
   'not-positive': ({ what, value }) => `${what} must be greater than zero, got ${value}`,
   negative: ({ what, value }) => `${what} must not be negative, got ${value}`,
   'out-of-range': ({ what, value, min, max }) => `${what} must be between ${min} and ${max}, got ${value}`,
-  'not-whole-number': ({ value, min }) => `must be a whole number of at least ${min}, got ${value}`,
+  'not-whole-number': ({ what, value, min }) => `${what} must be a whole number of at least ${min}, got ${value}`,
   'trim-only': ({ ratio }) => `an impeller can only be trimmed (ratio <= 1), got ${ratio}`,
   'unknown-fitting-kind': ({ value, accepted }) =>
     `unknown fitting kind '${value}'; valid kinds: ${accepted.join(', ')}`,

@@ -27,7 +27,10 @@ const inputSamples: { [Code in EngineInputErrorCode]: [EngineInputErrorParams[Co
     { what: 'altitude (m)', value: 12000, min: -500, max: 11000 },
     'altitude (m) must be between -500 and 11000, got 12000',
   ],
-  'not-whole-number': [{ what: 'running', value: 1.5, min: 1 }, 'must be a whole number of at least 1, got 1.5'],
+  'not-whole-number': [
+    { what: 'running pumps', value: 1.5, min: 1 },
+    'running pumps must be a whole number of at least 1, got 1.5',
+  ],
   'trim-only': [{ ratio: 1.1 }, 'an impeller can only be trimmed (ratio <= 1), got 1.1'],
   'unknown-fitting-kind': [
     { value: 'x', accepted: ['elbow', 'tee'] },
