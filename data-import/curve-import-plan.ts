@@ -1,5 +1,7 @@
 import type { CurveImportIssue, CurveImportPump, CurveImportReport } from '../shared/api/api-schemas';
 import type { PowerBasis } from '../shared/hydraulics';
+import { importIssueText } from '../shared/messages/import-issue-text';
+import type { ImportIssue } from '../shared/messages/import-issues';
 import { curveContentHash } from './curve-content-hash';
 import { curveTableLimits } from './curve-table-format';
 import type { ReadCurveTable, ReadPump, ReadPumpDetails } from './curve-table-reader';
@@ -39,7 +41,7 @@ export interface CheckedCurveTable {
   pumps: Array<{ read: ReadPump; checked: CheckedPump }>;
   /** Any error at all, listed or not: nothing may be written. */
   hasErrors: boolean;
-  listedErrors: CurveImportIssue[];
+  listedErrors: ImportIssue[];
   errorsOmitted: number;
 }
 
@@ -60,7 +62,7 @@ function sameDetails(a: ReadPumpDetails, b: ReadPumpDetails): boolean {
   );
 }
 
-function byRow(a: CurveImportIssue, b: CurveImportIssue): number {
+function byRow(a: ImportIssue, b: ImportIssue): number {
   return (a.row ?? 0) - (b.row ?? 0);
 }
 
@@ -144,7 +146,7 @@ export function pumpReport(plan: PlannedPump, withCurves: boolean): CurveImportP
           ...(fit ? { fit } : {}),
         }
       : {}),
-    warnings: checked.warnings,
+    warnings: checked.warnings.map(reportedIssue),
   };
 }
 
@@ -153,12 +155,22 @@ export function storedReport(report: CurveImportReport): CurveImportReport {
   return { ...report, pumps: report.pumps.map(({ points: _points, fit: _fit, ...pump }) => pump) };
 }
 
-/** One line for a person: where the issue is, what is wrong, what is expected. */
-export function describeIssue(issue: CurveImportIssue): string {
+/** An issue as the report gives it: its code and values, and their sentence from the one table. */
+export function reportedIssue(issue: ImportIssue): CurveImportIssue {
+  const { message, expected } = importIssueText(issue);
+  return { ...issue, message, ...(expected ? { expected } : {}) };
+}
+
+/**
+ * One line for a person: where the issue is, what is wrong, what is expected, in the table's words
+ * (a report's issue was made from an ImportIssue, so its code and params are one's).
+ */
+export function describeIssue(issue: ImportIssue | CurveImportIssue): string {
   const where = [issue.row !== null ? `row ${issue.row}` : null, issue.column ? `column ${issue.column}` : null]
     .filter(Boolean)
     .join(', ');
-  return `${where || 'file'}: ${issue.message}${issue.expected ? ` (expected ${issue.expected})` : ''}`;
+  const { message, expected } = importIssueText(issue as ImportIssue);
+  return `${where || 'file'}: ${message}${expected ? ` (expected ${expected})` : ''}`;
 }
 
 /** The report of a checked file against a plan, as the API, the command and the import record give it. */
@@ -192,8 +204,8 @@ export function importReport(
       unchanged: plan.filter((pump) => pump.outcome === 'unchanged').length,
     },
     pumps: plan.map((pump) => pumpReport(pump, true)),
-    errors: checked.listedErrors,
+    errors: checked.listedErrors.map(reportedIssue),
     errorsOmitted: checked.errorsOmitted,
-    warnings: read.warnings,
+    warnings: read.warnings.map(reportedIssue),
   };
 }

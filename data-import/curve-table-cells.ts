@@ -1,4 +1,4 @@
-import type { CurveImportIssue } from '../shared/api/api-schemas';
+import type { ImportIssue, ImportIssueCode, ImportIssueParams, NumberRule } from '../shared/messages/import-issues';
 import { diameterToSI, flowToSI, headToSI, powerToSI, type FlowUnit, type HeadUnit } from '../shared/hydraulics';
 import { pumpKinds, pumpStatuses } from '../shared/vocabularies';
 import {
@@ -26,10 +26,16 @@ export interface CellContext {
 
 const numberPattern = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
-type Issue = CurveImportIssue;
+type Issue = ImportIssue;
 
-export function issue(row: number | null, column: string | null, message: string, expected?: string): Issue {
-  return { row, column, message, ...(expected ? { expected } : {}) };
+/** An issue at a row (the file's line) and column, with its code's values. */
+export function issue<Code extends ImportIssueCode>(
+  row: number | null,
+  column: string | null,
+  code: Code,
+  params: ImportIssueParams[Code],
+): Issue {
+  return { row, column, code, params } as Issue;
 }
 
 /** What the cells of one row say, before the pump is assembled. */
@@ -63,21 +69,16 @@ function textCell(
   let text = values.cells[column] ?? '';
   if (text.startsWith("'") && formulaLeadCharacters.some((character) => text[1] === character)) text = text.slice(1);
   if (text === '') {
-    if (required)
-      cells.errors.add(
-        issue(values.row, column, `the ${column} is blank on the pump's first row`, 'a name of 1-160 characters'),
-      );
+    if (required) cells.errors.add(issue(values.row, column, 'name-blank', { maxLength }));
     return null;
   }
   if (text.length > maxLength) {
-    cells.errors.add(
-      issue(values.row, column, `the text is ${text.length} characters long`, `at most ${maxLength} characters`),
-    );
+    cells.errors.add(issue(values.row, column, 'text-too-long', { length: text.length, maxLength }));
     return null;
   }
   // eslint-disable-next-line no-control-regex -- control characters are exactly what this rule refuses
   if (/[\u0000-\u0008\u000B\u000C\u000E-\u001F]/.test(text)) {
-    cells.errors.add(issue(values.row, column, 'the text holds control characters', 'printable text'));
+    cells.errors.add(issue(values.row, column, 'text-control-characters', {}));
     return null;
   }
   return text;
@@ -88,30 +89,20 @@ export function numberCell(
   cells: CellContext,
   values: RowValues,
   column: CurveTableColumn,
-  what: string,
-  range: { min?: number; above?: number; max?: number; integer?: boolean },
+  range: Omit<NumberRule, 'integer'> & { integer?: boolean },
 ): number | null | undefined {
   const cell = values.cells[column];
   if (cell === undefined || cell === '') return undefined;
   const text = cells.decimalComma ? cell.replace(',', '.') : cell;
   // Built only for an error: this runs for every cell of a large file.
-  const expected = () =>
-    [
-      range.integer ? 'a whole number' : 'a number',
-      what,
-      range.min !== undefined ? `from ${range.min}` : range.above !== undefined ? `above ${range.above}` : '',
-      range.max !== undefined ? `up to ${range.max}` : '',
-    ]
-      .filter(Boolean)
-      .join(' ');
+  const rule = (): NumberRule => ({ ...range, integer: range.integer ?? false });
   if (!numberPattern.test(text)) {
     cells.errors.add(
-      issue(
-        values.row,
-        column,
-        `"${cell.slice(0, 40)}" is not a number`,
-        `${expected()}${cells.decimalComma ? ' (decimal point or comma)' : ' (decimal point)'}`,
-      ),
+      issue(values.row, column, 'not-a-number', {
+        value: cell.slice(0, 40),
+        rule: rule(),
+        decimalComma: cells.decimalComma,
+      }),
     );
     return null;
   }
@@ -123,7 +114,7 @@ export function numberCell(
     (range.above !== undefined && value <= range.above) ||
     (range.max !== undefined && value > range.max);
   if (outOfRange) {
-    cells.errors.add(issue(values.row, column, `${cell} is out of range`, expected()));
+    cells.errors.add(issue(values.row, column, 'number-out-of-range', { value: cell.slice(0, 40), rule: rule() }));
     return null;
   }
   return value;
@@ -140,14 +131,9 @@ function choiceCell<T extends string>(
   if (cell === '' && fallback) return fallback;
   if (!(choices as readonly string[]).includes(cell)) {
     cells.errors.add(
-      issue(
-        values.row,
-        column,
-        cell === ''
-          ? `the ${column} is blank on the pump's first row`
-          : `"${cell.slice(0, 40)}" is not a ${column} Riffle knows`,
-        `one of ${choices.join(', ')}`,
-      ),
+      cell === ''
+        ? issue(values.row, column, 'choice-blank', { choices: [...choices] })
+        : issue(values.row, column, 'choice-unknown', { value: cell.slice(0, 40), choices: [...choices] }),
     );
     return null;
   }
@@ -157,20 +143,18 @@ function choiceCell<T extends string>(
 export function readDetails(cells: CellContext, values: RowValues): ReadPumpDetails {
   const sizeUnit = cells.unitOf('size-unit') === 'in' ? 'in' : 'mm';
   const size = (column: 'discharge_size' | 'solids_size') => {
-    const value = numberCell(cells, values, column, `in ${sizeUnit}`, { above: 0, max: sizeUnit === 'in' ? 40 : 1000 });
+    const value = numberCell(cells, values, column, { unit: sizeUnit, above: 0, max: sizeUnit === 'in' ? 40 : 1000 });
     return typeof value === 'number' ? diameterToSI(value, sizeUnit) * 1000 : null;
   };
-  const price = numberCell(cells, values, 'list_price', `in ${cells.unitOf('currency') ?? 'the currency line'}`, {
-    min: 0,
-    max: 1e9,
-  });
-  const phases = numberCell(cells, values, 'phases', '(1 or 3)', { integer: true, min: 1, max: 3 });
-  if (phases === 2) cells.errors.add(issue(values.row, 'phases', '2 is not a supply Riffle knows', '1 or 3'));
+  const price = numberCell(cells, values, 'list_price', { unit: cells.unitOf('currency') ?? null, min: 0, max: 1e9 });
+  const phases = numberCell(cells, values, 'phases', { unit: null, integer: true, min: 1, max: 3 });
+  if (phases === 2) cells.errors.add(issue(values.row, 'phases', 'phases-unknown', { value: phases }));
   return {
     displayName: textCell(cells, values, 'display_name', 160, true) ?? '',
     kind: choiceCell(cells, values, 'kind', pumpKinds) ?? 'submersible',
-    nominalSpeedRpm: numberCell(cells, values, 'speed_rpm', 'in rpm', { integer: true, min: 100, max: 20000 }) ?? null,
-    voltageV: numberCell(cells, values, 'voltage', 'in V', { integer: true, min: 1, max: 1000 }) ?? null,
+    nominalSpeedRpm:
+      numberCell(cells, values, 'speed_rpm', { unit: 'rpm', integer: true, min: 100, max: 20000 }) ?? null,
+    voltageV: numberCell(cells, values, 'voltage', { unit: 'V', integer: true, min: 1, max: 1000 }) ?? null,
     phaseCount: phases === 2 ? null : (phases ?? null),
     dischargeSizeMm: size('discharge_size'),
     solidsHandlingMm: size('solids_size'),
@@ -189,31 +173,17 @@ export function readRange(
   const flowUnit = cells.unitOf('flow-unit') as FlowUnit;
   const minColumn = `${region}_flow_min` as const;
   const maxColumn = `${region}_flow_max` as const;
-  const min = numberCell(cells, values, minColumn, `in ${flowUnit}`, { min: 0 });
-  const max = numberCell(cells, values, maxColumn, `in ${flowUnit}`, { above: 0 });
+  const min = numberCell(cells, values, minColumn, { unit: flowUnit, min: 0 });
+  const max = numberCell(cells, values, maxColumn, { unit: flowUnit, above: 0 });
   if (min === null || max === null) return null;
   if (min === undefined && max === undefined) return null;
   if (min === undefined || max === undefined) {
     const missing = min === undefined ? minColumn : maxColumn;
-    cells.errors.add(
-      issue(
-        values.row,
-        missing,
-        `the ${region} range has only one end`,
-        `both ${minColumn} and ${maxColumn}, or neither`,
-      ),
-    );
+    cells.errors.add(issue(values.row, missing, 'range-one-end', { region }));
     return null;
   }
   if (!(max > min)) {
-    cells.errors.add(
-      issue(
-        values.row,
-        maxColumn,
-        `the ${region} range ends (${max}) before it starts (${min})`,
-        `${maxColumn} greater than ${minColumn}`,
-      ),
-    );
+    cells.errors.add(issue(values.row, maxColumn, 'range-reversed', { region, min, max }));
     return null;
   }
   return { flowMin: flowToSI(min, flowUnit), flowMax: flowToSI(max, flowUnit) };
@@ -222,29 +192,27 @@ export function readRange(
 export function readPoint(cells: CellContext, values: RowValues): ReadPoint | null {
   const flowUnit = cells.unitOf('flow-unit') as FlowUnit;
   const headUnit = cells.unitOf('head-unit') as HeadUnit;
-  const flow = numberCell(cells, values, 'flow', `in ${flowUnit}`, { min: 0 });
-  const head = numberCell(cells, values, 'head', `in ${headUnit}`, { above: 0 });
+  const flow = numberCell(cells, values, 'flow', { unit: flowUnit, min: 0 });
+  const head = numberCell(cells, values, 'head', { unit: headUnit, above: 0 });
   for (const [column, value] of [
     ['flow', flow],
     ['head', head],
   ] as const) {
     if (value === undefined)
       cells.errors.add(
-        issue(values.row, column, `the ${column} is blank`, `a number in ${column === 'flow' ? flowUnit : headUnit}`),
+        issue(values.row, column, 'point-value-blank', { unit: column === 'flow' ? flowUnit : headUnit }),
       );
   }
   const powerUnit = cells.unitOf('power-unit') as PowerUnitName | undefined;
-  const power = numberCell(cells, values, 'power', `in ${powerUnit}`, { min: 0 });
+  const power = numberCell(cells, values, 'power', { unit: powerUnit ?? null, min: 0 });
   const efficiencyUnit = cells.unitOf('efficiency-unit');
-  const efficiency = numberCell(
-    cells,
-    values,
-    'efficiency',
-    efficiencyUnit === '%' ? 'in % (0-100)' : 'as a fraction (0-1)',
-    { min: 0, max: efficiencyUnit === '%' ? 100 : 1 },
-  );
+  const efficiency = numberCell(cells, values, 'efficiency', {
+    unit: efficiencyUnit === '%' ? '%' : 'fraction',
+    min: 0,
+    max: efficiencyUnit === '%' ? 100 : 1,
+  });
   const npshUnit = cells.unitOf('npsh-unit') as HeadUnit | undefined;
-  const npsh = numberCell(cells, values, 'npsh_required', `in ${npshUnit}`, { above: 0 });
+  const npsh = numberCell(cells, values, 'npsh_required', { unit: npshUnit ?? null, above: 0 });
   if (typeof flow !== 'number' || typeof head !== 'number' || power === null || efficiency === null || npsh === null)
     return null;
   return {

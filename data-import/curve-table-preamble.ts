@@ -22,27 +22,22 @@ export type Directives = Map<string, { value: string; row: number }>;
 
 /** The first line: the format's name and version, or null (and an issue) when the file is not one this reads. */
 export function readFormatLine(record: string[], row: number, errors: IssueList): number | null {
-  const expected = `the format line "${curveTableFormatName},${curveTableFormatVersion}" first`;
   if (record[0] !== curveTableFormatName) {
     errors.add(
-      issue(
-        row,
-        null,
-        `this is not a Riffle curve table: the first line is "${record.join(',').slice(0, 60)}"`,
-        expected,
-      ),
+      issue(row, null, 'not-a-curve-table', {
+        firstLine: record.join(',').slice(0, 60),
+        formatLine: `${curveTableFormatName},${curveTableFormatVersion}`,
+      }),
     );
     return null;
   }
   const version = Number(record[1]);
   if (!Number.isInteger(version) || version !== curveTableFormatVersion) {
     errors.add(
-      issue(
-        row,
-        'version',
-        `format version "${record[1] ?? ''}" is not one this Riffle reads`,
-        `version ${curveTableFormatVersion}`,
-      ),
+      issue(row, 'version', 'unknown-format-version', {
+        version: (record[1] ?? '').slice(0, 40),
+        supported: curveTableFormatVersion,
+      }),
     );
     return null;
   }
@@ -54,40 +49,27 @@ export function readDirective(record: string[], row: number, directives: Directi
   const [name, value = '', ...rest] = record;
   const known = [...Object.keys(unitDirectives), ...freeDirectives];
   if (!known.includes(name)) {
-    errors.add(
-      issue(
-        row,
-        name,
-        `"${name}" is not a unit line this format knows, and the header row (starting with model_code) has not come yet`,
-        `one of ${known.join(', ')}, or the header row`,
-      ),
-    );
+    errors.add(issue(row, name, 'unknown-unit-line', { name: name.slice(0, 60), known }));
     return;
   }
   if (rest.some((cell) => cell !== '')) {
-    errors.add(issue(row, name, `the ${name} line has more than one value`, 'the name and one value'));
+    errors.add(issue(row, name, 'unit-line-extra-value', { name }));
     return;
   }
   if (name === 'note') return;
   if (directives.has(name)) {
-    errors.add(
-      issue(row, name, `${name} is given twice (first on row ${directives.get(name)!.row})`, 'each unit line once'),
-    );
+    errors.add(issue(row, name, 'unit-line-repeated', { name, firstRow: directives.get(name)!.row }));
     return;
   }
   if (name === 'currency') {
     if (!/^[A-Z]{3}$/.test(value)) {
-      errors.add(
-        issue(row, name, `"${value}" is not a currency code`, 'a three-letter ISO 4217 code such as USD or EUR'),
-      );
+      errors.add(issue(row, name, 'not-a-currency', { value: value.slice(0, 40) }));
       return;
     }
   } else {
     const accepted = unitDirectives[name as UnitDirective] as readonly string[];
     if (!accepted.includes(value)) {
-      errors.add(
-        issue(row, name, `"${value}" is not a unit Riffle knows for ${name}`, `one of ${accepted.join(', ')}`),
-      );
+      errors.add(issue(row, name, 'unknown-unit', { name, value: value.slice(0, 40), accepted: [...accepted] }));
       return;
     }
   }
@@ -105,46 +87,29 @@ export function readHeader(
   const seen = new Set<string>();
   const header = record.map((name) => {
     if (!known.includes(name)) {
-      errors.add(
-        issue(row, name || '(blank)', `"${name}" is not a column of this format`, `columns among ${known.join(', ')}`),
-      );
+      errors.add(issue(row, name || '(blank)', 'unknown-column', { name: name.slice(0, 60), known: [...known] }));
       return null;
     }
     if (seen.has(name)) {
-      errors.add(issue(row, name, `column ${name} appears twice in the header`, 'each column once'));
+      errors.add(issue(row, name, 'column-repeated', { name }));
       return null;
     }
     seen.add(name);
     return name as CurveTableColumn;
   });
   for (const name of requiredColumns) {
-    if (!seen.has(name))
-      errors.add(issue(row, name, `the header has no ${name} column`, `the columns ${requiredColumns.join(', ')}`));
+    if (!seen.has(name)) errors.add(issue(row, name, 'column-missing', { name, required: [...requiredColumns] }));
   }
   for (const [directive, where] of [
     ['flow-unit', 'flow'],
     ['head-unit', 'head'],
   ] as const) {
     if (!directives.has(directive))
-      errors.add(
-        issue(
-          row,
-          where,
-          `no ${directive} line is given above the header`,
-          `a line "${directive},..." with one of ${unitDirectives[directive].join(', ')}`,
-        ),
-      );
+      errors.add(issue(row, where, 'unit-line-missing', { name: directive, accepted: [...unitDirectives[directive]] }));
   }
   for (const [column, directive] of Object.entries(columnUnitDirective)) {
     if (seen.has(column) && !directives.has(directive)) {
-      errors.add(
-        issue(
-          row,
-          column,
-          `the ${column} column needs a ${directive} line above the header`,
-          `a line "${directive},..."`,
-        ),
-      );
+      errors.add(issue(row, column, 'column-needs-unit-line', { name: column, directive }));
     }
   }
   return header;

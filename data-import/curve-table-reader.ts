@@ -1,6 +1,7 @@
 import { Readable } from 'node:stream';
 import { CsvError } from 'csv-parse';
-import type { CurveFileUnits, CurveImportIssue } from '../shared/api/api-schemas';
+import type { CurveFileUnits } from '../shared/api/api-schemas';
+import type { ImportIssue } from '../shared/messages/import-issues';
 import type { PumpKind, PumpStatus } from '../shared/vocabularies';
 import {
   issue,
@@ -64,7 +65,7 @@ export interface ReadPump {
   preferred: { flowMin: number; flowMax: number } | null;
   allowable: { flowMin: number; flowMax: number } | null;
   points: ReadPoint[];
-  warnings: CurveImportIssue[];
+  warnings: ImportIssue[];
   /** True when one of its rows had an error: the whole-pump checks would only repeat it. */
   hasRowErrors: boolean;
 }
@@ -76,10 +77,10 @@ export interface ReadCurveTable {
   pointRowCount: number;
   fileChecksum: string;
   fileBytes: number;
-  errors: CurveImportIssue[];
+  errors: ImportIssue[];
   /** Errors found beyond the listed ones, counted only. */
   errorsOmitted: number;
-  warnings: CurveImportIssue[];
+  warnings: ImportIssue[];
 }
 
 export interface ReadOptions {
@@ -119,32 +120,17 @@ export async function readCurveTable(input: Readable, options: ReadOptions = {})
       for await (const { record, line } of part) {
         state.take(record, line);
         if (state.pointRowCount > maxPointRows) {
-          errors.add(
-            issue(
-              line,
-              null,
-              `the file has more than ${maxPointRows.toLocaleString('en')} curve-point rows`,
-              `at most ${maxPointRows.toLocaleString('en')} rows; split the file`,
-            ),
-          );
+          errors.add(issue(line, null, 'too-many-rows', { maxRows: maxPointRows }));
           counter.destroy();
           break reading;
         }
       }
     }
   } catch (error) {
-    if (error instanceof FileTooLargeError)
-      errors.add(issue(null, null, error.message, `at most ${maxFileBytes} bytes`));
+    if (error instanceof FileTooLargeError) errors.add(issue(null, null, 'file-too-large', { maxBytes: maxFileBytes }));
     else if (error instanceof CsvError) {
       const line = (error as CsvError & { lines?: number }).lines ?? null;
-      errors.add(
-        issue(
-          line,
-          null,
-          `the file is not valid CSV here: ${csvProblem(error)}`,
-          'quotes that open and close around a field, and records shorter than 64 KiB',
-        ),
-      );
+      errors.add(issue(line, null, 'not-csv', { problem: csvProblem(error) }));
     } else throw error;
   }
   state.finish();
@@ -165,7 +151,7 @@ class TableState implements CellContext {
   formatVersion: number | null = null;
   decimalComma = false;
   readonly pumps: ReadPump[] = [];
-  readonly fileWarnings: CurveImportIssue[] = [];
+  readonly fileWarnings: ImportIssue[] = [];
   pointRowCount = 0;
   private phase: 'format' | 'directives' | 'rows' | 'refused' = 'format';
   private readonly directives: Directives = new Map();
@@ -228,12 +214,10 @@ class TableState implements CellContext {
       if (index >= this.header.length) {
         if (cell !== '')
           this.errors.add(
-            issue(
-              row,
-              `column ${index + 1}`,
-              `the row has a value ("${cell.slice(0, 40)}") beyond the header's ${this.header.length} columns`,
-              'no more cells than the header',
-            ),
+            issue(row, `column ${index + 1}`, 'cell-beyond-header', {
+              value: cell.slice(0, 40),
+              headerColumns: this.header.length,
+            }),
           );
         return;
       }
@@ -243,12 +227,9 @@ class TableState implements CellContext {
     const modelCode = values.cells.model_code ?? '';
     if (!/^[A-Za-z0-9][A-Za-z0-9 ._/-]{0,63}$/.test(modelCode)) {
       this.errors.add(
-        issue(
-          row,
-          'model_code',
-          modelCode === '' ? 'the model code is blank' : `"${modelCode.slice(0, 70)}" is not a model code`,
-          'a code of 1-64 letters, digits, spaces and . _ / - starting with a letter or digit',
-        ),
+        modelCode === ''
+          ? issue(row, 'model_code', 'model-code-blank', {})
+          : issue(row, 'model_code', 'not-a-model-code', { value: modelCode.slice(0, 70) }),
       );
       return;
     }
@@ -260,12 +241,7 @@ class TableState implements CellContext {
     if (point) {
       if (current.pump.points.length >= curveTableLimits.maxPointsPerPump) {
         this.errors.add(
-          issue(
-            row,
-            'flow',
-            `pump ${modelCode} has more than ${curveTableLimits.maxPointsPerPump} points`,
-            `at most ${curveTableLimits.maxPointsPerPump} points per pump`,
-          ),
+          issue(row, 'flow', 'too-many-points', { modelCode, maxPoints: curveTableLimits.maxPointsPerPump }),
         );
       } else current.pump.points.push(point);
     }
@@ -275,12 +251,11 @@ class TableState implements CellContext {
     const earlier = this.seen.get(modelCode);
     if (earlier) {
       this.errors.add(
-        issue(
-          values.row,
-          'model_code',
-          `pump ${modelCode} appears again; its rows ${earlier.firstRow}-${earlier.lastRow} came earlier`,
-          'each pump once, with all of its rows together',
-        ),
+        issue(values.row, 'model_code', 'pump-repeated', {
+          modelCode,
+          firstRow: earlier.firstRow,
+          lastRow: earlier.lastRow,
+        }),
       );
     }
     const details = readDetails(this, values);
@@ -298,11 +273,7 @@ class TableState implements CellContext {
     for (const column of ['display_name', 'notes'] as const) {
       const text = values.cells[column] ?? '';
       const lead = formulaLeadCharacters.find((character) => text.startsWith(character));
-      if (lead) {
-        pump.warnings.push(
-          issue(values.row, column, `the text starts with "${lead}": Riffle keeps it as text and never evaluates it`),
-        );
-      }
+      if (lead) pump.warnings.push(issue(values.row, column, 'formula-text', { lead }));
     }
     if (!earlier) this.seen.set(modelCode, pump);
     this.pumps.push(pump);
@@ -324,12 +295,11 @@ class TableState implements CellContext {
       const first = current.values[column] ?? '';
       if (cell !== first) {
         this.errors.add(
-          issue(
-            values.row,
-            column,
-            `"${cell.slice(0, 60)}" differs from "${first.slice(0, 60)}" on row ${current.pump.firstRow}, the pump's first row`,
-            `blank, or the value of row ${current.pump.firstRow}`,
-          ),
+          issue(values.row, column, 'differs-from-first-row', {
+            value: cell.slice(0, 60),
+            first: first.slice(0, 60),
+            firstRow: current.pump.firstRow,
+          }),
         );
       }
     }
@@ -341,31 +311,18 @@ class TableState implements CellContext {
     const complete = this.errors.count === 0;
     if (complete && this.phase === 'format')
       this.errors.add(
-        issue(
-          null,
-          null,
-          'the file is empty',
-          `the format line "${curveTableFormatName},${curveTableFormatVersion}", unit lines, a header and point rows`,
-        ),
+        issue(null, null, 'file-empty', { formatLine: `${curveTableFormatName},${curveTableFormatVersion}` }),
       );
-    if (complete && this.phase === 'directives')
-      this.errors.add(issue(null, 'model_code', 'the file has no header row', 'a header row starting with model_code'));
+    if (complete && this.phase === 'directives') this.errors.add(issue(null, 'model_code', 'no-header', {}));
     if (complete && this.phase === 'rows' && this.pumps.length === 0)
-      this.errors.add(
-        issue(null, null, 'the file has a header but no curve points', 'at least one pump with three or more points'),
-      );
+      this.errors.add(issue(null, null, 'no-points', {}));
     if (this.unitOf('efficiency-unit') === '%') {
       const values = this.pumps
         .flatMap((pump) => pump.points.map((point) => point.efficiency))
         .filter((value) => value !== undefined);
       if (values.length > 0 && values.every((value) => value <= 0.01)) {
         this.fileWarnings.push(
-          issue(
-            this.directives.get('efficiency-unit')!.row,
-            'efficiency-unit',
-            'efficiency-unit is % but every efficiency is 1 % or less: are these fractions?',
-            'efficiency-unit,fraction for values 0-1',
-          ),
+          issue(this.directives.get('efficiency-unit')!.row, 'efficiency-unit', 'efficiency-looks-fractional', {}),
         );
       }
     }

@@ -5,6 +5,7 @@ import {
   pumpHeadAt,
   solveParallelIdentical,
   type CompiledSystemCurve,
+  type EngineIssue,
   type NoOperatingPointReason,
   type OperatingRegion,
   type PreferredBand,
@@ -41,7 +42,7 @@ export interface DutyPoint {
 }
 
 export type DutyOutcome =
-  { ok: true; point: DutyPoint } | { ok: false; reason: NoOperatingPointReason; message: string };
+  { ok: true; point: DutyPoint } | { ok: false; reason: NoOperatingPointReason; issue: EngineIssue };
 
 export interface PumpOnFile {
   fit: PumpCurveFit;

@@ -26,13 +26,13 @@ import {
   type CompiledSystemCurve,
   type NoOperatingPointReason,
 } from '../../shared/hydraulics';
-import { engineIssueText } from '../../shared/messages/engine-issue-text';
+import { engineInputErrorText, engineIssueText } from '../../shared/messages/engine-issue-text';
 import { ProblemError } from '../api/problem-details';
 import { dutyOfParallelPumps, type DutyPoint, type PumpOnFile } from './arrangement-duty';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
 import { fitInlinePump, preferredBandOf, summarizeFit } from './pump-request';
-import { answerUnits, echoedUnits } from './request-units';
-import { prepareSystem, requirePlausible, requirePlausibleFlow, round, velocityWarnings } from './system-request';
+import { answerUnits, echoedUnits, round } from './request-units';
+import { prepareSystem, requirePlausible, requirePlausibleFlow, velocityWarnings } from './system-request';
 
 /** Where the calculations find a catalog pump's current curve. */
 export interface CurrentPumpCurves {
@@ -136,7 +136,11 @@ export function createCalculationHandlers(
       if (running > installed)
         throw unprocessable(
           '/body/arrangement/running',
-          `running pumps (${running}) cannot exceed installed pumps (${installed})`,
+          engineInputErrorText({
+            code: 'running-exceeds-installed',
+            params: { running, installed },
+            pointer: '/running',
+          }),
         );
       const duty = withRequestPointers(
         () => dutyOfParallelPumps(pump, curve, running, band, density),

@@ -1,4 +1,5 @@
 import { HydraulicsInputError } from '../../shared/hydraulics';
+import { engineInputErrorText, type IssueValueText } from '../../shared/messages/engine-issue-text';
 import { ProblemError } from '../api/problem-details';
 
 /** Turns a field path of the engine's input (`/segments/0/extraK`) into a pointer into the request. */
@@ -32,11 +33,13 @@ export function unprocessable(pointer: string, detail: string): ProblemError {
  * Runs engine code; a HydraulicsInputError becomes a 422 problem whose pointer names the
  * request field the engine rejected, so a client never sees the engine's own paths.
  */
-export function withRequestPointers<T>(compute: () => T, translate: PointerTranslator): T {
+export function withRequestPointers<T>(compute: () => T, translate: PointerTranslator, units?: IssueValueText): T {
   try {
     return compute();
   } catch (error) {
-    if (error instanceof HydraulicsInputError) throw unprocessable(translate(error.field), error.message);
+    // The detail is made again from the error's code, in the request's units when they are known.
+    if (error instanceof HydraulicsInputError)
+      throw unprocessable(translate(error.field), engineInputErrorText(error.issue, units));
     throw error;
   }
 }

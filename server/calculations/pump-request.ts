@@ -10,7 +10,7 @@ import {
   type PumpCurveFit,
 } from '../../shared/hydraulics';
 import { pointerInto, withRequestPointers } from './engine-problem';
-import { answerUnits, powerUnitOf } from './request-units';
+import { answerUnits, powerUnitOf, requestValueText } from './request-units';
 import { requirePlausible } from './system-request';
 
 /** Fits an inline published curve; every problem is a 422 pointing under `pointer` (`/body/pump`). */
@@ -32,6 +32,7 @@ export function fitInlinePump(units: CalculationUnits, pump: InlinePump, pointer
   return withRequestPointers(
     () => fitPumpCurve(points, { powerBasis: pump.powerBasis }),
     (field) => field.replace(/^\/points/, `${pointer}/curve`),
+    requestValueText(units),
   );
 }
 

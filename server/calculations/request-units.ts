@@ -1,5 +1,6 @@
 import type { CalculationUnits, PowerUnit } from '../../shared/api/api-schemas';
 import { diameterFromSI, flowFromSI, headFromSI, lengthFromSI, powerFromSI } from '../../shared/hydraulics';
+import type { IssueValueText } from '../../shared/messages/engine-issue-text';
 
 /* Units at the API edge, through the engine's conversions (shared/hydraulics/units.ts). */
 
@@ -32,4 +33,20 @@ export function answerUnits(units: CalculationUnits): AnswerUnits {
     diameter: (value) => diameterFromSI(value, units.diameter),
     power: (value) => powerFromSI(value, power),
   };
+}
+
+/** How engine issues and refusals write their values for one request: its units, two decimals. */
+export function requestValueText(units: CalculationUnits): IssueValueText {
+  const to = answerUnits(units);
+  return {
+    flow: (value) => `${round(to.flow(value))} ${units.flow}`,
+    velocity: (value) => `${round(to.length(value))} ${units.length}/s`,
+    head: (value) => `${round(to.head(value))} ${units.head}`,
+    power: (value) => `${round(to.power(value))} ${powerUnitOf(units)}`,
+  };
+}
+
+/** Two decimals for messages; answers themselves carry full precision. */
+export function round(value: number): number {
+  return Math.round(value * 100) / 100;
 }

@@ -11,9 +11,9 @@ import {
   type PlausibleUnits,
 } from '../../shared/hydraulics';
 import { SYSTEM_FIELD_RENAMES, systemInputOf } from '../../shared/api/system-input';
-import { engineIssueText, type IssueValueText } from '../../shared/messages/engine-issue-text';
+import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
-import { answerUnits } from './request-units';
+import { requestValueText } from './request-units';
 
 /** Refuses a value (SI) outside its plausible limit with a 422 stating the limit in the request's units. */
 export function requirePlausible(
@@ -50,6 +50,7 @@ export function prepareSystem(units: CalculationUnits, system: PipeSystem, point
       return { curve, density: waterDensity(curve.temperature) };
     },
     pointerInto(pointer, SYSTEM_FIELD_RENAMES),
+    requestValueText(units),
   );
 }
 
@@ -60,17 +61,8 @@ export function requirePlausibleFlow(flow: number, pointer: string, units: Plaus
 
 /** Velocity warnings of the system at one flow (SI), in the request's units. */
 export function velocityWarnings(curve: CompiledSystemCurve, flow: number, units: CalculationUnits): string[] {
-  const to = answerUnits(units);
-  const valueText: IssueValueText = {
-    flow: (value) => `${round(to.flow(value))} ${units.flow}`,
-    velocity: (value) => `${round(to.length(value))} ${units.length}/s`,
-  };
+  const valueText = requestValueText(units);
   return systemBreakdown(curve, flow)
     .issues.filter((issue) => issue.code === 'segment-velocity')
     .map((issue) => engineIssueText(issue, valueText));
-}
-
-/** Two decimals for messages; answers themselves carry full precision. */
-export function round(value: number): number {
-  return Math.round(value * 100) / 100;
 }

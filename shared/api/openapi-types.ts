@@ -1023,10 +1023,16 @@ export interface components {
             /** @description Newest first. */
             revisions: components["schemas"]["CurveRevisionSummary"][];
         };
-        /** @description An error or warning; `row` is the file's line number, `column` the column's name. */
+        /** @description An error or warning; `row` is the file's line number, `column` the column's name. `code` and `params` say what is wrong as data (values as the file gave them; engine values SI); `message` and `expected` are the same in words, made from one table per code. */
         CurveImportIssue: {
             row: number | null;
             column: string | null;
+            /** @enum {string} */
+            code: "not-a-curve-table" | "unknown-format-version" | "unknown-unit-line" | "unit-line-extra-value" | "unit-line-repeated" | "not-a-currency" | "unknown-unit" | "unknown-column" | "column-repeated" | "column-missing" | "unit-line-missing" | "column-needs-unit-line" | "file-empty" | "no-header" | "no-points" | "file-too-large" | "too-many-rows" | "not-csv" | "cell-beyond-header" | "model-code-blank" | "not-a-model-code" | "pump-repeated" | "too-many-points" | "differs-from-first-row" | "formula-text" | "efficiency-looks-fractional" | "name-blank" | "text-too-long" | "text-control-characters" | "not-a-number" | "number-out-of-range" | "phases-unknown" | "choice-blank" | "choice-unknown" | "range-one-end" | "range-reversed" | "point-value-blank" | "too-few-points" | "flow-not-increasing" | "head-rise-refused" | "head-rise-flagged" | "value-on-some-points" | "npsh-on-few-points" | "curve-refused" | "fit-issue" | "bep-unknown" | "poor-fit" | "range-beyond-points";
+            /** @description The values the code's sentence is made from. */
+            params: {
+                [key: string]: unknown;
+            };
             message: string;
             expected?: string;
         };
@@ -3257,7 +3263,11 @@ export interface operations {
                      *             {
                      *               "row": 13,
                      *               "column": "head",
-                     *               "message": "head rises from 4.6 ft to 4.7 ft (1.6 % of the highest head): flagged; the fit holds it at 4.6 ft",
+                     *               "code": "head-rise-flagged",
+                     *               "params": {
+                     *                 "share": 0.016
+                     *               },
+                     *               "message": "head rises by 1.6 % of the pump's highest head: flagged; the fit holds it level with the lowest head before it",
                      *               "expected": "head not rising with flow"
                      *             }
                      *           ]

@@ -1,3 +1,5 @@
+import { engineIssueText } from '../messages/engine-issue-text';
+import type { EngineIssue } from './engine-issues';
 import { HydraulicsInputError, requireFinite, requirePositive } from './hydraulics-error';
 import type { HeadCurve, NoOperatingPointReason } from './operating-point';
 import { polynomialScaled, polynomialValue } from './polynomial';
@@ -75,7 +77,7 @@ export function scaleBySpeed(point: PerformancePoint, speedRatio: number): Perfo
 export function scaleByImpellerTrim(point: PerformancePoint, diameterRatio: number): PerformancePoint {
   const d = requirePositive(diameterRatio, '/diameterRatio', 'diameter ratio');
   if (d > 1) {
-    throw new HydraulicsInputError('/diameterRatio', `an impeller can only be trimmed (ratio <= 1), got ${d}`);
+    throw new HydraulicsInputError({ code: 'trim-only', params: { ratio: d }, pointer: '/diameterRatio' });
   }
   return scalePoint(point, d, d * d, d * d * d);
 }
@@ -150,7 +152,7 @@ export function pumpCurveAtSpeed(fit: PumpCurveFit, speedRatio: number): PumpCur
       worstResidual: fit.statistics.worstResidual * r * r,
       worstResidualFlow: fit.statistics.worstResidualFlow * r,
     },
-    warnings: [...fit.warnings, `scaled to ${(100 * r).toFixed(1)} % speed by the affinity laws`],
+    warnings: [...fit.warnings, engineIssueText({ code: 'affinity-scaled', params: { speedRatio: r } })],
   };
 }
 
@@ -165,7 +167,7 @@ export type SpeedRatioResult =
       /** True when the duty point needs more than the curve's rated speed. */
       aboveRatedSpeed: boolean;
     }
-  | { ok: false; reason: NoOperatingPointReason; message: string };
+  | { ok: false; reason: NoOperatingPointReason; issue: EngineIssue };
 
 /**
  * Speed ratio r = N/N0 at which the pump's curve passes through the duty
@@ -194,10 +196,10 @@ export function speedRatioForDutyPoint(pump: HeadCurve, dutyFlow: number, dutyHe
   const parabola = dutyHead / (dutyFlow * dutyFlow);
   const gap = (flow: number) => polynomialValue(pump.headCoefficients, flow) - parabola * flow * flow;
   if (gap(pump.flowMin) < 0) {
-    return { ok: false, reason: 'before-curve', message: 'the duty point maps onto the curve left of its first point' };
+    return { ok: false, reason: 'before-curve', issue: { code: 'duty-before-curve', params: {} } };
   }
   if (gap(pump.flowMax) > 0) {
-    return { ok: false, reason: 'beyond-curve', message: 'the duty point maps onto the curve past its last point' };
+    return { ok: false, reason: 'beyond-curve', issue: { code: 'duty-beyond-curve', params: {} } };
   }
   const fullSpeedFlow = findRootBracketed(gap, pump.flowMin, pump.flowMax);
   const speedRatio = dutyFlow / fullSpeedFlow;

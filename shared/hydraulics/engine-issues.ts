@@ -10,6 +10,23 @@ export interface EngineIssueParams {
   'hazen-williams-temperature': { temperature: number };
   /** A segment's velocity above the common-practice limit for plastic pipe. */
   'segment-velocity': { segment: number; flow: number; velocity: number; limit: number };
+  /** The least-squares head fit would rise; a constrained one is used instead. */
+  'head-fit-constrained': { leastSquaresDegree: 2 | 3; degree: 2 | 3; heldFlatAt: 'first' | 'last' | null };
+  /** The first published point is not at zero flow. */
+  'shut-off-extrapolated': { flowMin: number };
+  /** A curve scaled by the affinity laws (speed ratio, 1 = nominal). */
+  'affinity-scaled': { speedRatio: number };
+  /** No operating point: the pump cannot lift the static head (m). */
+  'shut-off-below-static-head': { shutOffHead: number; staticHead: number };
+  /** No operating point inside the published flows. */
+  'crosses-before-curve': Record<string, never>;
+  'crosses-beyond-curve': Record<string, never>;
+  /** No operating point for an arrangement: no pump lifts the static head (m). */
+  'highest-shut-off-below-static-head': { shutOffHead: number; staticHead: number };
+  'arrangement-run-out': Record<string, never>;
+  /** A duty point reached by changing speed falls outside the published flows. */
+  'duty-before-curve': Record<string, never>;
+  'duty-beyond-curve': Record<string, never>;
 }
 
 export type EngineIssueCode = keyof EngineIssueParams;
@@ -18,3 +35,44 @@ export type EngineIssueCode = keyof EngineIssueParams;
 export type EngineIssue = {
   [Code in EngineIssueCode]: { code: Code; params: EngineIssueParams[Code]; pointer?: string };
 }[EngineIssueCode];
+
+/** The numbers of each reason the engine refuses its input, by code (SI, or counts and names). */
+export interface EngineInputErrorParams {
+  'not-finite': { what: string; value: number };
+  'not-positive': { what: string; value: number };
+  negative: { what: string; value: number };
+  'out-of-range': { what: string; value: number; min: number; max: number };
+  'not-whole-number': { what: string; value: number; min: number };
+  'trim-only': { ratio: number };
+  'unknown-fitting-kind': { value: string; accepted: string[] };
+  'unknown-friction-method': { value: string; accepted: string[] };
+  'unknown-material': { value: string; accepted: string[] };
+  'unknown-unit': { quantity: string; value: string; accepted: string[] };
+  'unknown-pipe-size': { value: string; series: string[] };
+  'band-reversed': Record<string, never>;
+  'allowable-region-reversed': Record<string, never>;
+  'running-exceeds-installed': { running: number; installed: number };
+  'no-pumps': Record<string, never>;
+  'parallel-needs-shut-off': Record<string, never>;
+  'no-segments': Record<string, never>;
+  'pipe-size-and-diameter': Record<string, never>;
+  'no-diameter': Record<string, never>;
+  'no-hazen-williams-c': Record<string, never>;
+  'no-roughness': Record<string, never>;
+  'too-few-points': { count: number };
+  'flow-not-increasing': { flow: number; previousFlow: number };
+  'head-rises': { head: number; previousHead: number };
+  'not-on-every-point': { what: 'power' | 'efficiency'; given: number; count: number };
+  'no-falling-fit': Record<string, never>;
+  'power-not-positive': Record<string, never>;
+  'power-below-water-power': { power: number; waterPower: number };
+  'npsh-too-few-points': { count: number };
+  'flow-outside-curve': { flow: number; flowMin: number; flowMax: number };
+}
+
+export type EngineInputErrorCode = keyof EngineInputErrorParams;
+
+/** Why the engine refused its input; `pointer` names the input (e.g. `/points/2/head`). */
+export type EngineInputError = {
+  [Code in EngineInputErrorCode]: { code: Code; params: EngineInputErrorParams[Code]; pointer: string };
+}[EngineInputErrorCode];

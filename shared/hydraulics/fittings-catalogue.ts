@@ -124,7 +124,11 @@ export function craneFullyTurbulentFrictionFactor(insideDiameter: number, field 
 export function fittingByKind(kind: string, field = '/kind'): FittingDefinition {
   const fitting = FITTINGS_BY_KIND.get(kind);
   if (!fitting) {
-    throw new HydraulicsInputError(field, `unknown fitting kind '${kind}'; valid kinds: ${FITTING_KINDS.join(', ')}`);
+    throw new HydraulicsInputError({
+      code: 'unknown-fitting-kind',
+      params: { value: kind, accepted: [...FITTING_KINDS] },
+      pointer: field,
+    });
   }
   return fitting;
 }

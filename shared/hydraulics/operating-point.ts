@@ -1,4 +1,5 @@
 import { bracketedNewton, type FunctionWithSlope } from './bracketed-newton';
+import type { EngineIssue } from './engine-issues';
 import type { CompiledSystemCurve } from './system-curve';
 
 /*
@@ -24,7 +25,7 @@ export type NoOperatingPointReason = 'below-static-head' | 'before-curve' | 'bey
 
 export type OperatingPointResult =
   | { ok: true; flow: number; head: number; iterations: number }
-  | { ok: false; reason: NoOperatingPointReason; message: string };
+  | { ok: false; reason: NoOperatingPointReason; issue: EngineIssue };
 
 /** Pump head minus system head and its slope at a flow, for the pump and system of the current solve. */
 class PumpSurplus implements FunctionWithSlope {
@@ -93,12 +94,12 @@ export function solveOperatingPoint(pump: HeadCurve, system: CompiledSystemCurve
       ? {
           ok: false,
           reason: 'below-static-head',
-          message: `shut-off head ${pumpLo.toFixed(2)} m is below the system's static head ${system.staticHead.toFixed(2)} m`,
+          issue: { code: 'shut-off-below-static-head', params: { shutOffHead: pumpLo, staticHead: system.staticHead } },
         }
       : {
           ok: false,
           reason: 'before-curve',
-          message: 'the curves would cross before the first published point of the pump curve',
+          issue: { code: 'crosses-before-curve', params: {} },
         };
   }
   const pumpHi = pumpHeadAt(coefficients, hi);
@@ -107,7 +108,7 @@ export function solveOperatingPoint(pump: HeadCurve, system: CompiledSystemCurve
     return {
       ok: false,
       reason: 'beyond-curve',
-      message: 'the curves would cross past the last published point of the pump curve (run-out)',
+      issue: { code: 'crosses-beyond-curve', params: {} },
     };
   }
   if (differenceLo === 0) {

@@ -46,7 +46,7 @@ export function checkPreferredBand(band: PreferredBand): PreferredBand {
   requirePositive(band.minPercent, '/preferredBand/minPercent', 'preferred band minimum');
   requirePositive(band.maxPercent, '/preferredBand/maxPercent', 'preferred band maximum');
   if (!(band.maxPercent > band.minPercent)) {
-    throw new HydraulicsInputError('/preferredBand/maxPercent', 'preferred band maximum must exceed its minimum');
+    throw new HydraulicsInputError({ code: 'band-reversed', params: {}, pointer: '/preferredBand/maxPercent' });
   }
   return band;
 }

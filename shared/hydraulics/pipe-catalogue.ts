@@ -280,11 +280,11 @@ const SIZES_BY_ID: ReadonlyMap<string, PipeSize> = new Map(PIPE_SIZES.map((size)
 export function pipeSizeById(id: string, field = '/pipeSizeId'): PipeSize {
   const size = SIZES_BY_ID.get(id);
   if (!size) {
-    throw new HydraulicsInputError(
-      field,
-      `unknown pipe size id '${id}'; ids are '<series>-<nominal inches>' such as 'pvc-sch40-1.5', ` +
-        `series: ${PIPE_SERIES.map((series) => series.id).join(', ')}; PIPE_SIZES lists every id`,
-    );
+    throw new HydraulicsInputError({
+      code: 'unknown-pipe-size',
+      params: { value: id, series: PIPE_SERIES.map((series) => series.id) },
+      pointer: field,
+    });
   }
   return size;
 }

@@ -1,7 +1,8 @@
 import { requireFinite, requireInRange, requireNonNegative, requirePositive } from './hydraulics-error';
 import { STANDARD_GRAVITY } from './physical-constants';
 import { polynomialValue } from './polynomial';
-import { type PumpCurveFit, requireFlowInRange } from './pump-curve-fit';
+import { requireFlowInRange } from './pump-curve-evaluation';
+import type { PumpCurveFit } from './pump-curve-fit';
 
 /*
  * Power and energy. SI in: m3/s, m, kg/m3, W; energy out in kWh.

@@ -1,3 +1,4 @@
+import type { EngineIssue } from './engine-issues';
 import { HydraulicsInputError } from './hydraulics-error';
 import { type HeadCurve, type NoOperatingPointReason, solveOperatingPoint } from './operating-point';
 import { polynomialScaled, polynomialValue } from './polynomial';
@@ -21,11 +22,15 @@ export type ArrangementResult =
       /** Flow of each running pump, m3/s (0 for a pump that cannot reach the common head). */
       pumpFlows: number[];
     }
-  | { ok: false; reason: NoOperatingPointReason; message: string };
+  | { ok: false; reason: NoOperatingPointReason; issue: EngineIssue };
 
-function requireCount(value: number, field: string, min: number): void {
+function requireCount(value: number, field: string, what: string, min: number): void {
   if (!Number.isInteger(value) || value < min) {
-    throw new HydraulicsInputError(field, `must be a whole number of at least ${min}, got ${value}`);
+    throw new HydraulicsInputError({
+      code: 'not-whole-number',
+      params: { what, value, min },
+      pointer: field,
+    });
   }
 }
 
@@ -43,7 +48,7 @@ function requireCount(value: number, field: string, min: number): void {
  * parallelHeadCurve(pump, 2).flowMax // => 0.016
  */
 export function parallelHeadCurve(pump: HeadCurve, running: number): HeadCurve {
-  requireCount(running, '/running', 1);
+  requireCount(running, '/running', 'running pumps', 1);
   return {
     headCoefficients: polynomialScaled(pump.headCoefficients, 1, running),
     flowMin: pump.flowMin * running,
@@ -64,7 +69,7 @@ export function parallelHeadCurve(pump: HeadCurve, running: number): HeadCurve {
  * seriesHeadCurve(pump, 2).headCoefficients[2] // => -250000
  */
 export function seriesHeadCurve(pump: HeadCurve, count: number): HeadCurve {
-  requireCount(count, '/count', 1);
+  requireCount(count, '/count', 'pump count', 1);
   return {
     headCoefficients: polynomialScaled(pump.headCoefficients, count, 1),
     flowMin: pump.flowMin,
@@ -98,13 +103,14 @@ export function solveParallelIdentical(
   installed: number,
   running: number,
 ): ArrangementResult & { installed: number; running: number } {
-  requireCount(installed, '/installed', 1);
-  requireCount(running, '/running', 1);
+  requireCount(installed, '/installed', 'installed pumps', 1);
+  requireCount(running, '/running', 'running pumps', 1);
   if (running > installed) {
-    throw new HydraulicsInputError(
-      '/running',
-      `running pumps (${running}) cannot exceed installed pumps (${installed})`,
-    );
+    throw new HydraulicsInputError({
+      code: 'running-exceeds-installed',
+      params: { running, installed },
+      pointer: '/running',
+    });
   }
   const point = solveOperatingPoint(parallelHeadCurve(pump, running), system);
   if (!point.ok) {
@@ -186,14 +192,11 @@ function systemFlowAtHead(system: CompiledSystemCurve, head: number, guess: numb
  */
 export function solveParallelUnequal(pumps: readonly HeadCurve[], system: CompiledSystemCurve): ArrangementResult {
   if (pumps.length === 0) {
-    throw new HydraulicsInputError('/pumps', 'at least one pump is needed');
+    throw new HydraulicsInputError({ code: 'no-pumps', params: {}, pointer: '/pumps' });
   }
   pumps.forEach((pump, index) => {
     if (pump.flowMin !== 0) {
-      throw new HydraulicsInputError(
-        `/pumps/${index}`,
-        'parallel operation of unequal pumps needs curves that start at zero flow (shut-off)',
-      );
+      throw new HydraulicsInputError({ code: 'parallel-needs-shut-off', params: {}, pointer: `/pumps/${index}` });
     }
   });
   const shutOffs = pumps.map((pump) => polynomialValue(pump.headCoefficients, 0));
@@ -202,7 +205,10 @@ export function solveParallelUnequal(pumps: readonly HeadCurve[], system: Compil
     return {
       ok: false,
       reason: 'below-static-head',
-      message: `the highest shut-off head ${highest.toFixed(2)} m does not exceed the static head ${system.staticHead.toFixed(2)} m`,
+      issue: {
+        code: 'highest-shut-off-below-static-head',
+        params: { shutOffHead: highest, staticHead: system.staticHead },
+      },
     };
   }
   const lowest = Math.max(...pumps.map((pump) => polynomialValue(pump.headCoefficients, pump.flowMax)));
@@ -213,7 +219,7 @@ export function solveParallelUnequal(pumps: readonly HeadCurve[], system: Compil
     return {
       ok: false,
       reason: 'beyond-curve',
-      message: 'at least one pump would run past the last published point of its curve (run-out)',
+      issue: { code: 'arrangement-run-out', params: {} },
     };
   }
   const head = findRootBracketed(surplus, lowest, highest);

@@ -1,4 +1,6 @@
-import { HydraulicsInputError, requireFinite, requireNonNegative, requirePositive } from './hydraulics-error';
+import { engineIssueText } from '../messages/engine-issue-text';
+import type { EngineIssue } from './engine-issues';
+import { HydraulicsInputError, requireNonNegative, requirePositive } from './hydraulics-error';
 import { leastSquaresPolynomial } from './least-squares';
 import { STANDARD_GRAVITY } from './physical-constants';
 import { maximumOver, polynomialShifted, polynomialValue, totalRiseOver } from './polynomial';
@@ -102,11 +104,10 @@ interface HeadCandidate {
   /** Powers of x = Q - origin used by the fit; leaving out power 1 holds the slope at zero there. */
   powers: number[];
   origin: 'first' | 'last';
-  description: string;
 }
 
-function candidate(degree: 2 | 3, powers: number[], origin: 'first' | 'last', description: string): HeadCandidate {
-  return { degree, powers, origin, description };
+function candidate(degree: 2 | 3, powers: number[], origin: 'first' | 'last'): HeadCandidate {
+  return { degree, powers, origin };
 }
 
 /**
@@ -119,7 +120,7 @@ function candidate(degree: 2 | 3, powers: number[], origin: 'first' | 'last', de
 function fitNonIncreasingHead(
   flows: readonly number[],
   heads: readonly number[],
-): { degree: 2 | 3; headCoefficients: number[]; note: string | null } {
+): { degree: 2 | 3; headCoefficients: number[]; note: EngineIssue | null } {
   const first = flows[0];
   const last = flows[flows.length - 1];
   const tolerance = HEAD_RISE_TOLERANCE * Math.max(...heads);
@@ -142,35 +143,35 @@ function fitNonIncreasingHead(
   };
 
   const preferred = preferredDegree(flows);
-  const unconstrained = fit(candidate(preferred, preferred === 3 ? [0, 1, 2, 3] : [0, 1, 2], 'first', ''));
+  const unconstrained = fit(candidate(preferred, preferred === 3 ? [0, 1, 2, 3] : [0, 1, 2], 'first'));
   if (!unconstrained.rises) {
     return { degree: preferred, headCoefficients: unconstrained.headCoefficients, note: null };
   }
   const alternatives: HeadCandidate[] = [
     ...(preferred === 3
-      ? [
-          candidate(3, [0, 2, 3], 'first', 'a cubic held flat at the first point'),
-          candidate(3, [0, 2, 3], 'last', 'a cubic held flat at the last point'),
-          candidate(2, [0, 1, 2], 'first', 'a quadratic'),
-        ]
+      ? [candidate(3, [0, 2, 3], 'first'), candidate(3, [0, 2, 3], 'last'), candidate(2, [0, 1, 2], 'first')]
       : []),
-    candidate(2, [0, 2], 'first', 'a quadratic held flat at the first point'),
-    candidate(2, [0, 2], 'last', 'a quadratic held flat at the last point'),
+    candidate(2, [0, 2], 'first'),
+    candidate(2, [0, 2], 'last'),
   ];
   const best = alternatives
     .map(fit)
     .filter((result) => !result.rises)
     .sort((a, b) => a.squares - b.squares)[0];
   if (!best) {
-    throw new HydraulicsInputError(
-      '/points',
-      'no quadratic or cubic through these points keeps head from rising with flow; add points near shut-off or check the data',
-    );
+    throw new HydraulicsInputError({ code: 'no-falling-fit', params: {}, pointer: '/points' });
   }
   return {
     degree: best.option.degree,
     headCoefficients: best.headCoefficients,
-    note: `the ${preferred === 3 ? 'cubic' : 'quadratic'} least-squares fit would rise within the data range; head is fitted as ${best.option.description} so that it does not rise`,
+    note: {
+      code: 'head-fit-constrained',
+      params: {
+        leastSquaresDegree: preferred,
+        degree: best.option.degree,
+        heldFlatAt: best.option.powers.includes(1) ? null : best.option.origin,
+      },
+    },
   };
 }
 
@@ -182,14 +183,15 @@ function pointEfficiencies(points: readonly PumpCurvePoint[]): number[] | null {
     return points.map((point, index) => {
       const power = point.power as number;
       if (power === 0) {
-        throw new HydraulicsInputError(`/points/${index}/power`, 'power must be greater than zero');
+        throw new HydraulicsInputError({ code: 'power-not-positive', params: {}, pointer: `/points/${index}/power` });
       }
       const efficiency = (TEST_WATER_DENSITY * STANDARD_GRAVITY * point.flow * point.head) / power;
       if (efficiency > 1) {
-        throw new HydraulicsInputError(
-          `/points/${index}/power`,
-          `power ${power} W is less than the water power ${(efficiency * power).toFixed(1)} W at this point`,
-        );
+        throw new HydraulicsInputError({
+          code: 'power-below-water-power',
+          params: { power, waterPower: efficiency * power },
+          pointer: `/points/${index}/power`,
+        });
       }
       return efficiency;
     });
@@ -243,20 +245,40 @@ function locateBep(
  * fit.bep.efficiency // => 0.720000
  */
 export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCurveFitOptions = {}): PumpCurveFit {
+  return fitPumpCurveWithIssues(points, options).fit;
+}
+
+/**
+ * fitPumpCurve, with what the fit has to say as engine issues (codes with SI values); the fit's
+ * `warnings` are their sentences, made once here because fits are stored and these carry no
+ * values that depend on a reader's units.
+ * @param points - published points: flow m3/s, head m, optional power W, efficiency 0-1, NPSH3 m
+ * @param options - what the power means (shaft or electrical) and the supplier's allowable region, m3/s
+ * @returns the fit, as fitPumpCurve gives it, and its issues
+ * @example
+ * // invented points on H = 10 - 50000 Q^2 from 2.5 L/s: the shut-off head is extrapolated
+ * const { fit, issues } = fitPumpCurveWithIssues([{ flow: 0.0025, head: 9.6875 }, { flow: 0.005, head: 8.75 }, { flow: 0.0075, head: 7.1875 }, { flow: 0.01, head: 5 }])
+ * issues[0].code // => 'shut-off-extrapolated'
+ * fit.warnings[0] // => 'shut-off head is extrapolated: the first point is not at zero flow'
+ */
+export function fitPumpCurveWithIssues(
+  points: readonly PumpCurvePoint[],
+  options: PumpCurveFitOptions = {},
+): { fit: PumpCurveFit; issues: EngineIssue[] } {
   validatePumpCurvePoints(points);
   const flows = points.map((point) => point.flow);
   const heads = points.map((point) => point.head);
   const flowMin = flows[0];
   const flowMax = flows[flows.length - 1];
-  const warnings: string[] = [];
+  const issues: EngineIssue[] = [];
 
   const { degree, headCoefficients, note } = fitNonIncreasingHead(flows, heads);
   if (note) {
-    warnings.push(note);
+    issues.push(note);
   }
   const shutOffHead = headCoefficients[0];
   if (flowMin > 0) {
-    warnings.push('shut-off head is extrapolated: the first point is not at zero flow');
+    issues.push({ code: 'shut-off-extrapolated', params: { flowMin } });
   }
 
   const residuals = points.map((point) => point.head - polynomialValue(headCoefficients, point.flow));
@@ -286,9 +308,6 @@ export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCur
         )
       : null;
   const npshPoints = points.filter((point) => point.npshRequired !== undefined);
-  if (npshPoints.length > 0 && npshPoints.length < 3) {
-    throw new HydraulicsInputError('/points', 'NPSH required needs at least three points when given');
-  }
   const npshRequired: FittedRange | null =
     npshPoints.length >= 3
       ? {
@@ -308,15 +327,16 @@ export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCur
     requireNonNegative(aorMin, '/allowableRegion/flowMin', 'allowable region minimum flow');
     requirePositive(aorMax, '/allowableRegion/flowMax', 'allowable region maximum flow');
     if (!(aorMax > aorMin)) {
-      throw new HydraulicsInputError(
-        '/allowableRegion/flowMax',
-        'allowable region maximum flow must exceed its minimum',
-      );
+      throw new HydraulicsInputError({
+        code: 'allowable-region-reversed',
+        params: {},
+        pointer: '/allowableRegion/flowMax',
+      });
     }
     allowableRegion = { flowMin: aorMin, flowMax: aorMax };
   }
 
-  return {
+  const fit: PumpCurveFit = {
     schemaVersion: 1,
     degree,
     headCoefficients,
@@ -330,70 +350,7 @@ export function fitPumpCurve(points: readonly PumpCurvePoint[], options: PumpCur
     ...locateBep(efficiencyCoefficients, headCoefficients, flowMin, flowMax),
     allowableRegion,
     statistics,
-    warnings,
+    warnings: issues.map((issue) => engineIssueText(issue)),
   };
-}
-
-/**
- * Throws unless `flow` is in [flowMin, flowMax] (slack 1e-12 flowMax): fits never extrapolate (our rule).
- * @param range - the published flow range, m3/s
- * @param flow - volumetric flow, m3/s
- * @param field - JSON pointer named when the flow is rejected
- * @returns the flow, unchanged, m3/s
- * @example
- * requireFlowInRange({ flowMin: 0, flowMax: 0.01 }, 0.004) // => 0.004
- */
-export function requireFlowInRange(range: { flowMin: number; flowMax: number }, flow: number, field = '/flow'): number {
-  requireFinite(flow, field, 'flow');
-  const slack = 1e-12 * range.flowMax;
-  if (flow < range.flowMin - slack || flow > range.flowMax + slack) {
-    throw new HydraulicsInputError(
-      field,
-      `flow ${flow} m3/s is outside the curve's published range ${range.flowMin}-${range.flowMax} m3/s`,
-    );
-  }
-  return flow;
-}
-
-/**
- * Pump head at `flow` from the fitted polynomial; outside the curve's range -> HydraulicsInputError.
- * @param fit - a fitted curve (fitPumpCurve)
- * @param flow - volumetric flow, m3/s, within [fit.flowMin, fit.flowMax]
- * @returns head, m
- * @example
- * // invented points on H = 10 - 50000 Q^2: 9.2 m at 4 L/s by hand
- * pumpHeadAt(fitPumpCurve([{ flow: 0, head: 10 }, { flow: 0.005, head: 8.75 }, { flow: 0.01, head: 5 }]), 0.004) // => 9.20000
- */
-export function pumpHeadAt(fit: PumpCurveFit, flow: number): number {
-  return polynomialValue(fit.headCoefficients, requireFlowInRange(fit, flow));
-}
-
-/**
- * Fitted efficiency at `flow`, or null when the curve has none; outside the range -> HydraulicsInputError.
- * @param fit - a fitted curve (fitPumpCurve)
- * @param flow - volumetric flow, m3/s, within [fit.flowMin, fit.flowMax]
- * @returns efficiency, 0-1 (pump, or wire-to-water for an electrical power basis), or null
- * @example
- * // invented points on eta = 192 Q - 12800 Q^2: 0.5632 at 4 L/s by hand
- * pumpEfficiencyAt(fitPumpCurve([{ flow: 0, head: 10, efficiency: 0 }, { flow: 0.005, head: 8.75, efficiency: 0.64 }, { flow: 0.01, head: 5, efficiency: 0.64 }]), 0.004) // => 0.563200
- */
-export function pumpEfficiencyAt(fit: PumpCurveFit, flow: number): number | null {
-  requireFlowInRange(fit, flow);
-  return fit.efficiencyCoefficients ? polynomialValue(fit.efficiencyCoefficients, flow) : null;
-}
-
-/**
- * Fitted NPSH required (NPSH3) at `flow`, or null when not given; outside its range -> HydraulicsInputError.
- * @param fit - a fitted curve (fitPumpCurve)
- * @param flow - volumetric flow, m3/s, within fit.npshRequired's range
- * @returns NPSH required, m, or null
- * @example
- * // invented points on NPSH3 = 1 + 15000 Q^2: 1.24 m at 4 L/s by hand
- * pumpNpshRequiredAt(fitPumpCurve([{ flow: 0, head: 10, npshRequired: 1 }, { flow: 0.005, head: 8.75, npshRequired: 1.375 }, { flow: 0.01, head: 5, npshRequired: 2.5 }]), 0.004) // => 1.24000
- */
-export function pumpNpshRequiredAt(fit: PumpCurveFit, flow: number): number | null {
-  if (!fit.npshRequired) {
-    return null;
-  }
-  return polynomialValue(fit.npshRequired.coefficients, requireFlowInRange(fit.npshRequired, flow));
+  return { fit, issues };
 }

@@ -1,4 +1,5 @@
-import { HydraulicsInputError, requireInRange, requirePositive } from './hydraulics-error';
+import type { EngineInputError } from './engine-issues';
+import { HydraulicsInputError, positiveError, rangeError } from './hydraulics-error';
 import type { PumpCurvePoint } from './pump-curve-fit';
 
 /** Largest flow (m3/s), head (m) and power (W) a curve point may carry: far beyond any pump Riffle selects. */
@@ -18,47 +19,73 @@ const POINT_LIMITS = Object.freeze({ flow: 100, head: 1e4, power: 1e9 });
  * field // => '/points/1/head'
  */
 export function validatePumpCurvePoints(points: readonly PumpCurvePoint[]): void {
+  const [first] = pumpCurvePointErrors(points);
+  if (first) throw new HydraulicsInputError(first);
+}
+
+/**
+ * Every breach of the rules above, and of NPSH required given on three points or more or on none,
+ * in the order they are checked (the first is the one validatePumpCurvePoints throws), so a caller
+ * reporting many at once (the curve-table import) applies the same rules. Our own rules; values SI.
+ * @param points - published points: flow m3/s, head m, optional power W, efficiency 0-1, NPSH3 m
+ * @returns the refusals, each with its code, values and pointer; empty when the points are good
+ * @example
+ * const errors = pumpCurvePointErrors([{ flow: 0, head: 10 }, { flow: 0, head: 11 }, { flow: 0.01, head: 5 }])
+ * errors.length // => 2
+ * errors[0].pointer // => '/points/1/flow'
+ * errors[1].code // => 'head-rises'
+ */
+export function pumpCurvePointErrors(points: readonly PumpCurvePoint[]): EngineInputError[] {
   if (!Array.isArray(points) || points.length < 3) {
-    throw new HydraulicsInputError(
-      '/points',
-      `a pump curve needs at least three points, got ${Array.isArray(points) ? points.length : 0}`,
-    );
+    const count = Array.isArray(points) ? points.length : 0;
+    return [{ code: 'too-few-points', params: { count }, pointer: '/points' }];
   }
+  const errors: (EngineInputError | null)[] = [];
   points.forEach((point, index) => {
     const field = `/points/${index}`;
-    requireInRange(point.flow, 0, POINT_LIMITS.flow, `${field}/flow`, 'flow (m3/s)');
-    requirePositive(point.head, `${field}/head`, 'head');
-    requireInRange(point.head, 0, POINT_LIMITS.head, `${field}/head`, 'head (m)');
-    if (point.power !== undefined) {
-      requireInRange(point.power, 0, POINT_LIMITS.power, `${field}/power`, 'power (W)');
+    errors.push(
+      rangeError(point.flow, 0, POINT_LIMITS.flow, `${field}/flow`, 'flow (m3/s)'),
+      positiveError(point.head, `${field}/head`, 'head') ??
+        rangeError(point.head, 0, POINT_LIMITS.head, `${field}/head`, 'head (m)'),
+      point.power === undefined ? null : rangeError(point.power, 0, POINT_LIMITS.power, `${field}/power`, 'power (W)'),
+      point.efficiency === undefined
+        ? null
+        : rangeError(point.efficiency, 0, 1, `${field}/efficiency`, 'efficiency (fraction)'),
+      point.npshRequired === undefined
+        ? null
+        : positiveError(point.npshRequired, `${field}/npshRequired`, 'NPSH required'),
+    );
+    const previous = points[index - 1];
+    if (previous && !(point.flow > previous.flow)) {
+      errors.push({
+        code: 'flow-not-increasing',
+        params: { flow: point.flow, previousFlow: previous.flow },
+        pointer: `${field}/flow`,
+      });
     }
-    if (point.efficiency !== undefined) {
-      requireInRange(point.efficiency, 0, 1, `${field}/efficiency`, 'efficiency (fraction)');
-    }
-    if (point.npshRequired !== undefined) {
-      requirePositive(point.npshRequired, `${field}/npshRequired`, 'NPSH required');
-    }
-    if (index > 0) {
-      const previous = points[index - 1];
-      if (!(point.flow > previous.flow)) {
-        throw new HydraulicsInputError(
-          `${field}/flow`,
-          `flows must be strictly increasing: ${point.flow} follows ${previous.flow}`,
-        );
-      }
-      if (point.head > previous.head) {
-        throw new HydraulicsInputError(
-          `${field}/head`,
-          `head rises from ${previous.head} m to ${point.head} m; Riffle accepts only curves whose head does not rise with flow`,
-        );
-      }
+    if (previous && point.head > previous.head) {
+      errors.push({
+        code: 'head-rises',
+        params: { head: point.head, previousHead: previous.head },
+        pointer: `${field}/head`,
+      });
     }
   });
   for (const key of ['power', 'efficiency'] as const) {
     const given = points.filter((point) => point[key] !== undefined).length;
     if (given > 0 && given < points.length) {
       const missing = points.findIndex((point) => point[key] === undefined);
-      throw new HydraulicsInputError(`/points/${missing}/${key}`, `${key} must be given on every point or on none`);
+      errors.push({
+        code: 'not-on-every-point',
+        params: { what: key, given, count: points.length },
+        pointer: `/points/${missing}/${key}`,
+      });
     }
   }
+  const npsh = points.filter((point) => point.npshRequired !== undefined).length;
+  if (npsh > 0 && npsh < 3) {
+    const first = points.findIndex((point) => point.npshRequired !== undefined);
+    errors.push({ code: 'npsh-too-few-points', params: { count: npsh }, pointer: `/points/${first}/npshRequired` });
+  }
+  return errors.filter((error) => error !== null);
 }

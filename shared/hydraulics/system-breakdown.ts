@@ -1,5 +1,5 @@
 import { HAZEN_WILLIAMS_FLOW_EXPONENT, hazenWilliamsResistance, headLossDarcyWeisbach } from './friction';
-import { HydraulicsInputError } from './hydraulics-error';
+import { finiteError, HydraulicsInputError } from './hydraulics-error';
 import { STANDARD_GRAVITY } from './physical-constants';
 import type { EngineIssue } from './engine-issues';
 import type { CompiledSystemCurve } from './system-curve';
@@ -40,7 +40,13 @@ export interface SystemBreakdown {
 
 function checkFlow(flow: number): void {
   if (!(flow >= 0) || flow === Number.POSITIVE_INFINITY) {
-    throw new HydraulicsInputError('/flow', `flow must be a finite number >= 0, got ${flow}`);
+    throw new HydraulicsInputError(
+      finiteError(flow, '/flow', 'flow') ?? {
+        code: 'negative',
+        params: { what: 'flow', value: flow },
+        pointer: '/flow',
+      },
+    );
   }
 }
 

@@ -84,13 +84,14 @@ export function compileSystemCurve(input: SystemCurveInput): CompiledSystemCurve
       ? 0
       : requireInRange(input.outletPressureHead, -maxHead, maxHead, '/outletPressureHead', 'outlet pressure head (m)');
   if (!FRICTION_METHODS.includes(input.frictionMethod)) {
-    throw new HydraulicsInputError(
-      '/frictionMethod',
-      `unknown friction method '${String(input.frictionMethod)}'; valid methods: ${FRICTION_METHODS.join(', ')}`,
-    );
+    throw new HydraulicsInputError({
+      code: 'unknown-friction-method',
+      params: { value: String(input.frictionMethod), accepted: [...FRICTION_METHODS] },
+      pointer: '/frictionMethod',
+    });
   }
   if (!Array.isArray(input.segments) || input.segments.length === 0) {
-    throw new HydraulicsInputError('/segments', 'a system needs at least one pipe segment');
+    throw new HydraulicsInputError({ code: 'no-segments', params: {}, pointer: '/segments' });
   }
   const temperature = input.temperature ?? 20;
   const kinematicViscosity = waterKinematicViscosity(temperature, '/temperature');

@@ -99,7 +99,11 @@ export function resolveSegment(segment: PipeSegmentInput, index: number, method:
   let defaults: { hazenWilliamsC: number; roughness: number } | null = null;
   if (segment.pipeSizeId !== undefined) {
     if (segment.insideDiameter !== undefined) {
-      throw new HydraulicsInputError(`${field}/insideDiameter`, 'give either pipeSizeId or insideDiameter, not both');
+      throw new HydraulicsInputError({
+        code: 'pipe-size-and-diameter',
+        params: {},
+        pointer: `${field}/insideDiameter`,
+      });
     }
     const size = pipeSizeById(segment.pipeSizeId, `${field}/pipeSizeId`);
     insideDiameter = size.insideDiameter;
@@ -114,15 +118,16 @@ export function resolveSegment(segment: PipeSegmentInput, index: number, method:
     );
     if (segment.material !== undefined) {
       if (!PIPE_MATERIALS.includes(segment.material)) {
-        throw new HydraulicsInputError(
-          `${field}/material`,
-          `unknown material '${segment.material}'; valid materials: ${PIPE_MATERIALS.join(', ')}`,
-        );
+        throw new HydraulicsInputError({
+          code: 'unknown-material',
+          params: { value: segment.material, accepted: [...PIPE_MATERIALS] },
+          pointer: `${field}/material`,
+        });
       }
       defaults = MATERIAL_DEFAULTS[segment.material];
     }
   } else {
-    throw new HydraulicsInputError(`${field}/insideDiameter`, 'a segment needs pipeSizeId or insideDiameter');
+    throw new HydraulicsInputError({ code: 'no-diameter', params: {}, pointer: `${field}/insideDiameter` });
   }
   const hazenWilliamsC =
     segment.hazenWilliamsC !== undefined
@@ -139,10 +144,10 @@ export function resolveSegment(segment: PipeSegmentInput, index: number, method:
       ? requireInRange(segment.roughness, 0, SYSTEM_INPUT_LIMITS.maxRoughness, `${field}/roughness`, 'roughness (m)')
       : (defaults?.roughness ?? Number.NaN);
   if (method === 'hazen-williams' && Number.isNaN(hazenWilliamsC)) {
-    throw new HydraulicsInputError(`${field}/hazenWilliamsC`, 'give hazenWilliamsC, a material or a pipeSizeId');
+    throw new HydraulicsInputError({ code: 'no-hazen-williams-c', params: {}, pointer: `${field}/hazenWilliamsC` });
   }
   if (method === 'darcy-weisbach' && Number.isNaN(roughness)) {
-    throw new HydraulicsInputError(`${field}/roughness`, 'give roughness, a material or a pipeSizeId');
+    throw new HydraulicsInputError({ code: 'no-roughness', params: {}, pointer: `${field}/roughness` });
   }
   let totalK =
     segment.extraK === undefined
@@ -152,10 +157,11 @@ export function resolveSegment(segment: PipeSegmentInput, index: number, method:
     const fittingField = `${field}/fittings/${fittingIndex}`;
     requireInRange(fitting.count, 0, 1000, `${fittingField}/count`, 'fitting count');
     if (!Number.isInteger(fitting.count)) {
-      throw new HydraulicsInputError(
-        `${fittingField}/count`,
-        `fitting count must be a whole number, got ${fitting.count}`,
-      );
+      throw new HydraulicsInputError({
+        code: 'not-whole-number',
+        params: { what: 'fitting count', value: fitting.count, min: 0 },
+        pointer: `${fittingField}/count`,
+      });
     }
     totalK += fitting.count * fittingK(fitting.kind, insideDiameter, `${fittingField}/kind`);
   });

@@ -79,10 +79,11 @@ function conversion<U extends string>(
 ): Conversion<U> {
   const factorFor = (unitName: string, field: string): number => {
     if (!Object.prototype.hasOwnProperty.call(factors, unitName)) {
-      throw new HydraulicsInputError(
-        field,
-        `unknown ${quantity} unit '${unitName}'; accepted units: ${accepted.join(', ')}`,
-      );
+      throw new HydraulicsInputError({
+        code: 'unknown-unit',
+        params: { quantity, value: unitName, accepted: [...accepted] },
+        pointer: field,
+      });
     }
     return factors[unitName as U];
   };

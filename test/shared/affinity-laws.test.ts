@@ -16,6 +16,7 @@ import {
   specificSpeedUS,
   speedRatioForDutyPoint,
 } from '../../shared/hydraulics';
+import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { quadraticSystem } from './quadratic-system';
 
 describe('affinity laws', () => {
@@ -79,7 +80,7 @@ describe('affinity laws', () => {
     const dutyFlow = 0.004;
     const dutyHead = 9;
     const result = speedRatioForDutyPoint(fit, dutyFlow, dutyHead);
-    if (!result.ok) throw new Error(result.message);
+    if (!result.ok) throw new Error(engineIssueText(result.issue));
     // closed form for H = H0 - k Q^2: r^2 H0 - k Qd^2 = Hd
     expect(result.speedRatio).to.be.closeTo(Math.sqrt((dutyHead + 2e5 * dutyFlow ** 2) / 18), 1e-9);
     expect(result.aboveRatedSpeed).to.equal(false);
@@ -87,7 +88,7 @@ describe('affinity laws', () => {
     expect(pumpHeadAt(scaled, dutyFlow)).to.be.closeTo(dutyHead, 1e-9);
     const system = quadraticSystem(5, (dutyHead - 5) / dutyFlow ** 2); // through the duty point
     const point = solveOperatingPoint(scaled, system);
-    if (!point.ok) throw new Error(point.message);
+    if (!point.ok) throw new Error(engineIssueText(point.issue));
     expect(point.flow).to.be.closeTo(dutyFlow, 1e-12);
     expect(speedRatioForDutyPoint(fit, 0.004, 20)).to.deep.include({ ok: true, aboveRatedSpeed: true });
     expect(speedRatioForDutyPoint(fit, 0.02, 0.5)).to.include({ ok: false, reason: 'beyond-curve' });

@@ -34,6 +34,8 @@ describe('engine issue text', () => {
     const litresPerSecond: IssueValueText = {
       flow: (flow) => `${flow * 1000} L/s`,
       velocity: (speed) => `${speed.toFixed(1)} m/s`,
+      head: (head) => `${head} m`,
+      power: (power) => `${power / 1000} kW`,
     };
     expect(engineIssueText(velocity, litresPerSecond)).to.match(
       /^at 1 L\/s segment 0: velocity 3\.2 m\/s exceeds 1\.5 m\/s/,

@@ -9,6 +9,7 @@ import {
   type FittingKind,
 } from '../../shared/hydraulics';
 import { type CraneValues, type FluidsAnswer, fluidsReference } from './reference/fluids-reference';
+import { refusalOf } from '../support/engine-refusal';
 
 /** Crane K in python3-fluids for each catalogue kind (fluids.fittings). */
 const FLUIDS_NAME: Partial<Record<FittingKind, keyof CraneValues>> = {
@@ -86,9 +87,14 @@ describe('fittings catalogue', () => {
   });
 
   it('rejects an unknown kind naming the valid kinds', () => {
-    expect(() => fittingK('elbow-90-mitre', 0.05, '/segments/0/fittings/3/kind'))
-      .to.throw(HydraulicsInputError, /unknown fitting kind 'elbow-90-mitre'; valid kinds: elbow-90-standard, /)
-      .with.property('field', '/segments/0/fittings/3/kind');
-    expect(() => fittingK('valve-gate', 0)).to.throw(HydraulicsInputError, /inside diameter/);
+    const unknown = refusalOf(() => fittingK('elbow-90-mitre', 0.05, '/segments/0/fittings/3/kind'));
+    expect(unknown).to.deep.include({ code: 'unknown-fitting-kind', pointer: '/segments/0/fittings/3/kind' });
+    expect(unknown.params).to.deep.include({ value: 'elbow-90-mitre' });
+    expect((unknown.params as { accepted: string[] }).accepted).to.include('elbow-90-standard');
+    expect(() => fittingK('valve-gate', 0)).to.throw(HydraulicsInputError);
+    expect(refusalOf(() => fittingK('valve-gate', 0))).to.deep.include({
+      code: 'not-positive',
+      params: { what: 'inside diameter', value: 0 },
+    });
   });
 });

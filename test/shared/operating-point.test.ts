@@ -13,6 +13,7 @@ import {
   type FrictionMethod,
   type HeadCurve,
 } from '../../shared/hydraulics';
+import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { quadraticSystem } from './quadratic-system';
 
 const lpm = (value: number) => flowToSI(value, 'L/min');
@@ -31,7 +32,7 @@ describe('operating point', () => {
     it('solves the stated curves: 7.43 Lpm at 4.96 m', () => {
       const pump: HeadCurve = { headCoefficients: [7.46, 0, -a], flowMin: 0, flowMax: lpm(12) };
       const point = solveOperatingPoint(pump, system);
-      if (!point.ok) throw new Error(point.message);
+      if (!point.ok) throw new Error(engineIssueText(point.issue));
       expect(flowFromSI(point.flow, 'L/min')).to.be.closeTo(expectedLpm, 1e-6);
       expect(flowFromSI(point.flow, 'L/min')).to.be.closeTo(7.43, 0.005);
       expect(point.head).to.be.closeTo(4.96, 0.005);
@@ -41,7 +42,7 @@ describe('operating point', () => {
       const points = [0, 2, 4, 6, 8, 10, 12].map((v) => ({ flow: lpm(v), head: 7.46 - 0.0453 * v * v }));
       const fit = JSON.parse(JSON.stringify(fitPumpCurve(points)));
       const point = solveOperatingPoint(fit, system);
-      if (!point.ok) throw new Error(point.message);
+      if (!point.ok) throw new Error(engineIssueText(point.issue));
       expect(flowFromSI(point.flow, 'L/min')).to.be.closeTo(expectedLpm, 1e-6);
     });
   });
@@ -62,7 +63,7 @@ describe('operating point', () => {
         head: headToSI(180 - 6.1e-4 * q * q, 'ft'),
       }));
       const point = solveOperatingPoint(fitPumpCurve(points), system);
-      if (!point.ok) throw new Error(point.message);
+      if (!point.ok) throw new Error(engineIssueText(point.issue));
       expect(flowFromSI(point.flow, 'gpm')).to.be.closeTo(expectedGpm, 1e-6);
       expect(flowFromSI(point.flow, 'gpm')).to.be.closeTo(365, 1);
     });

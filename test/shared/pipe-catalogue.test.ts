@@ -1,6 +1,7 @@
 import { expect } from 'chai';
 import { HydraulicsInputError, PIPE_SERIES, PIPE_SIZES, pipeSizeById } from '../../shared/hydraulics';
 import { type FluidsAnswer, fluidsReference } from './reference/fluids-reference';
+import { refusalOf } from '../support/engine-refusal';
 
 /** python3-fluids schedule names (fluids.piping.schedule_lookup) for each series with a standard. */
 const FLUIDS_SCHEDULE: Record<string, string> = {
@@ -66,8 +67,9 @@ describe('pipe catalogue', () => {
   });
 
   it('rejects an unknown id with a typed error saying how ids are formed', () => {
-    expect(() => pipeSizeById('pvc-sch40-7', '/segments/2/pipeSizeId'))
-      .to.throw(HydraulicsInputError, /'<series>-<nominal inches>'.*pvc-sch40, pvc-sch80/)
-      .with.property('field', '/segments/2/pipeSizeId');
+    expect(() => pipeSizeById('pvc-sch40-7')).to.throw(HydraulicsInputError, /'<series>-<nominal inches>'/);
+    const refusal = refusalOf(() => pipeSizeById('pvc-sch40-7', '/segments/2/pipeSizeId'));
+    expect(refusal).to.deep.include({ code: 'unknown-pipe-size', pointer: '/segments/2/pipeSizeId' });
+    expect((refusal.params as { series: string[] }).series.slice(0, 2)).to.deep.equal(['pvc-sch40', 'pvc-sch80']);
   });
 });

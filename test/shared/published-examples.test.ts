@@ -16,6 +16,7 @@ import {
   scaleBySpeed,
   solveOperatingPoint,
 } from '../../shared/hydraulics';
+import { engineIssueText } from '../../shared/messages/engine-issue-text';
 
 /*
  * Worked examples whose data AND answers are published, each checked against
@@ -98,7 +99,7 @@ describe('published worked examples', () => {
 
       it('operates at the stated 200 gpm and 296 ft (answers to 3 significant figures: 0.5 %)', () => {
         const point = solveOperatingPoint(JSON.parse(JSON.stringify(fit)), system);
-        if (!point.ok) throw new Error(point.message);
+        if (!point.ok) throw new Error(engineIssueText(point.issue));
         expect(flowFromSI(point.flow, 'gpm')).to.be.closeTo(200, 1);
         expect(headFromSI(point.head, 'ft')).to.be.closeTo(296, 1.5);
       });
@@ -110,7 +111,7 @@ describe('published worked examples', () => {
           segments: [{ length: 1e-9, insideDiameter: bore, hazenWilliamsC: 150, extraK: pipeK + 3.79 }],
         });
         const point = solveOperatingPoint(fit, raised);
-        if (!point.ok) throw new Error(point.message);
+        if (!point.ok) throw new Error(engineIssueText(point.issue));
         expect(flowFromSI(point.flow, 'gpm')).to.be.closeTo(190.6, 0.5);
       });
     });
@@ -137,7 +138,7 @@ describe('published worked examples', () => {
       const pump = { headCoefficients: leastSquaresPolynomial(flows, heads, [0, 2]), flowMin: 0, flowMax: gpm(7850) };
       const system = quadraticSystem(ft(30), lossAtOneCfs / CUBIC_FOOT ** 2);
       const point = solveOperatingPoint(pump, system);
-      if (!point.ok) throw new Error(point.message);
+      if (!point.ok) throw new Error(engineIssueText(point.issue));
       // The source stops Colebrook and the intersection at R's default tolerance (about 1e-4) and takes
       // g = 32.2 ft/s2 against the engine's 9.80665 m/s2: together about 0.003 ft3/s and 0.01 ft here.
       expect(point.flow / CUBIC_FOOT).to.be.closeTo(12.051, 0.005);

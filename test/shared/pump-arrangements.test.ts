@@ -13,6 +13,7 @@ import {
   solveSeries,
   type HeadCurve,
 } from '../../shared/hydraulics';
+import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { quadraticSystem } from './quadratic-system';
 
 const gpm = (value: number) => flowToSI(value, 'gpm');
@@ -39,7 +40,7 @@ const pump = pumpCurve(180, k, 540);
 describe('pump arrangements', () => {
   it('two identical pumps in parallel: each carries Q/2 at the common head', () => {
     const result = solveParallelIdentical(pump, system, 2, 2);
-    if (!result.ok) throw new Error(result.message);
+    if (!result.ok) throw new Error(engineIssueText(result.issue));
     const expected = Math.sqrt((180 - 50) / (k / 4 + c)); // gpm
     expect(flowFromSI(result.totalFlow, 'gpm')).to.be.closeTo(expected, 1e-6);
     expect(result.pumpFlows).to.have.length(2);
@@ -47,7 +48,7 @@ describe('pump arrangements', () => {
     expect(result.head).to.be.closeTo(polynomialValue(pump.headCoefficients, result.pumpFlows[0]), 1e-9);
     // parallel gain is well short of double against this friction-heavy system
     const single = solveOperatingPoint(pump, system);
-    if (!single.ok) throw new Error(single.message);
+    if (!single.ok) throw new Error(engineIssueText(single.issue));
     expect(result.totalFlow / single.flow).to.be.within(1.05, 1.6);
   });
 
@@ -61,7 +62,7 @@ describe('pump arrangements', () => {
 
   it('two in series: heads add at the common flow', () => {
     const result = solveSeries(pump, system, 2);
-    if (!result.ok) throw new Error(result.message);
+    if (!result.ok) throw new Error(engineIssueText(result.issue));
     const expected = Math.sqrt((360 - 50) / (2 * k + c));
     expect(flowFromSI(result.totalFlow, 'gpm')).to.be.closeTo(expected, 1e-6);
     expect(result.pumpFlows).to.deep.equal([result.totalFlow, result.totalFlow]);
@@ -80,7 +81,7 @@ describe('pump arrangements', () => {
   it('unequal pumps both delivering share one head that the system needs at their total flow', () => {
     const other = pumpCurve(150, 1e-3, 380);
     const result = solveParallelUnequal([pump, other], system);
-    if (!result.ok) throw new Error(result.message);
+    if (!result.ok) throw new Error(engineIssueText(result.issue));
     const [qa, qb] = result.pumpFlows;
     expect(qa).to.be.greaterThan(0);
     expect(qb).to.be.greaterThan(0);

@@ -4,6 +4,7 @@ import {
   HydraulicsInputError,
   STANDARD_GRAVITY,
   fitPumpCurve,
+  fitPumpCurveWithIssues,
   polynomialValue,
   pumpEfficiencyAt,
   pumpHeadAt,
@@ -11,6 +12,7 @@ import {
   waterDensity,
   type PumpCurvePoint,
 } from '../../shared/hydraulics';
+import { refusalOf } from '../support/engine-refusal';
 
 /** Points on H = h0 - k Q^2 at the given flows (an exact quadratic the fit must recover). */
 const parabola = (h0: number, k: number, flows: number[]): PumpCurvePoint[] =>
@@ -141,8 +143,8 @@ describe('pump curve fit', () => {
     }));
     const fit = fitPumpCurve(points);
     expect(pumpNpshRequiredAt(fit, 0.0025)).to.be.closeTo(1 + 1e5 * 0.0025 ** 2, 1e-9);
-    expect(fit.warnings.join(' ')).to.match(/shut-off head is extrapolated/);
-    expect(() => pumpHeadAt(fit, 0.0041)).to.throw(HydraulicsInputError, /outside the curve's published range/);
+    expect(fitPumpCurveWithIssues(points).issues.map((issue) => issue.code)).to.include('shut-off-extrapolated');
+    expect(refusalOf(() => pumpHeadAt(fit, 0.0041))).to.deep.include({ code: 'flow-outside-curve', pointer: '/flow' });
     expect(() => pumpHeadAt(fit, 0.0005)).to.throw(HydraulicsInputError);
     expect(pumpHeadAt(fit, 0.004)).to.be.closeTo(10 - 1e5 * 0.004 ** 2, 1e-9);
   });

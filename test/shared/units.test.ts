@@ -30,6 +30,7 @@ import {
   waterDensity,
   type FlowUnit,
 } from '../../shared/hydraulics';
+import { refusalOf } from '../support/engine-refusal';
 
 describe('units', () => {
   it('converts flows by the exact definitions (US gallon 3.785411784 L, NIST SP 811 Appendix B)', () => {
@@ -97,15 +98,20 @@ describe('units', () => {
     expect(velocityToSI(5, 'ft/s')).to.be.closeTo(1.524, 1e-15);
     expect(velocityFromSI(1.524, 'ft/s')).to.be.closeTo(5, 1e-14);
     expect(convertDiameter(25.4, 'mm', 'in')).to.be.closeTo(1, 1e-15);
-    expect(() => volumeToSI(1, 'ft3' as never)).to.throw(HydraulicsInputError, /accepted units: m3, L, gal/);
+    expect(refusalOf(() => volumeToSI(1, 'ft3' as never))).to.deep.include({
+      code: 'unknown-unit',
+      params: { quantity: 'volume', value: 'ft3', accepted: ['m3', 'L', 'gal'] },
+    });
   });
 
   it('names the accepted units when a unit is unknown', () => {
-    expect(() => flowToSI(1, 'cfs' as FlowUnit))
-      .to.throw(HydraulicsInputError, /unknown flow unit 'cfs'; accepted units: gpm, gph, L\/min, L\/s, m3\/h, m3\/s/)
-      .with.property('field', '/flowUnit');
-    expect(() => headToSI(1, 'yd' as never)).to.throw(HydraulicsInputError, /accepted units: m, ft/);
-    expect(() => flowToSI(Number.NaN, 'gpm')).to.throw(HydraulicsInputError, /finite/);
+    expect(refusalOf(() => flowToSI(1, 'cfs' as FlowUnit))).to.deep.equal({
+      code: 'unknown-unit',
+      params: { quantity: 'flow', value: 'cfs', accepted: ['gpm', 'gph', 'L/min', 'L/s', 'm3/h', 'm3/s'] },
+      pointer: '/flowUnit',
+    });
+    expect(refusalOf(() => headToSI(1, 'yd' as never)).params).to.deep.include({ accepted: ['m', 'ft'] });
+    expect(refusalOf(() => flowToSI(Number.NaN, 'gpm')).code).to.equal('not-finite');
     expect(() => flowToSI(1, 'toString' as FlowUnit)).to.throw(HydraulicsInputError);
   });
 });

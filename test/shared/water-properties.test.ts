@@ -8,6 +8,7 @@ import {
   waterVapourPressure,
 } from '../../shared/hydraulics';
 import { iapwsReference } from './reference/iapws-reference';
+import { refusalOf } from '../support/engine-refusal';
 
 /*
  * Reference values: IAPWS-95 (density, vapour pressure) and IAPWS 2008
@@ -75,9 +76,8 @@ describe('water properties', () => {
   });
 
   it('rejects temperatures outside 0-40 C with a typed error', () => {
-    expect(() => waterDensity(-1))
-      .to.throw(HydraulicsInputError, /between 0 and 40/)
-      .with.property('field', '/temperature');
+    expect(refusalOf(() => waterDensity(-1))).to.deep.include({ code: 'out-of-range', pointer: '/temperature' });
+    expect(refusalOf(() => waterDensity(-1)).params).to.deep.include({ min: 0, max: 40, value: -1 });
     expect(() => waterVapourPressure(41)).to.throw(HydraulicsInputError);
     expect(() => waterKinematicViscosity(Number.NaN, '/water/temperature'))
       .to.throw(HydraulicsInputError)

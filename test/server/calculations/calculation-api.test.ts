@@ -528,6 +528,24 @@ describe('calculations API', function () {
         pointer: '/body/preferredBand/maxPercent',
       },
     ];
+    it("gives an engine refusal's values in the request's units", async () => {
+      const response = await post('/calculations/operating-point', {
+        units: usUnits,
+        system: practitionerSystem,
+        pump: {
+          curve: [
+            { flow: 0, head: 40 },
+            { flow: 50, head: 30 },
+            { flow: 100, head: 35 },
+          ],
+        },
+      });
+      expect(response.status, JSON.stringify(response.body)).to.equal(422);
+      expect(response.body.errors[0].detail).to.equal(
+        `head rises from 30 ${usUnits.head} to 35 ${usUnits.head}; Riffle accepts only curves whose head does not rise with flow`,
+      );
+    });
+
     for (const { name, path, body, status, pointer } of cases) {
       it(`answers ${status} naming ${pointer} for ${name}`, async () => {
         const response = await post(path, body);

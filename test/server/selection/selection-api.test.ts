@@ -189,8 +189,12 @@ describe('POST /api/v1/selections', function () {
             ? 'below the duty band'
             : 'above the duty band',
       );
-      if (candidate.region === 'outside')
-        expect(candidate.reasons.some((reason) => reason.startsWith('outside POR'))).to.equal(true);
+      if (candidate.region === 'outside') {
+        const percent = candidate.operatingPoint.percentOfBep;
+        expect(candidate.reasons).to.include(
+          `outside POR${percent === null ? '' : ` (${Math.round(percent)} % of BEP)`}`,
+        );
+      }
       if (candidate.arrangement.running === 1)
         expect(candidate.reasons).to.include('a single pump: no flow at all when it fails');
       if (candidate.oneFailedMeetsMinimum === false)
