@@ -43,6 +43,7 @@ export function prepareSystem(units: CalculationUnits, system: PipeSystem, point
     if (segment.insideDiameter !== undefined)
       requirePlausible('insideDiameter', segment.insideDiameter, `${at}/insideDiameter`, units);
     if (segment.roughness !== undefined) requirePlausible('roughness', segment.roughness, `${at}/roughness`, units);
+    if (segment.extraK !== undefined) requirePlausible('extraK', segment.extraK, `${at}/minorLossK`, units);
   });
   return withRequestPointers(
     () => {

@@ -20,8 +20,8 @@ import {
  * client's forms, so both refuse the same inputs; limits are inclusive (the limit itself passes).
  */
 
-/** Which unit a limited input is typed in. */
-export type PlausibleQuantity = 'head' | 'length' | 'diameter' | 'flow';
+/** Which unit a limited input is typed in; a coefficient has none. */
+export type PlausibleQuantity = 'head' | 'length' | 'diameter' | 'flow' | 'coefficient';
 
 export interface PlausibleLimit {
   /** The input as a message names it. */
@@ -79,6 +79,14 @@ export const PLAUSIBLE_LIMITS = Object.freeze({
     min: 0,
     max: 0.01,
     meaning: 'absolute roughness of a pipe wall, m: 10 mm is beyond corroded cast iron',
+  },
+  extraK: {
+    label: 'extra loss coefficient K',
+    quantity: 'coefficient',
+    min: 0,
+    max: 10_000,
+    meaning:
+      'extra resistance of one segment (filter module, manifold, nozzle): 10,000 is a closed valve, not a water feature',
   },
   flow: {
     label: 'flow',
@@ -157,11 +165,16 @@ const CONVERSIONS = {
   flow: { toSI: flowToSI, fromSI: flowFromSI },
 } as const;
 
-type UnitName = PlausibleUnits[PlausibleQuantity];
+type UnitName = PlausibleUnits[keyof typeof CONVERSIONS];
+
+/** The unit a message states a quantity in; none for a coefficient. */
+function unitText(quantity: PlausibleQuantity, units: PlausibleUnits): string {
+  return quantity === 'coefficient' ? '' : ` ${units[quantity]}`;
+}
 
 /**
  * A limit (SI) in the user's units, by the engine's conversions (units.ts).
- * @param quantity - which kind of input: 'head', 'length', 'diameter' or 'flow'
+ * @param quantity - which kind of input: 'head', 'length', 'diameter', 'flow' or 'coefficient' (no unit)
  * @param value - the limit, SI
  * @param units - the user's unit for each quantity
  * @returns the limit in the user's unit for that quantity
@@ -170,12 +183,13 @@ type UnitName = PlausibleUnits[PlausibleQuantity];
  * limitInUnits('head', 500, { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' }) // => 1640.42
  */
 export function limitInUnits(quantity: PlausibleQuantity, value: number, units: PlausibleUnits): number {
+  if (quantity === 'coefficient') return value;
   return (CONVERSIONS[quantity].fromSI as (value: number, unit: UnitName) => number)(value, units[quantity]);
 }
 
 /**
  * A value typed in the user's units, in SI, by the engine's conversions (units.ts).
- * @param quantity - which kind of input: 'head', 'length', 'diameter' or 'flow'
+ * @param quantity - which kind of input: 'head', 'length', 'diameter', 'flow' or 'coefficient' (no unit)
  * @param value - the value in the user's unit for that quantity
  * @param units - the user's unit for each quantity
  * @returns the value, SI
@@ -184,6 +198,7 @@ export function limitInUnits(quantity: PlausibleQuantity, value: number, units: 
  * valueToSI('diameter', 2, { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' }) // => 0.0508
  */
 export function valueToSI(quantity: PlausibleQuantity, value: number, units: PlausibleUnits): number {
+  if (quantity === 'coefficient') return value;
   return (CONVERSIONS[quantity].toSI as (value: number, unit: UnitName) => number)(value, units[quantity]);
 }
 
@@ -224,10 +239,11 @@ function stated(value: number, inward: 'down' | 'up'): number {
  * @example
  * const units = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' }
  * plausibilityMessage(checkPlausible('staticHead', 600), units) // => 'static head must be at most 1640 ft'
+ * plausibilityMessage(checkPlausible('extraK', 2e4), units) // => 'extra loss coefficient K must be at most 10000'
  */
 export function plausibilityMessage(violation: PlausibilityViolation, units: PlausibleUnits): string {
   const { label, quantity } = PLAUSIBLE_LIMITS[violation.limit];
   const above = violation.code === 'above-plausible-max';
   const figure = Number(stated(limitInUnits(quantity, violation.bound, units), above ? 'down' : 'up').toPrecision(4));
-  return `${label} must be at ${above ? 'most' : 'least'} ${figure} ${units[quantity]}`;
+  return `${label} must be at ${above ? 'most' : 'least'} ${figure}${unitText(quantity, units)}`;
 }

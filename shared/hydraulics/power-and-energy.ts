@@ -3,13 +3,11 @@ import { STANDARD_GRAVITY } from './physical-constants';
 import { polynomialValue } from './polynomial';
 import { requireFlowInRange } from './pump-curve-evaluation';
 import type { PumpCurveFit } from './pump-curve-fit';
+import { volumeToSI } from './units';
 
 /*
  * Power and energy. SI in: m3/s, m, kg/m3, W; energy out in kWh.
  */
-
-/** m3 in one US gallon (exact, NIST SP 811). */
-const CUBIC_METRES_PER_US_GALLON = 3.785411784e-3;
 
 /**
  * Hydraulic (water) power P_w = rho g Q H, W. The Hydraulic Institute's
@@ -171,5 +169,5 @@ export function specificEnergy(inputPower: number, flow: number): SpecificEnergy
   requireNonNegative(inputPower, '/inputPower', 'input power');
   requirePositive(flow, '/flow', 'flow');
   const perCubicMetre = inputPower / (flow * 3.6e6);
-  return { perCubicMetre, perThousandUsGallons: perCubicMetre * 1000 * CUBIC_METRES_PER_US_GALLON };
+  return { perCubicMetre, perThousandUsGallons: perCubicMetre * volumeToSI(1000, 'gal') };
 }

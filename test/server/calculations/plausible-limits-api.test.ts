@@ -63,6 +63,11 @@ function requestFor(
         }),
         pointer: '/body/system/segments/0/roughness',
       };
+    case 'extraK':
+      return {
+        ...systemCurve({ segments: [{ ...segment, minorLossK: value }] }),
+        pointer: '/body/system/segments/0/minorLossK',
+      };
     case 'flow':
       return { ...systemCurve({}, [value]), pointer: '/body/flows/0' };
     case 'pumpCurveFlow':

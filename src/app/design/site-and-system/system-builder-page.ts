@@ -43,9 +43,6 @@ type SegmentForm = FormGroup<{
   fittings: FormArray<FittingForm>;
 }>;
 
-/** The saved design's ceiling on a segment's extra K (the contract's DesignSystem `extraK` maximum). */
-const MOST_EXTRA_K = 10_000;
-
 /** Points of the preview: enough for a smooth curve, cheap for the engine. */
 const previewSteps = 40;
 
@@ -121,8 +118,6 @@ export class SystemBuilderPage {
       }
     },
   );
-
-  protected readonly mostExtraK = MOST_EXTRA_K;
 
   protected readonly velocityLimit = computed(() => lengthFromSI(VELOCITY_WARNING_LIMIT, this.units().length));
 
@@ -217,7 +212,7 @@ export class SystemBuilderPage {
       extraK: this.formBuilder.control(segment.extraK, [
         Validators.required,
         Validators.min(0),
-        Validators.max(MOST_EXTRA_K),
+        plausibleValidator('extraK', this.units),
       ]),
       fittings: this.formBuilder.array(segment.fittings.map((fitting) => this.fittingForm(fitting))),
     });
