@@ -134,7 +134,7 @@ async function dryRunThroughApi(database: PrivateMariaDb): Promise<void> {
     if (!('memory' in memory)) throw new Error('the benchmark server did not say its memory');
     const rows = DRY_RUN_PUMPS * DRY_RUN_POINTS;
     console.log(
-      `dry run through the API: ${DRY_RUN_PUMPS} pumps x ${DRY_RUN_POINTS} points = ${rows} rows, ${(bytes.length / MIB).toFixed(1)} MiB, answer ${(Number(response.headers['content-length'] ?? 0) / MIB).toFixed(1)} MiB`,
+      `dry run through the API: ${DRY_RUN_PUMPS} pumps x ${DRY_RUN_POINTS} points = ${rows} rows, ${(bytes.length / MIB).toFixed(1)} MiB, answer ${(Buffer.byteLength(response.text) / MIB).toFixed(1)} MiB`,
     );
     console.log(
       `  elapsed (upload, read, check, fit, compare, answer): ${seconds.toFixed(2)} s, ${Math.round(rows / seconds)} rows/s`,

@@ -195,6 +195,24 @@ describe('curve-table uploads', function () {
     expect(readdirSync(uploads)).to.deep.equal([]);
   });
 
+  it("keeps a supplier's name under the shared text rule when it is created or renamed", async () => {
+    for (const name of ['Evil \u202Eylppus', 'Bell\u0007 Supply', '   ']) {
+      const refused = await Supplier.create({ code: 'NAMETEST', name }).then(
+        () => 'saved',
+        (error: Error) => error.message,
+      );
+      expect(refused, JSON.stringify(name)).to.match(/a supplier's name must/);
+      const renamed = await suppliers[1].update({ name }).then(
+        () => 'saved',
+        (error: Error) => error.message,
+      );
+      expect(renamed, JSON.stringify(name)).to.match(/a supplier's name must/);
+      await suppliers[1].reload();
+    }
+    expect(await Supplier.count({ where: { code: 'NAMETEST' } })).to.equal(0);
+    expect(suppliers[1].name).to.equal('Upload Two Supply (invented)');
+  });
+
   it('reads JSON bodies in UTF-8 (with a byte-order mark too) and UTF-16, and answers 415 for other charsets', async () => {
     const json = JSON.stringify({ name: 'Café sheet ✓', scopes: ['catalog:read'] });
     /** Raw bytes as the body: supertest would serialise a Buffer as JSON. */
