@@ -102,7 +102,10 @@ async function sendReport(response: Response, status: number, report: CurveImpor
     yield `${chunk}]}`;
   }
   response.status(status).type('application/json; charset=utf-8');
-  await pipeline(Readable.from(chunks()), response);
+  await pipeline(Readable.from(chunks()), response).catch((error: NodeJS.ErrnoException) => {
+    // A caller that hangs up before the end has nothing left to be told.
+    if (error.code !== 'ERR_STREAM_PREMATURE_CLOSE') throw error;
+  });
 }
 
 /** The supplier named in the path, when the caller may act for it. */
