@@ -143,3 +143,167 @@ export function csvProblem(error: CsvError): string {
 }
 
 /** The reader's progress through the file: format line, unit lines, header, point rows. */
+
+/** Where a file's bytes stopped being text in its encoding. */
+export interface UndecodableBytes {
+  /** Offset of the first byte that cannot be decoded, from the file's start (0-based). */
+  byte: number;
+  /** The file's line (1-based) that byte is on. */
+  line: number;
+  reason: string;
+}
+
+export const acceptedEncodings = 'UTF-8 (with or without a byte-order mark), or UTF-16 LE or BE with a byte-order mark';
+
+type FileEncoding = 'utf-8' | 'utf-16le' | 'utf-16be';
+
+/**
+ * The length of the well-formed UTF-8 sequence at `at`: 0 when it is ill-formed, -1 when the
+ * bytes end inside it. Source: The Unicode Standard 15.0, section 3.9, Table 3-7 (Well-Formed
+ * UTF-8 Byte Sequences).
+ */
+function utf8SequenceLength(bytes: Buffer, at: number): number {
+  const lead = bytes[at];
+  if (lead <= 0x7f) return 1;
+  const [length, secondLow, secondHigh] =
+    lead >= 0xc2 && lead <= 0xdf
+      ? [2, 0x80, 0xbf]
+      : lead === 0xe0
+        ? [3, 0xa0, 0xbf]
+        : lead === 0xed
+          ? [3, 0x80, 0x9f]
+          : lead >= 0xe1 && lead <= 0xef
+            ? [3, 0x80, 0xbf]
+            : lead === 0xf0
+              ? [4, 0x90, 0xbf]
+              : lead === 0xf4
+                ? [4, 0x80, 0x8f]
+                : lead >= 0xf1 && lead <= 0xf3
+                  ? [4, 0x80, 0xbf]
+                  : [0, 0, 0];
+  if (length === 0) return 0;
+  for (let index = 1; index < length; index += 1) {
+    if (at + index >= bytes.length) return -1;
+    const [low, high] = index === 1 ? [secondLow, secondHigh] : [0x80, 0xbf];
+    if (bytes[at + index] < low || bytes[at + index] > high) return 0;
+  }
+  return length;
+}
+
+/**
+ * How many leading bytes are whole, well-formed text, and whether the next byte is ill-formed
+ * (`bad`) or only cut by the end of `bytes`. UTF-16 code units pair surrogates as The Unicode
+ * Standard 15.0, section 3.9 (D91) defines.
+ */
+function wellFormedPrefix(bytes: Buffer, encoding: FileEncoding): { length: number; bad: boolean } {
+  let at = 0;
+  if (encoding === 'utf-8') {
+    while (at < bytes.length) {
+      const length = utf8SequenceLength(bytes, at);
+      if (length <= 0) return { length: at, bad: length === 0 };
+      at += length;
+    }
+    return { length: at, bad: false };
+  }
+  const unit = (offset: number) => (encoding === 'utf-16le' ? bytes.readUInt16LE(offset) : bytes.readUInt16BE(offset));
+  while (at + 1 < bytes.length) {
+    const code = unit(at);
+    if (code >= 0xdc00 && code <= 0xdfff) return { length: at, bad: true };
+    if (code >= 0xd800 && code <= 0xdbff) {
+      if (at + 3 >= bytes.length) return { length: at, bad: false };
+      const next = unit(at + 2);
+      if (next < 0xdc00 || next > 0xdfff) return { length: at, bad: true };
+      at += 4;
+    } else at += 2;
+  }
+  return { length: at, bad: false };
+}
+
+function newlineCount(bytes: Buffer): number {
+  let count = 0;
+  for (let at = bytes.indexOf(0x0a); at >= 0; at = bytes.indexOf(0x0a, at + 1)) count += 1;
+  return count;
+}
+
+/**
+ * A curve table's bytes as UTF-8 for the reader: UTF-8 (a byte-order mark is left for the reader)
+ * passes unchanged, UTF-16 with a byte-order mark is transcoded. At the first byte that is not
+ * text in the file's encoding (Latin-1's lone 0xE9, a UTF-32 byte-order mark, a lone surrogate)
+ * the output ends, the rest is drained unread, and `problem` says where.
+ */
+export class CurveTableDecoder extends Transform {
+  problem: UndecodableBytes | null = null;
+  private encoding: FileEncoding | null = null;
+  private pending: Buffer = Buffer.alloc(0);
+  /** File bytes before `pending`. */
+  private consumed = 0;
+  private lines = 0;
+
+  override _transform(chunk: Buffer, _encoding: BufferEncoding, callback: TransformCallback): void {
+    if (this.problem) return callback();
+    this.pending = this.pending.length > 0 ? Buffer.concat([this.pending, chunk]) : chunk;
+    if (this.encoding === null && this.pending.length < 4) return callback();
+    this.decodePending(false);
+    callback();
+  }
+
+  override _flush(callback: TransformCallback): void {
+    if (!this.problem) this.decodePending(true);
+    callback();
+  }
+
+  private decodePending(atEnd: boolean): void {
+    if (this.encoding === null && !this.sniffEncoding()) return;
+    const encoding = this.encoding!;
+    const { length, bad } = wellFormedPrefix(this.pending, encoding);
+    const whole = this.pending.subarray(0, length);
+    const text =
+      encoding === 'utf-8'
+        ? whole
+        : Buffer.from((encoding === 'utf-16le' ? whole : Buffer.from(whole).swap16()).toString('utf16le'), 'utf8');
+    this.lines += newlineCount(text);
+    if (text.length > 0) this.push(text);
+    this.consumed += length;
+    this.pending = this.pending.subarray(length);
+    if (bad || (atEnd && this.pending.length > 0)) {
+      const reason = bad
+        ? this.illFormed(encoding)
+        : `the file ends inside a ${encoding === 'utf-8' ? 'UTF-8 sequence' : 'UTF-16 character'}`;
+      this.stop(reason);
+    }
+  }
+
+  /** What is wrong with the ill-formed text at the start of `pending`. */
+  private illFormed(encoding: FileEncoding): string {
+    if (encoding === 'utf-8')
+      return `byte 0x${this.pending[0].toString(16).toUpperCase().padStart(2, '0')} is not UTF-8 text here`;
+    const unit = encoding === 'utf-16le' ? this.pending.readUInt16LE(0) : this.pending.readUInt16BE(0);
+    return `the UTF-16 code unit 0x${unit.toString(16).toUpperCase()} is a surrogate without its pair`;
+  }
+
+  /** Reads the byte-order mark; false when the file is refused by it. */
+  private sniffEncoding(): boolean {
+    const start = this.pending;
+    if (
+      start.subarray(0, 4).equals(Buffer.from([0x00, 0x00, 0xfe, 0xff])) ||
+      start.subarray(0, 4).equals(Buffer.from([0xff, 0xfe, 0x00, 0x00]))
+    ) {
+      this.stop('the file starts with a UTF-32 byte-order mark');
+      return false;
+    }
+    const utf16 =
+      start[0] === 0xff && start[1] === 0xfe ? 'utf-16le' : start[0] === 0xfe && start[1] === 0xff ? 'utf-16be' : null;
+    this.encoding = utf16 ?? 'utf-8';
+    if (utf16) {
+      this.pending = start.subarray(2);
+      this.consumed = 2;
+    }
+    return true;
+  }
+
+  private stop(reason: string): void {
+    this.problem = { byte: this.consumed, line: this.lines + 1, reason };
+    this.pending = Buffer.alloc(0);
+    this.push(null);
+  }
+}

@@ -1,6 +1,6 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import express, { type Express } from 'express';
+import express, { type Express, type RequestHandler } from 'express';
 import helmet from 'helmet';
 import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
@@ -8,7 +8,7 @@ import type { Sequelize } from 'sequelize';
 import swaggerUi from 'swagger-ui-express';
 import { openApiDocument, openApiText } from './api/openapi-document';
 import { createOperationRouter } from './api/operation-router';
-import { createProblemHandler, notFoundHandler } from './api/problem-details';
+import { createProblemHandler, notFoundHandler, ProblemError } from './api/problem-details';
 import { requestLogOptions } from './logging';
 import { loadConfig, projectRoot } from './config';
 import { createHealthHandlers } from './health/health-handlers';
@@ -20,6 +20,26 @@ import { CatalogSnapshot } from './catalog/catalog-snapshot';
 import { createCatalogHandlers } from './catalog/catalog-handlers';
 import { createProjectHandlers } from './projects/project-handlers';
 import { createCurveImportHandlers } from './catalog/curve-import-handlers';
+
+/**
+ * JSON bodies are UTF-8 (with or without a byte-order mark) or UTF-16, as the contract says;
+ * body-parser alone would decode any charset iconv-lite knows (UTF-32, UTF-7).
+ */
+const jsonCharsets = new Set(['utf-8', 'utf-16', 'utf-16le', 'utf-16be']);
+
+const acceptedJsonCharset: RequestHandler = (request, _response, next) => {
+  if (!request.is('application/json')) return next();
+  const charset = /;\s*charset\s*=\s*"?([^";\s]*)/i.exec(request.headers['content-type'] ?? '')?.[1].toLowerCase();
+  if (charset === undefined || jsonCharsets.has(charset)) return next();
+  next(
+    new ProblemError(
+      415,
+      'Unsupported charset',
+      `A JSON body is UTF-8 or UTF-16 (charset utf-8, utf-16, utf-16le or utf-16be), not "${charset.slice(0, 40)}"`,
+      [{ pointer: '/headers/content-type', detail: 'charset must be utf-8 or utf-16' }],
+    ),
+  );
+};
 
 export interface AppDependencies {
   sequelize: Sequelize;
@@ -63,7 +83,7 @@ export function createApp({ sequelize, logger, clientFolder, accounts, trustedPr
   app.use(
     pinoHttp({ ...requestLogOptions, logger, autoLogging: { ignore: (request) => !request.url?.startsWith('/api/') } }),
   );
-  app.use(express.json({ limit: '1mb' }));
+  app.use(acceptedJsonCharset, express.json({ limit: '1mb' }));
 
   app.get('/api/v1/openapi.yaml', (_request, response) => {
     response.type('application/yaml').send(openApiText);

@@ -8,7 +8,9 @@ import {
   storedReport,
   type ImportPhase,
 } from '../../data-import/curve-import-plan';
-import { readCurveTable } from '../../data-import/curve-table-reader';
+import { issue } from '../../data-import/curve-table-cells';
+import { readCurveTable, type ReadCurveTable } from '../../data-import/curve-table-reader';
+import { acceptedEncodings, CurveTableDecoder, type UndecodableBytes } from '../../data-import/curve-table-stream';
 import { CurveImport, type Supplier } from '../database/models';
 import type { CurveImportChannel } from '../database/models/curve-import';
 import { loadExistingPumps, writePumps } from './curve-store';
@@ -16,7 +18,9 @@ import { loadExistingPumps, writePumps } from './curve-store';
 /*
  * The one import path, used by the command, the API and the demo seed: read and check the file
  * (data-import), compare with what the supplier already has and, unless a dry run, write every
- * pump of the file in one transaction, or none.
+ * pump of the file in one transaction, or none. One import per supplier runs at a time in a
+ * process, dry run or not, so that two large files never share the memory an import may take;
+ * across processes (the command beside the server) commits still wait on the supplier's row lock.
  */
 
 export interface ImportActor {
@@ -25,6 +29,50 @@ export interface ImportActor {
   /** Who, readably: an e-mail, or "command line (user)". */
   label: string;
   channel: CurveImportChannel;
+}
+
+/** Who started a supplier's running import, and when: what a refused second import is told. */
+export interface RunningImport {
+  supplierCode: string;
+  channel: CurveImportChannel;
+  by: string;
+  startedAt: Date;
+}
+
+/** A second import of a supplier while one runs; the API answers it with 409. */
+export class CurveImportRunningError extends Error {
+  constructor(readonly running: RunningImport) {
+    super(
+      `an import of ${running.supplierCode}'s curve table (${running.channel}, by ${running.by}) has been running since ${running.startedAt.toISOString()}; try again when it has finished`,
+    );
+  }
+}
+
+/** The supplier held for one import until `release`. */
+export interface CurveImportClaim {
+  readonly supplierId: number;
+  release(): void;
+}
+
+const runningImports = new Map<number, RunningImport>();
+
+/** Holds the supplier for one import, or throws CurveImportRunningError while another holds it. */
+export function claimCurveImport(supplier: Supplier, actor: ImportActor): CurveImportClaim {
+  const running = runningImports.get(supplier.id);
+  if (running) throw new CurveImportRunningError(running);
+  const mine: RunningImport = {
+    supplierCode: supplier.code,
+    channel: actor.channel,
+    by: actor.label,
+    startedAt: new Date(),
+  };
+  runningImports.set(supplier.id, mine);
+  return {
+    supplierId: supplier.id,
+    release: () => {
+      if (runningImports.get(supplier.id) === mine) runningImports.delete(supplier.id);
+    },
+  };
 }
 
 export interface CurveImportOptions {
@@ -39,20 +87,58 @@ export interface CurveImportOptions {
   onProgress?: (phase: ImportPhase, done: number, total: number) => void;
   maxFileBytes?: number;
   maxPointRows?: number;
+  /** The supplier already held by the caller (the API holds it while the upload arrives); else held here. */
+  claim?: CurveImportClaim;
+}
+
+/** A file that stopped being text: only that is reported, what was read before it is moot. */
+function undecodable(read: ReadCurveTable, problem: UndecodableBytes): ReadCurveTable {
+  return {
+    ...read,
+    pumps: [],
+    errors: [
+      issue(
+        problem.line,
+        null,
+        `the file cannot be read as text: ${problem.reason} (byte ${problem.byte})`,
+        acceptedEncodings,
+      ),
+    ],
+    errorsOmitted: 0,
+    warnings: [],
+  };
 }
 
 /**
  * Checks a curve-table file and, unless `dryRun`, writes it. The report lists errors by row and
- * column; when there is any error nothing is written. Throws only for failures of the system
- * (the database), never for what the file holds.
+ * column; when there is any error nothing is written. Throws CurveImportRunningError while
+ * another import of the supplier runs, and otherwise only for failures of the system (the
+ * database), never for what the file holds.
  */
 export async function importCurveTable(options: CurveImportOptions): Promise<CurveImportReport> {
+  if (options.claim) {
+    if (options.claim.supplierId !== options.supplier.id) throw new Error('the claim is for another supplier');
+    return importClaimed(options);
+  }
+  const claim = claimCurveImport(options.supplier, options.actor);
+  try {
+    return await importClaimed(options);
+  } finally {
+    claim.release();
+  }
+}
+
+async function importClaimed(options: CurveImportOptions): Promise<CurveImportReport> {
   const { sequelize, supplier, actor, onProgress } = options;
-  const read = await readCurveTable(options.source, {
+  const decoder = new CurveTableDecoder();
+  options.source.once('error', (error) => decoder.destroy(error));
+  const decoded = await readCurveTable(options.source.pipe(decoder), {
     maxFileBytes: options.maxFileBytes,
     maxPointRows: options.maxPointRows,
     onBytes: (bytes) => onProgress?.('reading', bytes, options.totalBytes ?? bytes),
   });
+  if (decoder.problem) options.source.destroy();
+  const read = decoder.problem ? undecodable(decoded, decoder.problem) : decoded;
   const checked = checkCurveTable(read, (done, total) => onProgress?.('checking', done, total));
   const context = (committed: boolean, importId: number | null) => ({
     supplier: { id: supplier.id, code: supplier.code, name: supplier.name },

@@ -499,6 +499,18 @@ export interface paths {
          *     supplier-admin may load files for its own supplier only. A file with errors is refused
          *     with 422 problem details whose `errors` name each row and column, and whose `report`
          *     is the full report.
+         *
+         *     The file's bytes are UTF-8, with or without a byte-order mark, or UTF-16 LE or BE with a
+         *     byte-order mark; the part's declared charset is not read. Bytes that are not text in
+         *     the file's encoding (a Latin-1 `é`, 0xE9, alone; a UTF-32 byte-order mark; a lone
+         *     UTF-16 surrogate) are refused with 422 naming the row, the offending byte and its
+         *     offset. The file name follows the rule for names people type (no control or
+         *     bidirectional characters): otherwise 422 with `pointer` `/body/file`.
+         *
+         *     A supplier has one import at a time, dry run or not: while one runs (from its upload on),
+         *     another for the same supplier is answered with 409 problem details of type
+         *     `/api/v1/problems/curve-import-running`, whose `runningImport` says who started the running
+         *     one, how and when.
          */
         post: operations["importCurveTable"];
         delete?: never;
@@ -1067,7 +1079,7 @@ export interface components {
         CurveImportReport: {
             supplier: components["schemas"]["SupplierRef"];
             fileName: string;
-            /** @description sha-256 of the file, hex. */
+            /** @description sha-256 of the file, hex; of a UTF-16 file, of its text as UTF-8. */
             fileChecksum: string;
             formatVersion: number | null;
             fileUnits: components["schemas"]["CurveFileUnits"] | null;
@@ -1406,6 +1418,35 @@ export interface components {
                 [name: string]: unknown;
             };
             content: {
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description Another import of this supplier's curve table is running; `runningImport` names its channel (`api`, `command`, `demo-seed`), who started it (`by`) and when (`startedAt`). Try again when it has finished. */
+        CurveImportRunning: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                /**
+                 * @example {
+                 *       "type": "/api/v1/problems/curve-import-running",
+                 *       "title": "Curve import running",
+                 *       "status": 409,
+                 *       "detail": "an import of ALDERBROOK's curve table (api, by supplier.admin@example.test) has been running since 2026-12-01T09:30:00.000Z; try again when it has finished",
+                 *       "pointer": "/path/supplierId",
+                 *       "errors": [
+                 *         {
+                 *           "pointer": "/path/supplierId",
+                 *           "detail": "has an import running"
+                 *         }
+                 *       ],
+                 *       "runningImport": {
+                 *         "channel": "api",
+                 *         "by": "supplier.admin@example.test",
+                 *         "startedAt": "2026-12-01T09:30:00.000Z"
+                 *       }
+                 *     }
+                 */
                 "application/problem+json": components["schemas"]["ProblemDetails"];
             };
         };
@@ -3353,6 +3394,7 @@ export interface operations {
             400: components["responses"]["BadRequest"];
             403: components["responses"]["Forbidden"];
             404: components["responses"]["NotFound"];
+            409: components["responses"]["CurveImportRunning"];
             413: components["responses"]["FileTooLarge"];
             422: components["responses"]["CurveTableRefused"];
         };
