@@ -1,14 +1,24 @@
 import { expect } from 'chai';
 import fc from 'fast-check';
+import { spawnSync } from 'node:child_process';
 import {
   STANDARD_GRAVITY,
+  balancingValveK,
+  branchDutyBand,
   branchFlowsAt,
   compileBranchedSystem,
   compileSystemCurve,
+  fitPumpCurve,
   headLossHazenWilliams,
+  HydraulicsInputError,
+  polynomialValue,
+  solveOperatingPoint,
+  solveParallelIdentical,
+  waterKinematicViscosity,
   type BranchInput,
   type BranchedSystemInput,
   type CompiledBranchedSystem,
+  type HeadCurve,
   type PipeSegmentInput,
 } from '../../shared/hydraulics';
 
@@ -19,6 +29,69 @@ function splitOf(system: CompiledBranchedSystem, totalFlow: number): { head: num
   const flows = new Float64Array(system.branches.length);
   const head = system.splitAt(totalFlow, flows);
   return { head, flows: [...flows] };
+}
+
+/** A pump curve H = shutOff (1 - (Q/runOut)^2) fitted from 9 points and stored as JSON, as the catalogue keeps it. */
+function storedPump(shutOff: number, runOut: number): HeadCurve {
+  const points = Array.from({ length: 9 }, (_, i) => {
+    const flow = (i / 8) * runOut * 0.95;
+    return { flow, head: shutOff * (1 - (flow / runOut) ** 2) };
+  });
+  return JSON.parse(JSON.stringify(fitPumpCurve(points))) as HeadCurve;
+}
+
+/*
+ * An independent solve in python3-fluids (Debian; apt-get install -y python3-fluids): Colebrook
+ * friction factors from fluids.friction.Colebrook, each branch flow and the split head by
+ * scipy's brentq, the operating point of the pump H = h0 - a Q^2 likewise. Outlets, pipes and K
+ * are the test's; the water's kinematic viscosity is passed in from the engine.
+ */
+const FLUIDS_SPLIT = `
+import json, math, sys
+import fluids
+from fluids.friction import Colebrook
+from scipy.optimize import brentq
+g = 9.80665
+r = json.load(sys.stdin)
+nu = r["nu"]
+def loss(segments, q):
+    total = 0.0
+    for L, D, eps, K in segments:
+        V = q / (math.pi * D * D / 4)
+        f = Colebrook(V * D / nu, eps / D) if q > 0 else 0.0
+        total += (f * L / D + K) * V * V / (2 * g)
+    return total
+def needed(b, q): return b["z"] + loss(b["segments"], q)
+def branch_flow(b, H):
+    if H <= b["z"]: return 0.0
+    hi = 1e-3
+    while needed(b, hi) < H: hi *= 2
+    return brentq(lambda q: needed(b, q) - H, 0.0, hi, xtol=1e-16, rtol=1e-15)
+bs = r["branches"]
+def split(Q):
+    lo = min(b["z"] for b in bs)
+    hi = min(needed(b, Q) for b in bs) + 1e-9
+    H = brentq(lambda H: sum(branch_flow(b, H) for b in bs) - Q, lo, hi, xtol=1e-14, rtol=1e-15)
+    return {"head": H, "flows": [branch_flow(b, H) for b in bs]}
+h0, a = r["pump"]
+op = brentq(lambda Q: h0 - a * Q * Q - loss(r["common"], Q) - split(Q)["head"], 1e-4, math.sqrt(h0 / a), xtol=1e-15, rtol=1e-15)
+json.dump({"fluidsVersion": fluids.__version__, "splits": [split(Q) for Q in r["flows"]], "operatingFlow": op}, sys.stdout)
+`;
+
+interface FluidsSplitAnswer {
+  fluidsVersion: string;
+  splits: { head: number; flows: number[] }[];
+  operatingFlow: number;
+}
+
+function fluidsSplit(request: object): FluidsSplitAnswer {
+  const run = spawnSync('/usr/bin/python3', ['-c', FLUIDS_SPLIT], { input: JSON.stringify(request), encoding: 'utf8' });
+  if (run.error || run.status !== 0) {
+    throw new Error(
+      `python3-fluids reference failed (apt-get install -y python3-fluids): ${run.error?.message ?? run.stderr}`,
+    );
+  }
+  return JSON.parse(run.stdout) as FluidsSplitAnswer;
 }
 
 describe('branched system', () => {
@@ -136,6 +209,79 @@ describe('branched system', () => {
     }
   });
 
+  describe('against python3-fluids (Darcy-Weisbach with Colebrook, solved independently there)', () => {
+    // [length m, bore m, roughness m, K]; outlet heads in m.
+    const common: [number, number, number, number][] = [[15, 0.0525, 1.5e-6, 2.5]];
+    const branchPipes: [number, number, number, number][][] = [
+      [[25, 0.0409, 1.5e-6, 3]],
+      [
+        [40, 0.0351, 4.5e-5, 4],
+        [5, 0.0266, 1.5e-6, 1],
+      ],
+      [[10, 0.0266, 1.5e-6, 1]],
+    ];
+    const levels = [3, 0.8, 1.2];
+    const pressures = [0, 0, 2];
+    const segmentsOf = (pipes: [number, number, number, number][]): PipeSegmentInput[] =>
+      pipes.map(([length, insideDiameter, roughness, extraK]) => ({ length, insideDiameter, roughness, extraK }));
+    const system = compileBranchedSystem({
+      frictionMethod: 'darcy-weisbach',
+      temperature: 15,
+      segments: segmentsOf(common),
+      branches: ['falls', 'stream', 'fountain'].map((name, i) => ({
+        name,
+        staticHead: levels[i],
+        outletPressureHead: pressures[i],
+        segments: segmentsOf(branchPipes[i]),
+      })),
+    });
+    const nu = waterKinematicViscosity(15);
+    const flows = [3e-3, 5e-3, 8e-3];
+    const pump = { shutOff: 16, runOut: 0.012 };
+    const reference = fluidsSplit({
+      nu,
+      common,
+      branches: branchPipes.map((segments, i) => ({ z: levels[i] + pressures[i], segments })),
+      flows,
+      pump: [pump.shutOff, pump.shutOff / pump.runOut ** 2],
+    });
+
+    flows.forEach((flow, k) => {
+      it(`Q = ${flow * 1000} L/s: split head and branch flows within 1e-7 (fluids ${reference.fluidsVersion})`, () => {
+        const split = branchFlowsAt(system, flow);
+        expect(relative(split.junctionHead, reference.splits[k].head)).to.be.below(1e-7);
+        split.branches.forEach((branch, i) => {
+          expect(branch.flow).to.be.closeTo(reference.splits[k].flows[i], 1e-7 * flow);
+          // The reference is Colebrook throughout: every flowing segment must be turbulent (Re >= 4000).
+          branch.velocities.forEach((velocity, j) => {
+            if (branch.flow > 0) expect((velocity * branchPipes[i][j][1]) / nu).to.be.at.least(4000);
+          });
+        });
+      });
+    });
+
+    it('the operating point with a stored pump curve is the one python3-fluids finds, and lies on both curves', () => {
+      const fit = storedPump(pump.shutOff, pump.runOut);
+      const point = solveOperatingPoint(fit, system);
+      if (!point.ok) throw new Error(point.message);
+      expect(relative(point.flow, reference.operatingFlow)).to.be.below(1e-7);
+      expect(point.head).to.be.closeTo(system.evaluate(point.flow), 1e-9);
+      expect(point.head).to.be.closeTo(polynomialValue(fit.headCoefficients, point.flow), 1e-9);
+      expect(branchFlowsAt(system, point.flow).totalHead).to.be.closeTo(point.head, 1e-9);
+    });
+
+    it('two such pumps in parallel deliver more at a higher head, each half of it', () => {
+      const fit = storedPump(pump.shutOff, pump.runOut);
+      const one = solveOperatingPoint(fit, system);
+      const two = solveParallelIdentical(fit, system, 2, 2);
+      if (!one.ok || !two.ok) throw new Error('no operating point');
+      expect(two.totalFlow).to.be.above(one.flow);
+      expect(two.head).to.be.above(one.head);
+      expect(two.head).to.be.closeTo(system.evaluate(two.totalFlow), 1e-9);
+      expect(two.pumpFlows[0]).to.equal(two.totalFlow / 2);
+    });
+  });
+
   describe('no back-flow', () => {
     const pipe = (length: number) => [{ length, insideDiameter: 0.05, hazenWilliamsC: 140 }];
     const system = compileBranchedSystem({
@@ -182,6 +328,125 @@ describe('branched system', () => {
       });
       expect(split.commonVelocities[0]).to.be.closeTo(0.009 / area(0.05), 1e-12);
       expect(split.issues.map((issue) => issue.pointer)).to.deep.equal(['/segments/0']);
+    });
+  });
+
+  describe('balancing and duty band', () => {
+    const branch = (name: string, staticHead: number, length: number, bore: number): BranchInput => ({
+      name,
+      staticHead,
+      segments: [
+        { length: 2, insideDiameter: 0.05, hazenWilliamsC: 150 },
+        { length, insideDiameter: bore, hazenWilliamsC: 150, extraK: 1 },
+      ],
+    });
+    const input = (extraK: number[]): BranchedSystemInput => ({
+      frictionMethod: 'hazen-williams',
+      segments: [{ length: 10, insideDiameter: 0.0525, hazenWilliamsC: 150 }],
+      branches: [branch('falls', 3, 30, 0.0409), branch('stream', 1, 20, 0.0351), branch('spray', 1.5, 15, 0.0266)].map(
+        (b, i) => ({ ...b, segments: [b.segments[0], { ...b.segments[1], extraK: 1 + extraK[i] }] }),
+      ),
+    });
+    const pump = storedPump(14, 0.012);
+    const flowsAtDuty = (system: CompiledBranchedSystem) => {
+      const point = solveOperatingPoint(pump, system);
+      if (!point.ok) throw new Error(point.message);
+      return { total: point.flow, ...splitOf(system, point.flow) };
+    };
+
+    it('the K found, put in the other branches as extraK on their last segments, gives the wanted flow', () => {
+      const system = compileBranchedSystem(input([0, 0, 0]));
+      const unbalanced = flowsAtDuty(system);
+      const wanted = 1.5 * unbalanced.flows[0];
+      const k = balancingValveK(system, pump, 'falls', { flow: wanted });
+      expect(k).to.be.above(0);
+      const balanced = flowsAtDuty(compileBranchedSystem(input([0, k, k])));
+      expect(balanced.flows[0]).to.be.closeTo(wanted, 1e-9 * wanted);
+    });
+
+    it('a wanted share of the total flow, likewise', () => {
+      const system = compileBranchedSystem(input([0, 0, 0]));
+      const unbalanced = flowsAtDuty(system);
+      const share = 1.2 * (unbalanced.flows[1] / unbalanced.total);
+      const k = balancingValveK(system, pump, 'stream', { share });
+      const balanced = flowsAtDuty(compileBranchedSystem(input([k, 0, k])));
+      expect(balanced.flows[1] / balanced.total).to.be.closeTo(share, 1e-9);
+    });
+
+    it('a flow the branch already exceeds unthrottled, or an unknown branch, is refused by field', () => {
+      const system = compileBranchedSystem(input([0, 0, 0]));
+      const unbalanced = flowsAtDuty(system);
+      expect(() => balancingValveK(system, pump, 'falls', { flow: 0.5 * unbalanced.flows[0] }))
+        .to.throw(HydraulicsInputError)
+        .with.property('field', '/flow');
+      expect(() => balancingValveK(system, pump, 'falls', { share: 1 }))
+        .to.throw(HydraulicsInputError)
+        .with.property('field', '/share');
+      expect(() => balancingValveK(system, pump, 'lake', { flow: 1e-3 }))
+        .to.throw(HydraulicsInputError)
+        .with.property('field', '/branch');
+    });
+
+    it('the duty band of a branch: at its ends the branch takes flowMin and flowMax, outside it does not', () => {
+      const system = compileBranchedSystem(input([0, 0, 0]));
+      const [flowMin, flowMax] = [1e-3, 2.5e-3];
+      const band = branchDutyBand(system, 'spray', flowMin, flowMax);
+      const sprayAt = (total: number) => splitOf(system, total).flows[2];
+      expect(sprayAt(band.totalFlowMin)).to.be.closeTo(flowMin, 1e-9 * flowMin);
+      expect(sprayAt(band.totalFlowMax)).to.be.closeTo(flowMax, 1e-9 * flowMax);
+      expect(sprayAt(band.totalFlowMin * 0.99)).to.be.below(flowMin);
+      expect(sprayAt(band.totalFlowMax * 1.01)).to.be.above(flowMax);
+      expect(branchDutyBand(system, 'spray', 0, flowMax).totalFlowMin).to.equal(0);
+      expect(() => branchDutyBand(system, 'spray', flowMax, flowMin))
+        .to.throw(HydraulicsInputError)
+        .with.property('field', '/flowMin');
+    });
+  });
+
+  describe('bad input throws HydraulicsInputError naming the field', () => {
+    const pipe: PipeSegmentInput[] = [{ length: 10, insideDiameter: 0.04, hazenWilliamsC: 140 }];
+    const named = (name: string, segments = pipe): BranchInput => ({ name, staticHead: 1, segments });
+    const base: BranchedSystemInput = {
+      frictionMethod: 'hazen-williams',
+      segments: [],
+      branches: [named('a'), named('b')],
+    };
+    const cases: [string, BranchedSystemInput, string][] = [
+      ['one branch', { ...base, branches: [named('a')] }, '/branches'],
+      ['nine branches', { ...base, branches: Array.from({ length: 9 }, (_, i) => named(`b${i}`)) }, '/branches'],
+      ['a repeated name', { ...base, branches: [named('a'), named('b'), named('a')] }, '/branches/2/name'],
+      ['an empty name', { ...base, branches: [named('a'), named(' ')] }, '/branches/1/name'],
+      ['a branch without segments', { ...base, branches: [named('a'), named('b', [])] }, '/branches/1/segments'],
+      ['a system staticHead', { ...base, staticHead: 2 as never }, '/staticHead'],
+      [
+        'a bad length in a branch',
+        { ...base, branches: [named('a', [{ ...pipe[0], length: -1 }]), named('b')] },
+        '/branches/0/segments/0/length',
+      ],
+      [
+        'a bad level of a branch',
+        { ...base, branches: [named('a'), { ...named('b'), staticHead: Number.NaN }] },
+        '/branches/1/staticHead',
+      ],
+      [
+        'a bad bore in the common run',
+        { ...base, segments: [{ ...pipe[0], insideDiameter: 0 }] },
+        '/segments/0/insideDiameter',
+      ],
+      ['a bad temperature', { ...base, temperature: 60 }, '/temperature'],
+    ];
+    for (const [name, input, field] of cases) {
+      it(`${name} -> ${field}`, () => {
+        expect(() => compileBranchedSystem(input))
+          .to.throw(HydraulicsInputError)
+          .with.property('field', field);
+      });
+    }
+
+    it('a negative total flow -> /flow', () => {
+      expect(() => branchFlowsAt(compileBranchedSystem(base), -1))
+        .to.throw(HydraulicsInputError)
+        .with.property('field', '/flow');
     });
   });
 
