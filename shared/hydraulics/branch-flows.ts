@@ -137,7 +137,9 @@ export function balancingValveK(
   const index = branchIndex(system, branch, '/branch');
   const field = 'flow' in target ? '/flow' : '/share';
   const wanted =
-    'flow' in target ? requirePositive(target.flow, field, 'wanted branch flow') : requirePositive(target.share, field);
+    'flow' in target
+      ? requirePositive(target.flow, field, 'wanted branch flow')
+      : requirePositive(target.share, field, 'wanted share');
   if ('share' in target && wanted >= 1) {
     throw new HydraulicsInputError(field, `a share must be below 1, got ${wanted}`);
   }
