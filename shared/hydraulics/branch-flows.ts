@@ -12,17 +12,6 @@ import { SYSTEM_INPUT_LIMITS } from './system-input';
  * valve that balances it, and the total flows that keep one branch in its duty band. SI: m, m3/s.
  */
 
-/** The numbers a branch issue carries (SI: m). */
-export interface BranchIssueParams {
-  /** The branch's outlet head is above the head at the split: it takes no flow (no back-flow is modelled). */
-  'branch-no-flow': { branch: number; outletHead: number; junctionHead: number };
-}
-
-export type BranchIssue = { code: 'branch-no-flow'; params: BranchIssueParams['branch-no-flow']; pointer: string };
-
-/** An engine issue of a branched system; pointers name the branch (`/branches/1`, `/branches/1/segments/0`). */
-export type BranchedSystemIssue = EngineIssue | BranchIssue;
-
 export interface BranchFlow {
   name: string;
   /** m3/s (>= 0) */
@@ -32,7 +21,7 @@ export interface BranchFlow {
   /** The highest of `velocities`, m/s. */
   maxVelocity: number;
   /** No flow, and every segment above the velocity limit. */
-  issues: BranchedSystemIssue[];
+  issues: EngineIssue[];
 }
 
 export interface BranchSplit {
@@ -44,7 +33,7 @@ export interface BranchSplit {
   /** Velocity in each segment of the common run, m/s. */
   commonVelocities: number[];
   /** The common run's velocity issues, and Hazen-Williams outside its temperatures. */
-  issues: BranchedSystemIssue[];
+  issues: EngineIssue[];
   branches: BranchFlow[];
 }
 
@@ -52,8 +41,11 @@ export interface BranchSplit {
 function branchIndex(system: CompiledBranchedSystem, name: string, field: string): number {
   const index = system.branches.findIndex((branch) => branch.name === name);
   if (index < 0) {
-    const names = system.branches.map((branch) => branch.name).join(', ');
-    throw new HydraulicsInputError(field, `no branch is named '${name}'; the branches are ${names}`);
+    throw new HydraulicsInputError({
+      code: 'unknown-branch',
+      params: { value: name, accepted: system.branches.map((branch) => branch.name) },
+      pointer: field,
+    });
   }
   return index;
 }
@@ -69,6 +61,7 @@ function underBranch(issue: EngineIssue, branch: number): EngineIssue {
  * and the velocity issues of systemBreakdown per segment. TDH = h_common(Q) + H_j.
  * @param system a compiled branched system
  * @param totalFlow Q, m3/s (>= 0)
+ * @returns the split head, TDH, each branch's flow, velocities and issues
  * @example
  * const pipe = (length) => [{ length, insideDiameter: 0.05, hazenWilliamsC: 140 }];
  * const pond = compileBranchedSystem({ frictionMethod: 'hazen-williams', segments: pipe(10), branches: [{ name: 'falls', staticHead: 4, segments: pipe(30) }, { name: 'stream', staticHead: 1, segments: pipe(60) }] });
@@ -93,7 +86,7 @@ export function branchFlowsAt(system: CompiledBranchedSystem, totalFlow: number)
     issues: [...temperatureIssues, ...commonIssues],
     branches: system.branches.map((branch, index): BranchFlow => {
       const velocities = breakdowns[index].segments.map((segment) => segment.velocity);
-      const issues: BranchedSystemIssue[] = breakdowns[index].issues
+      const issues: EngineIssue[] = breakdowns[index].issues
         .filter((issue) => !isTemperature(issue))
         .map((issue) => underBranch(issue, index));
       const outletHead = branch.curve.staticHead;
@@ -127,6 +120,11 @@ export type BranchTarget = { flow: number } | { share: number };
  * @param branch the name of the branch to balance
  * @param target its wanted flow, m3/s, or share of the total flow
  * @returns K, dimensionless (>= 0)
+ * @example
+ * const pipe = (length) => [{ length, insideDiameter: 0.05, hazenWilliamsC: 140 }];
+ * const pond = compileBranchedSystem({ frictionMethod: 'hazen-williams', segments: pipe(10), branches: [{ name: 'falls', staticHead: 4, segments: pipe(30) }, { name: 'stream', staticHead: 1, segments: pipe(60) }] });
+ * const pump = { headCoefficients: [12, 0, -12 / 0.012 ** 2], flowMin: 0, flowMax: 0.012 };
+ * balancingValveK(pond, pump, 'falls', { flow: 0.004 }) // => 55.27
  */
 export function balancingValveK(
   system: CompiledBranchedSystem,
@@ -141,7 +139,11 @@ export function balancingValveK(
       ? requirePositive(target.flow, field, 'wanted branch flow')
       : requirePositive(target.share, field, 'wanted share');
   if ('share' in target && wanted >= 1) {
-    throw new HydraulicsInputError(field, `a share must be below 1, got ${wanted}`);
+    throw new HydraulicsInputError({
+      code: 'out-of-range',
+      params: { what: 'wanted share', value: wanted, min: 0, max: 1 },
+      pointer: field,
+    });
   }
   const flows = new Float64Array(system.branches.length);
   const shortfall = (k: number): number => {
@@ -152,26 +154,34 @@ export function balancingValveK(
     );
     const valved = system.withValves(valves);
     const point = solveOperatingPoint(pump, valved);
-    if (!point.ok) throw new HydraulicsInputError('/pump', `with a valve K of ${k}: ${point.message}`);
+    if (!point.ok) {
+      throw new HydraulicsInputError({
+        code: 'no-operating-point-with-valve',
+        params: { valveK: k },
+        pointer: '/pump',
+      });
+    }
     valved.splitAt(point.flow, flows);
     return ('flow' in target ? flows[index] : flows[index] / point.flow) - wanted;
   };
   const unthrottled = shortfall(0);
   if (unthrottled >= 0) {
     if (unthrottled === 0) return 0;
-    throw new HydraulicsInputError(
-      field,
-      `branch '${branch}' already takes more than that with no valve; throttle it instead`,
-    );
+    throw new HydraulicsInputError({
+      code: 'branch-target-unreachable',
+      params: { branch, valveK: 0 },
+      pointer: field,
+    });
   }
   let low = 0;
   let high = 1;
   while (shortfall(high) < 0) {
     if (high >= SYSTEM_INPUT_LIMITS.maxK) {
-      throw new HydraulicsInputError(
-        field,
-        `branch '${branch}' does not reach that even with K = ${high} on the others`,
-      );
+      throw new HydraulicsInputError({
+        code: 'branch-target-unreachable',
+        params: { branch, valveK: high },
+        pointer: field,
+      });
     }
     low = high;
     high *= 10;
@@ -191,8 +201,11 @@ export interface TotalFlowBand {
  * head at which the branch takes q is H = z + p + h(q) (with any valve), and the total flow there
  * is sum_i q_i(H) (the continuity of compileBranchedSystem). flowMin = 0 gives totalFlowMin = 0 (a
  * dry branch is inside). Throws HydraulicsInputError at `/branch`, `/flowMin` or `/flowMax`.
+ * @param system a compiled branched system (with any valves)
+ * @param branch the name of the branch
  * @param flowMin m3/s (>= 0)
  * @param flowMax m3/s (> 0, >= flowMin)
+ * @returns the total flows, m3/s, between which the branch's flow is in the band
  * @example
  * const pipe = (length) => [{ length, insideDiameter: 0.05, hazenWilliamsC: 140 }];
  * const pond = compileBranchedSystem({ frictionMethod: 'hazen-williams', segments: pipe(10), branches: [{ name: 'falls', staticHead: 4, segments: pipe(30) }, { name: 'stream', staticHead: 1, segments: pipe(60) }] });
@@ -208,7 +221,11 @@ export function branchDutyBand(
   requireNonNegative(flowMin, '/flowMin', 'lowest branch flow');
   requirePositive(flowMax, '/flowMax', 'highest branch flow');
   if (flowMin > flowMax) {
-    throw new HydraulicsInputError('/flowMin', `the lowest branch flow ${flowMin} is above the highest ${flowMax}`);
+    throw new HydraulicsInputError({
+      code: 'out-of-range',
+      params: { what: 'lowest branch flow', value: flowMin, min: 0, max: flowMax },
+      pointer: '/flowMin',
+    });
   }
   const flows = new Float64Array(system.branches.length);
   const curve = system.branches[index].curve;

@@ -79,7 +79,9 @@ function under<T>(prefix: string, compile: () => T): T {
   try {
     return compile();
   } catch (error) {
-    if (error instanceof HydraulicsInputError) throw new HydraulicsInputError(`${prefix}${error.field}`, error.message);
+    if (error instanceof HydraulicsInputError) {
+      throw new HydraulicsInputError({ ...error.issue, pointer: `${prefix}${error.issue.pointer}` });
+    }
     throw error;
   }
 }
@@ -91,22 +93,32 @@ function checkBranches(input: BranchedSystemInput): void {
     branches.length < BRANCH_COUNT_LIMITS.min ||
     branches.length > BRANCH_COUNT_LIMITS.max
   ) {
-    throw new HydraulicsInputError(
-      '/branches',
-      `a branched system needs ${BRANCH_COUNT_LIMITS.min} to ${BRANCH_COUNT_LIMITS.max} branches, got ${Array.isArray(branches) ? branches.length : 'none'}`,
-    );
+    throw new HydraulicsInputError({
+      code: 'out-of-range',
+      params: {
+        what: 'number of branches',
+        value: Array.isArray(branches) ? branches.length : 0,
+        min: BRANCH_COUNT_LIMITS.min,
+        max: BRANCH_COUNT_LIMITS.max,
+      },
+      pointer: '/branches',
+    });
   }
   const seen = new Set<string>();
   branches.forEach((branch, index) => {
     if (typeof branch.name !== 'string' || branch.name.trim() === '') {
-      throw new HydraulicsInputError(`/branches/${index}/name`, 'a branch needs a name');
+      throw new HydraulicsInputError({ code: 'branch-without-name', params: {}, pointer: `/branches/${index}/name` });
     }
     if (seen.has(branch.name)) {
-      throw new HydraulicsInputError(`/branches/${index}/name`, `two branches are named '${branch.name}'`);
+      throw new HydraulicsInputError({
+        code: 'branch-name-repeated',
+        params: { name: branch.name },
+        pointer: `/branches/${index}/name`,
+      });
     }
     seen.add(branch.name);
     if (!Array.isArray(branch.segments) || branch.segments.length === 0) {
-      throw new HydraulicsInputError(`/branches/${index}/segments`, 'a branch needs at least one pipe segment');
+      throw new HydraulicsInputError({ code: 'no-segments', params: {}, pointer: `/branches/${index}/segments` });
     }
   });
 }
@@ -172,6 +184,7 @@ function assemble(
  * Heads in m, flows in m3/s. Throws HydraulicsInputError naming the field (e.g.
  * `/branches/2/name`, `/branches/0/segments/1/length`).
  * @param input common run (may be empty), 2 to 8 branches; no system staticHead
+ * @returns the compiled curve, with the split, its branches and their valves
  * @example
  * const pipe = [{ length: 40, insideDiameter: 0.05, hazenWilliamsC: 140 }];
  * const twin = compileBranchedSystem({ frictionMethod: 'hazen-williams', segments: [], branches: [{ name: 'a', staticHead: 3, segments: pipe }, { name: 'b', staticHead: 3, segments: pipe }] });
@@ -180,21 +193,19 @@ function assemble(
  */
 export function compileBranchedSystem(input: BranchedSystemInput): CompiledBranchedSystem {
   if ((input as { staticHead?: unknown }).staticHead !== undefined) {
-    throw new HydraulicsInputError(
-      '/staticHead',
-      'a branched system states a staticHead per branch, not for the system',
-    );
+    throw new HydraulicsInputError({ code: 'static-head-with-branches', params: {}, pointer: '/staticHead' });
   }
   if (!FRICTION_METHODS.includes(input.frictionMethod)) {
-    throw new HydraulicsInputError(
-      '/frictionMethod',
-      `unknown friction method '${String(input.frictionMethod)}'; valid methods: ${FRICTION_METHODS.join(', ')}`,
-    );
+    throw new HydraulicsInputError({
+      code: 'unknown-friction-method',
+      params: { value: String(input.frictionMethod), accepted: [...FRICTION_METHODS] },
+      pointer: '/frictionMethod',
+    });
   }
   const temperature = input.temperature ?? 20;
   const kinematicViscosity = waterKinematicViscosity(temperature, '/temperature');
   if (!Array.isArray(input.segments)) {
-    throw new HydraulicsInputError('/segments', 'the common run is a list of segments (empty when there is none)');
+    throw new HydraulicsInputError({ code: 'no-segments', params: {}, pointer: '/segments' });
   }
   checkBranches(input);
   const frictionMethod = input.frictionMethod;

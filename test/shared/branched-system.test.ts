@@ -263,7 +263,7 @@ describe('branched system', () => {
     it('the operating point with a stored pump curve is the one python3-fluids finds, and lies on both curves', () => {
       const fit = storedPump(pump.shutOff, pump.runOut);
       const point = solveOperatingPoint(fit, system);
-      if (!point.ok) throw new Error(point.message);
+      if (!point.ok) throw new Error(point.issue.code);
       expect(relative(point.flow, reference.operatingFlow)).to.be.below(1e-7);
       expect(point.head).to.be.closeTo(system.evaluate(point.flow), 1e-9);
       expect(point.head).to.be.closeTo(polynomialValue(fit.headCoefficients, point.flow), 1e-9);
@@ -350,7 +350,7 @@ describe('branched system', () => {
     const pump = storedPump(14, 0.012);
     const flowsAtDuty = (system: CompiledBranchedSystem) => {
       const point = solveOperatingPoint(pump, system);
-      if (!point.ok) throw new Error(point.message);
+      if (!point.ok) throw new Error(point.issue.code);
       return { total: point.flow, ...splitOf(system, point.flow) };
     };
 
