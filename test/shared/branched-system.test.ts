@@ -378,7 +378,9 @@ describe('branched system', () => {
       const unbalanced = flowsAtDuty(system);
       expect(() => balancingValveK(system, pump, 'falls', { flow: 0.5 * unbalanced.flows[0] }))
         .to.throw(HydraulicsInputError)
-        .with.property('field', '/flow');
+        .that.satisfies(
+          (error: HydraulicsInputError) => error.field === '/flow' && error.issue.code === 'branch-target-unreachable',
+        );
       expect(() => balancingValveK(system, pump, 'falls', { share: 1 }))
         .to.throw(HydraulicsInputError)
         .with.property('field', '/share');
@@ -411,35 +413,53 @@ describe('branched system', () => {
       segments: [],
       branches: [named('a'), named('b')],
     };
-    const cases: [string, BranchedSystemInput, string][] = [
-      ['one branch', { ...base, branches: [named('a')] }, '/branches'],
-      ['nine branches', { ...base, branches: Array.from({ length: 9 }, (_, i) => named(`b${i}`)) }, '/branches'],
-      ['a repeated name', { ...base, branches: [named('a'), named('b'), named('a')] }, '/branches/2/name'],
-      ['an empty name', { ...base, branches: [named('a'), named(' ')] }, '/branches/1/name'],
-      ['a branch without segments', { ...base, branches: [named('a'), named('b', [])] }, '/branches/1/segments'],
-      ['a system staticHead', { ...base, staticHead: 2 as never }, '/staticHead'],
+    const cases: [string, BranchedSystemInput, string, string][] = [
+      ['one branch', { ...base, branches: [named('a')] }, '/branches', 'out-of-range'],
+      [
+        'nine branches',
+        { ...base, branches: Array.from({ length: 9 }, (_, i) => named(`b${i}`)) },
+        '/branches',
+        'out-of-range',
+      ],
+      [
+        'a repeated name',
+        { ...base, branches: [named('a'), named('b'), named('a')] },
+        '/branches/2/name',
+        'branch-name-repeated',
+      ],
+      ['an empty name', { ...base, branches: [named('a'), named(' ')] }, '/branches/1/name', 'branch-without-name'],
+      [
+        'a branch without segments',
+        { ...base, branches: [named('a'), named('b', [])] },
+        '/branches/1/segments',
+        'no-segments',
+      ],
+      ['a system staticHead', { ...base, staticHead: 2 as never }, '/staticHead', 'static-head-with-branches'],
       [
         'a bad length in a branch',
         { ...base, branches: [named('a', [{ ...pipe[0], length: -1 }]), named('b')] },
         '/branches/0/segments/0/length',
+        'not-positive',
       ],
       [
         'a bad level of a branch',
         { ...base, branches: [named('a'), { ...named('b'), staticHead: Number.NaN }] },
         '/branches/1/staticHead',
+        'not-finite',
       ],
       [
         'a bad bore in the common run',
         { ...base, segments: [{ ...pipe[0], insideDiameter: 0 }] },
         '/segments/0/insideDiameter',
+        'out-of-range',
       ],
-      ['a bad temperature', { ...base, temperature: 60 }, '/temperature'],
+      ['a bad temperature', { ...base, temperature: 60 }, '/temperature', 'out-of-range'],
     ];
-    for (const [name, input, field] of cases) {
-      it(`${name} -> ${field}`, () => {
+    for (const [name, input, field, code] of cases) {
+      it(`${name} -> ${code} at ${field}`, () => {
         expect(() => compileBranchedSystem(input))
           .to.throw(HydraulicsInputError)
-          .with.property('field', field);
+          .that.satisfies((error: HydraulicsInputError) => error.field === field && error.issue.code === code);
       });
     }
 
