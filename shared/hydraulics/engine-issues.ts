@@ -27,6 +27,8 @@ export interface EngineIssueParams {
   /** A duty point reached by changing speed falls outside the published flows. */
   'duty-before-curve': Record<string, never>;
   'duty-beyond-curve': Record<string, never>;
+  /** A branch whose outlet head (m) is above the head at the split (m) takes no flow: no back-flow is modelled. */
+  'branch-no-flow': { branch: number; outletHead: number; junctionHead: number };
 }
 
 export type EngineIssueCode = keyof EngineIssueParams;
@@ -68,6 +70,13 @@ export interface EngineInputErrorParams {
   'power-below-water-power': { power: number; waterPower: number };
   'npsh-too-few-points': { count: number };
   'flow-outside-curve': { flow: number; flowMin: number; flowMax: number };
+  'branch-without-name': Record<string, never>;
+  'branch-name-repeated': { name: string };
+  'static-head-with-branches': Record<string, never>;
+  'unknown-branch': { value: string; accepted: string[] };
+  /** valveK 0: the branch already takes more with no valve; else not reached with that K on the others. */
+  'branch-target-unreachable': { branch: string; valveK: number };
+  'no-operating-point-with-valve': { valveK: number };
 }
 
 export type EngineInputErrorCode = keyof EngineInputErrorParams;

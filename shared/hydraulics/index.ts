@@ -15,6 +15,8 @@ export * from './bracketed-newton';
 export * from './system-input';
 export * from './system-curve';
 export * from './system-breakdown';
+export * from './branched-system';
+export * from './branch-flows';
 export * from './polynomial';
 export * from './pump-curve-fit';
 export * from './pump-curve-evaluation';

@@ -48,6 +48,8 @@ const ENGINE_ISSUE_TEXT: {
   'arrangement-run-out': () => 'at least one pump would run past the last published point of its curve (run-out)',
   'duty-before-curve': () => 'the duty point maps onto the curve left of its first point',
   'duty-beyond-curve': () => 'the duty point maps onto the curve past its last point',
+  'branch-no-flow': ({ branch, outletHead, junctionHead }, units) =>
+    `branch ${branch} takes no flow: its outlet head ${units.head(outletHead)} is above the head at the split ${units.head(junctionHead)}`,
 };
 
 function degreeName(degree: 2 | 3): string {
@@ -106,6 +108,16 @@ const ENGINE_INPUT_ERROR_TEXT: {
     `power ${units.power(power)} is less than the water power ${units.power(waterPower)} at this point`,
   'flow-outside-curve': ({ flow, flowMin, flowMax }, units) =>
     `flow ${units.flow(flow)} is outside the curve's published range ${units.flow(flowMin)} to ${units.flow(flowMax)}`,
+  'branch-without-name': () => 'a branch needs a name',
+  'branch-name-repeated': ({ name }) => `two branches are named '${name}'`,
+  'static-head-with-branches': () => 'a branched system states a static head per branch, not for the system',
+  'unknown-branch': ({ value, accepted }) => `no branch is named '${value}'; the branches are ${accepted.join(', ')}`,
+  'branch-target-unreachable': ({ branch, valveK }) =>
+    valveK === 0
+      ? `branch '${branch}' already takes more than that with no valve; throttle it instead`
+      : `branch '${branch}' does not reach that even with a valve K of ${valveK} on the other branches`,
+  'no-operating-point-with-valve': ({ valveK }) =>
+    `with a valve K of ${valveK} on the other branches the pump meets the system nowhere on its published curve`,
 };
 
 /** The sentence for one refused input, with values written by `units`. */

@@ -86,6 +86,21 @@ const inputSamples: { [Code in EngineInputErrorCode]: [EngineInputErrorParams[Co
     { flow: 0.05, flowMin: 0, flowMax: 0.04 },
     "flow 0.05 m3/s is outside the curve's published range 0 m3/s to 0.04 m3/s",
   ],
+  'branch-without-name': [{}, 'a branch needs a name'],
+  'branch-name-repeated': [{ name: 'falls' }, "two branches are named 'falls'"],
+  'static-head-with-branches': [{}, 'a branched system states a static head per branch, not for the system'],
+  'unknown-branch': [
+    { value: 'lake', accepted: ['falls', 'stream'] },
+    "no branch is named 'lake'; the branches are falls, stream",
+  ],
+  'branch-target-unreachable': [
+    { branch: 'falls', valveK: 0 },
+    "branch 'falls' already takes more than that with no valve; throttle it instead",
+  ],
+  'no-operating-point-with-valve': [
+    { valveK: 10 },
+    'with a valve K of 10 on the other branches the pump meets the system nowhere on its published curve',
+  ],
 };
 
 const issueSamples: { [Code in EngineIssueCode]: [EngineIssueParams[Code], string] } = {
@@ -116,6 +131,10 @@ const issueSamples: { [Code in EngineIssueCode]: [EngineIssueParams[Code], strin
   'arrangement-run-out': [{}, 'at least one pump would run past the last published point of its curve (run-out)'],
   'duty-before-curve': [{}, 'the duty point maps onto the curve left of its first point'],
   'duty-beyond-curve': [{}, 'the duty point maps onto the curve past its last point'],
+  'branch-no-flow': [
+    { branch: 1, outletHead: 4, junctionHead: 3.5 },
+    'branch 1 takes no flow: its outlet head 4.00 m is above the head at the split 3.50 m',
+  ],
 };
 
 describe('engine refusals and issues as codes', () => {
