@@ -97,12 +97,11 @@ function undecodable(read: ReadCurveTable, problem: UndecodableBytes): ReadCurve
     ...read,
     pumps: [],
     errors: [
-      issue(
-        problem.line,
-        null,
-        `the file cannot be read as text: ${problem.reason} (byte ${problem.byte})`,
-        acceptedEncodings,
-      ),
+      issue(problem.line, null, 'not-text', {
+        reason: problem.reason,
+        byte: problem.byte,
+        accepted: acceptedEncodings,
+      }),
     ],
     errorsOmitted: 0,
     warnings: [],

@@ -93,6 +93,11 @@ export const IMPORT_ISSUE_TEXT: { [Code in ImportIssueCode]: Sentence<Code> } = 
     message: `the file has more than ${maxRows.toLocaleString('en')} curve-point rows`,
     expected: `at most ${maxRows.toLocaleString('en')} rows; split the file`,
   }),
+  'recorded-as-text': ({ message, expected }) => ({ message, ...(expected ? { expected } : {}) }),
+  'not-text': ({ reason, byte, accepted }) => ({
+    message: `the file cannot be read as text: ${reason} (byte ${byte})`,
+    expected: accepted,
+  }),
   'not-csv': ({ problem }) => ({
     message: `the file is not valid CSV here: ${problem}`,
     expected: 'quotes that open and close around a field, and records shorter than 64 KiB',

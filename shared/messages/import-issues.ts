@@ -37,6 +37,10 @@ export interface ImportIssueParams {
   'no-points': Record<string, never>;
   'file-too-large': { maxBytes: number };
   'too-many-rows': { maxRows: number };
+  /** An issue stored before issues carried codes: its sentence as it was recorded. */
+  'recorded-as-text': { message: string; expected?: string };
+  /** Bytes that are not text in any accepted encoding (UTF-8, or UTF-16 with a byte-order mark). */
+  'not-text': { reason: string; byte: number; accepted: string };
   'not-csv': { problem: string };
   'cell-beyond-header': { value: string; headerColumns: number };
   'model-code-blank': Record<string, never>;

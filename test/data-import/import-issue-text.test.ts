@@ -121,6 +121,18 @@ const samples: { [Code in ImportIssueCode]: Sample<Code> } = {
     message: 'the file has more than 200,000 curve-point rows',
     expected: 'at most 200,000 rows; split the file',
   },
+  'recorded-as-text': {
+    column: 'head',
+    params: { message: 'head rises from row 4', expected: 'a falling curve' },
+    message: 'head rises from row 4',
+    expected: 'a falling curve',
+  },
+  'not-text': {
+    column: null,
+    params: { reason: 'a byte that starts no UTF-8 character', byte: 233, accepted: 'UTF-8' },
+    message: 'the file cannot be read as text: a byte that starts no UTF-8 character (byte 233)',
+    expected: 'UTF-8',
+  },
   'not-csv': {
     column: null,
     params: { problem: 'a quoted field is never closed' },

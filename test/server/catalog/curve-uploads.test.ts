@@ -11,7 +11,7 @@ import type { CurveImportReport } from '../../../shared/api/api-schemas';
 import { createApp } from '../../../server/app';
 import { Supplier } from '../../../server/database/models';
 import { createLogger } from '../../../server/logging';
-import { createUserWithSession } from '../../support/accounts';
+import { createUserWithSession, testPassword } from '../../support/accounts';
 import { createScratchDatabase } from '../../support/test-database';
 import { catalogRowCounts } from '../../data-import/catalog-fixtures';
 import { largeCurveTable } from '../../data-import/large-curve-table';
@@ -214,7 +214,7 @@ describe('curve-table uploads', function () {
   });
 
   it('reads JSON bodies in UTF-8 (with a byte-order mark too) and UTF-16, and answers 415 for other charsets', async () => {
-    const json = JSON.stringify({ name: 'Café sheet ✓', scopes: ['catalog:read'] });
+    const json = JSON.stringify({ name: 'Café sheet ✓', scopes: ['catalog:read'], password: testPassword });
     /** Raw bytes as the body: supertest would serialise a Buffer as JSON. */
     const post = async (contentType: string, body: Buffer) => {
       const sent = httpRequest({
