@@ -634,17 +634,46 @@ export interface components {
             /** @description Extra resistance coefficient (filter module, manifold, nozzle), dimensionless. */
             minorLossK?: number;
         };
-        /** @description The pipework from the intake water surface to the outlet, segments in series. */
+        /**
+         * @description The pipework from the intake water surface to the outlet, segments in series. A branched
+         *     system has `branches` (2 to 8): `segments` is then the common run from the pump to the split
+         *     (may be empty) and each branch states its own outlet level and pressure head, so the system
+         *     has no `staticHead` or `outletPressureHead` of its own. Without `branches`, `staticHead` and
+         *     at least one segment are required.
+         */
         PipeSystem: {
-            /** @description Discharge level (or outlet) above the intake water surface, in head units. */
-            staticHead: number;
-            /** @description Pressure head wanted at the outlet (nozzle, pressurised filter), in head units; default 0. */
+            /** @description Discharge level (or outlet) above the intake water surface, in head units. Not with branches. */
+            staticHead?: number;
+            /** @description Pressure head wanted at the outlet (nozzle, pressurised filter), in head units; default 0. Not with branches. */
             outletPressureHead?: number;
             /** @enum {string} */
             frictionMethod: "hazen-williams" | "darcy-weisbach";
             /** @description Water temperature in C; default 20. */
             waterTemperatureC?: number;
+            /** @description The whole route; with branches, the common run from the pump to the split (may be empty). */
             segments: components["schemas"]["PipeSegment"][];
+            /** @description The branches after the split, each to its own outlet; names unique. */
+            branches?: components["schemas"]["PipeBranch"][];
+        };
+        /** @description One branch of a branched system, from the split to its outlet, segments in series. */
+        PipeBranch: {
+            /** @description Unique in its system, e.g. falls. */
+            name: string;
+            /** @description Outlet level above the intake water surface, in head units (negative: below it). */
+            staticHead: number;
+            /** @description Pressure head wanted at the outlet, in head units; default 0. */
+            outletPressureHead?: number;
+            segments: components["schemas"]["PipeSegment"][];
+        };
+        /** @description What one branch takes at a total flow, in the request's units. A branch whose outlet is above the head at the split takes no flow (no back-flow) and says so in `warnings`. */
+        BranchFlow: {
+            name: string;
+            flow: number;
+            /** @description The highest mean velocity in its segments, length units per second. */
+            velocity: number;
+            /** @description Mean velocity in each of its segments, length units per second. */
+            velocities: number[];
+            warnings: string[];
         };
         SystemCurveRequest: {
             units: components["schemas"]["CalculationUnits"];
@@ -659,8 +688,12 @@ export interface components {
             outletPressureHead: number;
             frictionHead: number;
             minorHead: number;
-            /** @description Mean velocity in each segment, length units per second. */
+            /** @description Mean velocity in each segment (with branches, of the common run), length units per second. */
             velocities: number[];
+            /** @description Branched systems: the head at the split; head = frictionHead + minorHead (of the common run) + junctionHead. staticHead and outletPressureHead are then the lowest outlet's. */
+            junctionHead?: number;
+            /** @description Branched systems only, in the order of system.branches. */
+            branches?: components["schemas"]["BranchFlow"][];
         };
         SystemCurveResponse: {
             units: components["schemas"]["CalculationUnits"];
@@ -702,6 +735,25 @@ export interface components {
             pump: components["schemas"]["InlinePump"] | components["schemas"]["CatalogPump"];
             arrangement?: components["schemas"]["PumpArrangement"];
             preferredBand?: components["schemas"]["PreferredBand"];
+            balance?: components["schemas"]["BalanceTarget"];
+        };
+        /** @description Branched systems: the flow one branch should take at the operating point; the answer gives the valve that sets it (`balancing`). */
+        BalanceTarget: {
+            /** @description A name from system.branches. */
+            branch: string;
+            /** @description In flow units. */
+            flow: number;
+        };
+        /** @description The throttling valve that gives the named branch its wanted flow: the same loss coefficient K on each of the other branches, referred to the velocity in its last segment (extra head K V^2/2g). */
+        Balancing: {
+            branch: string;
+            /** @description The wanted flow, in flow units. */
+            flow: number;
+            /** @description Loss coefficient to add on each branch of valvesOn */
+            valveK: number;
+            /** @description The branches that get the valve. */
+            valvesOn: string[];
+            caution: string;
         };
         /**
          * @description preferred: inside the POR; allowable: inside the maker's AOR; outside; unknown-bep: the curve has no efficiency data.
@@ -720,6 +772,8 @@ export interface components {
             efficiency: number | null;
             /** @description Input power of all running pumps, in power units. */
             inputPower: number | null;
+            /** @description Branched systems only, in the order of system.branches. */
+            branches?: components["schemas"]["BranchFlow"][];
         };
         /** @description The fitted curve of one pump, in the request's units. */
         CurveFitSummary: {
@@ -746,6 +800,7 @@ export interface components {
             /** @description With two or more pumps all running: the point with one of them off (null otherwise, or when the rest run past their curve). */
             oneFailed: components["schemas"]["OperatingPoint"] | null;
             fit: components["schemas"]["CurveFitSummary"];
+            balancing?: components["schemas"]["Balancing"];
             warnings: string[];
         };
         PipeSizesResponse: {
@@ -783,10 +838,12 @@ export interface components {
                 source: string;
             }[];
         };
-        /** @description The flow the planned filtration needs, from its minimum to its maximum, in flow units. */
+        /** @description The flow the planned filtration needs, from its minimum to its maximum, in flow units: of the total, or with `branch` of that branch of a branched system. */
         DutyBand: {
             flowMin: number;
             flowMax: number;
+            /** @description A name from system.branches: the band is that branch's flow, whatever the others take. */
+            branch?: string;
         };
         SelectionFilters: {
             supplierIds?: number[];
@@ -854,6 +911,11 @@ export interface components {
         SelectionResponse: {
             units: components["schemas"]["CalculationUnits"];
             duty: components["schemas"]["DutyBand"];
+            /** @description With duty.branch: the total flows between which that branch's flow stays in the band, in flow units; the search ranks on these. */
+            totalFlowBand?: {
+                flowMin: number;
+                flowMax: number;
+            };
             /** @description Pump and arrangement pairs examined. */
             considered: number;
             /** @description Pairs whose operating point lies in the duty band. */
