@@ -749,7 +749,7 @@ export interface components {
             branch: string;
             /** @description The wanted flow, in flow units. */
             flow: number;
-            /** @description Loss coefficient to add on each branch of valvesOn */
+            /** @description Loss coefficient to add on each branch of valvesOn, dimensionless. */
             valveK: number;
             /** @description The branches that get the valve. */
             valvesOn: string[];
@@ -2348,37 +2348,6 @@ export interface operations {
         };
         requestBody: {
             content: {
-                /**
-                 * @example {
-                 *       "units": {
-                 *         "flow": "gpm",
-                 *         "head": "ft",
-                 *         "length": "ft",
-                 *         "diameter": "in"
-                 *       },
-                 *       "system": {
-                 *         "staticHead": 14.5,
-                 *         "outletPressureHead": 0,
-                 *         "frictionMethod": "hazen-williams",
-                 *         "waterTemperatureC": 20,
-                 *         "segments": [
-                 *           {
-                 *             "length": 240,
-                 *             "insideDiameter": 3,
-                 *             "hazenWilliamsC": 150,
-                 *             "fittings": [],
-                 *             "minorLossK": 0
-                 *           }
-                 *         ]
-                 *       },
-                 *       "flows": [
-                 *         0,
-                 *         50,
-                 *         100,
-                 *         150
-                 *       ]
-                 *     }
-                 */
                 "application/json": components["schemas"]["SystemCurveRequest"];
             };
         };
@@ -2389,65 +2358,6 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    /**
-                     * @example {
-                     *       "units": {
-                     *         "flow": "gpm",
-                     *         "head": "ft",
-                     *         "length": "ft",
-                     *         "diameter": "in"
-                     *       },
-                     *       "points": [
-                     *         {
-                     *           "flow": 0,
-                     *           "head": 14.5,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 0,
-                     *           "minorHead": 0,
-                     *           "velocities": [
-                     *             0
-                     *           ]
-                     *         },
-                     *         {
-                     *           "flow": 50,
-                     *           "head": 16.05,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 1.55,
-                     *           "minorHead": 0,
-                     *           "velocities": [
-                     *             2.27
-                     *           ]
-                     *         },
-                     *         {
-                     *           "flow": 100,
-                     *           "head": 20.11,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 5.61,
-                     *           "minorHead": 0,
-                     *           "velocities": [
-                     *             4.54
-                     *           ]
-                     *         },
-                     *         {
-                     *           "flow": 150,
-                     *           "head": 26.39,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 11.89,
-                     *           "minorHead": 0,
-                     *           "velocities": [
-                     *             6.81
-                     *           ]
-                     *         }
-                     *       ],
-                     *       "warnings": [
-                     *         "at 150 gpm segment 0: velocity 6.81 ft/s exceeds 5 ft/s, the common-practice limit for plastic pipe"
-                     *       ]
-                     *     }
-                     */
                     "application/json": components["schemas"]["SystemCurveResponse"];
                 };
             };
@@ -2464,61 +2374,6 @@ export interface operations {
         };
         requestBody: {
             content: {
-                /**
-                 * @example {
-                 *       "units": {
-                 *         "flow": "gpm",
-                 *         "head": "ft",
-                 *         "length": "ft",
-                 *         "diameter": "in",
-                 *         "power": "kW"
-                 *       },
-                 *       "system": {
-                 *         "staticHead": 14.5,
-                 *         "frictionMethod": "hazen-williams",
-                 *         "segments": [
-                 *           {
-                 *             "length": 240,
-                 *             "insideDiameter": 3,
-                 *             "hazenWilliamsC": 150
-                 *           }
-                 *         ]
-                 *       },
-                 *       "pump": {
-                 *         "curve": [
-                 *           {
-                 *             "flow": 0,
-                 *             "head": 40,
-                 *             "efficiency": 0
-                 *           },
-                 *           {
-                 *             "flow": 40,
-                 *             "head": 37.5,
-                 *             "efficiency": 42
-                 *           },
-                 *           {
-                 *             "flow": 80,
-                 *             "head": 32.5,
-                 *             "efficiency": 60
-                 *           },
-                 *           {
-                 *             "flow": 120,
-                 *             "head": 25,
-                 *             "efficiency": 63
-                 *           },
-                 *           {
-                 *             "flow": 160,
-                 *             "head": 15,
-                 *             "efficiency": 50
-                 *           }
-                 *         ]
-                 *       },
-                 *       "arrangement": {
-                 *         "installed": 1,
-                 *         "running": 1
-                 *       }
-                 *     }
-                 */
                 "application/json": components["schemas"]["OperatingPointRequest"];
             };
         };
@@ -2529,48 +2384,6 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    /**
-                     * @example {
-                     *       "units": {
-                     *         "flow": "gpm",
-                     *         "head": "ft",
-                     *         "length": "ft",
-                     *         "diameter": "in",
-                     *         "power": "kW"
-                     *       },
-                     *       "operatingPoint": {
-                     *         "flow": 127.54,
-                     *         "head": 23.31,
-                     *         "flowPerPump": 127.54,
-                     *         "percentOfBep": 123.2,
-                     *         "region": "outside",
-                     *         "efficiency": 61.04,
-                     *         "inputPower": 0.917
-                     *       },
-                     *       "oneFailed": null,
-                     *       "fit": {
-                     *         "degree": 3,
-                     *         "shutOffHead": 40,
-                     *         "flowMin": 0,
-                     *         "flowMax": 160,
-                     *         "bep": {
-                     *           "flow": 103.52,
-                     *           "head": 28.39,
-                     *           "efficiency": 63.69
-                     *         },
-                     *         "preferredRegion": {
-                     *           "flowMin": 72.47,
-                     *           "flowMax": 124.23
-                     *         },
-                     *         "rmsHead": 0,
-                     *         "warnings": []
-                     *       },
-                     *       "warnings": [
-                     *         "at 127.54 gpm segment 0: velocity 5.79 ft/s exceeds 5 ft/s, the common-practice limit for plastic pipe",
-                     *         "outside the preferred operating region: expect shorter bearing and seal life"
-                     *       ]
-                     *     }
-                     */
                     "application/json": components["schemas"]["OperatingPointResponse"];
                 };
             };
@@ -2686,54 +2499,6 @@ export interface operations {
         };
         requestBody: {
             content: {
-                /**
-                 * @example {
-                 *       "units": {
-                 *         "flow": "gpm",
-                 *         "head": "ft",
-                 *         "length": "ft",
-                 *         "diameter": "in",
-                 *         "power": "kW"
-                 *       },
-                 *       "system": {
-                 *         "staticHead": 14.5,
-                 *         "frictionMethod": "hazen-williams",
-                 *         "segments": [
-                 *           {
-                 *             "length": 240,
-                 *             "pipe": "pvc-sch40-3",
-                 *             "fittings": [
-                 *               {
-                 *                 "kind": "elbow-90-standard",
-                 *                 "count": 4
-                 *               },
-                 *               {
-                 *                 "kind": "exit",
-                 *                 "count": 1
-                 *               }
-                 *             ]
-                 *           }
-                 *         ]
-                 *       },
-                 *       "duty": {
-                 *         "flowMin": 90,
-                 *         "flowMax": 130
-                 *       },
-                 *       "arrangements": [
-                 *         1,
-                 *         2
-                 *       ],
-                 *       "requireOneFailed": true,
-                 *       "filters": {
-                 *         "maxInputPowerPerPump": 1.5
-                 *       },
-                 *       "energy": {
-                 *         "hoursPerDay": 24,
-                 *         "tariffPerKWh": 0.18
-                 *       },
-                 *       "limit": 10
-                 *     }
-                 */
                 "application/json": components["schemas"]["SelectionRequest"];
             };
         };
@@ -2744,88 +2509,6 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    /**
-                     * @example {
-                     *       "units": {
-                     *         "flow": "gpm",
-                     *         "head": "ft",
-                     *         "length": "ft",
-                     *         "diameter": "in",
-                     *         "power": "kW"
-                     *       },
-                     *       "duty": {
-                     *         "flowMin": 90,
-                     *         "flowMax": 130
-                     *       },
-                     *       "considered": 2,
-                     *       "inBand": 1,
-                     *       "candidates": [
-                     *         {
-                     *           "rank": 1,
-                     *           "pumpId": 12,
-                     *           "supplier": "Alderbrook Demo Pumps",
-                     *           "model": "Demo cascade 60",
-                     *           "modelCode": "AD-C60",
-                     *           "arrangement": {
-                     *             "installed": 2,
-                     *             "running": 2
-                     *           },
-                     *           "operatingPoint": {
-                     *             "flow": 118.2,
-                     *             "head": 24.1,
-                     *             "flowPerPump": 59.1,
-                     *             "percentOfBep": 98.5,
-                     *             "region": "preferred",
-                     *             "efficiency": 58.2,
-                     *             "inputPower": 0.93
-                     *           },
-                     *           "oneFailed": {
-                     *             "flow": 93.4,
-                     *             "head": 20.6,
-                     *             "flowPerPump": 93.4,
-                     *             "percentOfBep": 155.7,
-                     *             "region": "outside",
-                     *             "efficiency": 44.1,
-                     *             "inputPower": 0.81
-                     *           },
-                     *           "inBand": true,
-                     *           "oneFailedMeetsMinimum": true,
-                     *           "region": "preferred",
-                     *           "annualKWh": 8147,
-                     *           "annualCost": 1466.5,
-                     *           "warnings": [],
-                     *           "reasons": [
-                     *             "in the duty band",
-                     *             "in the preferred operating region (98 % of BEP)",
-                     *             "one failed: 93.4 gpm, still at or above the band minimum"
-                     *           ],
-                     *           "curve": [
-                     *             {
-                     *               "flow": 0,
-                     *               "head": 36
-                     *             },
-                     *             {
-                     *               "flow": 60,
-                     *               "head": 32.9
-                     *             },
-                     *             {
-                     *               "flow": 120,
-                     *               "head": 23.9
-                     *             },
-                     *             {
-                     *               "flow": 180,
-                     *               "head": 9
-                     *             }
-                     *           ],
-                     *           "preferredRange": {
-                     *             "flowMin": 84,
-                     *             "flowMax": 144
-                     *           }
-                     *         }
-                     *       ],
-                     *       "warnings": []
-                     *     }
-                     */
                     "application/json": components["schemas"]["SelectionResponse"];
                 };
             };

@@ -1,5 +1,7 @@
 import { expect } from 'chai';
+import type { OpenAPIV3_1 } from 'openapi-types';
 import request from 'supertest';
+import { openApiDocument } from '../../../server/api/openapi-document';
 import { createApp } from '../../../server/app';
 import { fitInlinePump } from '../../../server/calculations/pump-request';
 import { createLogger } from '../../../server/logging';
@@ -197,6 +199,39 @@ describe('branched systems through the calculations API', function () {
     }).expect(422);
     expect(single.body.errors[0].pointer).to.equal('/body/balance/branch');
   });
+
+  /** The contract's example named `branched` of an operation's request, or of its 200 answer. */
+  function branchedExample(path: string, side: 'request' | 'response'): Record<string, unknown> {
+    const definition = (openApiDocument.paths?.[path] as OpenAPIV3_1.PathItemObject).post!;
+    const content =
+      side === 'request'
+        ? (definition.requestBody as OpenAPIV3_1.RequestBodyObject).content
+        : (definition.responses?.['200'] as OpenAPIV3_1.ResponseObject).content!;
+    return (content['application/json'].examples?.branched as OpenAPIV3_1.ExampleObject).value as Record<
+      string,
+      unknown
+    >;
+  }
+
+  /** Every number of `actual` within 0.006 of the example's two-decimal figure, every text the same. */
+  function expectLikeExample(actual: unknown, example: unknown, where = ''): void {
+    if (typeof example === 'number') expect(actual, where).to.be.closeTo(example, 0.006);
+    else if (Array.isArray(example)) {
+      expect(actual, where).to.be.an('array').with.length(example.length);
+      example.forEach((item, index) => expectLikeExample((actual as unknown[])[index], item, `${where}/${index}`));
+    } else if (example !== null && typeof example === 'object') {
+      expect(Object.keys(actual as object), where).to.have.members(Object.keys(example));
+      for (const [key, value] of Object.entries(example))
+        expectLikeExample((actual as Record<string, unknown>)[key], value, `${where}/${key}`);
+    } else expect(actual, where).to.equal(example);
+  }
+
+  for (const path of ['/calculations/system-curve', '/calculations/operating-point']) {
+    it(`answers the contract's branched example of ${path} as the example shows`, async () => {
+      const response = await post(path, branchedExample(path, 'request')).expect(200);
+      expectLikeExample(response.body, branchedExample(path, 'response'));
+    });
+  }
 
   const withBranches = (branches: unknown) => ({ ...pondSystem, branches });
   const badSystems: Array<[string, unknown, number, string]> = [
