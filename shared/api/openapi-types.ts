@@ -310,7 +310,10 @@ export interface paths {
          *     friction (Hazen-Williams or Darcy-Weisbach with Colebrook) and fitting losses
          *     (Crane TP-410 K values), with the velocity in each segment. Numbers in and out are in
          *     the request's `units`. A velocity above 5 ft/s (1.52 m/s), the common-practice limit
-         *     for plastic pipe, is reported in `warnings`.
+         *     for plastic pipe, is reported in `warnings`. For a branched system each point gives the
+         *     head at the split and each branch's flow (`branches`): the branch flows are those for
+         *     which every outlet level plus its losses equals the head at the split and they add up to
+         *     the total; a branch whose outlet is above that head takes no flow and says so.
          */
         post: operations["calculateSystemCurve"];
         delete?: never;
@@ -337,6 +340,9 @@ export interface paths {
          *     `oneFailed` gives the point with one of them off. The preferred operating region is
          *     70-120 % of BEP flow by default (ANSI/HI 9.6.3), configurable with `preferredBand`.
          *     No intersection on the published curve is a 422 problem whose `reason` says why.
+         *     For a branched system `operatingPoint.branches` gives each branch's flow; with `balance`,
+         *     `balancing` gives the valve K on the other branches that gives the named branch its
+         *     flow (a 422 at `/body/balance/flow` when throttling the others cannot).
          */
         post: operations["calculateOperatingPoint"];
         delete?: never;
@@ -406,8 +412,10 @@ export interface paths {
          *     in band but outside the preferred region or failing the one-failed check, then outside
          *     the band; within each group by annual energy. `reasons` says why each candidate sits
          *     where it does. `curve` samples the combined curve and `preferredRange` its preferred
-         *     region, in total flow, for drawing. Results are design estimates: verify them against
-         *     the maker's data.
+         *     region, in total flow, for drawing. On a branched system, `duty.branch` makes the band
+         *     that branch's flow: the search ranks on the total flows that keep it there
+         *     (`totalFlowBand`), and each operating point gives every branch's flow. Results are
+         *     design estimates: verify them against the maker's data.
          */
         post: operations["searchSelections"];
         delete?: never;
