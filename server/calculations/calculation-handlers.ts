@@ -23,11 +23,14 @@ import {
   SI_PLAUSIBLE_UNITS,
   systemBreakdown,
   VELOCITY_WARNING_LIMIT,
+  branchFlowsAt,
+  type CompiledBranchedSystem,
   type CompiledSystemCurve,
   type NoOperatingPointReason,
 } from '../../shared/hydraulics';
 import { engineInputErrorText, engineIssueText } from '../../shared/messages/engine-issue-text';
 import { ProblemError } from '../api/problem-details';
+import { balancingAnswer, branchedCurvePoint, branchFlowSummaries } from './branch-answers';
 import { dutyOfParallelPumps, type DutyPoint, type PumpOnFile } from './arrangement-duty';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
 import { fitInlinePump, preferredBandOf, summarizeFit } from './pump-request';
@@ -39,8 +42,12 @@ export interface CurrentPumpCurves {
   findPump(pumpId: number): Promise<PumpOnFile | undefined>;
 }
 
-/** A duty point as the answer shows it, in the request's units. */
-export function operatingPointSummary(point: DutyPoint, units: CalculationUnits): OperatingPointSummary {
+/** A duty point as the answer shows it, in the request's units; on a branched system, with each branch's flow. */
+export function operatingPointSummary(
+  point: DutyPoint,
+  units: CalculationUnits,
+  branched: CompiledBranchedSystem | null = null,
+): OperatingPointSummary {
   const to = answerUnits(units);
   return {
     flow: to.flow(point.flow),
@@ -50,6 +57,7 @@ export function operatingPointSummary(point: DutyPoint, units: CalculationUnits)
     region: point.region,
     efficiency: point.efficiency === null ? null : point.efficiency * 100,
     inputPower: point.inputPower === null ? null : to.power(point.inputPower),
+    ...(branched === null ? {} : { branches: branchFlowSummaries(branchFlowsAt(branched, point.flow), units) }),
   };
 }
 
@@ -89,12 +97,16 @@ export function createCalculationHandlers(
   return {
     calculateSystemCurve: (request, response) => {
       const body = request.body as SystemCurveRequest;
-      const { curve } = prepareSystem(body.units, body.system);
+      const { curve, branched } = prepareSystem(body.units, body.system);
       const to = answerUnits(body.units);
       const warnings = new Set<string>();
       const points = body.flows.map((flowInUnits, index) => {
         const flow = flowToSI(flowInUnits, body.units.flow);
         requirePlausibleFlow(flow, `/body/flows/${index}`, body.units);
+        if (branched !== null) {
+          for (const warning of velocityWarnings(curve, flow, body.units)) warnings.add(warning);
+          return branchedCurvePoint(branched, flowInUnits, flow, body.units, warnings);
+        }
         const breakdown = systemBreakdown(curve, flow);
         for (const issue of breakdown.issues)
           if (issue.code !== 'segment-velocity') warnings.add(engineIssueText(issue));
@@ -117,7 +129,7 @@ export function createCalculationHandlers(
 
     calculateOperatingPoint: async (request, response) => {
       const body = request.body as OperatingPointRequest;
-      const { curve, density } = prepareSystem(body.units, body.system);
+      const { curve, branched, density } = prepareSystem(body.units, body.system);
       const band = preferredBandOf(body.preferredBand);
       let pump: PumpOnFile;
       if ('pumpId' in body.pump) {
@@ -164,9 +176,12 @@ export function createCalculationHandlers(
       if (oneFailed && !oneFailed.ok) warnings.push(`with one pump failed: ${noPointTitles[oneFailed.reason]}`);
       const answer: OperatingPointResponse = {
         units: echoedUnits(body.units),
-        operatingPoint: operatingPointSummary(duty.point, body.units),
-        oneFailed: oneFailed?.ok ? operatingPointSummary(oneFailed.point, body.units) : null,
+        operatingPoint: operatingPointSummary(duty.point, body.units, branched),
+        oneFailed: oneFailed?.ok ? operatingPointSummary(oneFailed.point, body.units, branched) : null,
         fit: summarizeFit(pump.fit, body.units, preferredFlowRegion(pump.fit, band, pump.declaredPreferred)),
+        ...(body.balance === undefined
+          ? {}
+          : { balancing: balancingAnswer(branched, pump.fit, running, body.balance, body.units) }),
         warnings,
       };
       response.json(answer);

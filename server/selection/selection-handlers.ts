@@ -1,10 +1,11 @@
 import type { RequestHandler } from 'express';
 import type { SelectionCandidate, SelectionRequest, SelectionResponse } from '../../shared/api/api-schemas';
-import { flowToSI, powerToSI } from '../../shared/hydraulics';
+import { flowToSI, powerToSI, type CompiledBranchedSystem } from '../../shared/hydraulics';
+import { branchTotalFlowBand } from '../calculations/branch-answers';
 import { operatingPointSummary } from '../calculations/calculation-handlers';
 import { unprocessable } from '../calculations/engine-problem';
 import { preferredBandOf } from '../calculations/pump-request';
-import { answerUnits, echoedUnits, powerUnitOf } from '../calculations/request-units';
+import { answerUnits, echoedUnits, powerUnitOf, type AnswerUnits } from '../calculations/request-units';
 import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
 import type { CatalogPump, CatalogSnapshot } from '../catalog/catalog-snapshot';
 import type { RankedCandidate, SelectionQuery } from './selection-query';
@@ -25,7 +26,12 @@ function pumpFilter(filters: SelectionRequest['filters']): (pump: CatalogPump) =
     (!text || pump.model.toLowerCase().includes(text) || pump.modelCode.toLowerCase().includes(text));
 }
 
-function candidateAnswer(candidate: RankedCandidate, rank: number, body: SelectionRequest): SelectionCandidate {
+function candidateAnswer(
+  candidate: RankedCandidate,
+  rank: number,
+  body: SelectionRequest,
+  branched: CompiledBranchedSystem | null,
+): SelectionCandidate {
   const to = answerUnits(body.units);
   return {
     rank,
@@ -34,8 +40,8 @@ function candidateAnswer(candidate: RankedCandidate, rank: number, body: Selecti
     model: candidate.pump.model,
     modelCode: candidate.pump.modelCode,
     arrangement: { installed: candidate.running + (body.standby ? 1 : 0), running: candidate.running },
-    operatingPoint: operatingPointSummary(candidate.point, body.units),
-    oneFailed: candidate.oneFailed ? operatingPointSummary(candidate.oneFailed, body.units) : null,
+    operatingPoint: operatingPointSummary(candidate.point, body.units, branched),
+    oneFailed: candidate.oneFailed ? operatingPointSummary(candidate.oneFailed, body.units, branched) : null,
     inBand: candidate.inBand,
     oneFailedMeetsMinimum: candidate.oneFailedMeetsMinimum,
     region: candidate.point.region,
@@ -53,9 +59,11 @@ function candidateAnswer(candidate: RankedCandidate, rank: number, body: Selecti
   };
 }
 
-/** The search's input in SI, every problem a 4xx pointing at the field. */
-function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnings: string[] } {
-  const { curve, density } = prepareSystem(body.units, body.system);
+/** The duty band as total flow (SI): the band itself, or with duty.branch the totals that keep that branch in it. */
+function totalDutyBand(
+  body: SelectionRequest,
+  branched: CompiledBranchedSystem | null,
+): { flowMin: number; flowMax: number } {
   const flowMin = flowToSI(body.duty.flowMin, body.units.flow);
   const flowMax = flowToSI(body.duty.flowMax, body.units.flow);
   requirePlausibleFlow(flowMin, '/body/duty/flowMin', body.units);
@@ -65,6 +73,23 @@ function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnin
       '/body/duty/flowMax',
       `must not be less than flowMin (${body.duty.flowMin} ${body.units.flow})`,
     );
+  if (body.duty.branch === undefined) return { flowMin, flowMax };
+  return branchTotalFlowBand(branched, body.duty.branch, flowMin, flowMax, body.units);
+}
+
+/** The band the search ranks on, in the request's units, when the duty names a branch. */
+function totalFlowBandAnswer(band: { flowMin: number; flowMax: number }, to: AnswerUnits) {
+  return { flowMin: to.flow(band.flowMin), flowMax: to.flow(band.flowMax) };
+}
+
+/** The search's input in SI, every problem a 4xx pointing at the field. */
+function selectionQuery(body: SelectionRequest): {
+  query: SelectionQuery;
+  branched: CompiledBranchedSystem | null;
+  warnings: string[];
+} {
+  const { curve, branched, density } = prepareSystem(body.units, body.system);
+  const { flowMin, flowMax } = totalDutyBand(body, branched);
   const maxPower = body.filters?.maxInputPowerPerPump;
   const warnings: string[] = [];
   if (body.energy?.tariffPerKWh === undefined) warnings.push('no tariff given: annual cost is left out');
@@ -86,6 +111,7 @@ function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnin
       accepts: pumpFilter(body.filters),
       limit: body.limit ?? defaultLimit,
     },
+    branched,
     warnings,
   };
 }
@@ -94,16 +120,19 @@ export function createSelectionHandlers(catalog: CatalogSnapshot): Record<'searc
   return {
     searchSelections: async (request, response) => {
       const body = request.body as SelectionRequest;
-      const { query, warnings } = selectionQuery(body);
+      const { query, branched, warnings } = selectionQuery(body);
       const outcome = searchCatalog(await catalog.current(), query);
       if (outcome.candidates.length === 0)
         warnings.push('no catalog pump meets this system in the arrangements asked for');
       const answer: SelectionResponse = {
         units: echoedUnits(body.units),
         duty: body.duty,
+        ...(body.duty.branch === undefined
+          ? {}
+          : { totalFlowBand: totalFlowBandAnswer(query, answerUnits(body.units)) }),
         considered: outcome.considered,
         inBand: outcome.inBand,
-        candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body)),
+        candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body, branched)),
         warnings,
       };
       response.json(answer);

@@ -310,7 +310,10 @@ export interface paths {
          *     friction (Hazen-Williams or Darcy-Weisbach with Colebrook) and fitting losses
          *     (Crane TP-410 K values), with the velocity in each segment. Numbers in and out are in
          *     the request's `units`. A velocity above 5 ft/s (1.52 m/s), the common-practice limit
-         *     for plastic pipe, is reported in `warnings`.
+         *     for plastic pipe, is reported in `warnings`. For a branched system each point gives the
+         *     head at the split and each branch's flow (`branches`): the branch flows are those for
+         *     which every outlet level plus its losses equals the head at the split and they add up to
+         *     the total; a branch whose outlet is above that head takes no flow and says so.
          */
         post: operations["calculateSystemCurve"];
         delete?: never;
@@ -337,6 +340,9 @@ export interface paths {
          *     `oneFailed` gives the point with one of them off. The preferred operating region is
          *     70-120 % of BEP flow by default (ANSI/HI 9.6.3), configurable with `preferredBand`.
          *     No intersection on the published curve is a 422 problem whose `reason` says why.
+         *     For a branched system `operatingPoint.branches` gives each branch's flow; with `balance`,
+         *     `balancing` gives the valve K on the other branches that gives the named branch its
+         *     flow (a 422 at `/body/balance/flow` when throttling the others cannot).
          */
         post: operations["calculateOperatingPoint"];
         delete?: never;
@@ -406,8 +412,10 @@ export interface paths {
          *     in band but outside the preferred region or failing the one-failed check, then outside
          *     the band; within each group by annual energy. `reasons` says why each candidate sits
          *     where it does. `curve` samples the combined curve and `preferredRange` its preferred
-         *     region, in total flow, for drawing. Results are design estimates: verify them against
-         *     the maker's data.
+         *     region, in total flow, for drawing. On a branched system, `duty.branch` makes the band
+         *     that branch's flow: the search ranks on the total flows that keep it there
+         *     (`totalFlowBand`), and each operating point gives every branch's flow. Results are
+         *     design estimates: verify them against the maker's data.
          */
         post: operations["searchSelections"];
         delete?: never;
@@ -634,17 +642,46 @@ export interface components {
             /** @description Extra resistance coefficient (filter module, manifold, nozzle), dimensionless. */
             minorLossK?: number;
         };
-        /** @description The pipework from the intake water surface to the outlet, segments in series. */
+        /**
+         * @description The pipework from the intake water surface to the outlet, segments in series. A branched
+         *     system has `branches` (2 to 8): `segments` is then the common run from the pump to the split
+         *     (may be empty) and each branch states its own outlet level and pressure head, so the system
+         *     has no `staticHead` or `outletPressureHead` of its own. Without `branches`, `staticHead` and
+         *     at least one segment are required.
+         */
         PipeSystem: {
-            /** @description Discharge level (or outlet) above the intake water surface, in head units. */
-            staticHead: number;
-            /** @description Pressure head wanted at the outlet (nozzle, pressurised filter), in head units; default 0. */
+            /** @description Discharge level (or outlet) above the intake water surface, in head units. Not with branches. */
+            staticHead?: number;
+            /** @description Pressure head wanted at the outlet (nozzle, pressurised filter), in head units; default 0. Not with branches. */
             outletPressureHead?: number;
             /** @enum {string} */
             frictionMethod: "hazen-williams" | "darcy-weisbach";
             /** @description Water temperature in C; default 20. */
             waterTemperatureC?: number;
+            /** @description The whole route; with branches, the common run from the pump to the split (may be empty). */
             segments: components["schemas"]["PipeSegment"][];
+            /** @description The branches after the split, each to its own outlet; names unique. */
+            branches?: components["schemas"]["PipeBranch"][];
+        };
+        /** @description One branch of a branched system, from the split to its outlet, segments in series. */
+        PipeBranch: {
+            /** @description Unique in its system, e.g. falls. */
+            name: string;
+            /** @description Outlet level above the intake water surface, in head units (negative: below it). */
+            staticHead: number;
+            /** @description Pressure head wanted at the outlet, in head units; default 0. */
+            outletPressureHead?: number;
+            segments: components["schemas"]["PipeSegment"][];
+        };
+        /** @description What one branch takes at a total flow, in the request's units. A branch whose outlet is above the head at the split takes no flow (no back-flow) and says so in `warnings`. */
+        BranchFlow: {
+            name: string;
+            flow: number;
+            /** @description The highest mean velocity in its segments, length units per second. */
+            velocity: number;
+            /** @description Mean velocity in each of its segments, length units per second. */
+            velocities: number[];
+            warnings: string[];
         };
         SystemCurveRequest: {
             units: components["schemas"]["CalculationUnits"];
@@ -659,8 +696,12 @@ export interface components {
             outletPressureHead: number;
             frictionHead: number;
             minorHead: number;
-            /** @description Mean velocity in each segment, length units per second. */
+            /** @description Mean velocity in each segment (with branches, of the common run), length units per second. */
             velocities: number[];
+            /** @description Branched systems: the head at the split; head = frictionHead + minorHead (of the common run) + junctionHead. staticHead and outletPressureHead are then the lowest outlet's. */
+            junctionHead?: number;
+            /** @description Branched systems only, in the order of system.branches. */
+            branches?: components["schemas"]["BranchFlow"][];
         };
         SystemCurveResponse: {
             units: components["schemas"]["CalculationUnits"];
@@ -702,6 +743,25 @@ export interface components {
             pump: components["schemas"]["InlinePump"] | components["schemas"]["CatalogPump"];
             arrangement?: components["schemas"]["PumpArrangement"];
             preferredBand?: components["schemas"]["PreferredBand"];
+            balance?: components["schemas"]["BalanceTarget"];
+        };
+        /** @description Branched systems: the flow one branch should take at the operating point; the answer gives the valve that sets it (`balancing`). */
+        BalanceTarget: {
+            /** @description A name from system.branches. */
+            branch: string;
+            /** @description In flow units. */
+            flow: number;
+        };
+        /** @description The throttling valve that gives the named branch its wanted flow: the same loss coefficient K on each of the other branches, referred to the velocity in its last segment (extra head K V^2/2g). */
+        Balancing: {
+            branch: string;
+            /** @description The wanted flow, in flow units. */
+            flow: number;
+            /** @description Loss coefficient to add on each branch of valvesOn, dimensionless. */
+            valveK: number;
+            /** @description The branches that get the valve. */
+            valvesOn: string[];
+            caution: string;
         };
         /**
          * @description preferred: inside the POR; allowable: inside the maker's AOR; outside; unknown-bep: the curve has no efficiency data.
@@ -720,6 +780,8 @@ export interface components {
             efficiency: number | null;
             /** @description Input power of all running pumps, in power units. */
             inputPower: number | null;
+            /** @description Branched systems only, in the order of system.branches. */
+            branches?: components["schemas"]["BranchFlow"][];
         };
         /** @description The fitted curve of one pump, in the request's units. */
         CurveFitSummary: {
@@ -746,6 +808,7 @@ export interface components {
             /** @description With two or more pumps all running: the point with one of them off (null otherwise, or when the rest run past their curve). */
             oneFailed: components["schemas"]["OperatingPoint"] | null;
             fit: components["schemas"]["CurveFitSummary"];
+            balancing?: components["schemas"]["Balancing"];
             warnings: string[];
         };
         PipeSizesResponse: {
@@ -783,10 +846,12 @@ export interface components {
                 source: string;
             }[];
         };
-        /** @description The flow the planned filtration needs, from its minimum to its maximum, in flow units. */
+        /** @description The flow the planned filtration needs, from its minimum to its maximum, in flow units: of the total, or with `branch` of that branch of a branched system. */
         DutyBand: {
             flowMin: number;
             flowMax: number;
+            /** @description A name from system.branches: the band is that branch's flow, whatever the others take. */
+            branch?: string;
         };
         SelectionFilters: {
             supplierIds?: number[];
@@ -854,6 +919,11 @@ export interface components {
         SelectionResponse: {
             units: components["schemas"]["CalculationUnits"];
             duty: components["schemas"]["DutyBand"];
+            /** @description With duty.branch: the total flows between which that branch's flow stays in the band, in flow units; the search ranks on these. */
+            totalFlowBand?: {
+                flowMin: number;
+                flowMax: number;
+            };
             /** @description Pump and arrangement pairs examined. */
             considered: number;
             /** @description Pairs whose operating point lies in the duty band. */
@@ -2286,37 +2356,6 @@ export interface operations {
         };
         requestBody: {
             content: {
-                /**
-                 * @example {
-                 *       "units": {
-                 *         "flow": "gpm",
-                 *         "head": "ft",
-                 *         "length": "ft",
-                 *         "diameter": "in"
-                 *       },
-                 *       "system": {
-                 *         "staticHead": 14.5,
-                 *         "outletPressureHead": 0,
-                 *         "frictionMethod": "hazen-williams",
-                 *         "waterTemperatureC": 20,
-                 *         "segments": [
-                 *           {
-                 *             "length": 240,
-                 *             "insideDiameter": 3,
-                 *             "hazenWilliamsC": 150,
-                 *             "fittings": [],
-                 *             "minorLossK": 0
-                 *           }
-                 *         ]
-                 *       },
-                 *       "flows": [
-                 *         0,
-                 *         50,
-                 *         100,
-                 *         150
-                 *       ]
-                 *     }
-                 */
                 "application/json": components["schemas"]["SystemCurveRequest"];
             };
         };
@@ -2327,65 +2366,6 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    /**
-                     * @example {
-                     *       "units": {
-                     *         "flow": "gpm",
-                     *         "head": "ft",
-                     *         "length": "ft",
-                     *         "diameter": "in"
-                     *       },
-                     *       "points": [
-                     *         {
-                     *           "flow": 0,
-                     *           "head": 14.5,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 0,
-                     *           "minorHead": 0,
-                     *           "velocities": [
-                     *             0
-                     *           ]
-                     *         },
-                     *         {
-                     *           "flow": 50,
-                     *           "head": 16.05,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 1.55,
-                     *           "minorHead": 0,
-                     *           "velocities": [
-                     *             2.27
-                     *           ]
-                     *         },
-                     *         {
-                     *           "flow": 100,
-                     *           "head": 20.11,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 5.61,
-                     *           "minorHead": 0,
-                     *           "velocities": [
-                     *             4.54
-                     *           ]
-                     *         },
-                     *         {
-                     *           "flow": 150,
-                     *           "head": 26.39,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 11.89,
-                     *           "minorHead": 0,
-                     *           "velocities": [
-                     *             6.81
-                     *           ]
-                     *         }
-                     *       ],
-                     *       "warnings": [
-                     *         "at 150 gpm segment 0: velocity 6.81 ft/s exceeds 5 ft/s, the common-practice limit for plastic pipe"
-                     *       ]
-                     *     }
-                     */
                     "application/json": components["schemas"]["SystemCurveResponse"];
                 };
             };
@@ -2402,61 +2382,6 @@ export interface operations {
         };
         requestBody: {
             content: {
-                /**
-                 * @example {
-                 *       "units": {
-                 *         "flow": "gpm",
-                 *         "head": "ft",
-                 *         "length": "ft",
-                 *         "diameter": "in",
-                 *         "power": "kW"
-                 *       },
-                 *       "system": {
-                 *         "staticHead": 14.5,
-                 *         "frictionMethod": "hazen-williams",
-                 *         "segments": [
-                 *           {
-                 *             "length": 240,
-                 *             "insideDiameter": 3,
-                 *             "hazenWilliamsC": 150
-                 *           }
-                 *         ]
-                 *       },
-                 *       "pump": {
-                 *         "curve": [
-                 *           {
-                 *             "flow": 0,
-                 *             "head": 40,
-                 *             "efficiency": 0
-                 *           },
-                 *           {
-                 *             "flow": 40,
-                 *             "head": 37.5,
-                 *             "efficiency": 42
-                 *           },
-                 *           {
-                 *             "flow": 80,
-                 *             "head": 32.5,
-                 *             "efficiency": 60
-                 *           },
-                 *           {
-                 *             "flow": 120,
-                 *             "head": 25,
-                 *             "efficiency": 63
-                 *           },
-                 *           {
-                 *             "flow": 160,
-                 *             "head": 15,
-                 *             "efficiency": 50
-                 *           }
-                 *         ]
-                 *       },
-                 *       "arrangement": {
-                 *         "installed": 1,
-                 *         "running": 1
-                 *       }
-                 *     }
-                 */
                 "application/json": components["schemas"]["OperatingPointRequest"];
             };
         };
@@ -2467,48 +2392,6 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    /**
-                     * @example {
-                     *       "units": {
-                     *         "flow": "gpm",
-                     *         "head": "ft",
-                     *         "length": "ft",
-                     *         "diameter": "in",
-                     *         "power": "kW"
-                     *       },
-                     *       "operatingPoint": {
-                     *         "flow": 127.54,
-                     *         "head": 23.31,
-                     *         "flowPerPump": 127.54,
-                     *         "percentOfBep": 123.2,
-                     *         "region": "outside",
-                     *         "efficiency": 61.04,
-                     *         "inputPower": 0.917
-                     *       },
-                     *       "oneFailed": null,
-                     *       "fit": {
-                     *         "degree": 3,
-                     *         "shutOffHead": 40,
-                     *         "flowMin": 0,
-                     *         "flowMax": 160,
-                     *         "bep": {
-                     *           "flow": 103.52,
-                     *           "head": 28.39,
-                     *           "efficiency": 63.69
-                     *         },
-                     *         "preferredRegion": {
-                     *           "flowMin": 72.47,
-                     *           "flowMax": 124.23
-                     *         },
-                     *         "rmsHead": 0,
-                     *         "warnings": []
-                     *       },
-                     *       "warnings": [
-                     *         "at 127.54 gpm segment 0: velocity 5.79 ft/s exceeds 5 ft/s, the common-practice limit for plastic pipe",
-                     *         "outside the preferred operating region: expect shorter bearing and seal life"
-                     *       ]
-                     *     }
-                     */
                     "application/json": components["schemas"]["OperatingPointResponse"];
                 };
             };
@@ -2624,54 +2507,6 @@ export interface operations {
         };
         requestBody: {
             content: {
-                /**
-                 * @example {
-                 *       "units": {
-                 *         "flow": "gpm",
-                 *         "head": "ft",
-                 *         "length": "ft",
-                 *         "diameter": "in",
-                 *         "power": "kW"
-                 *       },
-                 *       "system": {
-                 *         "staticHead": 14.5,
-                 *         "frictionMethod": "hazen-williams",
-                 *         "segments": [
-                 *           {
-                 *             "length": 240,
-                 *             "pipe": "pvc-sch40-3",
-                 *             "fittings": [
-                 *               {
-                 *                 "kind": "elbow-90-standard",
-                 *                 "count": 4
-                 *               },
-                 *               {
-                 *                 "kind": "exit",
-                 *                 "count": 1
-                 *               }
-                 *             ]
-                 *           }
-                 *         ]
-                 *       },
-                 *       "duty": {
-                 *         "flowMin": 90,
-                 *         "flowMax": 130
-                 *       },
-                 *       "arrangements": [
-                 *         1,
-                 *         2
-                 *       ],
-                 *       "requireOneFailed": true,
-                 *       "filters": {
-                 *         "maxInputPowerPerPump": 1.5
-                 *       },
-                 *       "energy": {
-                 *         "hoursPerDay": 24,
-                 *         "tariffPerKWh": 0.18
-                 *       },
-                 *       "limit": 10
-                 *     }
-                 */
                 "application/json": components["schemas"]["SelectionRequest"];
             };
         };
@@ -2682,88 +2517,6 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    /**
-                     * @example {
-                     *       "units": {
-                     *         "flow": "gpm",
-                     *         "head": "ft",
-                     *         "length": "ft",
-                     *         "diameter": "in",
-                     *         "power": "kW"
-                     *       },
-                     *       "duty": {
-                     *         "flowMin": 90,
-                     *         "flowMax": 130
-                     *       },
-                     *       "considered": 2,
-                     *       "inBand": 1,
-                     *       "candidates": [
-                     *         {
-                     *           "rank": 1,
-                     *           "pumpId": 12,
-                     *           "supplier": "Alderbrook Demo Pumps",
-                     *           "model": "Demo cascade 60",
-                     *           "modelCode": "AD-C60",
-                     *           "arrangement": {
-                     *             "installed": 2,
-                     *             "running": 2
-                     *           },
-                     *           "operatingPoint": {
-                     *             "flow": 118.2,
-                     *             "head": 24.1,
-                     *             "flowPerPump": 59.1,
-                     *             "percentOfBep": 98.5,
-                     *             "region": "preferred",
-                     *             "efficiency": 58.2,
-                     *             "inputPower": 0.93
-                     *           },
-                     *           "oneFailed": {
-                     *             "flow": 93.4,
-                     *             "head": 20.6,
-                     *             "flowPerPump": 93.4,
-                     *             "percentOfBep": 155.7,
-                     *             "region": "outside",
-                     *             "efficiency": 44.1,
-                     *             "inputPower": 0.81
-                     *           },
-                     *           "inBand": true,
-                     *           "oneFailedMeetsMinimum": true,
-                     *           "region": "preferred",
-                     *           "annualKWh": 8147,
-                     *           "annualCost": 1466.5,
-                     *           "warnings": [],
-                     *           "reasons": [
-                     *             "in the duty band",
-                     *             "in the preferred operating region (98 % of BEP)",
-                     *             "one failed: 93.4 gpm, still at or above the band minimum"
-                     *           ],
-                     *           "curve": [
-                     *             {
-                     *               "flow": 0,
-                     *               "head": 36
-                     *             },
-                     *             {
-                     *               "flow": 60,
-                     *               "head": 32.9
-                     *             },
-                     *             {
-                     *               "flow": 120,
-                     *               "head": 23.9
-                     *             },
-                     *             {
-                     *               "flow": 180,
-                     *               "head": 9
-                     *             }
-                     *           ],
-                     *           "preferredRange": {
-                     *             "flowMin": 84,
-                     *             "flowMax": 144
-                     *           }
-                     *         }
-                     *       ],
-                     *       "warnings": []
-                     *     }
-                     */
                     "application/json": components["schemas"]["SelectionResponse"];
                 };
             };

@@ -126,7 +126,8 @@ describe('POST /api/v1/selections', function () {
   it('answers the contract example with a body its schema accepts', async () => {
     const operation = (openApiDocument.paths?.['/selections'] as OpenAPIV3_1.PathItemObject)
       .post as OpenAPIV3_1.OperationObject;
-    const example = (operation.requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json'].example;
+    const media = (operation.requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json'];
+    const example = (media.examples?.['single-route'] as OpenAPIV3_1.ExampleObject).value as object;
     const response = await post('/selections', example).expect(200);
     const ajv = new Ajv2020({ allErrors: true, strict: true, strictRequired: false, allowUnionTypes: true });
     ajv.addVocabulary(['example', 'xml', 'externalDocs', 'discriminator', 'components']);
