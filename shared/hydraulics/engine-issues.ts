@@ -28,7 +28,7 @@ export interface EngineIssueParams {
   'duty-before-curve': Record<string, never>;
   'duty-beyond-curve': Record<string, never>;
   /** A branch whose outlet head (m) is above the head at the split (m) takes no flow: no back-flow is modelled. */
-  'branch-no-flow': { branch: number; outletHead: number; junctionHead: number };
+  'branch-no-flow': { branch: number; name: string; outletHead: number; junctionHead: number };
 }
 
 export type EngineIssueCode = keyof EngineIssueParams;

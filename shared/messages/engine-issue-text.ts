@@ -48,8 +48,8 @@ const ENGINE_ISSUE_TEXT: {
   'arrangement-run-out': () => 'at least one pump would run past the last published point of its curve (run-out)',
   'duty-before-curve': () => 'the duty point maps onto the curve left of its first point',
   'duty-beyond-curve': () => 'the duty point maps onto the curve past its last point',
-  'branch-no-flow': ({ branch, outletHead, junctionHead }, units) =>
-    `branch ${branch} takes no flow: its outlet head ${units.head(outletHead)} is above the head at the split ${units.head(junctionHead)}`,
+  'branch-no-flow': ({ name, outletHead, junctionHead }, units) =>
+    `branch "${name}" takes no flow: its outlet head ${units.head(outletHead)} is above the head at the split ${units.head(junctionHead)}`,
 };
 
 function degreeName(degree: 2 | 3): string {

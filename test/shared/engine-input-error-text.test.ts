@@ -132,8 +132,8 @@ const issueSamples: { [Code in EngineIssueCode]: [EngineIssueParams[Code], strin
   'duty-before-curve': [{}, 'the duty point maps onto the curve left of its first point'],
   'duty-beyond-curve': [{}, 'the duty point maps onto the curve past its last point'],
   'branch-no-flow': [
-    { branch: 1, outletHead: 4, junctionHead: 3.5 },
-    'branch 1 takes no flow: its outlet head 4.00 m is above the head at the split 3.50 m',
+    { branch: 1, name: 'return', outletHead: 4, junctionHead: 3.5 },
+    'branch "return" takes no flow: its outlet head 4.00 m is above the head at the split 3.50 m',
   ],
 };
 
