@@ -1,7 +1,9 @@
 import type { CalculationUnits, PipeSystem } from '../../shared/api/api-schemas';
 import {
   checkPlausible,
+  compileSuctionSide,
   compileSystemCurve,
+  gravityFlow,
   systemBreakdown,
   plausibilityMessage,
   SI_PLAUSIBLE_UNITS,
@@ -9,6 +11,7 @@ import {
   type CompiledSystemCurve,
   type PlausibleLimitName,
   type PlausibleUnits,
+  type SuctionSide,
 } from '../../shared/hydraulics';
 import { SYSTEM_FIELD_RENAMES, systemInputOf } from '../../shared/api/system-input';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
@@ -30,6 +33,10 @@ export interface PreparedSystem {
   curve: CompiledSystemCurve;
   /** Water density at the system's temperature, kg/m3. */
   density: number;
+  /** The suction side, or null when no segment is on it. */
+  suction: SuctionSide | null;
+  /** With the outlet below the intake, the flow gravity alone delivers, m3/s; else null. */
+  gravityFlow: number | null;
 }
 
 /** Converts, checks and compiles `system`; every problem is a 422 pointing under `pointer`. */
@@ -48,7 +55,8 @@ export function prepareSystem(units: CalculationUnits, system: PipeSystem, point
   return withRequestPointers(
     () => {
       const curve = compileSystemCurve(input);
-      return { curve, density: waterDensity(curve.temperature) };
+      const suction = compileSuctionSide(input);
+      return { curve, density: waterDensity(curve.temperature), suction, gravityFlow: gravityFlow(curve) };
     },
     pointerInto(pointer, SYSTEM_FIELD_RENAMES),
     requestValueText(units),

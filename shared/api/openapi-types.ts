@@ -337,6 +337,12 @@ export interface paths {
          *     `oneFailed` gives the point with one of them off. The preferred operating region is
          *     70-120 % of BEP flow by default (ANSI/HI 9.6.3), configurable with `preferredBand`.
          *     No intersection on the published curve is a 422 problem whose `reason` says why.
+         *     With a suction side (segments with `side: suction` first, `siteElevation` and
+         *     `pumpElevation`), `npsh` compares NPSH available, (p_atm - p_v)/(rho g) - pumpElevation
+         *     - suction losses at the total flow, with the curve's NPSH3 at the flow per pump, with a
+         *     margin of `npshMarginRatio` (default 1.1) and 0.6 m (ANSI/HI 9.6.1 clean water); a pump
+         *     above the water gets a suction-lift and priming caution in `warnings`. With the outlet
+         *     below the intake, `gravityFlow` (also in the 422 problem) says what gravity alone delivers.
          */
         post: operations["calculateOperatingPoint"];
         delete?: never;
@@ -404,7 +410,9 @@ export interface paths {
          *     Candidates are ranked: in the duty band and in the preferred operating region (and, with
          *     `requireOneFailed`, still at or above the band's minimum with one pump off) first, then
          *     in band but outside the preferred region or failing the one-failed check, then outside
-         *     the band; within each group by annual energy. `reasons` says why each candidate sits
+         *     the band; within each group by annual energy. With a suction side, a non-submersible
+         *     pump short of the NPSH margin (see the operating point) ranks below every pump with
+         *     enough, and a pump without NPSH data says so. `reasons` says why each candidate sits
          *     where it does. `curve` samples the combined curve and `preferredRange` its preferred
          *     region, in total flow, for drawing. Results are design estimates: verify them against
          *     the maker's data.
@@ -633,6 +641,11 @@ export interface components {
             fittings?: components["schemas"]["FittingCount"][];
             /** @description Extra resistance coefficient (filter module, manifold, nozzle), dimensionless. */
             minorLossK?: number;
+            /**
+             * @description suction: between the intake and the pump (these segments come first); default discharge.
+             * @enum {string}
+             */
+            side?: "suction" | "discharge";
         };
         /** @description The pipework from the intake water surface to the outlet, segments in series. */
         PipeSystem: {
@@ -644,6 +657,10 @@ export interface components {
             frictionMethod: "hazen-williams" | "darcy-weisbach";
             /** @description Water temperature in C; default 20. */
             waterTemperatureC?: number;
+            /** @description Site elevation above mean sea level, in length units: the atmospheric pressure on the intake by the standard atmosphere. Needed with a suction side. */
+            siteElevation?: number;
+            /** @description Height of the pump (impeller eye) above the intake water surface, in length units; negative for a flooded suction. Needed with a suction side, refused without one (a submersible pump has none). */
+            pumpElevation?: number;
             segments: components["schemas"]["PipeSegment"][];
         };
         SystemCurveRequest: {
@@ -661,10 +678,13 @@ export interface components {
             minorHead: number;
             /** @description Mean velocity in each segment, length units per second. */
             velocities: number[];
+            /** @description NPSH available at the pump at this flow, in head units; present when the system has a suction side. */
+            npshAvailable?: number;
         };
         SystemCurveResponse: {
             units: components["schemas"]["CalculationUnits"];
             points: components["schemas"]["SystemCurvePoint"][];
+            gravityFlow?: components["schemas"]["GravityFlow"];
             warnings: string[];
         };
         PumpCurvePoint: {
@@ -674,6 +694,8 @@ export interface components {
             power?: number;
             /** @description Efficiency at this flow, percent. */
             efficiency?: number;
+            /** @description NPSH required (NPSH3) at this flow, in head units; on three points or more, or on none. */
+            npshRequired?: number;
         };
         InlinePump: {
             curve: components["schemas"]["PumpCurvePoint"][];
@@ -702,7 +724,24 @@ export interface components {
             pump: components["schemas"]["InlinePump"] | components["schemas"]["CatalogPump"];
             arrangement?: components["schemas"]["PumpArrangement"];
             preferredBand?: components["schemas"]["PreferredBand"];
+            npshMarginRatio?: components["schemas"]["NpshMarginRatio"];
         };
+        /** @description Least NPSH available / NPSH required (NPSH3) at the operating point; default 1.1, the ANSI/HI 9.6.1 least ratio for clean water. At least 0.6 m (2 ft) above NPSH3 is required as well. */
+        NpshMarginRatio: number;
+        /** @description NPSH at the operating point, in head units: available at the total flow through the suction pipe, required (NPSH3) at the flow per pump; ratio, difference and adequate are null when the curve gives no NPSH required at that flow. */
+        NpshCheck: {
+            available: number;
+            required: number | null;
+            ratio: number | null;
+            difference: number | null;
+            adequate: boolean | null;
+            /** @description The least ratio asked for. */
+            marginRatio: number;
+            /** @description The least difference, in head units (0.6 m). */
+            marginDifference: number;
+        };
+        /** @description With the outlet below the intake: the flow gravity alone delivers (system head zero), in flow units; absent otherwise. */
+        GravityFlow: number;
         /**
          * @description preferred: inside the POR; allowable: inside the maker's AOR; outside; unknown-bep: the curve has no efficiency data.
          * @enum {string}
@@ -746,6 +785,9 @@ export interface components {
             /** @description With two or more pumps all running: the point with one of them off (null otherwise, or when the rest run past their curve). */
             oneFailed: components["schemas"]["OperatingPoint"] | null;
             fit: components["schemas"]["CurveFitSummary"];
+            /** @description Present when the system has a suction side. */
+            npsh?: components["schemas"]["NpshCheck"];
+            gravityFlow?: components["schemas"]["GravityFlow"];
             warnings: string[];
         };
         PipeSizesResponse: {
@@ -817,6 +859,7 @@ export interface components {
             filters?: components["schemas"]["SelectionFilters"];
             energy?: components["schemas"]["EnergyInputs"];
             preferredBand?: components["schemas"]["PreferredBand"];
+            npshMarginRatio?: components["schemas"]["NpshMarginRatio"];
             /** @description Most candidates to return; default 20. */
             limit?: number;
         };
@@ -839,6 +882,8 @@ export interface components {
             annualKWh: number | null;
             annualCost: number | null;
             warnings: components["schemas"]["SelectionWarning"][];
+            /** @description Present when the system has a suction side and the pump is not submersible. */
+            npsh?: components["schemas"]["NpshCheck"];
             reasons: string[];
             /** @description The combined head curve of the running pumps, sampled over its published range. */
             curve: {
@@ -859,6 +904,7 @@ export interface components {
             /** @description Pairs whose operating point lies in the duty band. */
             inBand: number;
             candidates: components["schemas"]["SelectionCandidate"][];
+            gravityFlow?: components["schemas"]["GravityFlow"];
             warnings: string[];
         };
         /** @enum {string} */
@@ -2414,9 +2460,17 @@ export interface operations {
                  *       "system": {
                  *         "staticHead": 14.5,
                  *         "frictionMethod": "hazen-williams",
+                 *         "siteElevation": 1500,
+                 *         "pumpElevation": 4,
                  *         "segments": [
                  *           {
-                 *             "length": 240,
+                 *             "length": 12,
+                 *             "insideDiameter": 3,
+                 *             "hazenWilliamsC": 150,
+                 *             "side": "suction"
+                 *           },
+                 *           {
+                 *             "length": 228,
                  *             "insideDiameter": 3,
                  *             "hazenWilliamsC": 150
                  *           }
@@ -2427,34 +2481,40 @@ export interface operations {
                  *           {
                  *             "flow": 0,
                  *             "head": 40,
-                 *             "efficiency": 0
+                 *             "efficiency": 0,
+                 *             "npshRequired": 4
                  *           },
                  *           {
                  *             "flow": 40,
                  *             "head": 37.5,
-                 *             "efficiency": 42
+                 *             "efficiency": 42,
+                 *             "npshRequired": 4.5
                  *           },
                  *           {
                  *             "flow": 80,
                  *             "head": 32.5,
-                 *             "efficiency": 60
+                 *             "efficiency": 60,
+                 *             "npshRequired": 6
                  *           },
                  *           {
                  *             "flow": 120,
                  *             "head": 25,
-                 *             "efficiency": 63
+                 *             "efficiency": 63,
+                 *             "npshRequired": 8.5
                  *           },
                  *           {
                  *             "flow": 160,
                  *             "head": 15,
-                 *             "efficiency": 50
+                 *             "efficiency": 50,
+                 *             "npshRequired": 12
                  *           }
                  *         ]
                  *       },
                  *       "arrangement": {
                  *         "installed": 1,
                  *         "running": 1
-                 *       }
+                 *       },
+                 *       "npshMarginRatio": 1.1
                  *     }
                  */
                 "application/json": components["schemas"]["OperatingPointRequest"];
@@ -2503,7 +2563,17 @@ export interface operations {
                      *         "rmsHead": 0,
                      *         "warnings": []
                      *       },
+                     *       "npsh": {
+                     *         "available": 25.8,
+                     *         "required": 9.1,
+                     *         "ratio": 2.84,
+                     *         "difference": 16.7,
+                     *         "adequate": true,
+                     *         "marginRatio": 1.1,
+                     *         "marginDifference": 1.97
+                     *       },
                      *       "warnings": [
+                     *         "the pump stands 4 ft above the intake water: a suction lift. It must be self-priming or be primed (a foot valve holds the suction pipe full); defer to the maker's data for the lift it allows",
                      *         "at 127.54 gpm segment 0: velocity 5.79 ft/s exceeds 5 ft/s, the common-practice limit for plastic pipe",
                      *         "outside the preferred operating region: expect shorter bearing and seal life"
                      *       ]
