@@ -5,6 +5,12 @@ import { operatingPointSummary } from '../calculations/calculation-handlers';
 import { unprocessable } from '../calculations/engine-problem';
 import { preferredBandOf } from '../calculations/pump-request';
 import { answerUnits, echoedUnits, powerUnitOf } from '../calculations/request-units';
+import {
+  gravityFlowMessage,
+  npshCheckAnswer,
+  npshGuidanceOf,
+  suctionLiftCaution,
+} from '../calculations/suction-answer';
 import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
 import type { CatalogPump, CatalogSnapshot } from '../catalog/catalog-snapshot';
 import type { RankedCandidate, SelectionQuery } from './selection-query';
@@ -42,6 +48,9 @@ function candidateAnswer(candidate: RankedCandidate, rank: number, body: Selecti
     annualKWh: candidate.annualKWh,
     annualCost: candidate.annualCost,
     warnings: candidate.warnings,
+    ...(candidate.npsh
+      ? { npsh: npshCheckAnswer(candidate.npsh, npshGuidanceOf(body.npshMarginRatio), body.units) }
+      : {}),
     reasons: candidate.reasons,
     curve: sampledCombinedCurve(candidate.pump, candidate.running).map((point) => ({
       flow: to.flow(point.flow),
@@ -54,8 +63,12 @@ function candidateAnswer(candidate: RankedCandidate, rank: number, body: Selecti
 }
 
 /** The search's input in SI, every problem a 4xx pointing at the field. */
-function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnings: string[] } {
-  const { curve, density } = prepareSystem(body.units, body.system);
+function selectionQuery(body: SelectionRequest): {
+  query: SelectionQuery;
+  gravityFlow: number | null;
+  warnings: string[];
+} {
+  const { curve, density, suction, gravityFlow } = prepareSystem(body.units, body.system);
   const flowMin = flowToSI(body.duty.flowMin, body.units.flow);
   const flowMax = flowToSI(body.duty.flowMax, body.units.flow);
   requirePlausibleFlow(flowMin, '/body/duty/flowMin', body.units);
@@ -68,6 +81,12 @@ function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnin
   const maxPower = body.filters?.maxInputPowerPerPump;
   const warnings: string[] = [];
   if (body.energy?.tariffPerKWh === undefined) warnings.push('no tariff given: annual cost is left out');
+  const caution = suctionLiftCaution(suction, body.units);
+  if (caution) warnings.push(`external pumps: ${caution}`);
+  if (gravityFlow !== null) {
+    warnings.push(gravityFlowMessage(gravityFlow, body.units));
+    if (gravityFlow >= flowMax) warnings.push('gravity alone delivers the whole duty band: no pump is needed for it');
+  }
   return {
     query: {
       system: curve,
@@ -85,7 +104,10 @@ function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnin
       onlyPreferredRegion: body.filters?.onlyPreferredRegion ?? false,
       accepts: pumpFilter(body.filters),
       limit: body.limit ?? defaultLimit,
+      suction,
+      npshGuidance: npshGuidanceOf(body.npshMarginRatio),
     },
+    gravityFlow,
     warnings,
   };
 }
@@ -94,7 +116,7 @@ export function createSelectionHandlers(catalog: CatalogSnapshot): Record<'searc
   return {
     searchSelections: async (request, response) => {
       const body = request.body as SelectionRequest;
-      const { query, warnings } = selectionQuery(body);
+      const { query, gravityFlow, warnings } = selectionQuery(body);
       const outcome = searchCatalog(await catalog.current(), query);
       if (outcome.candidates.length === 0)
         warnings.push('no catalog pump meets this system in the arrangements asked for');
@@ -104,6 +126,7 @@ export function createSelectionHandlers(catalog: CatalogSnapshot): Record<'searc
         considered: outcome.considered,
         inBand: outcome.inBand,
         candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body)),
+        ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
         warnings,
       };
       response.json(answer);

@@ -1,11 +1,9 @@
 import { expect } from 'chai';
-import { Ajv2020 } from 'ajv/dist/2020.js';
-import addFormats from 'ajv-formats';
 import request from 'supertest';
-import { openApiDocument } from '../../../server/api/openapi-document';
 import { createApp } from '../../../server/app';
 import { createLogger } from '../../../server/logging';
 import { createUserWithSession } from '../../support/accounts';
+import { contractSchemaValidator } from '../../support/contract-validator';
 import { createScratchDatabase } from '../../support/test-database';
 import { npshReference } from '../../shared/reference/npsh-reference';
 
@@ -66,14 +64,6 @@ describe('suction side, NPSH and gravity flow through the API', function () {
       .set('Authorization', `Bearer ${token}`)
       .send(body as object);
 
-  function validator(schema: string) {
-    const ajv = new Ajv2020({ allErrors: true, strict: true, strictRequired: false, allowUnionTypes: true });
-    ajv.addVocabulary(['example', 'xml', 'externalDocs', 'discriminator', 'components']);
-    addFormats.default(ajv);
-    ajv.addSchema({ $id: 'contract.json', components: openApiDocument.components });
-    return ajv.compile({ $ref: `contract.json#/components/schemas/${schema}` });
-  }
-
   /** NPSHa by hand at `litres` L/s through the suction pipe, from the python references. */
   function npshByHand(litres: number, siteElevation = 1200, pumpElevation = 2.5): number {
     const reference = npshReference([siteElevation], [25]);
@@ -87,7 +77,7 @@ describe('suction side, NPSH and gravity flow through the API', function () {
       system: suctionSystem,
       flows: [0, 4, 8],
     }).expect(200);
-    const validate = validator('SystemCurveResponse');
+    const validate = contractSchemaValidator('SystemCurveResponse');
     expect(validate(response.body), JSON.stringify(validate.errors)).to.equal(true);
     for (const point of response.body.points as Array<{ flow: number; npshAvailable: number }>) {
       expect(point.npshAvailable, `${point.flow} L/s`).to.be.closeTo(npshByHand(point.flow), 2e-3);
@@ -117,7 +107,7 @@ describe('suction side, NPSH and gravity flow through the API', function () {
       system: suctionSystem,
       pump: { curve: pumpCurve(true, 0.5) },
     }).expect(200);
-    const validate = validator('OperatingPointResponse');
+    const validate = contractSchemaValidator('OperatingPointResponse');
     expect(validate(response.body), JSON.stringify(validate.errors)).to.equal(true);
     const { operatingPoint, npsh } = response.body;
     expect(npsh.available).to.be.closeTo(npshByHand(operatingPoint.flow), 2e-3);
