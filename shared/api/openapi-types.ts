@@ -310,7 +310,9 @@ export interface paths {
          *     friction (Hazen-Williams or Darcy-Weisbach with Colebrook) and fitting losses
          *     (Crane TP-410 K values), with the velocity in each segment. Numbers in and out are in
          *     the request's `units`. A velocity above 5 ft/s (1.52 m/s), the common-practice limit
-         *     for plastic pipe, is reported in `warnings`.
+         *     for plastic pipe, is reported in `warnings`. With a suction side (see PipeSystem), each
+         *     point gives `npshAvailable`; with the outlet below the intake, `gravityFlow` gives what
+         *     gravity alone delivers.
          */
         post: operations["calculateSystemCurve"];
         delete?: never;
@@ -2564,10 +2566,10 @@ export interface operations {
                      *         "warnings": []
                      *       },
                      *       "npsh": {
-                     *         "available": 25.8,
-                     *         "required": 9.1,
-                     *         "ratio": 2.84,
-                     *         "difference": 16.7,
+                     *         "available": 26.93,
+                     *         "required": 9.08,
+                     *         "ratio": 2.97,
+                     *         "difference": 17.85,
                      *         "adequate": true,
                      *         "marginRatio": 1.1,
                      *         "marginDifference": 1.97
