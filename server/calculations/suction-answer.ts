@@ -32,12 +32,13 @@ export function npshCheckAnswer(npsh: NpshAtDuty, guidance: NpshGuidance, units:
 /** What the NPSH check says in words: a shortfall, an unknown NPSH required, or nothing when the margin is met. */
 export function npshMessage(npsh: NpshAtDuty, guidance: NpshGuidance, units: CalculationUnits): string | null {
   const text = requestValueText(units);
-  if (npsh.required === null)
+  const { required, margin } = npsh;
+  if (required === null || margin === null)
     return `NPSH required unknown: the curve gives no NPSH3 at this flow; NPSH available is ${text.head(npsh.available)}`;
-  if (npsh.margin?.adequate) return null;
+  if (margin.adequate) return null;
   return (
-    `NPSH shortfall: NPSH available ${text.head(npsh.available)} against NPSH required ${text.head(npsh.required)}` +
-    ` (ratio ${npsh.margin!.ratio.toFixed(2)}; at least ${guidance.ratio} and ${text.head(guidance.difference)} more` +
+    `NPSH shortfall: NPSH available ${text.head(npsh.available)} against NPSH required ${text.head(required)}` +
+    ` (ratio ${margin.ratio.toFixed(2)}; at least ${guidance.ratio} and ${text.head(guidance.difference)} more` +
     ' are needed, ANSI/HI 9.6.1): the pump may cavitate'
   );
 }

@@ -43,5 +43,5 @@ export function npshReason(npsh: NpshAtDuty, query: SelectionQuery): string {
   const ratio = npsh.margin.ratio.toFixed(2);
   return npsh.margin.adequate
     ? `NPSH margin met (NPSHa / NPSH3 ${ratio})`
-    : `NPSH shortfall: NPSHa / NPSH3 ${ratio}, short of the ${query.npshGuidance.ratio} ratio and 0.6 m asked for; it may cavitate, so it ranks below pumps with enough margin`;
+    : `NPSH shortfall: NPSHa / NPSH3 ${ratio}, short of the ${query.npshGuidance.ratio} ratio and ${query.npshGuidance.difference} m asked for; it may cavitate, so it ranks below pumps with enough margin`;
 }
