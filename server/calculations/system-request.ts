@@ -2,7 +2,10 @@ import type { CalculationUnits, PipeSystem } from '../../shared/api/api-schemas'
 import {
   checkPlausible,
   compileBranchedSystem,
+  compileSuctionSide,
   compileSystemCurve,
+  gravityFlow,
+  lengthToSI,
   systemBreakdown,
   plausibilityMessage,
   SI_PLAUSIBLE_UNITS,
@@ -12,6 +15,7 @@ import {
   type PipeSegmentInput,
   type PlausibleLimitName,
   type PlausibleUnits,
+  type SuctionSide,
 } from '../../shared/hydraulics';
 import { branchedSystemInputOf, SYSTEM_FIELD_RENAMES, systemInputOf } from '../../shared/api/system-input';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
@@ -36,6 +40,10 @@ export interface PreparedSystem {
   branched: CompiledBranchedSystem | null;
   /** Water density at the system's temperature, kg/m3. */
   density: number;
+  /** The suction side, or null when no segment is on it. */
+  suction: SuctionSide | null;
+  /** With the outlet below the intake, the flow gravity alone delivers, m3/s; else null. */
+  gravityFlow: number | null;
 }
 
 function requirePlausibleSegments(
@@ -72,7 +80,22 @@ export function prepareSystem(units: CalculationUnits, system: PipeSystem, point
     return withRequestPointers(
       () => {
         const branched = compileBranchedSystem(branchedInput);
-        return { curve: branched, branched, density: waterDensity(branched.temperature) };
+        // the suction side is the start of the common run: its losses are the common run's own
+        const suction = compileSuctionSide({
+          ...branchedInput,
+          staticHead: 0,
+          siteElevation:
+            system.siteElevation === undefined ? undefined : lengthToSI(system.siteElevation, units.length),
+          pumpElevation:
+            system.pumpElevation === undefined ? undefined : lengthToSI(system.pumpElevation, units.length),
+        });
+        return {
+          curve: branched,
+          branched,
+          density: waterDensity(branched.temperature),
+          suction,
+          gravityFlow: gravityFlow(branched),
+        };
       },
       translate,
       valueText,
@@ -85,7 +108,14 @@ export function prepareSystem(units: CalculationUnits, system: PipeSystem, point
   return withRequestPointers(
     () => {
       const curve = compileSystemCurve(input);
-      return { curve, branched: null, density: waterDensity(curve.temperature) };
+      const suction = compileSuctionSide(input);
+      return {
+        curve,
+        branched: null,
+        density: waterDensity(curve.temperature),
+        suction,
+        gravityFlow: gravityFlow(curve),
+      };
     },
     translate,
     valueText,

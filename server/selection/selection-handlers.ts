@@ -6,6 +6,12 @@ import { operatingPointSummary } from '../calculations/calculation-handlers';
 import { unprocessable } from '../calculations/engine-problem';
 import { preferredBandOf } from '../calculations/pump-request';
 import { answerUnits, echoedUnits, powerUnitOf, type AnswerUnits } from '../calculations/request-units';
+import {
+  gravityFlowMessage,
+  npshCheckAnswer,
+  npshGuidanceOf,
+  suctionLiftCaution,
+} from '../calculations/suction-answer';
 import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
 import type { CatalogPump, CatalogSnapshot } from '../catalog/catalog-snapshot';
 import type { RankedCandidate, SelectionQuery } from './selection-query';
@@ -48,6 +54,9 @@ function candidateAnswer(
     annualKWh: candidate.annualKWh,
     annualCost: candidate.annualCost,
     warnings: candidate.warnings,
+    ...(candidate.npsh
+      ? { npsh: npshCheckAnswer(candidate.npsh, npshGuidanceOf(body.npshMarginRatio), body.units) }
+      : {}),
     reasons: candidate.reasons,
     curve: sampledCombinedCurve(candidate.pump, candidate.running).map((point) => ({
       flow: to.flow(point.flow),
@@ -86,13 +95,20 @@ function totalFlowBandAnswer(band: { flowMin: number; flowMax: number }, to: Ans
 function selectionQuery(body: SelectionRequest): {
   query: SelectionQuery;
   branched: CompiledBranchedSystem | null;
+  gravityFlow: number | null;
   warnings: string[];
 } {
-  const { curve, branched, density } = prepareSystem(body.units, body.system);
+  const { curve, branched, density, suction, gravityFlow } = prepareSystem(body.units, body.system);
   const { flowMin, flowMax } = totalDutyBand(body, branched);
   const maxPower = body.filters?.maxInputPowerPerPump;
   const warnings: string[] = [];
   if (body.energy?.tariffPerKWh === undefined) warnings.push('no tariff given: annual cost is left out');
+  const caution = suctionLiftCaution(suction, body.units);
+  if (caution) warnings.push(`external pumps: ${caution}`);
+  if (gravityFlow !== null) {
+    warnings.push(gravityFlowMessage(gravityFlow, body.units));
+    if (gravityFlow >= flowMax) warnings.push('gravity alone delivers the whole duty band: no pump is needed for it');
+  }
   return {
     query: {
       system: curve,
@@ -110,8 +126,11 @@ function selectionQuery(body: SelectionRequest): {
       onlyPreferredRegion: body.filters?.onlyPreferredRegion ?? false,
       accepts: pumpFilter(body.filters),
       limit: body.limit ?? defaultLimit,
+      suction,
+      npshGuidance: npshGuidanceOf(body.npshMarginRatio),
     },
     branched,
+    gravityFlow,
     warnings,
   };
 }
@@ -120,7 +139,7 @@ export function createSelectionHandlers(catalog: CatalogSnapshot): Record<'searc
   return {
     searchSelections: async (request, response) => {
       const body = request.body as SelectionRequest;
-      const { query, branched, warnings } = selectionQuery(body);
+      const { query, branched, gravityFlow, warnings } = selectionQuery(body);
       const outcome = searchCatalog(await catalog.current(), query);
       if (outcome.candidates.length === 0)
         warnings.push('no catalog pump meets this system in the arrangements asked for');
@@ -133,6 +152,7 @@ export function createSelectionHandlers(catalog: CatalogSnapshot): Record<'searc
         considered: outcome.considered,
         inBand: outcome.inBand,
         candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body, branched)),
+        ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
         warnings,
       };
       response.json(answer);

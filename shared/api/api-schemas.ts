@@ -34,6 +34,7 @@ export type OperatingRegionName = Schemas['OperatingRegion'];
 export type OperatingPointSummary = Schemas['OperatingPoint'];
 export type CurveFitSummary = Schemas['CurveFitSummary'];
 export type OperatingPointResponse = Schemas['OperatingPointResponse'];
+export type NpshCheck = Schemas['NpshCheck'];
 export type PipeSizesResponse = Schemas['PipeSizesResponse'];
 export type FittingsResponse = Schemas['FittingsResponse'];
 export type DutyBand = Schemas['DutyBand'];

@@ -313,7 +313,10 @@ export interface paths {
          *     for plastic pipe, is reported in `warnings`. For a branched system each point gives the
          *     head at the split and each branch's flow (`branches`): the branch flows are those for
          *     which every outlet level plus its losses equals the head at the split and they add up to
-         *     the total; a branch whose outlet is above that head takes no flow and says so.
+         *     the total; a branch whose outlet is above that head takes no flow and says so. With a
+         *     suction side (see PipeSystem), each
+         *     point gives `npshAvailable`; with the outlet below the intake, `gravityFlow` gives what
+         *     gravity alone delivers.
          */
         post: operations["calculateSystemCurve"];
         delete?: never;
@@ -343,6 +346,12 @@ export interface paths {
          *     For a branched system `operatingPoint.branches` gives each branch's flow; with `balance`,
          *     `balancing` gives the valve K on the other branches that gives the named branch its
          *     flow (a 422 at `/body/balance/flow` when throttling the others cannot).
+         *     With a suction side (segments with `side: suction` first, `siteElevation` and
+         *     `pumpElevation`), `npsh` compares NPSH available, (p_atm - p_v)/(rho g) - pumpElevation
+         *     - suction losses at the total flow, with the curve's NPSH3 at the flow per pump, with a
+         *     margin of `npshMarginRatio` (default 1.1) and 0.6 m (ANSI/HI 9.6.1 clean water); a pump
+         *     above the water gets a suction-lift and priming caution in `warnings`. With the outlet
+         *     below the intake, `gravityFlow` (also in the 422 problem) says what gravity alone delivers.
          */
         post: operations["calculateOperatingPoint"];
         delete?: never;
@@ -410,7 +419,9 @@ export interface paths {
          *     Candidates are ranked: in the duty band and in the preferred operating region (and, with
          *     `requireOneFailed`, still at or above the band's minimum with one pump off) first, then
          *     in band but outside the preferred region or failing the one-failed check, then outside
-         *     the band; within each group by annual energy. `reasons` says why each candidate sits
+         *     the band; within each group by annual energy. With a suction side, a non-submersible
+         *     pump short of the NPSH margin (see the operating point) ranks below every pump with
+         *     enough, and a pump without NPSH data says so. `reasons` says why each candidate sits
          *     where it does. `curve` samples the combined curve and `preferredRange` its preferred
          *     region, in total flow, for drawing. On a branched system, `duty.branch` makes the band
          *     that branch's flow: the search ranks on the total flows that keep it there
@@ -641,6 +652,11 @@ export interface components {
             fittings?: components["schemas"]["FittingCount"][];
             /** @description Extra resistance coefficient (filter module, manifold, nozzle), dimensionless. */
             minorLossK?: number;
+            /**
+             * @description suction: between the intake and the pump (these segments come first); default discharge.
+             * @enum {string}
+             */
+            side?: "suction" | "discharge";
         };
         /**
          * @description The pipework from the intake water surface to the outlet, segments in series. A branched
@@ -658,6 +674,10 @@ export interface components {
             frictionMethod: "hazen-williams" | "darcy-weisbach";
             /** @description Water temperature in C; default 20. */
             waterTemperatureC?: number;
+            /** @description Site elevation above mean sea level, in length units: the atmospheric pressure on the intake by the standard atmosphere. Needed with a suction side. */
+            siteElevation?: number;
+            /** @description Height of the pump (impeller eye) above the intake water surface, in length units; negative for a flooded suction. Needed with a suction side, refused without one (a submersible pump has none). */
+            pumpElevation?: number;
             /** @description The whole route; with branches, the common run from the pump to the split (may be empty). */
             segments: components["schemas"]["PipeSegment"][];
             /** @description The branches after the split, each to its own outlet; names unique. */
@@ -702,10 +722,13 @@ export interface components {
             junctionHead?: number;
             /** @description Branched systems only, in the order of system.branches. */
             branches?: components["schemas"]["BranchFlow"][];
+            /** @description NPSH available at the pump at this flow, in head units; present when the system has a suction side. */
+            npshAvailable?: number;
         };
         SystemCurveResponse: {
             units: components["schemas"]["CalculationUnits"];
             points: components["schemas"]["SystemCurvePoint"][];
+            gravityFlow?: components["schemas"]["GravityFlow"];
             warnings: string[];
         };
         PumpCurvePoint: {
@@ -715,6 +738,8 @@ export interface components {
             power?: number;
             /** @description Efficiency at this flow, percent. */
             efficiency?: number;
+            /** @description NPSH required (NPSH3) at this flow, in head units; on three points or more, or on none. */
+            npshRequired?: number;
         };
         InlinePump: {
             curve: components["schemas"]["PumpCurvePoint"][];
@@ -744,6 +769,7 @@ export interface components {
             arrangement?: components["schemas"]["PumpArrangement"];
             preferredBand?: components["schemas"]["PreferredBand"];
             balance?: components["schemas"]["BalanceTarget"];
+            npshMarginRatio?: components["schemas"]["NpshMarginRatio"];
         };
         /** @description Branched systems: the flow one branch should take at the operating point; the answer gives the valve that sets it (`balancing`). */
         BalanceTarget: {
@@ -763,6 +789,22 @@ export interface components {
             valvesOn: string[];
             caution: string;
         };
+        /** @description Least NPSH available / NPSH required (NPSH3) at the operating point; default 1.1, the ANSI/HI 9.6.1 least ratio for clean water. At least 0.6 m (2 ft) above NPSH3 is required as well. */
+        NpshMarginRatio: number;
+        /** @description NPSH at the operating point, in head units: available at the total flow through the suction pipe, required (NPSH3) at the flow per pump; ratio, difference and adequate are null when the curve gives no NPSH required at that flow. */
+        NpshCheck: {
+            available: number;
+            required: number | null;
+            ratio: number | null;
+            difference: number | null;
+            adequate: boolean | null;
+            /** @description The least ratio asked for. */
+            marginRatio: number;
+            /** @description The least difference, in head units (0.6 m). */
+            marginDifference: number;
+        };
+        /** @description With the outlet below the intake: the flow gravity alone delivers (system head zero), in flow units; absent otherwise. */
+        GravityFlow: number;
         /**
          * @description preferred: inside the POR; allowable: inside the maker's AOR; outside; unknown-bep: the curve has no efficiency data.
          * @enum {string}
@@ -809,6 +851,9 @@ export interface components {
             oneFailed: components["schemas"]["OperatingPoint"] | null;
             fit: components["schemas"]["CurveFitSummary"];
             balancing?: components["schemas"]["Balancing"];
+            /** @description Present when the system has a suction side. */
+            npsh?: components["schemas"]["NpshCheck"];
+            gravityFlow?: components["schemas"]["GravityFlow"];
             warnings: string[];
         };
         PipeSizesResponse: {
@@ -882,6 +927,7 @@ export interface components {
             filters?: components["schemas"]["SelectionFilters"];
             energy?: components["schemas"]["EnergyInputs"];
             preferredBand?: components["schemas"]["PreferredBand"];
+            npshMarginRatio?: components["schemas"]["NpshMarginRatio"];
             /** @description Most candidates to return; default 20. */
             limit?: number;
         };
@@ -904,6 +950,8 @@ export interface components {
             annualKWh: number | null;
             annualCost: number | null;
             warnings: components["schemas"]["SelectionWarning"][];
+            /** @description Present when the system has a suction side and the pump is not submersible. */
+            npsh?: components["schemas"]["NpshCheck"];
             reasons: string[];
             /** @description The combined head curve of the running pumps, sampled over its published range. */
             curve: {
@@ -929,6 +977,7 @@ export interface components {
             /** @description Pairs whose operating point lies in the duty band. */
             inBand: number;
             candidates: components["schemas"]["SelectionCandidate"][];
+            gravityFlow?: components["schemas"]["GravityFlow"];
             warnings: string[];
         };
         /** @enum {string} */

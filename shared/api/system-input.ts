@@ -37,11 +37,12 @@ function segmentInputOf(segment: PipeSystem['segments'][number], units: Calculat
     roughness: segment.roughness === undefined ? undefined : diameterToSI(segment.roughness, units.diameter),
     fittings: segment.fittings,
     extraK: segment.minorLossK,
+    side: segment.side,
   };
 }
 
 /**
- * The system as compileSystemCurve takes it: lengths, bores, roughness and heads converted to SI by
+ * The system as compileSystemCurve takes it: lengths (with the site and pump elevations), bores, roughness and heads converted to SI by
  * the engine's unit conversions (units.ts; NIST SP 811 factors), no outlet pressure meaning 0.
  * @param system - the contract's system, in the request's units
  * @param units - the request's units: `length` for lengths, `diameter` for bores and roughness, `head` for heads
@@ -63,6 +64,8 @@ export function systemInputOf(system: PipeSystem, units: CalculationUnits): Syst
     segments: system.segments.map((segment) => segmentInputOf(segment, units)),
     temperature: system.waterTemperatureC,
     frictionMethod: system.frictionMethod,
+    siteElevation: system.siteElevation === undefined ? undefined : lengthToSI(system.siteElevation, units.length),
+    pumpElevation: system.pumpElevation === undefined ? undefined : lengthToSI(system.pumpElevation, units.length),
   };
 }
 

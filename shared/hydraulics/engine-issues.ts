@@ -77,6 +77,9 @@ export interface EngineInputErrorParams {
   /** valveK 0: the branch already takes more with no valve; else not reached with that K on the others. */
   'branch-target-unreachable': { branch: string; valveK: number };
   'no-operating-point-with-valve': { valveK: number };
+  'suction-after-discharge': { segment: number };
+  'suction-needs-site': { what: 'siteElevation' | 'pumpElevation' };
+  'pump-elevation-without-suction': Record<string, never>;
 }
 
 export type EngineInputErrorCode = keyof EngineInputErrorParams;

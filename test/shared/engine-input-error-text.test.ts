@@ -101,6 +101,18 @@ const inputSamples: { [Code in EngineInputErrorCode]: [EngineInputErrorParams[Co
     { valveK: 10 },
     'with a valve K of 10 on the other branches the pump meets the system nowhere on its published curve',
   ],
+  'suction-after-discharge': [
+    { segment: 2 },
+    'segment 2 is on the suction side after a discharge segment; suction segments come first, from the intake to the pump',
+  ],
+  'suction-needs-site': [
+    { what: 'siteElevation' },
+    'a system with a suction side needs the site elevation (for the atmospheric pressure on the intake)',
+  ],
+  'pump-elevation-without-suction': [
+    {},
+    'a pump elevation needs suction segments (side: suction); a submersible pump needs neither',
+  ],
 };
 
 const issueSamples: { [Code in EngineIssueCode]: [EngineIssueParams[Code], string] } = {
