@@ -33,7 +33,7 @@ const valveKinds = /^(valve-|check-valve-|foot-valve-)/;
 const notParts = /^(entrance-|exit$)/;
 
 /** A pipe's series and nominal size as the trade writes them, e.g. "PVC Schedule 40" and `3"`. */
-function pipeLabels(seriesId: string, sizeId: string): { series: string; size: string } {
+export function pipeLabels(seriesId: string, sizeId: string): { series: string; size: string } {
   const series = PIPE_SERIES.find((candidate) => candidate.id === seriesId);
   const size = series?.sizes.find((candidate) => candidate.id === sizeId);
   return { series: series?.label ?? seriesId, size: size?.nominalLabel ?? sizeId };

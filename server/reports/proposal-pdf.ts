@@ -2,12 +2,13 @@ import { join } from 'node:path';
 import PDFDocument from 'pdfkit';
 import SVGtoPDF from 'svg-to-pdfkit';
 import type { DesignDraft, ReportPaper, SelectionCandidate } from '../../shared/api/api-schemas';
-import { FITTINGS, PIPE_SERIES } from '../../shared/hydraulics';
+import { FITTINGS } from '../../shared/hydraulics';
 import { projectRoot } from '../config';
 import type { DesignFigures } from './design-selection';
 import { designStaticHead, designUnits } from './design-selection';
-import type { PartsLine } from './parts-list';
+import { pipeLabels, type PartsLine } from './parts-list';
 import { proposalChartSvg, pumpColours } from './proposal-chart';
+import { candidateCosts, figure, LIFE_CYCLE_YEARS, type PumpPrice } from './proposal-costs';
 import { REPORT_CAUTIONS } from './report-cautions';
 
 /*
@@ -18,8 +19,6 @@ import { REPORT_CAUTIONS } from './report-cautions';
 
 const latoFolder = join(projectRoot, 'node_modules', '@fontsource', 'lato', 'files');
 const fonts = { regular: 'Lato', bold: 'Lato-Bold' } as const;
-/** Years of running a life-cycle cost adds to the first cost (common practice for small pumps). */
-export const LIFE_CYCLE_YEARS = 10;
 /** Alternatives shown beside the chosen pump. */
 const alternativesShown = 5;
 
@@ -30,11 +29,6 @@ export interface ProposalProfile {
   email: string;
   licenceNumber: string;
   logo: Buffer | null;
-}
-
-export interface PumpPrice {
-  listPrice: number;
-  currency: string;
 }
 
 export interface ProposalContent {
@@ -50,35 +44,6 @@ export interface ProposalContent {
   parts: readonly PartsLine[];
   madeAt: Date;
   catalogRevision: number;
-}
-
-/** A figure as the proposal prints it: fixed decimals, or a dash when unknown. */
-export function figure(value: number | null | undefined, decimals: number): string {
-  return value === null || value === undefined || !Number.isFinite(value) ? '-' : value.toFixed(decimals);
-}
-
-export interface CandidateCosts {
-  /** List price of every installed pump, or null when the catalog has no price. */
-  firstCost: number | null;
-  currency: string | null;
-  /**
-   * First cost plus LIFE_CYCLE_YEARS of energy, undiscounted: the initial and energy terms of
-   * LCC = Cic + Cin + Ce + Co + Cm + Cs + Cenv + Cd (Hydraulic Institute and Europump, "Pump
-   * Life Cycle Costs: A Guide to LCC Analysis for Pumping Systems", 2001, section 2); null
-   * without a price or a tariff.
-   */
-  lifeCycleCost: number | null;
-}
-
-export function candidateCosts(candidate: SelectionCandidate, prices: ReadonlyMap<number, PumpPrice>): CandidateCosts {
-  const price = prices.get(candidate.pumpId);
-  if (!price) return { firstCost: null, currency: null, lifeCycleCost: null };
-  const firstCost = price.listPrice * candidate.arrangement.installed;
-  return {
-    firstCost,
-    currency: price.currency,
-    lifeCycleCost: candidate.annualCost === null ? null : firstCost + LIFE_CYCLE_YEARS * candidate.annualCost,
-  };
 }
 
 interface Column {
@@ -212,14 +177,13 @@ function systemSection(doc: Doc, content: ProposalContent): void {
       { label: 'Extra K', width: 45, align: 'right' },
     ],
     system.segments.map((segment, index) => {
-      const series = PIPE_SERIES.find((candidate) => candidate.id === segment.series);
-      const size = series?.sizes.find((candidate) => candidate.id === segment.size);
+      const labels = pipeLabels(segment.series, segment.size);
       const fittings = segment.fittings
         .filter((fitting) => fitting.count > 0)
         .map((fitting) => `${fitting.count} x ${FITTINGS.find((entry) => entry.kind === fitting.kind)?.label}`);
       return [
         String(index + 1),
-        `${series?.label ?? segment.series}, ${size?.nominalLabel ?? segment.size}`,
+        `${labels.series}, ${labels.size}`,
         figure(segment.length, 2),
         fittings.join(', ') || 'none',
         String(segment.extraK),

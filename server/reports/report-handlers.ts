@@ -8,7 +8,8 @@ import { CompanyProfile, CurveRevision, Project, ProjectReport, Pump } from '../
 import { designFigures, type DesignFigures } from './design-selection';
 import { DEFAULT_WASTE_ALLOWANCE_PERCENT, partsList, partsListCsv } from './parts-list';
 import { optionalText } from './profile-handlers';
-import { proposalPdf, type PumpPrice } from './proposal-pdf';
+import type { PumpPrice } from './proposal-costs';
+import { proposalPdf } from './proposal-pdf';
 
 /*
  * Proposals and parts lists of a saved design. The project's owner and admins may make and read

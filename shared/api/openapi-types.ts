@@ -4289,7 +4289,7 @@ export interface operations {
         };
         requestBody?: never;
         responses: {
-            /** @description The PDF; `Digest` carries its sha-256 as stored. */
+            /** @description The PDF; `Repr-Digest` carries its sha-256 as stored. */
             200: {
                 headers: {
                     /** @description attachment; filename="<project>-report-<id>.pdf" */
