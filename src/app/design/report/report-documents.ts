@@ -85,6 +85,8 @@ import { SelectionDraft } from '../selection-draft';
       }
     </section>
   `,
+  // the design pages' card and muted text, as the report page around it uses them
+  styleUrls: ['../design-page.scss'],
   styles: `
     .rf-report-documents-form {
       display: flex;
