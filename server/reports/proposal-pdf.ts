@@ -269,10 +269,11 @@ function pumpsSection(doc: Doc, content: ProposalContent): SelectionCandidate[] 
 function chartSection(doc: Doc, content: ProposalContent, shown: readonly SelectionCandidate[]): void {
   if (shown.length === 0) return;
   const units = designUnits(content.design);
-  heading(doc, 'Comparison chart');
   const width = doc.page.width - doc.page.margins.left - doc.page.margins.right;
   const height = width * 0.5;
-  if (doc.y + height + 40 > bottomOf(doc)) doc.addPage();
+  // the heading goes with its chart onto the next page when they do not fit together
+  if (doc.y + height + 80 > bottomOf(doc)) doc.addPage();
+  heading(doc, 'Comparison chart');
   const svg = proposalChartSvg(
     {
       system: content.figures.systemCurve,
@@ -283,7 +284,12 @@ function chartSection(doc: Doc, content: ProposalContent, shown: readonly Select
     width,
     height,
   );
-  SVGtoPDF(doc, svg, doc.page.margins.left, doc.y, { width, height, fontCallback: () => fonts.regular });
+  SVGtoPDF(doc, svg, doc.page.margins.left, doc.y, {
+    width,
+    height,
+    assumePt: true,
+    fontCallback: () => fonts.regular,
+  });
   doc.y += height + 4;
   doc.fontSize(8);
   doc.text('Dashed: the system curve. Shaded: the duty band. ', doc.page.margins.left, doc.y, { continued: true });
