@@ -135,27 +135,27 @@ function selectionQuery(body: SelectionRequest): {
   };
 }
 
+/** The search's answer for one request, as `POST /selections` gives it (reports use it too). */
+export async function answerSelection(catalog: CatalogSnapshot, body: SelectionRequest): Promise<SelectionResponse> {
+  const { query, branched, gravityFlow, warnings } = selectionQuery(body);
+  const outcome = searchCatalog(await catalog.current(), query);
+  if (outcome.candidates.length === 0) warnings.push('no catalog pump meets this system in the arrangements asked for');
+  return {
+    units: echoedUnits(body.units),
+    duty: body.duty,
+    ...(body.duty.branch === undefined ? {} : { totalFlowBand: totalFlowBandAnswer(query, answerUnits(body.units)) }),
+    considered: outcome.considered,
+    inBand: outcome.inBand,
+    candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body, branched)),
+    ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
+    warnings,
+  };
+}
+
 export function createSelectionHandlers(catalog: CatalogSnapshot): Record<'searchSelections', RequestHandler> {
   return {
     searchSelections: async (request, response) => {
-      const body = request.body as SelectionRequest;
-      const { query, branched, gravityFlow, warnings } = selectionQuery(body);
-      const outcome = searchCatalog(await catalog.current(), query);
-      if (outcome.candidates.length === 0)
-        warnings.push('no catalog pump meets this system in the arrangements asked for');
-      const answer: SelectionResponse = {
-        units: echoedUnits(body.units),
-        duty: body.duty,
-        ...(body.duty.branch === undefined
-          ? {}
-          : { totalFlowBand: totalFlowBandAnswer(query, answerUnits(body.units)) }),
-        considered: outcome.considered,
-        inBand: outcome.inBand,
-        candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body, branched)),
-        ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
-        warnings,
-      };
-      response.json(answer);
+      response.json(await answerSelection(catalog, request.body as SelectionRequest));
     },
   };
 }

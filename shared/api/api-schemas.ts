@@ -110,3 +110,12 @@ export type PumpRevisionQuery = QueryOf<'getPump'>;
 export type PipeSizesQuery = QueryOf<'listPipeSizes'>;
 export type FittingsQuery = QueryOf<'listFittings'>;
 export type AuditEventsQuery = QueryOf<'listAuditEvents'>;
+
+// Reports and the company profile.
+export type CompanyProfile = Schemas['CompanyProfile'];
+export type CompanyProfileInput = Schemas['CompanyProfileInput'];
+export type CompanyLogo = Schemas['CompanyLogo'];
+export type ReportPaper = Schemas['ReportPaper'];
+export type ReportRequest = Schemas['ReportRequest'];
+export type ReportSummary = Schemas['ReportSummary'];
+export type ReportList = Schemas['ReportList'];

@@ -605,6 +605,121 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/account/profile": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** My company profile, which heads every proposal I make */
+        get: operations["getCompanyProfile"];
+        /** Save my company profile (the logo is sent on its own) */
+        put: operations["updateCompanyProfile"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/account/profile/logo": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The logo of my company profile, as uploaded */
+        get: operations["getCompanyLogo"];
+        /**
+         * Upload the logo of my company profile (PNG or JPEG, at most 1 MiB)
+         * @description The file is read by its content, not its name or declared type: a PNG (every chunk's CRC
+         *     right, IHDR first, nothing after IEND) or a baseline or progressive JPEG (from SOI to EOI,
+         *     with a frame header), at most 4000 x 4000 pixels and 1 MiB. Anything else (SVG, GIF, a
+         *     renamed program) is refused with 415; a PNG or JPEG that is broken or too large in pixels
+         *     with 422; both with `pointer` `/body/file`. The logo replaces the one before.
+         */
+        put: operations["uploadCompanyLogo"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/reports": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        /** The project's stored reports, newest first */
+        get: operations["listProjectReports"];
+        put?: never;
+        /**
+         * Make the proposal of the project's saved design as a PDF, and keep it
+         * @description The PDF holds the company profile, the client and site, the measured system, the duty band,
+         *     the chosen pumps and their alternatives with first cost (when known) and running cost, the
+         *     comparison chart, the crew's parts list and the cautions, with the date and the catalog
+         *     revision used. Its figures are the selection search's for the saved design. The project's
+         *     owner and admins may make one.
+         */
+        post: operations["createProjectReport"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/reports/{reportId}.pdf": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+                reportId: number;
+            };
+            cookie?: never;
+        };
+        /** One stored report of the project, as the PDF it was made */
+        get: operations["downloadProjectReport"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/parts-list.csv": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        /**
+         * The crew's parts list of the project's saved design, as CSV
+         * @description Pipe by series and nominal size with its total length and the standard sticks to buy
+         *     (10 ft and 20 ft, 6 m) after the waste allowance, fittings and valves by kind and size, the
+         *     pumps (duty and standby) of the first-ranked selection. Text cells a spreadsheet would run as a
+         *     formula start with an apostrophe.
+         */
+        get: operations["getProjectPartsList"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
 }
 export type webhooks = Record<string, never>;
 export interface components {
@@ -1335,6 +1450,57 @@ export interface components {
         };
         ProjectList: {
             projects: components["schemas"]["ProjectSummary"][];
+        };
+        /** @description No angle brackets or control characters; may be empty. */
+        ProfileText: string;
+        CompanyLogo: {
+            /** @enum {string} */
+            type: "image/png" | "image/jpeg";
+            width: number;
+            height: number;
+            byteLength: number;
+        };
+        CompanyProfileInput: {
+            name: components["schemas"]["ProfileText"];
+            /** @description Lines separated by line feeds; no angle brackets or other control characters. */
+            address: string;
+            phone: string;
+            email: string;
+            licenceNumber: string;
+        };
+        CompanyProfile: {
+            name: string;
+            address: string;
+            phone: string;
+            email: string;
+            licenceNumber: string;
+            logo: components["schemas"]["CompanyLogo"] | null;
+            /** Format: date-time */
+            updatedAt: string | null;
+        };
+        /** @enum {string} */
+        ReportPaper: "a4" | "letter";
+        ReportRequest: {
+            paper: components["schemas"]["ReportPaper"];
+            clientName?: components["schemas"]["ProfileText"];
+            siteAddress?: components["schemas"]["ProfileText"];
+            /** @description Pipe bought beyond the measured length; default 10. */
+            wasteAllowancePercent?: number;
+        };
+        ReportSummary: {
+            id: number;
+            projectId: number;
+            paper: components["schemas"]["ReportPaper"];
+            /** Format: date-time */
+            createdAt: string;
+            byteLength: number;
+            sha256: string;
+            /** @description The highest curve revision in the catalog when the report was made (0 for an empty catalog). */
+            catalogRevision: number;
+            downloadPath: string;
+        };
+        ReportList: {
+            reports: components["schemas"]["ReportSummary"][];
         };
         /** @enum {string} */
         Role: "admin" | "supplier-admin" | "designer" | "integrator";
@@ -3643,6 +3809,336 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content?: never;
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    getCompanyProfile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The profile; every field is empty until it is saved once. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "name": "Brookside Water Gardens",
+                     *       "address": "12 Mill Lane\nFairview",
+                     *       "phone": "+1 555 0100",
+                     *       "email": "office@brookside.example",
+                     *       "licenceNumber": "WG-20417",
+                     *       "logo": {
+                     *         "type": "image/png",
+                     *         "width": 320,
+                     *         "height": 120,
+                     *         "byteLength": 5120
+                     *       },
+                     *       "updatedAt": "2026-12-01T15:30:00.000Z"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["CompanyProfile"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+        };
+    };
+    updateCompanyProfile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "name": "Brookside Water Gardens",
+                 *       "address": "12 Mill Lane\nFairview",
+                 *       "phone": "+1 555 0100",
+                 *       "email": "office@brookside.example",
+                 *       "licenceNumber": "WG-20417"
+                 *     }
+                 */
+                "application/json": components["schemas"]["CompanyProfileInput"];
+            };
+        };
+        responses: {
+            /** @description The saved profile. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "name": "Brookside Water Gardens",
+                     *       "address": "12 Mill Lane\nFairview",
+                     *       "phone": "+1 555 0100",
+                     *       "email": "office@brookside.example",
+                     *       "licenceNumber": "WG-20417",
+                     *       "logo": null,
+                     *       "updatedAt": "2026-12-01T15:30:00.000Z"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["CompanyProfile"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    getCompanyLogo: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The logo's bytes. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "image/png": string;
+                    "image/jpeg": string;
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    uploadCompanyLogo: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": {
+                    /**
+                     * Format: binary
+                     * @description The PNG or JPEG file, at most 1 MiB and 4000 x 4000 pixels.
+                     */
+                    file: string;
+                };
+            };
+        };
+        responses: {
+            /** @description The profile with its new logo. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "name": "Brookside Water Gardens",
+                     *       "address": "12 Mill Lane\nFairview",
+                     *       "phone": "+1 555 0100",
+                     *       "email": "office@brookside.example",
+                     *       "licenceNumber": "WG-20417",
+                     *       "logo": {
+                     *         "type": "image/png",
+                     *         "width": 320,
+                     *         "height": 120,
+                     *         "byteLength": 5120
+                     *       },
+                     *       "updatedAt": "2026-12-01T15:30:00.000Z"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["CompanyProfile"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            413: components["responses"]["FileTooLarge"];
+            /** @description The file is not a PNG or JPEG; `pointer` is /body/file. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["ProblemDetails"];
+                };
+            };
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    listProjectReports: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Every stored report of the project, without its bytes. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "reports": [
+                     *         {
+                     *           "id": 9,
+                     *           "projectId": 4,
+                     *           "paper": "letter",
+                     *           "createdAt": "2026-12-02T10:00:00.000Z",
+                     *           "byteLength": 48213,
+                     *           "sha256": "9f2b5c0e4d3a1b2c3d4e5f60718293a4b5c6d7e8f90a1b2c3d4e5f60718293a4",
+                     *           "catalogRevision": 57,
+                     *           "downloadPath": "/api/v1/projects/4/reports/9.pdf"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ReportList"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    createProjectReport: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "paper": "letter",
+                 *       "clientName": "Ada Moss",
+                 *       "siteAddress": "4 Orchard Row, Fairview",
+                 *       "wasteAllowancePercent": 10
+                 *     }
+                 */
+                "application/json": components["schemas"]["ReportRequest"];
+            };
+        };
+        responses: {
+            /** @description The stored report; download it from `downloadPath`. */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "id": 9,
+                     *       "projectId": 4,
+                     *       "paper": "letter",
+                     *       "createdAt": "2026-12-02T10:00:00.000Z",
+                     *       "byteLength": 48213,
+                     *       "sha256": "9f2b5c0e4d3a1b2c3d4e5f60718293a4b5c6d7e8f90a1b2c3d4e5f60718293a4",
+                     *       "catalogRevision": 57,
+                     *       "downloadPath": "/api/v1/projects/4/reports/9.pdf"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ReportSummary"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    downloadProjectReport: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+                reportId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The PDF; `Repr-Digest` carries its sha-256 as stored. */
+            200: {
+                headers: {
+                    /** @description attachment; filename="<project>-report-<id>.pdf" */
+                    "Content-Disposition"?: string;
+                    /** @description sha-256=:<base64 of the checksum>: (RFC 9530) */
+                    "Repr-Digest"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/pdf": string;
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    getProjectPartsList: {
+        parameters: {
+            query?: {
+                /** @description Pipe bought beyond the measured length for cuts and waste; default 10. */
+                wasteAllowancePercent?: number;
+            };
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The parts list, as a download. */
+            200: {
+                headers: {
+                    /** @description attachment; filename="<project>-parts-list.csv" */
+                    "Content-Disposition"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example section,item,size,quantity,unit,sticks_10ft,sticks_20ft,sticks_6m,notes
+                     *     pipe,PVC Schedule 40,3 in,264,ft,27,14,14,240 ft measured + 10 % allowance
+                     *     fitting,90° standard elbow,3 in,4,each,,,,
+                     */
+                    "text/csv": string;
+                };
             };
             400: components["responses"]["BadRequest"];
             401: components["responses"]["Unauthorized"];
