@@ -22,6 +22,7 @@ import { createProjectHandlers } from './projects/project-handlers';
 import { createCurveImportHandlers } from './catalog/curve-import-handlers';
 import { createProfileHandlers } from './reports/profile-handlers';
 import { createReportHandlers } from './reports/report-handlers';
+import { clientFilesRouter } from './client-files';
 
 /**
  * JSON bodies are UTF-8 (with or without a byte-order mark) or UTF-16, as the contract says;
@@ -119,13 +120,7 @@ export function createApp({ sequelize, logger, clientFolder, accounts, trustedPr
   app.use('/api/v1', createOperationRouter({ document: openApiDocument, handlers, guardFor }));
   app.use('/api', notFoundHandler);
 
-  if (clientFolder && existsSync(join(clientFolder, 'index.html'))) {
-    app.use(express.static(clientFolder, { index: false, maxAge: '1h' }));
-    // Client-side routes: every other GET gets the app's page.
-    app.get('/{*splat}', (_request, response) => {
-      response.set('Cache-Control', 'no-cache').sendFile(join(clientFolder, 'index.html'));
-    });
-  }
+  if (clientFolder && existsSync(join(clientFolder, 'index.html'))) app.use(clientFilesRouter(clientFolder));
   app.use(notFoundHandler);
   app.use(createProblemHandler(logger));
   return app;

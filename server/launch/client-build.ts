@@ -4,6 +4,7 @@ import { existsSync, readFileSync, readdirSync, statSync, writeFileSync } from '
 import { join, relative } from 'node:path';
 import { projectRoot } from '../config';
 import { defaultClientFolder } from '../app';
+import { precompressClient } from './client-precompress';
 
 /** What the client build reads: when any of it changes, the build is stale. */
 const clientSources = ['src', 'shared', 'angular.json', 'tsconfig.json', 'tsconfig.app.json', 'package-lock.json'];
@@ -19,7 +20,8 @@ function* filesUnder(path: string): Generator<string> {
 }
 
 function sourceHash(): string {
-  const hash = createHash('sha256');
+  // the build's recipe counts too: a build made before its files were precompressed is stale
+  const hash = createHash('sha256').update('precompressed: br, gzip\0');
   for (const source of clientSources) {
     for (const file of filesUnder(join(projectRoot, source))) {
       hash.update(relative(projectRoot, file)).update('\0').update(readFileSync(file)).update('\0');
@@ -28,7 +30,10 @@ function sourceHash(): string {
   return hash.digest('hex');
 }
 
-/** Builds the Angular app with `ng build` when the build is missing or older than its sources. */
+/**
+ * Builds the Angular app with `ng build`, then its brotli and gzip copies, when the build is
+ * missing or older than its sources.
+ */
 export async function ensureClientBuilt(log: (line: string) => void): Promise<void> {
   const wanted = sourceHash();
   const built =
@@ -55,5 +60,9 @@ export async function ensureClientBuilt(log: (line: string) => void): Promise<vo
     child.once('exit', resolve);
   });
   if (exitCode !== 0) throw new Error(`ng build failed with exit code ${exitCode}; its messages are above`);
+  const { files, bytes, brotliBytes } = precompressClient(defaultClientFolder);
+  log(
+    `precompressed ${files} client files: ${Math.round(bytes / 1024)} KiB, ${Math.round(brotliBytes / 1024)} KiB as brotli`,
+  );
   writeFileSync(stampFile, `${wanted}\n`);
 }

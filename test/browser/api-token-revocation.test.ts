@@ -2,7 +2,7 @@ import { expect } from 'chai';
 import { newSecretToken } from '../../server/accounts/secret-tokens';
 import { PasswordResetLink } from '../../server/database/models';
 import { createUserWithSession, testPassword } from '../support/accounts';
-import { useAppInChromium } from '../support/app-in-chromium';
+import { axeViolations, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
 import { saveScreenshot } from '../support/browser';
 
 /**
@@ -79,6 +79,7 @@ describe('API tokens, the password and a reset in Chromium', function () {
     expect(await row.innerText()).to.match(/Revoked by the password reset on \w{3} \d{1,2}, \d{4}/);
     expect(await row.getByRole('button', { name: 'Revoke' }).count()).to.equal(0);
     await saveScreenshot(page, 'tokens-revoked-by-reset');
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
   });
 
   it('a password change with the box ticked revokes the live tokens and says how many', async () => {

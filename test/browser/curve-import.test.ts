@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { QueryTypes } from 'sequelize';
 import { createUserWithSession, testPassword } from '../support/accounts';
-import { scratchDatabase, useAppInChromium } from '../support/app-in-chromium';
+import { axeViolations, scratchDatabase, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
 import { saveScreenshot } from '../support/browser';
 import { seedDemoCatalog } from '../data-import/catalog-fixtures';
 
@@ -72,6 +72,7 @@ describe('a supplier admin loads a curve table in Chromium', function () {
     );
     expect(Number(stored.n)).to.equal(0);
     await saveScreenshot(page, 'curve-import-preview');
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
   });
 
   it('commits, downloads the current table with the new pump, and the pump appears in the catalog with its curve', async () => {
@@ -102,6 +103,7 @@ describe('a supplier admin loads a curve table in Chromium', function () {
     expect(await page.locator('rf-pump-curve-chart svg circle').count()).to.equal(6);
     expect(await page.locator('.rf-revisions').innerText()).to.contain('browser-test-curves.csv');
     await saveScreenshot(page, 'catalog-pump-page');
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
     expect(app.browser.offLoopbackRequests).to.deep.equal([]);
   });
 });

@@ -1,6 +1,6 @@
 import { expect } from 'chai';
 import { createUserWithSession, testPassword } from '../support/accounts';
-import { useAppInChromium } from '../support/app-in-chromium';
+import { axeViolations, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
 import { saveScreenshot } from '../support/browser';
 
 /** A designer changes the password from the account page, then signs in again with the new one. */
@@ -51,6 +51,7 @@ describe('changing the password in Chromium', function () {
     expect(note).to.contain('API tokens keep working');
     expect(await page.getByLabel('Current password').inputValue()).to.equal('');
     await saveScreenshot(page, 'password-changed');
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
   });
 
   it('signs in with the new password and no longer with the old one', async () => {

@@ -1,6 +1,6 @@
 import { expect } from 'chai';
 import { createUserWithSession, testPassword } from '../support/accounts';
-import { useAppInChromium } from '../support/app-in-chromium';
+import { axeViolations, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
 import { saveScreenshot } from '../support/browser';
 
 /** A designer saves a design as a project, changes the site, and opens the saved project again. */
@@ -41,6 +41,7 @@ describe('saved projects in Chromium', function () {
     await page.getByRole('row', { name: /Quarry garden stream/ }).waitFor();
     expect(await page.getByRole('row').count()).to.equal(2);
     await saveScreenshot(page, 'projects-list');
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
     await page.getByRole('button', { name: 'Open Quarry garden stream' }).click();
     await page.waitForURL(/design\/system/);
     expect(await page.locator('input[name=length-0]').inputValue()).to.equal('330');

@@ -1,6 +1,6 @@
 import { expect } from 'chai';
 import { readFileSync } from 'node:fs';
-import { scratchDatabase, useAppInChromium } from '../support/app-in-chromium';
+import { axeViolations, scratchDatabase, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
 import { saveScreenshot } from '../support/browser';
 import { createUserWithSession, testPassword } from '../support/accounts';
 import { seedSyntheticCatalog, syntheticShapes } from '../server/selection/synthetic-catalog';
@@ -59,6 +59,7 @@ describe('pump selection in Chromium', function () {
     );
     expect(await page.locator('rf-system-curve-preview svg path').count()).to.be.greaterThan(0);
     await saveScreenshot(page, 'site-and-system');
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
   });
 
   it('keeps the measured system when the design switches to metric and back', async () => {
@@ -90,6 +91,7 @@ describe('pump selection in Chromium', function () {
     await page.fill('input[name=turnoversMax]', '1.3');
     // 6,000 gal once an hour is 100 gpm (1 gpm = 60 gph)
     await page.locator('.rf-suggestion', { hasText: '100 to 130 gpm' }).waitFor();
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
     // 10 m3/s is 158503 gpm: the band's flows are held to the search's plausible flow
     await page.fill('input[name=flowMax]', '200000');
     await page.locator('input[name=flowMax]').blur();
@@ -102,6 +104,7 @@ describe('pump selection in Chromium', function () {
     await page.locator('tr[data-candidate]').first().waitFor({ timeout: 15_000 });
     expect(await page.locator('tr[data-candidate]').count()).to.be.greaterThan(3);
     expect(await page.locator('.rf-results-head').textContent()).to.contain('in the band');
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
   });
 
   it('compares three candidates on one chart, in both unit systems, and exports it', async () => {
@@ -136,6 +139,7 @@ describe('pump selection in Chromium', function () {
     expect(exported).to.contain('class="rf-system-curve"');
 
     await saveScreenshot(page, 'pump-comparison');
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
     expect(app.browser.offLoopbackRequests).to.deep.equal([]);
   });
 
@@ -153,6 +157,7 @@ describe('pump selection in Chromium', function () {
     expect(await report.getByRole('heading', { name: 'Pumps compared' }).count()).to.equal(1);
     expect(await report.locator('tr.rf-reasons-row').count()).to.equal(3);
     expect(await report.locator('svg.rf-chart path.rf-pump-curve').count()).to.equal(3);
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
     await page.emulateMedia({ media: 'print' });
     try {
       expect(await page.locator('.rf-toolbar').isVisible()).to.equal(false);

@@ -1,3 +1,4 @@
+import axe from 'axe-core';
 import type { Page } from 'playwright-core';
 import type { Sequelize } from 'sequelize';
 import { createSequelize } from '../../server/database/connection';
@@ -58,4 +59,37 @@ export function useAppInChromium(openDatabase: () => Promise<OpenDatabase> = ope
   });
 
   return fixture;
+}
+
+/** One axe rule a page breaks, with the elements that break it. */
+export interface AxeViolation {
+  rule: string;
+  impact: string;
+  help: string;
+  /** CSS selectors of the offending elements. */
+  targets: string[];
+}
+
+/**
+ * Runs axe-core inside the page as it stands (WCAG 2.1 A and AA rules and axe's best practices).
+ * The source goes in through the DevTools protocol, which the app's content security policy does
+ * not govern, so the page under test keeps its real policy.
+ */
+export async function axeViolations(page: Page): Promise<AxeViolation[]> {
+  await page.evaluate(axe.source);
+  return page.evaluate(async () => {
+    const { axe: inPage } = window as unknown as { axe: typeof axe };
+    const results = await inPage.run(document, { resultTypes: ['violations'] });
+    return results.violations.map((violation) => ({
+      rule: violation.id,
+      impact: violation.impact ?? 'unknown',
+      help: violation.help,
+      targets: violation.nodes.map((node) => node.target.join(' ')),
+    }));
+  });
+}
+
+/** The violations axe rates serious or critical: a page must have none. */
+export function seriousOrCritical(violations: readonly AxeViolation[]): AxeViolation[] {
+  return violations.filter((violation) => violation.impact === 'serious' || violation.impact === 'critical');
 }

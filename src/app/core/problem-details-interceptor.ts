@@ -1,6 +1,5 @@
 import { HttpContext, HttpContextToken, HttpErrorResponse, HttpInterceptorFn } from '@angular/common/http';
-import { inject } from '@angular/core';
-import { MatSnackBar } from '@angular/material/snack-bar';
+import { Injector, inject } from '@angular/core';
 import { catchError, throwError } from 'rxjs';
 import { describeHttpError } from './problem-details';
 
@@ -12,13 +11,19 @@ export function problemShownByCaller(): { context: HttpContext } {
   return { context: new HttpContext().set(PROBLEM_SHOWN_BY_CALLER, true) };
 }
 
-/** Shows the server's problem details to the user, then lets the caller handle the error too. */
+/**
+ * Shows the server's problem details to the user, then lets the caller handle the error too. The
+ * snack bar (and the overlay under it) loads with the first problem, not with the first page.
+ */
 export const problemDetailsInterceptor: HttpInterceptorFn = (request, next) => {
-  const snackBar = inject(MatSnackBar);
+  const injector = inject(Injector);
   return next(request).pipe(
     catchError((error: unknown) => {
       if (error instanceof HttpErrorResponse && !request.context.get(PROBLEM_SHOWN_BY_CALLER)) {
-        snackBar.open(describeHttpError(error), 'Dismiss', { duration: 8000, panelClass: 'rf-problem-snack' });
+        const message = describeHttpError(error);
+        void import('@angular/material/snack-bar').then(({ MatSnackBar }) =>
+          injector.get(MatSnackBar).open(message, 'Dismiss', { duration: 8000, panelClass: 'rf-problem-snack' }),
+        );
       }
       return throwError(() => error);
     }),

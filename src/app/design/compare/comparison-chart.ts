@@ -99,7 +99,7 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
   });
   const { root: svg, x, y, plot: edges } = frame;
   svg
-    .attr('role', 'img')
+    .attr('role', 'group')
     .attr(
       'aria-label',
       `System curve, duty band and ${model.candidates.length} pump curves with their operating points`,
