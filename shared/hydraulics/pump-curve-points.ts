@@ -13,7 +13,7 @@ const POINT_LIMITS = Object.freeze({ flow: 100, head: 1e4, power: 1e9 });
 export const LEAST_PEAK_EFFICIENCY = 0.05;
 
 /** Peak efficiency (fraction) at or below which the values look like fractions typed as percent. */
-const FRACTION_AS_PERCENT = 0.01;
+export const FRACTION_AS_PERCENT = 0.01;
 
 /**
  * The points in increasing flow order: a curve typed from its largest flow down (every flow
@@ -33,19 +33,22 @@ export function flowOrdered<Point extends { flow: number }>(
 }
 
 /**
- * Index of the first point of highest head: where a drooping curve (head rising before it falls)
- * starts to be usable; 0 for a curve that never rises before its peak.
+ * Index of the first point of highest head of a drooping curve (head never falling before that
+ * peak, rising to it at least once), where such a curve starts to be usable; 0 for any other
+ * curve, whose rises the rules refuse.
  * @param points - published points in increasing flow order
- * @returns the index of the peak
+ * @returns the index of the peak, or 0
  * @example
  * droopPeakIndex([{ flow: 0, head: 9 }, { flow: 0.002, head: 10 }, { flow: 0.004, head: 9 }, { flow: 0.006, head: 6 }]) // => 1
+ * droopPeakIndex([{ flow: 0, head: 9 }, { flow: 0.002, head: 8 }, { flow: 0.004, head: 10 }, { flow: 0.006, head: 6 }]) // => 0
  */
 export function droopPeakIndex(points: readonly { head: number }[]): number {
   let peak = 0;
   points.forEach((point, index) => {
     if (point.head > points[peak].head) peak = index;
   });
-  return peak;
+  const climbs = points.slice(1, peak + 1).every((point, index) => point.head >= points[index].head);
+  return climbs ? peak : 0;
 }
 
 /**
