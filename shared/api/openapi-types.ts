@@ -829,8 +829,11 @@ export interface components {
             /** @description Most candidates to return; default 20. */
             limit?: number;
         };
-        /** @enum {string} */
-        SelectionWarning: "velocity" | "run-out" | "dead-head";
+        /**
+         * @description estimated-curve: the pump's head curve is estimated from shut-off and open flow only (see CurveBasis).
+         * @enum {string}
+         */
+        SelectionWarning: "velocity" | "run-out" | "dead-head" | "estimated-curve";
         SelectionCandidate: {
             rank: number;
             pumpId: number;

@@ -1,10 +1,12 @@
 import { expect } from 'chai';
 import type { CatalogState } from '../../../server/catalog/catalog-snapshot';
 import { packedCurves } from '../../../server/selection/packed-curves';
+import type { CatalogPump } from '../../../server/catalog/catalog-snapshot';
+import { rankCandidate } from '../../../server/selection/selection-reasons';
 import { screenPoint, TopPairs } from '../../../server/selection/selection-ranking';
 import type { SelectionQuery } from '../../../server/selection/selection-query';
 import type { BandSystemTable } from '../../../server/selection/system-table';
-import { DEFAULT_PREFERRED_BAND, fitPumpCurve, polynomialValue } from '../../../shared/hydraulics';
+import { compileSystemCurve, DEFAULT_PREFERRED_BAND, fitPumpCurve, polynomialValue } from '../../../shared/hydraulics';
 
 /*
  * A curve estimated from two points ranks below a measured one of equal merit: the same head and
@@ -31,6 +33,7 @@ describe('ranking of estimated curves', () => {
     standby: false,
     band: DEFAULT_PREFERRED_BAND,
     hoursPerDay: 24,
+    tariffPerKWh: null,
     motorEfficiency: 1,
     maxInputPowerPerPump: null,
     onlyPreferredRegion: false,
@@ -49,5 +52,30 @@ describe('ranking of estimated curves', () => {
     ranking.offer(0, 1, keys[0]);
     ranking.offer(1, 1, keys[1]);
     expect(ranking.best().map(([index]) => index)).to.deep.equal([1, 0]);
+  });
+
+  it('says so in the candidate: a warning and a reason', () => {
+    const system = compileSystemCurve({
+      staticHead: 1,
+      frictionMethod: 'hazen-williams',
+      segments: [{ length: 5, insideDiameter: 0.05, hazenWilliamsC: 150 }],
+    });
+    const point = {
+      running: 1,
+      flow: 0.001,
+      head: 3,
+      flowPerPump: 0.001,
+      percentOfBep: null,
+      region: 'unknown-bep' as const,
+      efficiency: null,
+      inputPower: 70,
+      warnings: [],
+    };
+    const [forEstimated, forMeasured] = state.pumps.map((pump) =>
+      rankCandidate(pump as CatalogPump, 1, point, { ...query, system }),
+    );
+    expect(forEstimated?.warnings).to.include('estimated-curve');
+    expect(forEstimated?.reasons).to.include('estimated curve: only shut-off and open flow are published');
+    expect(forMeasured?.warnings).not.to.include('estimated-curve');
   });
 });
