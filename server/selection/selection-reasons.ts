@@ -7,6 +7,7 @@ import {
 } from '../../shared/hydraulics';
 import { dutyOfParallelPumps, type DutyOutcome, type DutyPoint } from '../calculations/arrangement-duty';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
+import { npshOfPair, npshReason } from './npsh-ranking';
 import type { RankedCandidate, SelectionQuery, SelectionWarningCode } from './selection-query';
 import { tierOf } from './selection-ranking';
 
@@ -92,6 +93,8 @@ export function rankCandidate(
     warnings.push('estimated-curve');
     reasons.push('estimated curve: only shut-off and open flow are published');
   }
+  const npsh = npshOfPair(pump, running, point.flow, query);
+  if (npsh) reasons.push(npshReason(npsh, query));
 
   const tier = tierOf(inBand, point.region === 'preferred', !query.requireOneFailed || oneFailedMeetsMinimum === true);
   const annualKWh = point.inputPower === null ? null : annualEnergy(point.inputPower, query.hoursPerDay);
@@ -108,6 +111,7 @@ export function rankCandidate(
     warnings,
     tier,
     reasons,
+    npsh,
     preferredRange: perPump ? { flowMin: perPump.flowMin * running, flowMax: perPump.flowMax * running } : null,
   };
 }

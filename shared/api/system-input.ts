@@ -1,4 +1,11 @@
-import { diameterToSI, headToSI, lengthToSI, type PipeSegmentInput, type SystemCurveInput } from '../hydraulics';
+import {
+  diameterToSI,
+  headToSI,
+  lengthToSI,
+  type BranchedSystemInput,
+  type PipeSegmentInput,
+  type SystemCurveInput,
+} from '../hydraulics';
 import type { CalculationUnits, PipeSystem } from './api-schemas';
 
 /*
@@ -30,11 +37,12 @@ function segmentInputOf(segment: PipeSystem['segments'][number], units: Calculat
     roughness: segment.roughness === undefined ? undefined : diameterToSI(segment.roughness, units.diameter),
     fittings: segment.fittings,
     extraK: segment.minorLossK,
+    side: segment.side,
   };
 }
 
 /**
- * The system as compileSystemCurve takes it: lengths, bores, roughness and heads converted to SI by
+ * The system as compileSystemCurve takes it: lengths (with the site and pump elevations), bores, roughness and heads converted to SI by
  * the engine's unit conversions (units.ts; NIST SP 811 factors), no outlet pressure meaning 0.
  * @param system - the contract's system, in the request's units
  * @param units - the request's units: `length` for lengths, `diameter` for bores and roughness, `head` for heads
@@ -50,10 +58,43 @@ function segmentInputOf(segment: PipeSystem['segments'][number], units: Calculat
  */
 export function systemInputOf(system: PipeSystem, units: CalculationUnits): SystemCurveInput {
   return {
-    staticHead: headToSI(system.staticHead, units.head),
+    // The contract requires staticHead on a system without branches; a missing one is refused at /staticHead.
+    staticHead: headToSI(system.staticHead ?? Number.NaN, units.head, '/staticHead'),
     outletPressureHead: headToSI(system.outletPressureHead ?? 0, units.head),
     segments: system.segments.map((segment) => segmentInputOf(segment, units)),
     temperature: system.waterTemperatureC,
     frictionMethod: system.frictionMethod,
+    siteElevation: system.siteElevation === undefined ? undefined : lengthToSI(system.siteElevation, units.length),
+    pumpElevation: system.pumpElevation === undefined ? undefined : lengthToSI(system.pumpElevation, units.length),
+  };
+}
+
+/**
+ * A branched system (one with `branches`) as compileBranchedSystem takes it, converted as in
+ * systemInputOf: the common run's segments, and each branch's outlet level, outlet pressure head
+ * (none meaning 0) and segments; null for a system without branches. (The contract refuses a
+ * system staticHead or outletPressureHead beside branches.)
+ * @param system - the contract's system, in the request's units
+ * @param units - the request's units
+ * @returns the engine's SI input (m, C), or null
+ * @example
+ * const units = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' }
+ * const pipe = [{ length: 100, insideDiameter: 2 }]
+ * const input = branchedSystemInputOf({ frictionMethod: 'hazen-williams', segments: [], branches: [{ name: 'falls', staticHead: 10, segments: pipe }, { name: 'return', staticHead: -1, segments: pipe }] }, units)
+ * input?.branches[0].staticHead // => 3.048
+ * input?.branches[1].outletPressureHead // => 0
+ */
+export function branchedSystemInputOf(system: PipeSystem, units: CalculationUnits): BranchedSystemInput | null {
+  if (system.branches === undefined) return null;
+  return {
+    frictionMethod: system.frictionMethod,
+    temperature: system.waterTemperatureC,
+    segments: system.segments.map((segment) => segmentInputOf(segment, units)),
+    branches: system.branches.map((branch) => ({
+      name: branch.name,
+      staticHead: headToSI(branch.staticHead, units.head),
+      outletPressureHead: headToSI(branch.outletPressureHead ?? 0, units.head),
+      segments: branch.segments.map((segment) => segmentInputOf(segment, units)),
+    })),
   };
 }

@@ -28,3 +28,5 @@ export * from './affinity-laws';
 export * from './npsh';
 export * from './plausible-limits';
 export * from './pump-curve-points';
+export * from './suction-side';
+export * from './gravity-flow';
