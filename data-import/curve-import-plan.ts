@@ -139,6 +139,7 @@ export function pumpReport(plan: PlannedPump, withCurves: boolean): CurveImportP
     worstResidual: fit ? fit.statistics.worstResidual : null,
     bep: fit?.bep ?? null,
     bepUnknownReason: fit ? fit.bepUnknownReason : null,
+    curveBasis: fit ? fit.curveBasis : null,
     declaredRanges: { preferred: read.preferred, allowable: read.allowable },
     ...(withCurves
       ? {

@@ -193,7 +193,8 @@ export function readPoint(cells: CellContext, values: RowValues): ReadPoint | nu
   const flowUnit = cells.unitOf('flow-unit') as FlowUnit;
   const headUnit = cells.unitOf('head-unit') as HeadUnit;
   const flow = numberCell(cells, values, 'flow', { unit: flowUnit, min: 0 });
-  const head = numberCell(cells, values, 'head', { unit: headUnit, above: 0 });
+  // zero head is the open-flow point, allowed on a pump's last row only (the engine's rule)
+  const head = numberCell(cells, values, 'head', { unit: headUnit, min: 0 });
   for (const [column, value] of [
     ['flow', flow],
     ['head', head],

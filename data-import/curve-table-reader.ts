@@ -1,6 +1,7 @@
 import { Readable } from 'node:stream';
 import { CsvError } from 'csv-parse';
 import type { CurveFileUnits } from '../shared/api/api-schemas';
+import { FRACTION_AS_PERCENT } from '../shared/hydraulics';
 import type { ImportIssue } from '../shared/messages/import-issues';
 import type { PumpKind, PumpStatus } from '../shared/vocabularies';
 import {
@@ -320,7 +321,7 @@ class TableState implements CellContext {
       const values = this.pumps
         .flatMap((pump) => pump.points.map((point) => point.efficiency))
         .filter((value) => value !== undefined);
-      if (values.length > 0 && values.every((value) => value <= 0.01)) {
+      if (values.length > 0 && values.every((value) => value <= FRACTION_AS_PERCENT)) {
         this.fileWarnings.push(
           issue(this.directives.get('efficiency-unit')!.row, 'efficiency-unit', 'efficiency-looks-fractional', {}),
         );

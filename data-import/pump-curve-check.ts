@@ -1,5 +1,7 @@
 import {
+  droopPeakIndex,
   fitPumpCurveWithIssues,
+  flowOrdered,
   HydraulicsInputError,
   pumpCurvePointErrors,
   type EngineInputError,
@@ -14,9 +16,12 @@ import type { ReadPump } from './curve-table-reader';
 
 /*
  * The checks that need a whole pump: the engine's point rules (shared/hydraulics/pump-curve-points.ts:
- * enough points, flows strictly increasing, power and efficiency on every point or none, NPSH on
- * three or more), the importer's own head rule (a small rise flagged and levelled, a large one
- * refused) and the engine's fit, whose complaints are mapped back to the file's rows.
+ * enough points or a two-point sheet, flows strictly increasing or all falling (then reversed, with
+ * a warning), zero head on the last point only, power and efficiency on every point or none, a
+ * plausible peak efficiency, NPSH on three or more), the importer's own head rule right of the peak
+ * (a small rise flagged and levelled, a large one refused; a rise to the peak larger than that is a
+ * drooping curve the engine uses from its peak on) and the engine's fit, whose complaints are mapped
+ * back to the file's rows.
  */
 
 export interface CheckedPump {
@@ -75,18 +80,27 @@ function engineIssue(pump: ReadPump, error: EngineInputError): ImportIssue {
 
 export function checkPumpCurve(pump: ReadPump, powerBasis: PowerBasis): CheckedPump {
   const warnings: ImportIssue[] = [...pump.warnings];
-  const points = pump.points;
   if (pump.hasRowErrors) return { fit: null, errors: [], warnings };
-  // The engine refuses any rise in head; the importer's own rule below tolerates a small one.
-  const ruleErrors = pumpCurvePointErrors(points).filter((error) => error.code !== 'head-rises');
+  const ordered = flowOrdered(pump.points);
+  const points = ordered.points;
+  const highest = Math.max(...points.map((point) => point.head));
+  // A rise to the peak within the importer's tolerance is levelled below, not taken as a droop.
+  const droopPeak = droopPeakIndex(points);
+  const peak =
+    droopPeak > 0 && (points[droopPeak].head - points[0].head) / highest > headRiseToleratedFraction ? droopPeak : 0;
+  // The engine refuses any rise after the peak; the importer's own rule below tolerates a small one.
+  const ruleErrors = pumpCurvePointErrors(pump.points).filter(
+    (error) => error.code !== 'head-rises' && (peak > 0 || error.code !== 'droop-too-few-points'),
+  );
   const errors = ruleErrors.map((error) => engineIssue(pump, error));
   if (ruleErrors.some((error) => error.code === 'too-few-points')) return { fit: null, errors, warnings };
-  const highest = Math.max(...points.map((point) => point.head));
+  if (ordered.reversed)
+    warnings.push(issue(pump.firstRow, 'flow', 'fit-issue', { issue: { code: 'points-reversed', params: {} } }));
   const fitted: PumpCurvePoint[] = [];
   let level = Infinity;
   points.forEach((point, index) => {
     const previous = points[index - 1];
-    if (previous && point.head > level) {
+    if (index >= peak && previous && point.head > level) {
       const share = (point.head - level) / highest;
       if (share > headRiseToleratedFraction) {
         errors.push(
@@ -98,7 +112,7 @@ export function checkPumpCurve(pump: ReadPump, powerBasis: PowerBasis): CheckedP
         );
       } else warnings.push(issue(point.row, 'head', 'head-rise-flagged', { share }));
     }
-    level = Math.min(level, point.head);
+    if (index >= peak) level = Math.min(level, point.head);
     fitted.push({
       flow: point.flow,
       head: Math.min(point.head, level),
@@ -116,7 +130,8 @@ export function checkPumpCurve(pump: ReadPump, powerBasis: PowerBasis): CheckedP
       ...(pump.allowable ? { allowableRegion: pump.allowable } : {}),
     });
   } catch (error) {
-    if (error instanceof HydraulicsInputError) return { fit: null, errors: [engineIssue(pump, error.issue)], warnings };
+    if (error instanceof HydraulicsInputError)
+      return { fit: null, errors: [engineIssue({ ...pump, points: [...points] }, error.issue)], warnings };
     throw error;
   }
   const { fit, issues } = result;

@@ -2,18 +2,22 @@ import type { CalculationUnits, CurveFitSummary, InlinePump, PreferredBandInput 
 import {
   checkPreferredBand,
   DEFAULT_PREFERRED_BAND,
-  fitPumpCurve,
+  fitPumpCurveWithIssues,
   flowToSI,
   headToSI,
   powerToSI,
   type PreferredBand,
   type PumpCurveFit,
 } from '../../shared/hydraulics';
+import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { pointerInto, withRequestPointers } from './engine-problem';
 import { answerUnits, powerUnitOf, requestValueText } from './request-units';
 import { requirePlausible } from './system-request';
 
-/** Fits an inline published curve; every problem is a 422 pointing under `pointer` (`/body/pump`). */
+/**
+ * Fits an inline published curve, its warnings in the request's units; every problem is a 422
+ * pointing under `pointer` (`/body/pump`).
+ */
 export function fitInlinePump(units: CalculationUnits, pump: InlinePump, pointer = '/body/pump'): PumpCurveFit {
   const power = powerUnitOf(units);
   const points = pump.curve.map((point, index) => {
@@ -30,11 +34,13 @@ export function fitInlinePump(units: CalculationUnits, pump: InlinePump, pointer
       ...(point.npshRequired === undefined ? {} : { npshRequired: headToSI(point.npshRequired, units.head) }),
     };
   });
-  return withRequestPointers(
-    () => fitPumpCurve(points, { powerBasis: pump.powerBasis }),
+  const valueText = requestValueText(units);
+  const { fit, issues } = withRequestPointers(
+    () => fitPumpCurveWithIssues(points, { powerBasis: pump.powerBasis }),
     (field) => field.replace(/^\/points/, `${pointer}/curve`),
-    requestValueText(units),
+    valueText,
   );
+  return { ...fit, warnings: issues.map((issue) => engineIssueText(issue, valueText)) };
 }
 
 /** The request's preferred band, checked, or the ANSI/HI 9.6.3 default of 70-120 % of BEP flow. */
@@ -52,6 +58,8 @@ export function summarizeFit(
   const to = answerUnits(units);
   return {
     degree: fit.degree,
+    // fits stored before the basis was recorded are all published
+    curveBasis: fit.curveBasis === 'estimated-from-two-points' ? fit.curveBasis : 'published',
     shutOffHead: to.head(fit.shutOffHead),
     flowMin: to.flow(fit.flowMin),
     flowMax: to.flow(fit.flowMax),

@@ -18,6 +18,8 @@ export interface PackedCurves {
   bepFlow: Float64Array;
   declaredMin: Float64Array;
   declaredMax: Float64Array;
+  /** 1 for a head curve estimated from two points (shut-off and open flow), else 0. */
+  estimated: Uint8Array;
 }
 
 function padded(target: Float64Array, index: number, values: readonly number[] | null): void {
@@ -42,6 +44,7 @@ export function packedCurves(state: CatalogState): PackedCurves {
     bepFlow: new Float64Array(count).fill(Number.NaN),
     declaredMin: new Float64Array(count).fill(Number.NaN),
     declaredMax: new Float64Array(count).fill(Number.NaN),
+    estimated: new Uint8Array(count),
   };
   state.pumps.forEach(({ fit, declaredPreferred }, index) => {
     padded(packed.coefficients, index, fit.headCoefficients);
@@ -57,6 +60,7 @@ export function packedCurves(state: CatalogState): PackedCurves {
         ? 1
         : 0;
     packed.electricalEfficiency[index] = fit.powerBasis === 'electrical' ? 1 : 0;
+    packed.estimated[index] = fit.curveBasis === 'estimated-from-two-points' ? 1 : 0;
     if (fit.bep) packed.bepFlow[index] = fit.bep.flow;
     if (declaredPreferred) {
       packed.declaredMin[index] = declaredPreferred.flowMin;

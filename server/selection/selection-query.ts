@@ -10,7 +10,7 @@ import type { CatalogPump } from '../catalog/catalog-snapshot';
 
 /* What a selection search is asked (SI throughout) and what it answers. */
 
-export type SelectionWarningCode = DutyWarning | 'velocity';
+export type SelectionWarningCode = DutyWarning | 'velocity' | 'estimated-curve';
 
 export interface SelectionQuery {
   system: CompiledSystemCurve;

@@ -13,6 +13,13 @@ export function tierOf(inBand: boolean, preferred: boolean, redundancyMet: boole
 export const TIER_SPAN = 1e12;
 
 /**
+ * Added to the key of a pump whose curve is estimated from two points, so that it ranks below a
+ * measured curve of equal merit: 0.01 kWh a year, below any difference an answer shows, yet
+ * above the keys' rounding (about 5e-4 at 2e12).
+ */
+const ESTIMATED_CURVE_PENALTY = 0.01;
+
+/**
  * Redundancy as asked: none needed, a standby that takes over, or, with one pump off, the rest
  * still reaching the band's minimum (the sign test at Qmin with running - 1 pumps).
  */
@@ -33,7 +40,7 @@ function redundancyMetBySignTest(
 
 /**
  * The rank key of a solved pair (tier x TIER_SPAN + annual kWh; unknown energy ranks last in its
- * tier), or null when a filter leaves it out. Read from the packed arrays without the engine's
+ * tier; an estimated curve just below a measured one of equal merit), or null when a filter leaves it out. Read from the packed arrays without the engine's
  * checks, as this runs for every pair in band, but with the same region rule as
  * dutyOfParallelPumps and the same power rule as powerAtOperatingPoint (fitted power, else water
  * power over fitted efficiency; motor efficiency applied unless the curve's power is electrical).
@@ -70,7 +77,9 @@ export function screenPoint(
     power === power
       ? Math.min(annualEnergyUnchecked(power * running, query.hoursPerDay), TIER_SPAN - 1)
       : TIER_SPAN - 1;
-  return tierOf(inBand, preferred, redundancyMet) * TIER_SPAN + energy;
+  return (
+    tierOf(inBand, preferred, redundancyMet) * TIER_SPAN + energy + packed.estimated[index] * ESTIMATED_CURVE_PENALTY
+  );
 }
 
 /**

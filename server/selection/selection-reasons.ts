@@ -89,6 +89,10 @@ export function rankCandidate(
   if (velocityExceeded(query.system, point.flow)) warnings.push('velocity');
   if (point.warnings.includes('run-out')) reasons.push('run-out');
   if (point.warnings.includes('dead-head')) reasons.push('near dead-head');
+  if (pump.fit.curveBasis === 'estimated-from-two-points') {
+    warnings.push('estimated-curve');
+    reasons.push('estimated curve: only shut-off and open flow are published');
+  }
   const npsh = npshOfPair(pump, running, point.flow, query);
   if (npsh) reasons.push(npshReason(npsh, query));
 

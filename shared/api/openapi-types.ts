@@ -848,6 +848,7 @@ export interface components {
         };
         PumpCurvePoint: {
             flow: number;
+            /** @description Head at this flow; 0 only on the last point (the open-flow point most sheets print). */
             head: number;
             /** @description Input power at this flow, in power units (default kW). */
             power?: number;
@@ -857,6 +858,7 @@ export interface components {
             npshRequired?: number;
         };
         InlinePump: {
+            /** @description Three points or more in increasing flow order (a curve typed from its largest flow down is reversed, with a warning), or a two-point sheet: head at zero flow and flow at zero head, fitted by an assumed shape and marked `estimated-from-two-points`. A drooping curve (head rising before it falls) is used from its highest head on, with a warning. */
             curve: components["schemas"]["PumpCurvePoint"][];
             /**
              * @description What power and efficiency mean: pump shaft (default) or electrical input (wire-to-water).
@@ -940,9 +942,16 @@ export interface components {
             /** @description Branched systems only, in the order of system.branches. */
             branches?: components["schemas"]["BranchFlow"][];
         };
+        /**
+         * @description Where a head curve comes from. published: fitted to the published points. estimated-from-two-points: only shut-off head H0 and open flow Qmax were published, so head follows H = H0 (1 - (Q/Qmax)^2), an assumed parabola (common practice for small centrifugal pumps, not a measured curve); such a curve has no efficiency or BEP and ranks below a published one of equal merit in a selection.
+         * @example estimated-from-two-points
+         * @enum {string}
+         */
+        CurveBasis: "published" | "estimated-from-two-points";
         /** @description The fitted curve of one pump, in the request's units. */
         CurveFitSummary: {
             degree: number;
+            curveBasis: components["schemas"]["CurveBasis"];
             shutOffHead: number;
             flowMin: number;
             flowMax: number;
@@ -1046,8 +1055,11 @@ export interface components {
             /** @description Most candidates to return; default 20. */
             limit?: number;
         };
-        /** @enum {string} */
-        SelectionWarning: "velocity" | "run-out" | "dead-head";
+        /**
+         * @description estimated-curve: the pump's head curve is estimated from shut-off and open flow only (see CurveBasis).
+         * @enum {string}
+         */
+        SelectionWarning: "velocity" | "run-out" | "dead-head" | "estimated-curve";
         SelectionCandidate: {
             rank: number;
             pumpId: number;
@@ -1197,6 +1209,8 @@ export interface components {
             /** @enum {integer} */
             degree: 2 | 3;
             headCoefficients: number[];
+            /** @description Absent on fits stored before it was recorded; those are published. */
+            curveBasis?: components["schemas"]["CurveBasis"];
             flowMin: number;
             flowMax: number;
             shutOffHead: number;
@@ -1303,6 +1317,8 @@ export interface components {
             worstResidual: number | null;
             bep: components["schemas"]["BestEfficiencyPoint"] | null;
             bepUnknownReason: string | null;
+            /** @description The fit's curve basis; null when the pump was refused. */
+            curveBasis?: components["schemas"]["CurveBasis"] | null;
             declaredRanges: components["schemas"]["DeclaredRanges"];
             /** @description The points as read, SI; left out of the stored history. */
             points?: components["schemas"]["CurvePointSi"][];
@@ -2961,6 +2977,7 @@ export interface operations {
                      *             -357.1,
                      *             -653061.2
                      *           ],
+                     *           "curveBasis": "published",
                      *           "flowMin": 0,
                      *           "flowMax": 0.0028,
                      *           "shutOffHead": 6.1,
@@ -3101,6 +3118,7 @@ export interface operations {
                      *                 "worstResidual": 0,
                      *                 "bep": null,
                      *                 "bepUnknownReason": "the curve has no efficiency or power data",
+                     *                 "curveBasis": "published",
                      *                 "declaredRanges": {
                      *                   "preferred": null,
                      *                   "allowable": null
@@ -3207,6 +3225,7 @@ export interface operations {
                      *             "efficiency": 0.41
                      *           },
                      *           "bepUnknownReason": null,
+                     *           "curveBasis": "published",
                      *           "declaredRanges": {
                      *             "preferred": {
                      *               "flowMin": 0.0011,
@@ -3239,6 +3258,7 @@ export interface operations {
                      *               -357.1,
                      *               -653061.2
                      *             ],
+                     *             "curveBasis": "published",
                      *             "flowMin": 0,
                      *             "flowMax": 0.0028,
                      *             "shutOffHead": 6.1,
@@ -3344,6 +3364,7 @@ export interface operations {
                      *           "worstResidual": 0,
                      *           "bep": null,
                      *           "bepUnknownReason": "the curve has no efficiency or power data",
+                     *           "curveBasis": "published",
                      *           "declaredRanges": {
                      *             "preferred": null,
                      *             "allowable": null

@@ -12,6 +12,12 @@ export interface EngineIssueParams {
   'segment-velocity': { segment: number; flow: number; velocity: number; limit: number };
   /** The least-squares head fit would rise; a constrained one is used instead. */
   'head-fit-constrained': { leastSquaresDegree: 2 | 3; degree: 2 | 3; heldFlatAt: 'first' | 'last' | null };
+  /** The published points ran from the largest flow down and were reversed. */
+  'points-reversed': Record<string, never>;
+  /** Head rises to a peak (m, at m3/s) before it falls: the curve is used from the peak on. */
+  'drooping-curve': { peakFlow: number; peakHead: number };
+  /** Only shut-off and open flow were published: the head curve is the fallback shape, not measured. */
+  'curve-estimated-from-two-points': Record<string, never>;
   /** The first published point is not at zero flow. */
   'shut-off-extrapolated': { flowMin: number };
   /** A curve scaled by the affinity laws (speed ratio, 1 = nominal). */
@@ -64,6 +70,13 @@ export interface EngineInputErrorParams {
   'too-few-points': { count: number };
   'flow-not-increasing': { flow: number; previousFlow: number };
   'head-rises': { head: number; previousHead: number };
+  'zero-head-not-last': Record<string, never>;
+  /** Points left from the peak of a drooping curve on, fewer than three. */
+  'droop-too-few-points': { count: number };
+  /** The peak efficiency (fraction) is 1 % or less: a fraction typed under a percent unit. */
+  'efficiency-looks-like-fraction': { peak: number };
+  /** The peak efficiency (fraction) is below the least plausible one (fraction). */
+  'efficiency-implausibly-low': { peak: number; least: number };
   'not-on-every-point': { what: 'power' | 'efficiency'; given: number; count: number };
   'no-falling-fit': Record<string, never>;
   'power-not-positive': Record<string, never>;

@@ -4,7 +4,7 @@ import { HydraulicsInputError, requireNonNegative, requirePositive } from './hyd
 import { leastSquaresPolynomial } from './least-squares';
 import { STANDARD_GRAVITY } from './physical-constants';
 import { maximumOver, polynomialShifted, polynomialValue, totalRiseOver } from './polynomial';
-import { validatePumpCurvePoints } from './pump-curve-points';
+import { droopPeakIndex, flowOrdered, isTwoPointSheet, validatePumpCurvePoints } from './pump-curve-points';
 import { waterDensity } from './water-properties';
 
 /*
@@ -17,7 +17,7 @@ import { waterDensity } from './water-properties';
 export interface PumpCurvePoint {
   /** m3/s, >= 0, strictly increasing along the curve */
   flow: number;
-  /** m, > 0, non-increasing along the curve */
+  /** m, > 0 (0 on the last point only: the open-flow point), non-increasing after its peak */
   head: number;
   /** Input power at this flow, W (shaft or electrical, see powerBasis). */
   power?: number;
@@ -28,6 +28,9 @@ export interface PumpCurvePoint {
 }
 
 export type PowerBasis = 'shaft' | 'electrical';
+
+/** Where the head curve comes from: published points, or the fallback shape through shut-off and open flow. */
+export type CurveBasis = 'published' | 'estimated-from-two-points';
 
 export interface PumpCurveFitOptions {
   /** What the supplier's power means: pump shaft power (default) or electrical input (wire-to-water). */
@@ -51,7 +54,9 @@ export interface PumpCurveFit {
   degree: 2 | 3;
   /** Head, m. */
   headCoefficients: number[];
-  /** Valid flow range, m3/s: from the first to the last published point. */
+  /** Published points fitted, or a two-point sheet's estimated shape (no efficiency or BEP from it). */
+  curveBasis: CurveBasis;
+  /** Valid flow range, m3/s: from the first published point (the peak of a drooping curve) to the last. */
   flowMin: number;
   flowMax: number;
   /** Head at zero flow, m (extrapolated, with a warning, when the first point is not at zero flow). */
@@ -199,6 +204,16 @@ function pointEfficiencies(points: readonly PumpCurvePoint[]): number[] | null {
   return null;
 }
 
+/**
+ * Head through a two-point sheet's shut-off head H0 and open flow Qmax: H = H0 (1 - (Q/Qmax)^2),
+ * the parabola of a small centrifugal pump with zero slope at shut-off. Our own assumption (common
+ * practice for a curve known only at its ends), not a published shape; such fits are marked
+ * 'estimated-from-two-points'.
+ */
+function estimatedTwoPointHead(shutOffHead: number, openFlow: number): number[] {
+  return [shutOffHead, 0, -shutOffHead / (openFlow * openFlow)];
+}
+
 function locateBep(
   efficiencyCoefficients: number[] | null,
   headCoefficients: number[],
@@ -233,8 +248,9 @@ function locateBep(
  * section 5.3): head of degree 2 or 3 that does not rise (preferredDegree and fitNonIncreasingHead, our own
  * rules); efficiency through the origin, from the points' efficiency or eta = rho g Q H / P (ANSI/HI 1.6 /
  * 14.6, water at 20 C); power of the head's degree; NPSH3 quadratic (3 or more points); BEP at the efficiency
- * maximum inside the data, else null with a reason. Throws HydraulicsInputError for fewer than three points,
- * non-finite values, flows not strictly increasing, or head rising with flow.
+ * maximum inside the data, else null with a reason. Points in falling flow order are reversed, a drooping
+ * curve is fitted from its peak on, a two-point sheet takes estimatedTwoPointHead (each with an issue).
+ * Throws HydraulicsInputError for the points validatePumpCurvePoints refuses.
  * @param points - published points: flow m3/s, head m, optional power W, efficiency 0-1, NPSH3 m
  * @param options - what the power means (shaft or electrical) and the supplier's allowable region, m3/s
  * @returns the fit (SI coefficients, BEP, statistics, warnings) as plain JSON, valid only on [flowMin, flowMax]
@@ -266,18 +282,41 @@ export function fitPumpCurveWithIssues(
   options: PumpCurveFitOptions = {},
 ): { fit: PumpCurveFit; issues: EngineIssue[] } {
   validatePumpCurvePoints(points);
+  const issues: EngineIssue[] = [];
+  const ordered = flowOrdered(points);
+  if (ordered.reversed) issues.push({ code: 'points-reversed', params: {} });
+  const peak = droopPeakIndex(ordered.points);
+  if (peak > 0) {
+    issues.push({
+      code: 'drooping-curve',
+      params: { peakFlow: ordered.points[peak].flow, peakHead: ordered.points[peak].head },
+    });
+  }
+  return fitOrderedPoints(ordered.points.slice(peak), options, issues);
+}
+
+/** The fit of points checked, in increasing flow order, from the peak on. */
+function fitOrderedPoints(
+  points: readonly PumpCurvePoint[],
+  options: PumpCurveFitOptions,
+  issues: EngineIssue[],
+): { fit: PumpCurveFit; issues: EngineIssue[] } {
+  const drooping = issues.some((issue) => issue.code === 'drooping-curve');
   const flows = points.map((point) => point.flow);
   const heads = points.map((point) => point.head);
   const flowMin = flows[0];
   const flowMax = flows[flows.length - 1];
-  const issues: EngineIssue[] = [];
+  const twoPoint = isTwoPointSheet(points);
 
-  const { degree, headCoefficients, note } = fitNonIncreasingHead(flows, heads);
+  const { degree, headCoefficients, note } = twoPoint
+    ? { degree: 2 as const, headCoefficients: estimatedTwoPointHead(heads[0], flowMax), note: null }
+    : fitNonIncreasingHead(flows, heads);
+  if (twoPoint) issues.push({ code: 'curve-estimated-from-two-points', params: {} });
   if (note) {
     issues.push(note);
   }
   const shutOffHead = headCoefficients[0];
-  if (flowMin > 0) {
+  if (flowMin > 0 && !drooping) {
     issues.push({ code: 'shut-off-extrapolated', params: { flowMin } });
   }
 
@@ -295,7 +334,8 @@ export function fitPumpCurveWithIssues(
     pointCount: points.length,
   };
 
-  const efficiencies = pointEfficiencies(points);
+  // Two points say nothing of efficiency between shut-off and open flow, where it is zero.
+  const efficiencies = twoPoint ? null : pointEfficiencies(points);
   const efficiencyCoefficients = efficiencies
     ? leastSquaresPolynomial(flows, efficiencies, powersUpTo(degree, 1))
     : null;
@@ -304,7 +344,7 @@ export function fitPumpCurveWithIssues(
       ? leastSquaresPolynomial(
           flows,
           points.map((point) => point.power as number),
-          powersUpTo(degree, 0),
+          powersUpTo(twoPoint ? 1 : degree, 0),
         )
       : null;
   const npshPoints = points.filter((point) => point.npshRequired !== undefined);
@@ -340,12 +380,13 @@ export function fitPumpCurveWithIssues(
     schemaVersion: 1,
     degree,
     headCoefficients,
+    curveBasis: twoPoint ? 'estimated-from-two-points' : 'published',
     flowMin,
     flowMax,
     shutOffHead,
     efficiencyCoefficients,
     powerCoefficients,
-    powerBasis: efficiencies ? (options.powerBasis ?? 'shaft') : null,
+    powerBasis: efficiencies || powerCoefficients ? (options.powerBasis ?? 'shaft') : null,
     npshRequired,
     ...locateBep(efficiencyCoefficients, headCoefficients, flowMin, flowMax),
     allowableRegion,

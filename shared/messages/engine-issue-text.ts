@@ -37,6 +37,11 @@ const ENGINE_ISSUE_TEXT: {
     `at ${units.flow(flow)} segment ${segment}: velocity ${units.velocity(velocity)} exceeds ${units.velocity(limit)}, the common-practice limit for plastic pipe`,
   'head-fit-constrained': ({ leastSquaresDegree, degree, heldFlatAt }) =>
     `the ${degreeName(leastSquaresDegree)} least-squares fit would rise within the data range; head is fitted as a ${degreeName(degree)}${heldFlatAt ? ` held flat at the ${heldFlatAt} point` : ''} so that it does not rise`,
+  'points-reversed': () => 'the points were given from the largest flow down; they are used in increasing flow order',
+  'drooping-curve': ({ peakFlow, peakHead }, units) =>
+    `head rises to ${units.head(peakHead)} at ${units.flow(peakFlow)} before it falls (a drooping curve): only the curve from that peak on is used`,
+  'curve-estimated-from-two-points': () =>
+    'estimated curve: only shut-off and open flow are published, so head between them follows H = H0 (1 - (Q/Qmax)^2), an assumed shape; no efficiency or BEP',
   'shut-off-extrapolated': () => 'shut-off head is extrapolated: the first point is not at zero flow',
   'affinity-scaled': ({ speedRatio }) => `scaled to ${(100 * speedRatio).toFixed(1)} % speed by the affinity laws`,
   'shut-off-below-static-head': ({ shutOffHead, staticHead }, units) =>
@@ -51,6 +56,11 @@ const ENGINE_ISSUE_TEXT: {
   'branch-no-flow': ({ name, outletHead, junctionHead }, units) =>
     `branch "${name}" takes no flow: its outlet head ${units.head(outletHead)} is above the head at the split ${units.head(junctionHead)}`,
 };
+
+/** Two decimals at most, for percentages in sentences. */
+function round(value: number): number {
+  return Math.round(value * 100) / 100;
+}
 
 function degreeName(degree: 2 | 3): string {
   return degree === 3 ? 'cubic' : 'quadratic';
@@ -93,11 +103,19 @@ const ENGINE_INPUT_ERROR_TEXT: {
   'no-diameter': () => 'a segment needs pipeSizeId or insideDiameter',
   'no-hazen-williams-c': () => 'give hazenWilliamsC, a material or a pipeSizeId',
   'no-roughness': () => 'give roughness, a material or a pipeSizeId',
-  'too-few-points': ({ count }) => `a pump curve needs at least three points, got ${count}`,
+  'too-few-points': ({ count }) =>
+    `a pump curve needs at least three points, or exactly two: shut-off (zero flow) and open flow (zero head); got ${count}`,
   'flow-not-increasing': ({ flow, previousFlow }, units) =>
     `flows must be strictly increasing: ${units.flow(flow)} follows ${units.flow(previousFlow)}`,
   'head-rises': ({ head, previousHead }, units) =>
     `head rises from ${units.head(previousHead)} to ${units.head(head)}; Riffle accepts only curves whose head does not rise with flow`,
+  'zero-head-not-last': () => 'only the last point (the open-flow point) may have zero head',
+  'droop-too-few-points': ({ count }) =>
+    `the curve is used from its highest head on, and only ${count} point(s) lie there; at least three are needed`,
+  'efficiency-looks-like-fraction': ({ peak }) =>
+    `efficiency looks like a fraction: the highest is ${round(peak * 100)} %; did you mean ${round(peak * 10000)} %?`,
+  'efficiency-implausibly-low': ({ peak, least }) =>
+    `the highest efficiency is ${round(peak * 100)} %, below the least plausible ${round(least * 100)} %; check the efficiency values`,
   'not-on-every-point': ({ what, given, count }) =>
     `${what} must be given on every point or on none (given on ${given} of ${count})`,
   'npsh-too-few-points': ({ count }) => `NPSH required needs at least three points when given, got ${count}`,

@@ -35,6 +35,29 @@ const smallTable = [
   'K-20,,,,,100,2.6,',
 ].join('\n');
 
+/** Invented sheets as the trade prints them: open flow at 0 ft, two points only, drooping, largest flow first. */
+const tradeSheets = [
+  'riffle-curve-table,1',
+  'flow-unit,gph',
+  'head-unit,ft',
+  'model_code,display_name,kind,flow,head',
+  'W-1,Open flow,submersible,0,12',
+  'W-1,,,2000,9.8',
+  'W-1,,,4000,4.4',
+  'W-1,,,4800,0',
+  'W-2,Two points,submersible,0,6',
+  'W-2,,,1200,0',
+  'W-3,Drooping,external-centrifugal,0,30',
+  'W-3,,,1000,33',
+  'W-3,,,2000,31',
+  'W-3,,,3000,26',
+  'W-3,,,4000,18',
+  'W-4,Largest flow first,submersible,3000,2',
+  'W-4,,,2000,5.5',
+  'W-4,,,1000,7.4',
+  'W-4,,,0,8',
+].join('\n');
+
 describe('curve-table reader', () => {
   it('reads a semicolon file with a BOM, decimal commas, quoted fields and comments the same as the comma file', async () => {
     const semicolon = `\uFEFF# a comment line\r\n${smallTable
@@ -114,7 +137,7 @@ describe('curve-table reader', () => {
     expect((await read(written)).pumps[0].details.displayName).to.equal('@SUM(A1)');
   });
 
-  it('flags a small head rise and fits with the head held level; refuses a large one', async () => {
+  it('flags a small head rise and fits with the head held level; refuses a large one after a fall', async () => {
     const small = await read(smallTable.replace('K-10,,,,,2,7.7,30', 'K-10,,,,,2,8.1,30'));
     expect(small.errors).to.deep.equal([]);
     const { checkPumpCurve } = await import('../../data-import/pump-curve-check');
@@ -123,10 +146,17 @@ describe('curve-table reader', () => {
     expect(checked.warnings.find((warning) => warning.column === 'head')).to.include({ row: 7 });
     expect(checked.fit).to.not.equal(null);
     const large = checkPumpCurve(
+      (await read(smallTable.replace('K-10,,,,,4,7.0,48', 'K-10,,,,,4,8.5,48'))).pumps[0],
+      'shaft',
+    );
+    expect(large.errors[0]).to.include({ row: 8, column: 'head', code: 'head-rise-refused' });
+    // a large rise from shut-off to a peak, falling after it, is a drooping curve: used from the peak on
+    const drooping = checkPumpCurve(
       (await read(smallTable.replace('K-10,,,,,2,7.7,30', 'K-10,,,,,2,9.0,30'))).pumps[0],
       'shaft',
     );
-    expect(large.errors[0]).to.include({ row: 7, column: 'head' });
+    expect(drooping.errors).to.deep.equal([]);
+    expect(drooping.fit?.flowMin).to.be.closeTo(flowToSI(2, 'm3/h'), 1e-15);
   });
 });
 
@@ -196,6 +226,43 @@ describe('curve import into the database', function () {
     expect(report.pumps[0].fit?.bep).to.not.equal(null);
     expect(report.pumps[1].bep).to.equal(null);
     expect(await tableChecksums(sequelize)).to.deep.equal(before);
+  });
+
+  it('accepts the sheets the trade prints: open flow, two points (estimated), drooping, largest flow first', async () => {
+    const before = await tableChecksums(sequelize);
+    const report = await importText(sequelize, supplier, tradeSheets, { dryRun: true });
+    expect(report.errors).to.deep.equal([]);
+    const [open, two, drooping, reversed] = report.pumps;
+    expect(open.fit?.flowMax).to.be.closeTo(flowToSI(4800, 'gph'), 1e-15);
+    expect(open.curveBasis).to.equal('published');
+    expect(two.curveBasis).to.equal('estimated-from-two-points');
+    expect(two.fit?.curveBasis).to.equal('estimated-from-two-points');
+    expect(two.bep).to.equal(null);
+    const codes = (pump: typeof open) =>
+      pump.warnings.map((warning) => (warning.params.issue as { code: string } | undefined)?.code);
+    expect(codes(two)).to.include('curve-estimated-from-two-points');
+    expect(codes(drooping)).to.include('drooping-curve');
+    expect(drooping.fit?.flowMin).to.be.closeTo(flowToSI(1000, 'gph'), 1e-15);
+    expect(codes(reversed)).to.include('points-reversed');
+    expect(reversed.fit?.flowMin).to.equal(0);
+    expect(await tableChecksums(sequelize)).to.deep.equal(before);
+  });
+
+  it('stores a two-point pump with its estimated marker', async () => {
+    const twoPoint = tradeSheets
+      .split('\n')
+      .filter((line) => !/^W-[134],/.test(line))
+      .join('\n');
+    const wren = await Supplier.create({ code: 'WREN', name: 'Wren Test Pumps (invented)' });
+    const report = await importText(sequelize, wren, twoPoint, { fileName: 'two-point.csv' });
+    expect(report.committed).to.equal(true);
+    const [row] = await sequelize.query<{ fit: unknown }>(
+      `SELECT r.fit FROM pumps p JOIN curve_revisions r ON r.id = p.current_revision_id
+        WHERE p.supplier_id = ? AND p.model_code = 'W-2'`,
+      { replacements: [wren.id], type: QueryTypes.SELECT },
+    );
+    const stored = (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as { curveBasis: string };
+    expect(stored.curveBasis).to.equal('estimated-from-two-points');
   });
 
   it('commits every pump with its points, preferred range and the engine fit of those points', async () => {

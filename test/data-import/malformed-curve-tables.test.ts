@@ -121,6 +121,13 @@ const expectedFirstErrors: Record<
   '32-blank-model-code.csv': { row: 10, column: 'model_code', code: 'model-code-blank' },
   '33-header-only.csv': { row: null, column: null, code: 'no-points' },
   '34-semicolon-bad-number.csv': { row: 7, column: 'head', code: 'not-a-number', params: { value: '5,6,1' } },
+  '35-efficiency-fraction-under-percent.csv': {
+    row: 9,
+    column: 'efficiency',
+    code: 'curve-refused',
+    engineCode: 'efficiency-looks-like-fraction',
+  },
+  '36-zero-head-before-last.csv': { row: 8, column: 'head', code: 'curve-refused', engineCode: 'zero-head-not-last' },
 };
 
 /** The sentence the one table makes for a reported issue's code and values. */

@@ -59,7 +59,23 @@ const inputSamples: { [Code in EngineInputErrorCode]: [EngineInputErrorParams[Co
   'no-diameter': [{}, 'a segment needs pipeSizeId or insideDiameter'],
   'no-hazen-williams-c': [{}, 'give hazenWilliamsC, a material or a pipeSizeId'],
   'no-roughness': [{}, 'give roughness, a material or a pipeSizeId'],
-  'too-few-points': [{ count: 2 }, 'a pump curve needs at least three points, got 2'],
+  'too-few-points': [
+    { count: 2 },
+    'a pump curve needs at least three points, or exactly two: shut-off (zero flow) and open flow (zero head); got 2',
+  ],
+  'zero-head-not-last': [{}, 'only the last point (the open-flow point) may have zero head'],
+  'droop-too-few-points': [
+    { count: 2 },
+    'the curve is used from its highest head on, and only 2 point(s) lie there; at least three are needed',
+  ],
+  'efficiency-looks-like-fraction': [
+    { peak: 0.0058 },
+    'efficiency looks like a fraction: the highest is 0.58 %; did you mean 58 %?',
+  ],
+  'efficiency-implausibly-low': [
+    { peak: 0.03, least: 0.05 },
+    'the highest efficiency is 3 %, below the least plausible 5 %; check the efficiency values',
+  ],
   'flow-not-increasing': [
     { flow: 0.01, previousFlow: 0.02 },
     'flows must be strictly increasing: 0.01 m3/s follows 0.02 m3/s',
@@ -127,6 +143,15 @@ const issueSamples: { [Code in EngineIssueCode]: [EngineIssueParams[Code], strin
   'head-fit-constrained': [
     { leastSquaresDegree: 3, degree: 3, heldFlatAt: 'first' },
     'the cubic least-squares fit would rise within the data range; head is fitted as a cubic held flat at the first point so that it does not rise',
+  ],
+  'points-reversed': [{}, 'the points were given from the largest flow down; they are used in increasing flow order'],
+  'drooping-curve': [
+    { peakFlow: 0.002, peakHead: 10.5 },
+    'head rises to 10.50 m at 0.002 m3/s before it falls (a drooping curve): only the curve from that peak on is used',
+  ],
+  'curve-estimated-from-two-points': [
+    {},
+    'estimated curve: only shut-off and open flow are published, so head between them follows H = H0 (1 - (Q/Qmax)^2), an assumed shape; no efficiency or BEP',
   ],
   'shut-off-extrapolated': [{ flowMin: 0.001 }, 'shut-off head is extrapolated: the first point is not at zero flow'],
   'affinity-scaled': [{ speedRatio: 0.8 }, 'scaled to 80.0 % speed by the affinity laws'],
@@ -203,7 +228,7 @@ describe('engine refusals and issues as codes', () => {
     ];
     expect(pumpCurvePointErrors(points).map((error) => [error.code, error.pointer])).to.deep.equal([
       ['flow-not-increasing', '/points/1/flow'],
-      ['head-rises', '/points/1/head'],
+      ['droop-too-few-points', '/points/1/head'],
       ['not-on-every-point', '/points/1/power'],
       ['npsh-too-few-points', '/points/2/npshRequired'],
     ]);

@@ -16,6 +16,11 @@ import {
   HEAD_UNITS,
   LENGTH_UNITS,
   PIPE_MATERIALS,
+  fitPumpCurve,
+  flowToSI,
+  headFromSI,
+  headToSI,
+  polynomialValue,
 } from '../../../shared/hydraulics';
 
 /*
@@ -287,6 +292,132 @@ describe('calculations API', function () {
     });
   });
 
+  describe('POST /api/v1/calculations/operating-point with curves as the trade publishes them', () => {
+    /** An invented pond-pump sheet (gph, ft) whose last point is its open flow at 0 ft. */
+    const pondSheet = [
+      { flow: 0, head: 12 },
+      { flow: 1000, head: 11.2 },
+      { flow: 2000, head: 9.8 },
+      { flow: 3000, head: 7.6 },
+      { flow: 4000, head: 4.4 },
+      { flow: 4800, head: 0 },
+    ];
+    const pondUnits = { flow: 'gph', head: 'ft', length: 'ft', diameter: 'in' } as const;
+    const lowLift = {
+      staticHead: 1.5,
+      frictionMethod: 'hazen-williams',
+      segments: [{ length: 10, insideDiameter: 2, hazenWilliamsC: 150 }],
+    };
+    /** System head by the US form of Hazen-Williams (ft, gpm, in), with flows in gph. */
+    const lowLiftHead = (gph: number) => 1.5 + hazenWilliamsUsFeet(10, gph / 60, 2, 150);
+
+    /** Brute force: the first sign change of pump minus system head on a 0.01 gph grid. */
+    function bruteForceCrossing(pumpHead: (gph: number) => number, lastFlow: number): number {
+      for (let gph = 0; gph <= lastFlow; gph += 0.01) {
+        if (pumpHead(gph) - lowLiftHead(gph) <= 0) return gph;
+      }
+      return Number.NaN;
+    }
+
+    it('crosses a low-lift system on a curve ending at its open-flow point, where the fit says', async () => {
+      const response = await post('/calculations/operating-point', {
+        units: pondUnits,
+        system: lowLift,
+        pump: { curve: pondSheet },
+      });
+      expect(response.status, JSON.stringify(response.body)).to.equal(200);
+      const validate = responseValidator('/calculations/operating-point', 'post');
+      expect(validate(response.body), JSON.stringify(validate.errors)).to.equal(true);
+      expect(response.body.fit.curveBasis).to.equal('published');
+      expect(response.body.fit.flowMax).to.be.closeTo(4800, 1e-9);
+      const fit = fitPumpCurve(
+        pondSheet.map((point) => ({ flow: flowToSI(point.flow, 'gph'), head: headToSI(point.head, 'ft') })),
+      );
+      const fittedHead = (gph: number) => headFromSI(polynomialValue(fit.headCoefficients, flowToSI(gph, 'gph')), 'ft');
+      const expected = bruteForceCrossing(fittedHead, 4800);
+      const point = response.body.operatingPoint;
+      expect(point.flow).to.be.within(0, 4800);
+      // the engine's SI Hazen-Williams differs from the US form by up to ~0.6 % of the friction head
+      expect(point.flow).to.be.closeTo(expected, 10);
+      expect(point.flow).to.be.within(4200, 4600);
+      // without the open-flow point the same system runs the pump out past its last point
+      const truncated = await post('/calculations/operating-point', {
+        units: pondUnits,
+        system: lowLift,
+        pump: { curve: pondSheet.slice(0, 5) },
+      }).expect(422);
+      expect(truncated.body.reason).to.equal('beyond-curve');
+    });
+
+    it('answers a two-point sheet on the stated shape, marked estimated, without BEP or efficiency', async () => {
+      const response = await post('/calculations/operating-point', {
+        units: pondUnits,
+        system: lowLift,
+        pump: { curve: [pondSheet[0], pondSheet[5]] },
+      });
+      expect(response.status, JSON.stringify(response.body)).to.equal(200);
+      const validate = responseValidator('/calculations/operating-point', 'post');
+      expect(validate(response.body), JSON.stringify(validate.errors)).to.equal(true);
+      expect(response.body.fit.curveBasis).to.equal('estimated-from-two-points');
+      expect(response.body.fit.bep).to.equal(null);
+      expect(response.body.fit.warnings.join(' ')).to.contain('estimated curve');
+      expect(response.body.operatingPoint.efficiency).to.equal(null);
+      // H = H0 (1 - (Q/Qmax)^2), solved here by brute force against the hand system curve
+      const expected = bruteForceCrossing((gph) => 12 * (1 - (gph / 4800) ** 2), 4800);
+      expect(response.body.operatingPoint.flow).to.be.closeTo(expected, 10);
+    });
+
+    it('uses a drooping curve from its peak on and sorts points typed from the largest flow down, saying so', async () => {
+      const drooping = await post('/calculations/operating-point', {
+        units: pondUnits,
+        system: lowLift,
+        pump: { curve: [{ flow: 0, head: 11 }, ...pondSheet.slice(1)] },
+      });
+      expect(drooping.status, JSON.stringify(drooping.body)).to.equal(200);
+      expect(drooping.body.fit.flowMin).to.be.closeTo(1000, 1e-9);
+      expect(drooping.body.fit.warnings.join(' ')).to.contain('head rises to 11.2 ft at 1000 gph before it falls');
+      const reversed = await post('/calculations/operating-point', {
+        units: pondUnits,
+        system: lowLift,
+        pump: { curve: [...pondSheet].reverse() },
+      });
+      expect(reversed.status, JSON.stringify(reversed.body)).to.equal(200);
+      expect(reversed.body.fit.warnings.join(' ')).to.contain('largest flow down');
+      const forward = await post('/calculations/operating-point', {
+        units: pondUnits,
+        system: lowLift,
+        pump: { curve: pondSheet },
+      });
+      expect(reversed.body.operatingPoint.flow).to.be.closeTo(forward.body.operatingPoint.flow, 1e-9);
+    });
+
+    it('refuses efficiencies typed as fractions under percent, naming the point, with a hint', async () => {
+      const efficiencies = [0, 0.38, 0.52, 0.58, 0.45, 0];
+      const response = await post('/calculations/operating-point', {
+        units: pondUnits,
+        system: lowLift,
+        pump: { curve: pondSheet.map((point, index) => ({ ...point, efficiency: efficiencies[index] })) },
+      }).expect(422);
+      expect(response.type).to.equal('application/problem+json');
+      expect(response.body.errors[0]).to.deep.equal({
+        pointer: '/body/pump/curve/3/efficiency',
+        detail: 'efficiency looks like a fraction: the highest is 0.58 %; did you mean 58 %?',
+      });
+    });
+
+    it("speaks of a refused curve's flows in the request's units", async () => {
+      const response = await post('/calculations/operating-point', {
+        units: pondUnits,
+        system: lowLift,
+        pump: { curve: [pondSheet[0], pondSheet[2], pondSheet[1], pondSheet[3]] },
+      }).expect(422);
+      expect(response.body.errors[0]).to.deep.equal({
+        pointer: '/body/pump/curve/2/flow',
+        detail: 'flows must be strictly increasing: 1000 gph follows 2000 gph',
+      });
+    });
+  });
+
   describe('GET /api/v1/pipe-sizes and /api/v1/fittings', () => {
     it('lists 3" Schedule 40 PVC with the ASTM D1785 bore, in inches or millimetres', async () => {
       const inches = await get('/pipe-sizes').expect(200);
@@ -471,7 +602,7 @@ describe('calculations API', function () {
         pointer: '/body/pump/curve/2/head',
       },
       {
-        name: 'two points only',
+        name: 'two points that are not shut-off and open flow',
         path: '/calculations/operating-point',
         body: {
           units: usUnits,
@@ -483,8 +614,32 @@ describe('calculations API', function () {
             ],
           },
         },
+        status: 422,
+        pointer: '/body/pump/curve',
+      },
+      {
+        name: 'one point only',
+        path: '/calculations/operating-point',
+        body: { units: usUnits, system: practitionerSystem, pump: { curve: [{ flow: 0, head: 40 }] } },
         status: 400,
         pointer: '/body/pump/curve',
+      },
+      {
+        name: 'zero head before the last point',
+        path: '/calculations/operating-point',
+        body: {
+          units: usUnits,
+          system: practitionerSystem,
+          pump: {
+            curve: [
+              { flow: 0, head: 40 },
+              { flow: 50, head: 0 },
+              { flow: 100, head: 0 },
+            ],
+          },
+        },
+        status: 422,
+        pointer: '/body/pump/curve/1/head',
       },
       {
         name: 'efficiency on some points only',
