@@ -108,7 +108,16 @@ export function createCalculationHandlers(
           outletPressureHead: to.head(breakdown.outletPressureHead),
           frictionHead: to.head(breakdown.frictionHead),
           minorHead: to.head(breakdown.minorHead),
+          equipmentHead: to.head(breakdown.equipmentHead),
           velocities: breakdown.segments.map((segment) => to.length(segment.velocity)),
+          reynoldsNumbers: breakdown.segments.map((segment) => segment.reynolds),
+          equipment: breakdown.segments.flatMap((segment) =>
+            segment.equipment.map((entry) => ({
+              segment: segment.index,
+              name: entry.name,
+              headLoss: to.head(entry.headLoss),
+            })),
+          ),
         };
       });
       const answer: SystemCurveResponse = { units: echoedUnits(body.units), points, warnings: [...warnings] };
@@ -207,24 +216,18 @@ export function createCalculationHandlers(
         frictionFactor = craneFullyTurbulentFrictionFactor(bore);
       }
       const answer: FittingsResponse = {
-        fittings: FITTINGS.map((fitting) =>
-          fitting.resistance.method === 'fixed'
-            ? {
-                kind: fitting.kind,
-                label: fitting.label,
-                method: 'fixed',
-                k: fitting.resistance.k,
-                source: fitting.source,
-              }
-            : {
-                kind: fitting.kind,
-                label: fitting.label,
-                method: 'crane',
-                multiplier: fitting.resistance.multiplier,
-                ...(frictionFactor === null ? {} : { k: fitting.resistance.multiplier * frictionFactor }),
-                source: fitting.source,
-              },
-        ),
+        fittings: FITTINGS.map(({ kind, label, resistance, source }) => {
+          if (resistance.method === 'fixed') return { kind, label, method: 'fixed', k: resistance.k, source };
+          if (resistance.method === 'diameter-ratio') return { kind, label, method: 'diameter-ratio', source };
+          return {
+            kind,
+            label,
+            method: 'crane',
+            multiplier: resistance.multiplier,
+            ...(frictionFactor === null ? {} : { k: resistance.multiplier * frictionFactor }),
+            source,
+          };
+        }),
       };
       response.set('Cache-Control', 'private, max-age=3600').json(answer);
     },

@@ -591,7 +591,7 @@ export type webhooks = Record<string, never>;
 export interface components {
     schemas: {
         /** @enum {string} */
-        FlowUnit: "gpm" | "gph" | "L/min" | "L/s" | "m3/h" | "m3/s";
+        FlowUnit: "gpm" | "gph" | "L/h" | "L/min" | "L/s" | "m3/h" | "m3/s";
         /** @enum {string} */
         HeadUnit: "m" | "ft";
         /** @enum {string} */
@@ -614,8 +614,25 @@ export interface components {
         };
         FittingCount: {
             /** @enum {string} */
-            kind: "elbow-90-standard" | "elbow-90-long-radius" | "elbow-45-standard" | "bend-180-return" | "tee-run" | "tee-branch" | "valve-gate" | "valve-ball" | "valve-globe" | "valve-butterfly" | "check-valve-swing" | "check-valve-swing-clearway" | "foot-valve-poppet" | "foot-valve-hinged" | "entrance-sharp" | "entrance-inward-projecting" | "exit";
+            kind: "elbow-90-standard" | "elbow-90-long-radius" | "elbow-45-standard" | "bend-180-return" | "tee-run" | "tee-branch" | "valve-gate" | "valve-ball" | "valve-globe" | "valve-butterfly" | "check-valve-swing" | "check-valve-swing-clearway" | "check-valve-spring" | "foot-valve-poppet" | "foot-valve-hinged" | "entrance-sharp" | "entrance-inward-projecting" | "exit" | "reducer" | "expansion" | "union" | "bulkhead" | "valve-three-way-run" | "valve-three-way-branch";
             count: number;
+            /** @description Reducer (flow in from a larger pipe) and expansion (flow out into a larger pipe): this segment's bore over the larger bore. Required for those two kinds. */
+            diameterRatio?: number;
+            /** @description Reducer and expansion: included cone angle in degrees; default 180, a sudden change. */
+            angle?: number;
+        };
+        /** @description A filter, UV clarifier, skimmer, spray bar or heat exchanger as its maker rates it: a head loss at a flow. Its loss at another flow Q is headLoss x (Q / atFlow)^2 (fully turbulent, K constant: Crane TP-410 ch. 2). */
+        Equipment: {
+            name: string;
+            /** @description The maker's head loss at atFlow, in headLossUnit. */
+            headLoss: number;
+            /**
+             * @description Unit of headLoss: a head unit or a pressure unit (a pressure drop, turned into head of the system's water); default the request's head unit.
+             * @enum {string}
+             */
+            headLossUnit?: "m" | "ft" | "psi" | "kPa" | "bar";
+            /** @description The rated flow, in flow units; zero is refused (422). */
+            atFlow: number;
         };
         /** @description One run of pipe of one bore. Give `pipe` (a catalogue size id) or `insideDiameter`; C and roughness default to the size's or the material's. */
         PipeSegment: {
@@ -633,6 +650,8 @@ export interface components {
             fittings?: components["schemas"]["FittingCount"][];
             /** @description Extra resistance coefficient (filter module, manifold, nozzle), dimensionless. */
             minorLossK?: number;
+            /** @description Equipment rated by a head loss at a flow, beside the K of the fittings. */
+            equipment?: components["schemas"]["Equipment"][];
         };
         /** @description The pipework from the intake water surface to the outlet, segments in series. */
         PipeSystem: {
@@ -645,6 +664,11 @@ export interface components {
             /** @description Water temperature in C; default 20. */
             waterTemperatureC?: number;
             segments: components["schemas"]["PipeSegment"][];
+            /**
+             * @description Unit of outletPressureHead: a head unit or a pressure unit (gauge pressure at the outlet, turned into head of the system's water); default the request's head unit. Answers give it in head units.
+             * @enum {string}
+             */
+            outletPressureUnit?: "m" | "ft" | "psi" | "kPa" | "bar";
         };
         SystemCurveRequest: {
             units: components["schemas"]["CalculationUnits"];
@@ -653,14 +677,24 @@ export interface components {
         };
         SystemCurvePoint: {
             flow: number;
-            /** @description Total dynamic head. */
+            /** @description Total dynamic head: static, outlet pressure, friction, minor and equipment heads. */
             head: number;
             staticHead: number;
             outletPressureHead: number;
             frictionHead: number;
             minorHead: number;
+            /** @description Sum of the equipment's heads at this flow. */
+            equipmentHead: number;
             /** @description Mean velocity in each segment, length units per second. */
             velocities: number[];
+            /** @description Reynolds number in each segment at the system's water temperature (2300-4000 is the transition band, warned of). */
+            reynoldsNumbers: number[];
+            /** @description Each equipment's head at this flow, in head units. */
+            equipment: {
+                segment: number;
+                name: string;
+                headLoss: number;
+            }[];
         };
         SystemCurveResponse: {
             units: components["schemas"]["CalculationUnits"];
@@ -774,8 +808,11 @@ export interface components {
             fittings: {
                 kind: string;
                 label: string;
-                /** @enum {string} */
-                method: "crane" | "fixed";
+                /**
+                 * @description diameter-ratio: K from the fitting's diameterRatio and angle (reducer, expansion; see source).
+                 * @enum {string}
+                 */
+                method: "crane" | "fixed" | "diameter-ratio";
                 /** @description n in K = n f_T (Crane fittings). */
                 multiplier?: number;
                 /** @description K for the bore asked for, or the fixed K. */
@@ -2343,9 +2380,14 @@ export interface operations {
                      *           "outletPressureHead": 0,
                      *           "frictionHead": 0,
                      *           "minorHead": 0,
+                     *           "equipmentHead": 0,
                      *           "velocities": [
                      *             0
-                     *           ]
+                     *           ],
+                     *           "reynoldsNumbers": [
+                     *             0
+                     *           ],
+                     *           "equipment": []
                      *         },
                      *         {
                      *           "flow": 50,
@@ -2354,9 +2396,14 @@ export interface operations {
                      *           "outletPressureHead": 0,
                      *           "frictionHead": 1.55,
                      *           "minorHead": 0,
+                     *           "equipmentHead": 0,
                      *           "velocities": [
                      *             2.27
-                     *           ]
+                     *           ],
+                     *           "reynoldsNumbers": [
+                     *             52600
+                     *           ],
+                     *           "equipment": []
                      *         },
                      *         {
                      *           "flow": 100,
@@ -2365,9 +2412,14 @@ export interface operations {
                      *           "outletPressureHead": 0,
                      *           "frictionHead": 5.61,
                      *           "minorHead": 0,
+                     *           "equipmentHead": 0,
                      *           "velocities": [
                      *             4.54
-                     *           ]
+                     *           ],
+                     *           "reynoldsNumbers": [
+                     *             105200
+                     *           ],
+                     *           "equipment": []
                      *         },
                      *         {
                      *           "flow": 150,
@@ -2376,9 +2428,14 @@ export interface operations {
                      *           "outletPressureHead": 0,
                      *           "frictionHead": 11.89,
                      *           "minorHead": 0,
+                     *           "equipmentHead": 0,
                      *           "velocities": [
                      *             6.81
-                     *           ]
+                     *           ],
+                     *           "reynoldsNumbers": [
+                     *             157800
+                     *           ],
+                     *           "equipment": []
                      *         }
                      *       ],
                      *       "warnings": [
@@ -2604,6 +2661,12 @@ export interface operations {
                      *           "method": "fixed",
                      *           "k": 1,
                      *           "source": "Crane TP-410, Appendix A-29: K = 1"
+                     *         },
+                     *         {
+                     *           "kind": "reducer",
+                     *           "label": "Reducer into this segment from a larger pipe (diameter ratio and angle)",
+                     *           "method": "diameter-ratio",
+                     *           "source": "Crane TP-410, A-26: K = 0.8 sin(theta/2) (1 - beta^2) for theta <= 45 degrees, 0.5 (1 - beta^2) sqrt(sin(theta/2)) above, referred to this (smaller) bore"
                      *         }
                      *       ]
                      *     }
