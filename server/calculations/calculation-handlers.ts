@@ -31,7 +31,7 @@ import { ProblemError } from '../api/problem-details';
 import { dutyOfParallelPumps, type DutyPoint, type PumpOnFile } from './arrangement-duty';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
 import { fitInlinePump, preferredBandOf, summarizeFit } from './pump-request';
-import { answerUnits, echoedUnits, round } from './request-units';
+import { answerUnits, echoedUnits, requestValueText, round } from './request-units';
 import { prepareSystem, requirePlausible, requirePlausibleFlow, velocityWarnings } from './system-request';
 
 /** Where the calculations find a catalog pump's current curve. */
@@ -92,12 +92,21 @@ export function createCalculationHandlers(
       const { curve } = prepareSystem(body.units, body.system);
       const to = answerUnits(body.units);
       const warnings = new Set<string>();
+      const valueText = requestValueText(body.units);
+      // transitional flow and Hazen-Williams out of range: once per segment, at the first flow they occur
+      const reportedSegmentIssues = new Set<string>();
       const points = body.flows.map((flowInUnits, index) => {
         const flow = flowToSI(flowInUnits, body.units.flow);
         requirePlausibleFlow(flow, `/body/flows/${index}`, body.units);
         const breakdown = systemBreakdown(curve, flow);
-        for (const issue of breakdown.issues)
-          if (issue.code !== 'segment-velocity') warnings.add(engineIssueText(issue));
+        for (const issue of breakdown.issues) {
+          if (issue.code === 'segment-velocity') continue;
+          const key = `${issue.code} ${issue.pointer ?? ''}`;
+          if (issue.code === 'hazen-williams-temperature' || !reportedSegmentIssues.has(key)) {
+            reportedSegmentIssues.add(key);
+            warnings.add(engineIssueText(issue, valueText));
+          }
+        }
         if (breakdown.segments.some((segment) => segment.velocity > VELOCITY_WARNING_LIMIT)) {
           for (const warning of velocityWarnings(curve, flow, body.units)) warnings.add(warning);
         }

@@ -308,9 +308,13 @@ export interface paths {
          * Head the pipework needs at each flow (the system curve)
          * @description Total dynamic head at each requested flow: static head, outlet pressure head, pipe
          *     friction (Hazen-Williams or Darcy-Weisbach with Colebrook) and fitting losses
-         *     (Crane TP-410 K values), with the velocity in each segment. Numbers in and out are in
-         *     the request's `units`. A velocity above 5 ft/s (1.52 m/s), the common-practice limit
-         *     for plastic pipe, is reported in `warnings`.
+         *     (Crane TP-410 K values), equipment rated by a head loss at a flow (scaled as the square
+         *     of flow), with the velocity, Reynolds number and equipment heads of each segment.
+         *     Numbers in and out are in the request's `units`. A velocity above 5 ft/s (1.52 m/s),
+         *     the common-practice limit for plastic pipe, flow in the transition band (Re 2300-4000,
+         *     where the turbulent friction factor is taken) and Hazen-Williams outside its range
+         *     (bore under 50 mm, Re under 4000, water outside 4-25 C; with the Darcy-Weisbach figure)
+         *     are reported in `warnings` (the last two once per segment, at the first flow they occur).
          */
         post: operations["calculateSystemCurve"];
         delete?: never;
@@ -621,7 +625,15 @@ export interface components {
             /** @description Reducer and expansion: included cone angle in degrees; default 180, a sudden change. */
             angle?: number;
         };
-        /** @description A filter, UV clarifier, skimmer, spray bar or heat exchanger as its maker rates it: a head loss at a flow. Its loss at another flow Q is headLoss x (Q / atFlow)^2 (fully turbulent, K constant: Crane TP-410 ch. 2). */
+        /**
+         * @description A filter, UV clarifier, skimmer, spray bar or heat exchanger as its maker rates it: a head loss at a flow. Its loss at another flow Q is headLoss x (Q / atFlow)^2 (fully turbulent, K constant: Crane TP-410 ch. 2).
+         * @example {
+         *       "name": "bead filter",
+         *       "headLoss": 2,
+         *       "headLossUnit": "psi",
+         *       "atFlow": 100
+         *     }
+         */
         Equipment: {
             name: string;
             /** @description The maker's head loss at atFlow, in headLossUnit. */
@@ -2401,7 +2413,7 @@ export interface operations {
                      *             2.27
                      *           ],
                      *           "reynoldsNumbers": [
-                     *             52600
+                     *             52531
                      *           ],
                      *           "equipment": []
                      *         },
@@ -2417,7 +2429,7 @@ export interface operations {
                      *             4.54
                      *           ],
                      *           "reynoldsNumbers": [
-                     *             105200
+                     *             105062
                      *           ],
                      *           "equipment": []
                      *         },
@@ -2433,7 +2445,7 @@ export interface operations {
                      *             6.81
                      *           ],
                      *           "reynoldsNumbers": [
-                     *             157800
+                     *             157593
                      *           ],
                      *           "equipment": []
                      *         }
