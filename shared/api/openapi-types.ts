@@ -1205,6 +1205,18 @@ export interface components {
             length: number;
             fittings: components["schemas"]["FittingCount"][];
             extraK: number;
+            /** @description A custom bore in the design's diameter unit, instead of the size's; null or absent: the size's bore. */
+            insideDiameter?: number | null;
+            /** @description A custom Hazen-Williams C; null or absent: the series' default. */
+            hazenWilliamsC?: number | null;
+            /** @description A custom absolute roughness in the design's diameter unit; null or absent: the series' default. */
+            roughness?: number | null;
+            /** @description Equipment rated by a head loss (design's head unit) at a flow (design's flow unit). */
+            equipment?: {
+                name: string;
+                headLoss: number;
+                atFlow: number;
+            }[];
         };
         /** @description The measured system as the design form holds it, in the design's units. */
         DesignSystem: {
