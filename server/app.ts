@@ -20,6 +20,8 @@ import { CatalogSnapshot } from './catalog/catalog-snapshot';
 import { createCatalogHandlers } from './catalog/catalog-handlers';
 import { createProjectHandlers } from './projects/project-handlers';
 import { createCurveImportHandlers } from './catalog/curve-import-handlers';
+import { createProfileHandlers } from './reports/profile-handlers';
+import { createReportHandlers } from './reports/report-handlers';
 
 /**
  * JSON bodies are UTF-8 (with or without a byte-order mark) or UTF-16, as the contract says;
@@ -110,6 +112,8 @@ export function createApp({ sequelize, logger, clientFolder, accounts, trustedPr
     ...createCatalogHandlers(sequelize),
     ...createCurveImportHandlers(sequelize),
     ...createProjectHandlers(),
+    ...createProfileHandlers(),
+    ...createReportHandlers(catalogSnapshot),
   };
   const guardFor = createOperationGuards(openApiDocument, accountsDependencies.rateLimits);
   app.use('/api/v1', createOperationRouter({ document: openApiDocument, handlers, guardFor }));

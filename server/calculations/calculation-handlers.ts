@@ -18,20 +18,26 @@ import {
   diameterToSI,
   FITTINGS,
   flowToSI,
+  npshAtDuty,
+  npshAvailableAt,
   PIPE_SERIES,
   preferredFlowRegion,
   SI_PLAUSIBLE_UNITS,
   systemBreakdown,
   VELOCITY_WARNING_LIMIT,
+  branchFlowsAt,
+  type CompiledBranchedSystem,
   type CompiledSystemCurve,
   type NoOperatingPointReason,
 } from '../../shared/hydraulics';
 import { engineInputErrorText, engineIssueText } from '../../shared/messages/engine-issue-text';
 import { ProblemError } from '../api/problem-details';
+import { balancingAnswer, branchedCurvePoint, branchFlowSummaries } from './branch-answers';
 import { dutyOfParallelPumps, type DutyPoint, type PumpOnFile } from './arrangement-duty';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
 import { fitInlinePump, preferredBandOf, summarizeFit } from './pump-request';
 import { answerUnits, echoedUnits, requestValueText, round } from './request-units';
+import { gravityFlowMessage, npshCheckAnswer, npshGuidanceOf, npshMessage, suctionLiftCaution } from './suction-answer';
 import { prepareSystem, requirePlausible, requirePlausibleFlow, velocityWarnings } from './system-request';
 
 /** Where the calculations find a catalog pump's current curve. */
@@ -39,8 +45,12 @@ export interface CurrentPumpCurves {
   findPump(pumpId: number): Promise<PumpOnFile | undefined>;
 }
 
-/** A duty point as the answer shows it, in the request's units. */
-export function operatingPointSummary(point: DutyPoint, units: CalculationUnits): OperatingPointSummary {
+/** A duty point as the answer shows it, in the request's units; on a branched system, with each branch's flow. */
+export function operatingPointSummary(
+  point: DutyPoint,
+  units: CalculationUnits,
+  branched: CompiledBranchedSystem | null = null,
+): OperatingPointSummary {
   const to = answerUnits(units);
   return {
     flow: to.flow(point.flow),
@@ -50,6 +60,7 @@ export function operatingPointSummary(point: DutyPoint, units: CalculationUnits)
     region: point.region,
     efficiency: point.efficiency === null ? null : point.efficiency * 100,
     inputPower: point.inputPower === null ? null : to.power(point.inputPower),
+    ...(branched === null ? {} : { branches: branchFlowSummaries(branchFlowsAt(branched, point.flow), units) }),
   };
 }
 
@@ -89,7 +100,7 @@ export function createCalculationHandlers(
   return {
     calculateSystemCurve: (request, response) => {
       const body = request.body as SystemCurveRequest;
-      const { curve } = prepareSystem(body.units, body.system);
+      const { curve, branched, suction, gravityFlow } = prepareSystem(body.units, body.system);
       const to = answerUnits(body.units);
       const warnings = new Set<string>();
       const valueText = requestValueText(body.units);
@@ -98,6 +109,10 @@ export function createCalculationHandlers(
       const points = body.flows.map((flowInUnits, index) => {
         const flow = flowToSI(flowInUnits, body.units.flow);
         requirePlausibleFlow(flow, `/body/flows/${index}`, body.units);
+        if (branched !== null) {
+          for (const warning of velocityWarnings(curve, flow, body.units)) warnings.add(warning);
+          return branchedCurvePoint(branched, flowInUnits, flow, body.units, warnings);
+        }
         const breakdown = systemBreakdown(curve, flow);
         for (const issue of breakdown.issues) {
           if (issue.code === 'segment-velocity') continue;
@@ -127,16 +142,26 @@ export function createCalculationHandlers(
               headLoss: to.head(entry.headLoss),
             })),
           ),
+          ...(suction ? { npshAvailable: to.head(npshAvailableAt(suction, flow)) } : {}),
         };
       });
-      const answer: SystemCurveResponse = { units: echoedUnits(body.units), points, warnings: [...warnings] };
+      const caution = suctionLiftCaution(suction, body.units);
+      if (caution) warnings.add(caution);
+      if (gravityFlow !== null) warnings.add(gravityFlowMessage(gravityFlow, body.units));
+      const answer: SystemCurveResponse = {
+        units: echoedUnits(body.units),
+        points,
+        ...(gravityFlow === null ? {} : { gravityFlow: to.flow(gravityFlow) }),
+        warnings: [...warnings],
+      };
       response.json(answer);
     },
 
     calculateOperatingPoint: async (request, response) => {
       const body = request.body as OperatingPointRequest;
-      const { curve, density } = prepareSystem(body.units, body.system);
+      const { curve, branched, density, suction, gravityFlow } = prepareSystem(body.units, body.system);
       const band = preferredBandOf(body.preferredBand);
+      const guidance = npshGuidanceOf(body.npshMarginRatio);
       let pump: PumpOnFile;
       if ('pumpId' in body.pump) {
         const found = await pumps.findPump(body.pump.pumpId);
@@ -165,14 +190,19 @@ export function createCalculationHandlers(
         pointerInto('/body/arrangement'),
       );
       if (!duty.ok) {
+        const detail =
+          gravityFlow === null
+            ? noPointTitles[duty.reason]
+            : `${noPointTitles[duty.reason]}; ${gravityFlowMessage(gravityFlow, body.units)}`;
         throw new ProblemError(
           422,
           'No operating point',
-          noPointTitles[duty.reason],
-          [{ pointer: '/body/pump', detail: noPointTitles[duty.reason] }],
+          detail,
+          [{ pointer: '/body/pump', detail }],
           'no-operating-point',
           {
             reason: duty.reason,
+            ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
           },
         );
       }
@@ -180,11 +210,22 @@ export function createCalculationHandlers(
         running === installed && installed >= 2 ? dutyOfParallelPumps(pump, curve, running - 1, band, density) : null;
       const warnings = dutyWarningMessages(duty.point, curve, body.units);
       if (oneFailed && !oneFailed.ok) warnings.push(`with one pump failed: ${noPointTitles[oneFailed.reason]}`);
+      const npsh = suction ? npshAtDuty(suction, pump.fit, duty.point.flow, duty.point.flowPerPump, guidance) : null;
+      const npshText = npsh ? npshMessage(npsh, guidance, body.units) : null;
+      if (npshText) warnings.push(npshText);
+      const caution = suctionLiftCaution(suction, body.units);
+      if (caution) warnings.push(caution);
+      if (gravityFlow !== null) warnings.push(gravityFlowMessage(gravityFlow, body.units));
       const answer: OperatingPointResponse = {
         units: echoedUnits(body.units),
-        operatingPoint: operatingPointSummary(duty.point, body.units),
-        oneFailed: oneFailed?.ok ? operatingPointSummary(oneFailed.point, body.units) : null,
+        operatingPoint: operatingPointSummary(duty.point, body.units, branched),
+        oneFailed: oneFailed?.ok ? operatingPointSummary(oneFailed.point, body.units, branched) : null,
         fit: summarizeFit(pump.fit, body.units, preferredFlowRegion(pump.fit, band, pump.declaredPreferred)),
+        ...(body.balance === undefined
+          ? {}
+          : { balancing: balancingAnswer(branched, pump.fit, running, body.balance, body.units) }),
+        ...(npsh ? { npsh: npshCheckAnswer(npsh, guidance, body.units) } : {}),
+        ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
         warnings,
       };
       response.json(answer);

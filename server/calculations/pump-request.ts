@@ -27,6 +27,7 @@ export function fitInlinePump(units: CalculationUnits, pump: InlinePump, pointer
       head,
       ...(point.power === undefined ? {} : { power: powerToSI(point.power, power) }),
       ...(point.efficiency === undefined ? {} : { efficiency: point.efficiency / 100 }),
+      ...(point.npshRequired === undefined ? {} : { npshRequired: headToSI(point.npshRequired, units.head) }),
     };
   });
   return withRequestPointers(

@@ -13,6 +13,7 @@ import { createSequelize } from '../database/connection';
 import { createMigrator } from '../database/migrator';
 import { initialiseModels, Supplier } from '../database/models';
 import { MariaDbStartError, PrivateMariaDb } from '../database/private-mariadb';
+import { visibleTextProblem } from '../../shared/text-rules';
 
 const usage = 'usage: npm run import -- --supplier CODE FILE.csv [--dry-run]';
 
@@ -50,6 +51,12 @@ async function main(): Promise<number> {
   const file = parsed.positionals[0];
   if (!supplierCode || !file || parsed.positionals.length > 1) {
     console.error(usage);
+    return 2;
+  }
+  const nameProblem = visibleTextProblem(basename(file));
+  if (nameProblem) {
+    // the name is stored with the import and shown to admins: the same rule as an upload's
+    console.error(`the file name ${JSON.stringify(basename(file))} ${nameProblem}; rename the file`);
     return 2;
   }
   let size: number;

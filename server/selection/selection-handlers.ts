@@ -1,10 +1,17 @@
 import type { RequestHandler } from 'express';
 import type { SelectionCandidate, SelectionRequest, SelectionResponse } from '../../shared/api/api-schemas';
-import { flowToSI, powerToSI } from '../../shared/hydraulics';
+import { flowToSI, powerToSI, type CompiledBranchedSystem } from '../../shared/hydraulics';
+import { branchTotalFlowBand } from '../calculations/branch-answers';
 import { operatingPointSummary } from '../calculations/calculation-handlers';
 import { unprocessable } from '../calculations/engine-problem';
 import { preferredBandOf } from '../calculations/pump-request';
-import { answerUnits, echoedUnits, powerUnitOf } from '../calculations/request-units';
+import { answerUnits, echoedUnits, powerUnitOf, type AnswerUnits } from '../calculations/request-units';
+import {
+  gravityFlowMessage,
+  npshCheckAnswer,
+  npshGuidanceOf,
+  suctionLiftCaution,
+} from '../calculations/suction-answer';
 import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
 import type { CatalogPump, CatalogSnapshot } from '../catalog/catalog-snapshot';
 import type { RankedCandidate, SelectionQuery } from './selection-query';
@@ -25,7 +32,12 @@ function pumpFilter(filters: SelectionRequest['filters']): (pump: CatalogPump) =
     (!text || pump.model.toLowerCase().includes(text) || pump.modelCode.toLowerCase().includes(text));
 }
 
-function candidateAnswer(candidate: RankedCandidate, rank: number, body: SelectionRequest): SelectionCandidate {
+function candidateAnswer(
+  candidate: RankedCandidate,
+  rank: number,
+  body: SelectionRequest,
+  branched: CompiledBranchedSystem | null,
+): SelectionCandidate {
   const to = answerUnits(body.units);
   return {
     rank,
@@ -34,14 +46,17 @@ function candidateAnswer(candidate: RankedCandidate, rank: number, body: Selecti
     model: candidate.pump.model,
     modelCode: candidate.pump.modelCode,
     arrangement: { installed: candidate.running + (body.standby ? 1 : 0), running: candidate.running },
-    operatingPoint: operatingPointSummary(candidate.point, body.units),
-    oneFailed: candidate.oneFailed ? operatingPointSummary(candidate.oneFailed, body.units) : null,
+    operatingPoint: operatingPointSummary(candidate.point, body.units, branched),
+    oneFailed: candidate.oneFailed ? operatingPointSummary(candidate.oneFailed, body.units, branched) : null,
     inBand: candidate.inBand,
     oneFailedMeetsMinimum: candidate.oneFailedMeetsMinimum,
     region: candidate.point.region,
     annualKWh: candidate.annualKWh,
     annualCost: candidate.annualCost,
     warnings: candidate.warnings,
+    ...(candidate.npsh
+      ? { npsh: npshCheckAnswer(candidate.npsh, npshGuidanceOf(body.npshMarginRatio), body.units) }
+      : {}),
     reasons: candidate.reasons,
     curve: sampledCombinedCurve(candidate.pump, candidate.running).map((point) => ({
       flow: to.flow(point.flow),
@@ -53,9 +68,11 @@ function candidateAnswer(candidate: RankedCandidate, rank: number, body: Selecti
   };
 }
 
-/** The search's input in SI, every problem a 4xx pointing at the field. */
-function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnings: string[] } {
-  const { curve, density } = prepareSystem(body.units, body.system);
+/** The duty band as total flow (SI): the band itself, or with duty.branch the totals that keep that branch in it. */
+function totalDutyBand(
+  body: SelectionRequest,
+  branched: CompiledBranchedSystem | null,
+): { flowMin: number; flowMax: number } {
   const flowMin = flowToSI(body.duty.flowMin, body.units.flow);
   const flowMax = flowToSI(body.duty.flowMax, body.units.flow);
   requirePlausibleFlow(flowMin, '/body/duty/flowMin', body.units);
@@ -65,9 +82,33 @@ function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnin
       '/body/duty/flowMax',
       `must not be less than flowMin (${body.duty.flowMin} ${body.units.flow})`,
     );
+  if (body.duty.branch === undefined) return { flowMin, flowMax };
+  return branchTotalFlowBand(branched, body.duty.branch, flowMin, flowMax, body.units);
+}
+
+/** The band the search ranks on, in the request's units, when the duty names a branch. */
+function totalFlowBandAnswer(band: { flowMin: number; flowMax: number }, to: AnswerUnits) {
+  return { flowMin: to.flow(band.flowMin), flowMax: to.flow(band.flowMax) };
+}
+
+/** The search's input in SI, every problem a 4xx pointing at the field. */
+function selectionQuery(body: SelectionRequest): {
+  query: SelectionQuery;
+  branched: CompiledBranchedSystem | null;
+  gravityFlow: number | null;
+  warnings: string[];
+} {
+  const { curve, branched, density, suction, gravityFlow } = prepareSystem(body.units, body.system);
+  const { flowMin, flowMax } = totalDutyBand(body, branched);
   const maxPower = body.filters?.maxInputPowerPerPump;
   const warnings: string[] = [];
   if (body.energy?.tariffPerKWh === undefined) warnings.push('no tariff given: annual cost is left out');
+  const caution = suctionLiftCaution(suction, body.units);
+  if (caution) warnings.push(`external pumps: ${caution}`);
+  if (gravityFlow !== null) {
+    warnings.push(gravityFlowMessage(gravityFlow, body.units));
+    if (gravityFlow >= flowMax) warnings.push('gravity alone delivers the whole duty band: no pump is needed for it');
+  }
   return {
     query: {
       system: curve,
@@ -85,7 +126,28 @@ function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnin
       onlyPreferredRegion: body.filters?.onlyPreferredRegion ?? false,
       accepts: pumpFilter(body.filters),
       limit: body.limit ?? defaultLimit,
+      suction,
+      npshGuidance: npshGuidanceOf(body.npshMarginRatio),
     },
+    branched,
+    gravityFlow,
+    warnings,
+  };
+}
+
+/** The search's answer for one request, as `POST /selections` gives it (reports use it too). */
+export async function answerSelection(catalog: CatalogSnapshot, body: SelectionRequest): Promise<SelectionResponse> {
+  const { query, branched, gravityFlow, warnings } = selectionQuery(body);
+  const outcome = searchCatalog(await catalog.current(), query);
+  if (outcome.candidates.length === 0) warnings.push('no catalog pump meets this system in the arrangements asked for');
+  return {
+    units: echoedUnits(body.units),
+    duty: body.duty,
+    ...(body.duty.branch === undefined ? {} : { totalFlowBand: totalFlowBandAnswer(query, answerUnits(body.units)) }),
+    considered: outcome.considered,
+    inBand: outcome.inBand,
+    candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body, branched)),
+    ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
     warnings,
   };
 }
@@ -93,20 +155,7 @@ function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnin
 export function createSelectionHandlers(catalog: CatalogSnapshot): Record<'searchSelections', RequestHandler> {
   return {
     searchSelections: async (request, response) => {
-      const body = request.body as SelectionRequest;
-      const { query, warnings } = selectionQuery(body);
-      const outcome = searchCatalog(await catalog.current(), query);
-      if (outcome.candidates.length === 0)
-        warnings.push('no catalog pump meets this system in the arrangements asked for');
-      const answer: SelectionResponse = {
-        units: echoedUnits(body.units),
-        duty: body.duty,
-        considered: outcome.considered,
-        inBand: outcome.inBand,
-        candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body)),
-        warnings,
-      };
-      response.json(answer);
+      response.json(await answerSelection(catalog, request.body as SelectionRequest));
     },
   };
 }

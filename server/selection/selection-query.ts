@@ -1,4 +1,10 @@
-import type { CompiledSystemCurve, PreferredBand } from '../../shared/hydraulics';
+import type {
+  CompiledSystemCurve,
+  NpshAtDuty,
+  NpshGuidance,
+  PreferredBand,
+  SuctionSide,
+} from '../../shared/hydraulics';
 import type { DutyPoint, DutyWarning } from '../calculations/arrangement-duty';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
 
@@ -25,6 +31,9 @@ export interface SelectionQuery {
   onlyPreferredRegion: boolean;
   accepts: (pump: CatalogPump) => boolean;
   limit: number;
+  /** The system's suction side, or null without one. */
+  suction: SuctionSide | null;
+  npshGuidance: NpshGuidance;
 }
 
 export interface RankedCandidate {
@@ -40,6 +49,8 @@ export interface RankedCandidate {
   /** 0 best: in band, preferred and one-failed as required; 1 in band with a shortfall; 2 outside the band. */
   tier: number;
   reasons: string[];
+  /** NPSH at the duty; null without a suction side or for a submersible pump. */
+  npsh: NpshAtDuty | null;
   /** The combined curve's preferred region, total flow, m3/s. */
   preferredRange: { flowMin: number; flowMax: number } | null;
 }

@@ -124,6 +124,16 @@ export class TopPairs {
     return this.keys.length;
   }
 
+  /** Whether a pair with a key of at least `least` could still enter. */
+  admits(least: number): boolean {
+    return this.keys.length < this.limit || this.keys[this.keys.length - 1] > least;
+  }
+
+  /** How many kept pairs have a key below `key`. */
+  countBelow(key: number): number {
+    return this.keys.filter((kept) => kept < key).length;
+  }
+
   /** `key` is null for a pair the filters leave out. */
   offer(index: number, running: number, key: number | null): void {
     if (key === null) return;

@@ -7,6 +7,7 @@ import {
 } from '../../shared/hydraulics';
 import { dutyOfParallelPumps, type DutyOutcome, type DutyPoint } from '../calculations/arrangement-duty';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
+import { npshOfPair, npshReason } from './npsh-ranking';
 import type { RankedCandidate, SelectionQuery, SelectionWarningCode } from './selection-query';
 import { tierOf } from './selection-ranking';
 
@@ -88,6 +89,8 @@ export function rankCandidate(
   if (velocityExceeded(query.system, point.flow)) warnings.push('velocity');
   if (point.warnings.includes('run-out')) reasons.push('run-out');
   if (point.warnings.includes('dead-head')) reasons.push('near dead-head');
+  const npsh = npshOfPair(pump, running, point.flow, query);
+  if (npsh) reasons.push(npshReason(npsh, query));
 
   const tier = tierOf(inBand, point.region === 'preferred', !query.requireOneFailed || oneFailedMeetsMinimum === true);
   const annualKWh = point.inputPower === null ? null : annualEnergy(point.inputPower, query.hoursPerDay);
@@ -104,6 +107,7 @@ export function rankCandidate(
     warnings,
     tier,
     reasons,
+    npsh,
     preferredRange: perPump ? { flowMin: perPump.flowMin * running, flowMax: perPump.flowMax * running } : null,
   };
 }

@@ -2,6 +2,7 @@ import { polynomialValue, solveOperatingPoint } from '../../shared/hydraulics';
 import { dutyOfParallelPumps } from '../calculations/arrangement-duty';
 import type { CatalogPump, CatalogState } from '../catalog/catalog-snapshot';
 import { crossingInBracket } from './band-crossing';
+import { withNpshShortfall } from './npsh-ranking';
 import { combinedCurves, cubicAt, packedCurves } from './packed-curves';
 import type { RankedCandidate, SelectionOutcome, SelectionQuery } from './selection-query';
 import { rankCandidate } from './selection-reasons';
@@ -63,7 +64,7 @@ export function searchCatalog(state: CatalogState, query: SelectionQuery): Selec
     tiers[pair] = tierInBand(packed, inBand[at], inBand[at + 1], inBand[at + 2], inBand[at + 3], query, table);
   }
   const ranking = new TopPairs(query.limit);
-  for (let tier = 0; tier <= 1 && ranking.size < query.limit; tier += 1) {
+  for (let tier = 0; tier <= 1 && ranking.admits(tier * TIER_SPAN); tier += 1) {
     for (let pair = 0; pair < inBandCount; pair += 1) {
       if (tiers[pair] !== tier) continue;
       const at = 4 * pair;
@@ -71,10 +72,13 @@ export function searchCatalog(state: CatalogState, query: SelectionQuery): Selec
       const running = inBand[at + 1];
       const flow = crossingInBracket(coefficients, index * 4, running, table, inBand[at + 2], inBand[at + 3]);
       const head = cubicAt(coefficients, index * 4, flow / running);
-      ranking.offer(index, running, screenPoint(packed, index, running, flow, head, query, table));
+      const key = screenPoint(packed, index, running, flow, head, query, table);
+      ranking.offer(index, running, withNpshShortfall(key, state.pumps[index], running, flow, query));
     }
   }
-  if (ranking.size < query.limit) nearMisses(state, query, accepted, 2 * (query.limit - ranking.size), ranking, table);
+  const adequateInBand = ranking.countBelow(2 * TIER_SPAN);
+  if (ranking.admits(2 * TIER_SPAN))
+    nearMisses(state, query, accepted, 2 * (query.limit - adequateInBand), ranking, table);
   const candidates = ranking
     .best()
     .map(([index, running]) => {
@@ -133,7 +137,8 @@ function nearMisses(
     const solved = solveOperatingPoint(combinedCurves(state, running)[index], query.system);
     if (!solved.ok) continue;
     const key = screenPoint(packed, index, running, solved.flow, solved.head, query, table);
-    if (key !== null && key >= 2 * TIER_SPAN) ranking.offer(index, running, key);
+    if (key !== null && key >= 2 * TIER_SPAN)
+      ranking.offer(index, running, withNpshShortfall(key, state.pumps[index], running, solved.flow, query));
   }
 }
 

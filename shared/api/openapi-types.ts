@@ -315,6 +315,13 @@ export interface paths {
          *     where the turbulent friction factor is taken) and Hazen-Williams outside its range
          *     (bore under 50 mm, Re under 4000, water outside 4-25 C; with the Darcy-Weisbach figure)
          *     are reported in `warnings` (the last two once per segment, at the first flow they occur).
+         *     For a branched system each point gives the
+         *     head at the split and each branch's flow (`branches`): the branch flows are those for
+         *     which every outlet level plus its losses equals the head at the split and they add up to
+         *     the total; a branch whose outlet is above that head takes no flow and says so. With a
+         *     suction side (see PipeSystem), each
+         *     point gives `npshAvailable`; with the outlet below the intake, `gravityFlow` gives what
+         *     gravity alone delivers.
          */
         post: operations["calculateSystemCurve"];
         delete?: never;
@@ -341,6 +348,15 @@ export interface paths {
          *     `oneFailed` gives the point with one of them off. The preferred operating region is
          *     70-120 % of BEP flow by default (ANSI/HI 9.6.3), configurable with `preferredBand`.
          *     No intersection on the published curve is a 422 problem whose `reason` says why.
+         *     For a branched system `operatingPoint.branches` gives each branch's flow; with `balance`,
+         *     `balancing` gives the valve K on the other branches that gives the named branch its
+         *     flow (a 422 at `/body/balance/flow` when throttling the others cannot).
+         *     With a suction side (segments with `side: suction` first, `siteElevation` and
+         *     `pumpElevation`), `npsh` compares NPSH available, (p_atm - p_v)/(rho g) - pumpElevation
+         *     - suction losses at the total flow, with the curve's NPSH3 at the flow per pump, with a
+         *     margin of `npshMarginRatio` (default 1.1) and 0.6 m (ANSI/HI 9.6.1 clean water); a pump
+         *     above the water gets a suction-lift and priming caution in `warnings`. With the outlet
+         *     below the intake, `gravityFlow` (also in the 422 problem) says what gravity alone delivers.
          */
         post: operations["calculateOperatingPoint"];
         delete?: never;
@@ -408,10 +424,14 @@ export interface paths {
          *     Candidates are ranked: in the duty band and in the preferred operating region (and, with
          *     `requireOneFailed`, still at or above the band's minimum with one pump off) first, then
          *     in band but outside the preferred region or failing the one-failed check, then outside
-         *     the band; within each group by annual energy. `reasons` says why each candidate sits
+         *     the band; within each group by annual energy. With a suction side, a non-submersible
+         *     pump short of the NPSH margin (see the operating point) ranks below every pump with
+         *     enough, and a pump without NPSH data says so. `reasons` says why each candidate sits
          *     where it does. `curve` samples the combined curve and `preferredRange` its preferred
-         *     region, in total flow, for drawing. Results are design estimates: verify them against
-         *     the maker's data.
+         *     region, in total flow, for drawing. On a branched system, `duty.branch` makes the band
+         *     that branch's flow: the search ranks on the total flows that keep it there
+         *     (`totalFlowBand`), and each operating point gives every branch's flow. Results are
+         *     design estimates: verify them against the maker's data.
          */
         post: operations["searchSelections"];
         delete?: never;
@@ -590,6 +610,121 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/account/profile": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** My company profile, which heads every proposal I make */
+        get: operations["getCompanyProfile"];
+        /** Save my company profile (the logo is sent on its own) */
+        put: operations["updateCompanyProfile"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/account/profile/logo": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The logo of my company profile, as uploaded */
+        get: operations["getCompanyLogo"];
+        /**
+         * Upload the logo of my company profile (PNG or JPEG, at most 1 MiB)
+         * @description The file is read by its content, not its name or declared type: a PNG (every chunk's CRC
+         *     right, IHDR first, nothing after IEND) or a baseline or progressive JPEG (from SOI to EOI,
+         *     with a frame header), at most 4000 x 4000 pixels and 1 MiB. Anything else (SVG, GIF, a
+         *     renamed program) is refused with 415; a PNG or JPEG that is broken or too large in pixels
+         *     with 422; both with `pointer` `/body/file`. The logo replaces the one before.
+         */
+        put: operations["uploadCompanyLogo"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/reports": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        /** The project's stored reports, newest first */
+        get: operations["listProjectReports"];
+        put?: never;
+        /**
+         * Make the proposal of the project's saved design as a PDF, and keep it
+         * @description The PDF holds the company profile, the client and site, the measured system, the duty band,
+         *     the chosen pumps and their alternatives with first cost (when known) and running cost, the
+         *     comparison chart, the crew's parts list and the cautions, with the date and the catalog
+         *     revision used. Its figures are the selection search's for the saved design. The project's
+         *     owner and admins may make one.
+         */
+        post: operations["createProjectReport"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/reports/{reportId}.pdf": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+                reportId: number;
+            };
+            cookie?: never;
+        };
+        /** One stored report of the project, as the PDF it was made */
+        get: operations["downloadProjectReport"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/parts-list.csv": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        /**
+         * The crew's parts list of the project's saved design, as CSV
+         * @description Pipe by series and nominal size with its total length and the standard sticks to buy
+         *     (10 ft and 20 ft, 6 m) after the waste allowance, fittings and valves by kind and size, the
+         *     pumps (duty and standby) of the first-ranked selection. Text cells a spreadsheet would run as a
+         *     formula start with an apostrophe.
+         */
+        get: operations["getProjectPartsList"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
 }
 export type webhooks = Record<string, never>;
 export interface components {
@@ -662,25 +797,63 @@ export interface components {
             fittings?: components["schemas"]["FittingCount"][];
             /** @description Extra resistance coefficient (filter module, manifold, nozzle), dimensionless. */
             minorLossK?: number;
+            /**
+             * @description suction: between the intake and the pump (these segments come first); default discharge.
+             * @enum {string}
+             */
+            side?: "suction" | "discharge";
             /** @description Equipment rated by a head loss at a flow, beside the K of the fittings. */
             equipment?: components["schemas"]["Equipment"][];
         };
-        /** @description The pipework from the intake water surface to the outlet, segments in series. */
+        /**
+         * @description The pipework from the intake water surface to the outlet, segments in series. A branched
+         *     system has `branches` (2 to 8): `segments` is then the common run from the pump to the split
+         *     (may be empty) and each branch states its own outlet level and pressure head, so the system
+         *     has no `staticHead` or `outletPressureHead` of its own. Without `branches`, `staticHead` and
+         *     at least one segment are required.
+         */
         PipeSystem: {
-            /** @description Discharge level (or outlet) above the intake water surface, in head units. */
-            staticHead: number;
-            /** @description Pressure head wanted at the outlet (nozzle, pressurised filter), in head units; default 0. */
+            /** @description Discharge level (or outlet) above the intake water surface, in head units. Not with branches. */
+            staticHead?: number;
+            /** @description Pressure head wanted at the outlet (nozzle, pressurised filter), in head units; default 0. Not with branches. */
             outletPressureHead?: number;
             /** @enum {string} */
             frictionMethod: "hazen-williams" | "darcy-weisbach";
             /** @description Water temperature in C; default 20. */
             waterTemperatureC?: number;
+            /** @description Site elevation above mean sea level, in length units: the atmospheric pressure on the intake by the standard atmosphere. Needed with a suction side. */
+            siteElevation?: number;
+            /** @description Height of the pump (impeller eye) above the intake water surface, in length units; negative for a flooded suction. Needed with a suction side, refused without one (a submersible pump has none). */
+            pumpElevation?: number;
+            /** @description The whole route; with branches, the common run from the pump to the split (may be empty). */
             segments: components["schemas"]["PipeSegment"][];
+            /** @description The branches after the split, each to its own outlet; names unique. */
+            branches?: components["schemas"]["PipeBranch"][];
             /**
              * @description Unit of outletPressureHead: a head unit or a pressure unit (gauge pressure at the outlet, turned into head of the system's water); default the request's head unit. Answers give it in head units.
              * @enum {string}
              */
             outletPressureUnit?: "m" | "ft" | "psi" | "kPa" | "bar";
+        };
+        /** @description One branch of a branched system, from the split to its outlet, segments in series. */
+        PipeBranch: {
+            /** @description Unique in its system, e.g. falls. */
+            name: string;
+            /** @description Outlet level above the intake water surface, in head units (negative: below it). */
+            staticHead: number;
+            /** @description Pressure head wanted at the outlet, in head units; default 0. */
+            outletPressureHead?: number;
+            segments: components["schemas"]["PipeSegment"][];
+        };
+        /** @description What one branch takes at a total flow, in the request's units. A branch whose outlet is above the head at the split takes no flow (no back-flow) and says so in `warnings`. */
+        BranchFlow: {
+            name: string;
+            flow: number;
+            /** @description The highest mean velocity in its segments, length units per second. */
+            velocity: number;
+            /** @description Mean velocity in each of its segments, length units per second. */
+            velocities: number[];
+            warnings: string[];
         };
         SystemCurveRequest: {
             units: components["schemas"]["CalculationUnits"];
@@ -695,22 +868,29 @@ export interface components {
             outletPressureHead: number;
             frictionHead: number;
             minorHead: number;
-            /** @description Sum of the equipment's heads at this flow. */
-            equipmentHead: number;
-            /** @description Mean velocity in each segment, length units per second. */
+            /** @description Sum of the equipment's heads at this flow; systems without branches. */
+            equipmentHead?: number;
+            /** @description Mean velocity in each segment (with branches, of the common run), length units per second. */
             velocities: number[];
-            /** @description Reynolds number in each segment at the system's water temperature (2300-4000 is the transition band, warned of). */
-            reynoldsNumbers: number[];
-            /** @description Each equipment's head at this flow, in head units. */
-            equipment: {
+            /** @description Reynolds number in each segment at the system's water temperature (2300-4000 is the transition band, warned of); systems without branches. */
+            reynoldsNumbers?: number[];
+            /** @description Each equipment's head at this flow, in head units; systems without branches. */
+            equipment?: {
                 segment: number;
                 name: string;
                 headLoss: number;
             }[];
+            /** @description Branched systems: the head at the split; head = frictionHead + minorHead (of the common run) + junctionHead. staticHead and outletPressureHead are then the lowest outlet's. */
+            junctionHead?: number;
+            /** @description Branched systems only, in the order of system.branches. */
+            branches?: components["schemas"]["BranchFlow"][];
+            /** @description NPSH available at the pump at this flow, in head units; present when the system has a suction side. */
+            npshAvailable?: number;
         };
         SystemCurveResponse: {
             units: components["schemas"]["CalculationUnits"];
             points: components["schemas"]["SystemCurvePoint"][];
+            gravityFlow?: components["schemas"]["GravityFlow"];
             warnings: string[];
         };
         PumpCurvePoint: {
@@ -720,6 +900,8 @@ export interface components {
             power?: number;
             /** @description Efficiency at this flow, percent. */
             efficiency?: number;
+            /** @description NPSH required (NPSH3) at this flow, in head units; on three points or more, or on none. */
+            npshRequired?: number;
         };
         InlinePump: {
             curve: components["schemas"]["PumpCurvePoint"][];
@@ -748,7 +930,43 @@ export interface components {
             pump: components["schemas"]["InlinePump"] | components["schemas"]["CatalogPump"];
             arrangement?: components["schemas"]["PumpArrangement"];
             preferredBand?: components["schemas"]["PreferredBand"];
+            balance?: components["schemas"]["BalanceTarget"];
+            npshMarginRatio?: components["schemas"]["NpshMarginRatio"];
         };
+        /** @description Branched systems: the flow one branch should take at the operating point; the answer gives the valve that sets it (`balancing`). */
+        BalanceTarget: {
+            /** @description A name from system.branches. */
+            branch: string;
+            /** @description In flow units. */
+            flow: number;
+        };
+        /** @description The throttling valve that gives the named branch its wanted flow: the same loss coefficient K on each of the other branches, referred to the velocity in its last segment (extra head K V^2/2g). */
+        Balancing: {
+            branch: string;
+            /** @description The wanted flow, in flow units. */
+            flow: number;
+            /** @description Loss coefficient to add on each branch of valvesOn, dimensionless. */
+            valveK: number;
+            /** @description The branches that get the valve. */
+            valvesOn: string[];
+            caution: string;
+        };
+        /** @description Least NPSH available / NPSH required (NPSH3) at the operating point; default 1.1, the ANSI/HI 9.6.1 least ratio for clean water. At least 0.6 m (2 ft) above NPSH3 is required as well. */
+        NpshMarginRatio: number;
+        /** @description NPSH at the operating point, in head units: available at the total flow through the suction pipe, required (NPSH3) at the flow per pump; ratio, difference and adequate are null when the curve gives no NPSH required at that flow. */
+        NpshCheck: {
+            available: number;
+            required: number | null;
+            ratio: number | null;
+            difference: number | null;
+            adequate: boolean | null;
+            /** @description The least ratio asked for. */
+            marginRatio: number;
+            /** @description The least difference, in head units (0.6 m). */
+            marginDifference: number;
+        };
+        /** @description With the outlet below the intake: the flow gravity alone delivers (system head zero), in flow units; absent otherwise. */
+        GravityFlow: number;
         /**
          * @description preferred: inside the POR; allowable: inside the maker's AOR; outside; unknown-bep: the curve has no efficiency data.
          * @enum {string}
@@ -766,6 +984,8 @@ export interface components {
             efficiency: number | null;
             /** @description Input power of all running pumps, in power units. */
             inputPower: number | null;
+            /** @description Branched systems only, in the order of system.branches. */
+            branches?: components["schemas"]["BranchFlow"][];
         };
         /** @description The fitted curve of one pump, in the request's units. */
         CurveFitSummary: {
@@ -792,6 +1012,10 @@ export interface components {
             /** @description With two or more pumps all running: the point with one of them off (null otherwise, or when the rest run past their curve). */
             oneFailed: components["schemas"]["OperatingPoint"] | null;
             fit: components["schemas"]["CurveFitSummary"];
+            balancing?: components["schemas"]["Balancing"];
+            /** @description Present when the system has a suction side. */
+            npsh?: components["schemas"]["NpshCheck"];
+            gravityFlow?: components["schemas"]["GravityFlow"];
             warnings: string[];
         };
         PipeSizesResponse: {
@@ -832,10 +1056,12 @@ export interface components {
                 source: string;
             }[];
         };
-        /** @description The flow the planned filtration needs, from its minimum to its maximum, in flow units. */
+        /** @description The flow the planned filtration needs, from its minimum to its maximum, in flow units: of the total, or with `branch` of that branch of a branched system. */
         DutyBand: {
             flowMin: number;
             flowMax: number;
+            /** @description A name from system.branches: the band is that branch's flow, whatever the others take. */
+            branch?: string;
         };
         SelectionFilters: {
             supplierIds?: number[];
@@ -866,6 +1092,7 @@ export interface components {
             filters?: components["schemas"]["SelectionFilters"];
             energy?: components["schemas"]["EnergyInputs"];
             preferredBand?: components["schemas"]["PreferredBand"];
+            npshMarginRatio?: components["schemas"]["NpshMarginRatio"];
             /** @description Most candidates to return; default 20. */
             limit?: number;
         };
@@ -888,6 +1115,8 @@ export interface components {
             annualKWh: number | null;
             annualCost: number | null;
             warnings: components["schemas"]["SelectionWarning"][];
+            /** @description Present when the system has a suction side and the pump is not submersible. */
+            npsh?: components["schemas"]["NpshCheck"];
             reasons: string[];
             /** @description The combined head curve of the running pumps, sampled over its published range. */
             curve: {
@@ -903,11 +1132,17 @@ export interface components {
         SelectionResponse: {
             units: components["schemas"]["CalculationUnits"];
             duty: components["schemas"]["DutyBand"];
+            /** @description With duty.branch: the total flows between which that branch's flow stays in the band, in flow units; the search ranks on these. */
+            totalFlowBand?: {
+                flowMin: number;
+                flowMax: number;
+            };
             /** @description Pump and arrangement pairs examined. */
             considered: number;
             /** @description Pairs whose operating point lies in the duty band. */
             inBand: number;
             candidates: components["schemas"]["SelectionCandidate"][];
+            gravityFlow?: components["schemas"]["GravityFlow"];
             warnings: string[];
         };
         /** @enum {string} */
@@ -1277,6 +1512,57 @@ export interface components {
         };
         ProjectList: {
             projects: components["schemas"]["ProjectSummary"][];
+        };
+        /** @description No angle brackets or control characters; may be empty. */
+        ProfileText: string;
+        CompanyLogo: {
+            /** @enum {string} */
+            type: "image/png" | "image/jpeg";
+            width: number;
+            height: number;
+            byteLength: number;
+        };
+        CompanyProfileInput: {
+            name: components["schemas"]["ProfileText"];
+            /** @description Lines separated by line feeds; no angle brackets or other control characters. */
+            address: string;
+            phone: string;
+            email: string;
+            licenceNumber: string;
+        };
+        CompanyProfile: {
+            name: string;
+            address: string;
+            phone: string;
+            email: string;
+            licenceNumber: string;
+            logo: components["schemas"]["CompanyLogo"] | null;
+            /** Format: date-time */
+            updatedAt: string | null;
+        };
+        /** @enum {string} */
+        ReportPaper: "a4" | "letter";
+        ReportRequest: {
+            paper: components["schemas"]["ReportPaper"];
+            clientName?: components["schemas"]["ProfileText"];
+            siteAddress?: components["schemas"]["ProfileText"];
+            /** @description Pipe bought beyond the measured length; default 10. */
+            wasteAllowancePercent?: number;
+        };
+        ReportSummary: {
+            id: number;
+            projectId: number;
+            paper: components["schemas"]["ReportPaper"];
+            /** Format: date-time */
+            createdAt: string;
+            byteLength: number;
+            sha256: string;
+            /** @description The highest curve revision in the catalog when the report was made (0 for an empty catalog). */
+            catalogRevision: number;
+            downloadPath: string;
+        };
+        ReportList: {
+            reports: components["schemas"]["ReportSummary"][];
         };
         /** @enum {string} */
         Role: "admin" | "supplier-admin" | "designer" | "integrator";
@@ -2347,37 +2633,6 @@ export interface operations {
         };
         requestBody: {
             content: {
-                /**
-                 * @example {
-                 *       "units": {
-                 *         "flow": "gpm",
-                 *         "head": "ft",
-                 *         "length": "ft",
-                 *         "diameter": "in"
-                 *       },
-                 *       "system": {
-                 *         "staticHead": 14.5,
-                 *         "outletPressureHead": 0,
-                 *         "frictionMethod": "hazen-williams",
-                 *         "waterTemperatureC": 20,
-                 *         "segments": [
-                 *           {
-                 *             "length": 240,
-                 *             "insideDiameter": 3,
-                 *             "hazenWilliamsC": 150,
-                 *             "fittings": [],
-                 *             "minorLossK": 0
-                 *           }
-                 *         ]
-                 *       },
-                 *       "flows": [
-                 *         0,
-                 *         50,
-                 *         100,
-                 *         150
-                 *       ]
-                 *     }
-                 */
                 "application/json": components["schemas"]["SystemCurveRequest"];
             };
         };
@@ -2388,85 +2643,6 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    /**
-                     * @example {
-                     *       "units": {
-                     *         "flow": "gpm",
-                     *         "head": "ft",
-                     *         "length": "ft",
-                     *         "diameter": "in"
-                     *       },
-                     *       "points": [
-                     *         {
-                     *           "flow": 0,
-                     *           "head": 14.5,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 0,
-                     *           "minorHead": 0,
-                     *           "equipmentHead": 0,
-                     *           "velocities": [
-                     *             0
-                     *           ],
-                     *           "reynoldsNumbers": [
-                     *             0
-                     *           ],
-                     *           "equipment": []
-                     *         },
-                     *         {
-                     *           "flow": 50,
-                     *           "head": 16.05,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 1.55,
-                     *           "minorHead": 0,
-                     *           "equipmentHead": 0,
-                     *           "velocities": [
-                     *             2.27
-                     *           ],
-                     *           "reynoldsNumbers": [
-                     *             52531
-                     *           ],
-                     *           "equipment": []
-                     *         },
-                     *         {
-                     *           "flow": 100,
-                     *           "head": 20.11,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 5.61,
-                     *           "minorHead": 0,
-                     *           "equipmentHead": 0,
-                     *           "velocities": [
-                     *             4.54
-                     *           ],
-                     *           "reynoldsNumbers": [
-                     *             105062
-                     *           ],
-                     *           "equipment": []
-                     *         },
-                     *         {
-                     *           "flow": 150,
-                     *           "head": 26.39,
-                     *           "staticHead": 14.5,
-                     *           "outletPressureHead": 0,
-                     *           "frictionHead": 11.89,
-                     *           "minorHead": 0,
-                     *           "equipmentHead": 0,
-                     *           "velocities": [
-                     *             6.81
-                     *           ],
-                     *           "reynoldsNumbers": [
-                     *             157593
-                     *           ],
-                     *           "equipment": []
-                     *         }
-                     *       ],
-                     *       "warnings": [
-                     *         "at 150 gpm segment 0: velocity 6.81 ft/s exceeds 5 ft/s, the common-practice limit for plastic pipe"
-                     *       ]
-                     *     }
-                     */
                     "application/json": components["schemas"]["SystemCurveResponse"];
                 };
             };
@@ -2483,61 +2659,6 @@ export interface operations {
         };
         requestBody: {
             content: {
-                /**
-                 * @example {
-                 *       "units": {
-                 *         "flow": "gpm",
-                 *         "head": "ft",
-                 *         "length": "ft",
-                 *         "diameter": "in",
-                 *         "power": "kW"
-                 *       },
-                 *       "system": {
-                 *         "staticHead": 14.5,
-                 *         "frictionMethod": "hazen-williams",
-                 *         "segments": [
-                 *           {
-                 *             "length": 240,
-                 *             "insideDiameter": 3,
-                 *             "hazenWilliamsC": 150
-                 *           }
-                 *         ]
-                 *       },
-                 *       "pump": {
-                 *         "curve": [
-                 *           {
-                 *             "flow": 0,
-                 *             "head": 40,
-                 *             "efficiency": 0
-                 *           },
-                 *           {
-                 *             "flow": 40,
-                 *             "head": 37.5,
-                 *             "efficiency": 42
-                 *           },
-                 *           {
-                 *             "flow": 80,
-                 *             "head": 32.5,
-                 *             "efficiency": 60
-                 *           },
-                 *           {
-                 *             "flow": 120,
-                 *             "head": 25,
-                 *             "efficiency": 63
-                 *           },
-                 *           {
-                 *             "flow": 160,
-                 *             "head": 15,
-                 *             "efficiency": 50
-                 *           }
-                 *         ]
-                 *       },
-                 *       "arrangement": {
-                 *         "installed": 1,
-                 *         "running": 1
-                 *       }
-                 *     }
-                 */
                 "application/json": components["schemas"]["OperatingPointRequest"];
             };
         };
@@ -2548,48 +2669,6 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    /**
-                     * @example {
-                     *       "units": {
-                     *         "flow": "gpm",
-                     *         "head": "ft",
-                     *         "length": "ft",
-                     *         "diameter": "in",
-                     *         "power": "kW"
-                     *       },
-                     *       "operatingPoint": {
-                     *         "flow": 127.54,
-                     *         "head": 23.31,
-                     *         "flowPerPump": 127.54,
-                     *         "percentOfBep": 123.2,
-                     *         "region": "outside",
-                     *         "efficiency": 61.04,
-                     *         "inputPower": 0.917
-                     *       },
-                     *       "oneFailed": null,
-                     *       "fit": {
-                     *         "degree": 3,
-                     *         "shutOffHead": 40,
-                     *         "flowMin": 0,
-                     *         "flowMax": 160,
-                     *         "bep": {
-                     *           "flow": 103.52,
-                     *           "head": 28.39,
-                     *           "efficiency": 63.69
-                     *         },
-                     *         "preferredRegion": {
-                     *           "flowMin": 72.47,
-                     *           "flowMax": 124.23
-                     *         },
-                     *         "rmsHead": 0,
-                     *         "warnings": []
-                     *       },
-                     *       "warnings": [
-                     *         "at 127.54 gpm segment 0: velocity 5.79 ft/s exceeds 5 ft/s, the common-practice limit for plastic pipe",
-                     *         "outside the preferred operating region: expect shorter bearing and seal life"
-                     *       ]
-                     *     }
-                     */
                     "application/json": components["schemas"]["OperatingPointResponse"];
                 };
             };
@@ -2711,54 +2790,6 @@ export interface operations {
         };
         requestBody: {
             content: {
-                /**
-                 * @example {
-                 *       "units": {
-                 *         "flow": "gpm",
-                 *         "head": "ft",
-                 *         "length": "ft",
-                 *         "diameter": "in",
-                 *         "power": "kW"
-                 *       },
-                 *       "system": {
-                 *         "staticHead": 14.5,
-                 *         "frictionMethod": "hazen-williams",
-                 *         "segments": [
-                 *           {
-                 *             "length": 240,
-                 *             "pipe": "pvc-sch40-3",
-                 *             "fittings": [
-                 *               {
-                 *                 "kind": "elbow-90-standard",
-                 *                 "count": 4
-                 *               },
-                 *               {
-                 *                 "kind": "exit",
-                 *                 "count": 1
-                 *               }
-                 *             ]
-                 *           }
-                 *         ]
-                 *       },
-                 *       "duty": {
-                 *         "flowMin": 90,
-                 *         "flowMax": 130
-                 *       },
-                 *       "arrangements": [
-                 *         1,
-                 *         2
-                 *       ],
-                 *       "requireOneFailed": true,
-                 *       "filters": {
-                 *         "maxInputPowerPerPump": 1.5
-                 *       },
-                 *       "energy": {
-                 *         "hoursPerDay": 24,
-                 *         "tariffPerKWh": 0.18
-                 *       },
-                 *       "limit": 10
-                 *     }
-                 */
                 "application/json": components["schemas"]["SelectionRequest"];
             };
         };
@@ -2769,88 +2800,6 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    /**
-                     * @example {
-                     *       "units": {
-                     *         "flow": "gpm",
-                     *         "head": "ft",
-                     *         "length": "ft",
-                     *         "diameter": "in",
-                     *         "power": "kW"
-                     *       },
-                     *       "duty": {
-                     *         "flowMin": 90,
-                     *         "flowMax": 130
-                     *       },
-                     *       "considered": 2,
-                     *       "inBand": 1,
-                     *       "candidates": [
-                     *         {
-                     *           "rank": 1,
-                     *           "pumpId": 12,
-                     *           "supplier": "Alderbrook Demo Pumps",
-                     *           "model": "Demo cascade 60",
-                     *           "modelCode": "AD-C60",
-                     *           "arrangement": {
-                     *             "installed": 2,
-                     *             "running": 2
-                     *           },
-                     *           "operatingPoint": {
-                     *             "flow": 118.2,
-                     *             "head": 24.1,
-                     *             "flowPerPump": 59.1,
-                     *             "percentOfBep": 98.5,
-                     *             "region": "preferred",
-                     *             "efficiency": 58.2,
-                     *             "inputPower": 0.93
-                     *           },
-                     *           "oneFailed": {
-                     *             "flow": 93.4,
-                     *             "head": 20.6,
-                     *             "flowPerPump": 93.4,
-                     *             "percentOfBep": 155.7,
-                     *             "region": "outside",
-                     *             "efficiency": 44.1,
-                     *             "inputPower": 0.81
-                     *           },
-                     *           "inBand": true,
-                     *           "oneFailedMeetsMinimum": true,
-                     *           "region": "preferred",
-                     *           "annualKWh": 8147,
-                     *           "annualCost": 1466.5,
-                     *           "warnings": [],
-                     *           "reasons": [
-                     *             "in the duty band",
-                     *             "in the preferred operating region (98 % of BEP)",
-                     *             "one failed: 93.4 gpm, still at or above the band minimum"
-                     *           ],
-                     *           "curve": [
-                     *             {
-                     *               "flow": 0,
-                     *               "head": 36
-                     *             },
-                     *             {
-                     *               "flow": 60,
-                     *               "head": 32.9
-                     *             },
-                     *             {
-                     *               "flow": 120,
-                     *               "head": 23.9
-                     *             },
-                     *             {
-                     *               "flow": 180,
-                     *               "head": 9
-                     *             }
-                     *           ],
-                     *           "preferredRange": {
-                     *             "flowMin": 84,
-                     *             "flowMax": 144
-                     *           }
-                     *         }
-                     *       ],
-                     *       "warnings": []
-                     *     }
-                     */
                     "application/json": components["schemas"]["SelectionResponse"];
                 };
             };
@@ -3928,6 +3877,336 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content?: never;
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    getCompanyProfile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The profile; every field is empty until it is saved once. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "name": "Brookside Water Gardens",
+                     *       "address": "12 Mill Lane\nFairview",
+                     *       "phone": "+1 555 0100",
+                     *       "email": "office@brookside.example",
+                     *       "licenceNumber": "WG-20417",
+                     *       "logo": {
+                     *         "type": "image/png",
+                     *         "width": 320,
+                     *         "height": 120,
+                     *         "byteLength": 5120
+                     *       },
+                     *       "updatedAt": "2026-12-01T15:30:00.000Z"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["CompanyProfile"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+        };
+    };
+    updateCompanyProfile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "name": "Brookside Water Gardens",
+                 *       "address": "12 Mill Lane\nFairview",
+                 *       "phone": "+1 555 0100",
+                 *       "email": "office@brookside.example",
+                 *       "licenceNumber": "WG-20417"
+                 *     }
+                 */
+                "application/json": components["schemas"]["CompanyProfileInput"];
+            };
+        };
+        responses: {
+            /** @description The saved profile. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "name": "Brookside Water Gardens",
+                     *       "address": "12 Mill Lane\nFairview",
+                     *       "phone": "+1 555 0100",
+                     *       "email": "office@brookside.example",
+                     *       "licenceNumber": "WG-20417",
+                     *       "logo": null,
+                     *       "updatedAt": "2026-12-01T15:30:00.000Z"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["CompanyProfile"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    getCompanyLogo: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The logo's bytes. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "image/png": string;
+                    "image/jpeg": string;
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    uploadCompanyLogo: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": {
+                    /**
+                     * Format: binary
+                     * @description The PNG or JPEG file, at most 1 MiB and 4000 x 4000 pixels.
+                     */
+                    file: string;
+                };
+            };
+        };
+        responses: {
+            /** @description The profile with its new logo. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "name": "Brookside Water Gardens",
+                     *       "address": "12 Mill Lane\nFairview",
+                     *       "phone": "+1 555 0100",
+                     *       "email": "office@brookside.example",
+                     *       "licenceNumber": "WG-20417",
+                     *       "logo": {
+                     *         "type": "image/png",
+                     *         "width": 320,
+                     *         "height": 120,
+                     *         "byteLength": 5120
+                     *       },
+                     *       "updatedAt": "2026-12-01T15:30:00.000Z"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["CompanyProfile"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            413: components["responses"]["FileTooLarge"];
+            /** @description The file is not a PNG or JPEG; `pointer` is /body/file. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["ProblemDetails"];
+                };
+            };
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    listProjectReports: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Every stored report of the project, without its bytes. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "reports": [
+                     *         {
+                     *           "id": 9,
+                     *           "projectId": 4,
+                     *           "paper": "letter",
+                     *           "createdAt": "2026-12-02T10:00:00.000Z",
+                     *           "byteLength": 48213,
+                     *           "sha256": "9f2b5c0e4d3a1b2c3d4e5f60718293a4b5c6d7e8f90a1b2c3d4e5f60718293a4",
+                     *           "catalogRevision": 57,
+                     *           "downloadPath": "/api/v1/projects/4/reports/9.pdf"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ReportList"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    createProjectReport: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "paper": "letter",
+                 *       "clientName": "Ada Moss",
+                 *       "siteAddress": "4 Orchard Row, Fairview",
+                 *       "wasteAllowancePercent": 10
+                 *     }
+                 */
+                "application/json": components["schemas"]["ReportRequest"];
+            };
+        };
+        responses: {
+            /** @description The stored report; download it from `downloadPath`. */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "id": 9,
+                     *       "projectId": 4,
+                     *       "paper": "letter",
+                     *       "createdAt": "2026-12-02T10:00:00.000Z",
+                     *       "byteLength": 48213,
+                     *       "sha256": "9f2b5c0e4d3a1b2c3d4e5f60718293a4b5c6d7e8f90a1b2c3d4e5f60718293a4",
+                     *       "catalogRevision": 57,
+                     *       "downloadPath": "/api/v1/projects/4/reports/9.pdf"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ReportSummary"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    downloadProjectReport: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+                reportId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The PDF; `Repr-Digest` carries its sha-256 as stored. */
+            200: {
+                headers: {
+                    /** @description attachment; filename="<project>-report-<id>.pdf" */
+                    "Content-Disposition"?: string;
+                    /** @description sha-256=:<base64 of the checksum>: (RFC 9530) */
+                    "Repr-Digest"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/pdf": string;
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    getProjectPartsList: {
+        parameters: {
+            query?: {
+                /** @description Pipe bought beyond the measured length for cuts and waste; default 10. */
+                wasteAllowancePercent?: number;
+            };
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The parts list, as a download. */
+            200: {
+                headers: {
+                    /** @description attachment; filename="<project>-parts-list.csv" */
+                    "Content-Disposition"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example section,item,size,quantity,unit,sticks_10ft,sticks_20ft,sticks_6m,notes
+                     *     pipe,PVC Schedule 40,3 in,264,ft,27,14,14,240 ft measured + 10 % allowance
+                     *     fitting,90° standard elbow,3 in,4,each,,,,
+                     */
+                    "text/csv": string;
+                };
             };
             400: components["responses"]["BadRequest"];
             401: components["responses"]["Unauthorized"];

@@ -6,6 +6,7 @@ import {
   lengthToSI,
   pressureToHead,
   waterDensity,
+  type BranchedSystemInput,
   type HeadUnit,
   type PipeSegmentInput,
   type PressureUnit,
@@ -57,6 +58,7 @@ function segmentInputOf(
     roughness: segment.roughness === undefined ? undefined : diameterToSI(segment.roughness, units.diameter),
     fittings: segment.fittings,
     extraK: segment.minorLossK,
+    side: segment.side,
     equipment: segment.equipment?.map((entry) => ({
       name: entry.name,
       headLoss: headOrPressureToSI(entry.headLoss, entry.headLossUnit ?? units.head, temperature),
@@ -66,10 +68,10 @@ function segmentInputOf(
 }
 
 /**
- * The system as compileSystemCurve takes it: lengths, bores, roughness, heads and flows converted
- * to SI by the engine's unit conversions (units.ts; NIST SP 811 factors), no outlet pressure
- * meaning 0; an outlet pressure or equipment loss given in a pressure unit becomes head of water at
- * the system's temperature (h = p / rho g).
+ * The system as compileSystemCurve takes it: lengths (with the site and pump elevations), bores,
+ * roughness, heads and flows converted to SI by the engine's unit conversions (units.ts; NIST SP
+ * 811 factors), no outlet pressure meaning 0; an outlet pressure or equipment loss given in a
+ * pressure unit becomes head of water at the system's temperature (h = p / rho g).
  * @param system - the contract's system, in the request's units
  * @param units - the request's units: `length` for lengths, `diameter` for bores and roughness, `head` for heads, `flow` for equipment's rated flows
  * @returns the engine's SI input (m, C)
@@ -86,7 +88,8 @@ function segmentInputOf(
  */
 export function systemInputOf(system: PipeSystem, units: CalculationUnits): SystemCurveInput {
   return {
-    staticHead: headToSI(system.staticHead, units.head),
+    // The contract requires staticHead on a system without branches; a missing one is refused at /staticHead.
+    staticHead: headToSI(system.staticHead ?? Number.NaN, units.head, '/staticHead'),
     outletPressureHead: headOrPressureToSI(
       system.outletPressureHead ?? 0,
       system.outletPressureUnit ?? units.head,
@@ -95,5 +98,37 @@ export function systemInputOf(system: PipeSystem, units: CalculationUnits): Syst
     segments: system.segments.map((segment) => segmentInputOf(segment, units, system.waterTemperatureC)),
     temperature: system.waterTemperatureC,
     frictionMethod: system.frictionMethod,
+    siteElevation: system.siteElevation === undefined ? undefined : lengthToSI(system.siteElevation, units.length),
+    pumpElevation: system.pumpElevation === undefined ? undefined : lengthToSI(system.pumpElevation, units.length),
+  };
+}
+
+/**
+ * A branched system (one with `branches`) as compileBranchedSystem takes it, converted as in
+ * systemInputOf: the common run's segments, and each branch's outlet level, outlet pressure head
+ * (none meaning 0) and segments; null for a system without branches. (The contract refuses a
+ * system staticHead or outletPressureHead beside branches.)
+ * @param system - the contract's system, in the request's units
+ * @param units - the request's units
+ * @returns the engine's SI input (m, C), or null
+ * @example
+ * const units = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' }
+ * const pipe = [{ length: 100, insideDiameter: 2 }]
+ * const input = branchedSystemInputOf({ frictionMethod: 'hazen-williams', segments: [], branches: [{ name: 'falls', staticHead: 10, segments: pipe }, { name: 'return', staticHead: -1, segments: pipe }] }, units)
+ * input?.branches[0].staticHead // => 3.048
+ * input?.branches[1].outletPressureHead // => 0
+ */
+export function branchedSystemInputOf(system: PipeSystem, units: CalculationUnits): BranchedSystemInput | null {
+  if (system.branches === undefined) return null;
+  return {
+    frictionMethod: system.frictionMethod,
+    temperature: system.waterTemperatureC,
+    segments: system.segments.map((segment) => segmentInputOf(segment, units, system.waterTemperatureC)),
+    branches: system.branches.map((branch) => ({
+      name: branch.name,
+      staticHead: headToSI(branch.staticHead, units.head),
+      outletPressureHead: headToSI(branch.outletPressureHead ?? 0, units.head),
+      segments: branch.segments.map((segment) => segmentInputOf(segment, units, system.waterTemperatureC)),
+    })),
   };
 }

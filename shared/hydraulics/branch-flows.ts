@@ -93,7 +93,7 @@ export function branchFlowsAt(system: CompiledBranchedSystem, totalFlow: number)
       if (outletHead > junctionHead) {
         issues.unshift({
           code: 'branch-no-flow',
-          params: { branch: index, outletHead, junctionHead },
+          params: { branch: index, name: branch.name, outletHead, junctionHead },
           pointer: `/branches/${index}`,
         });
       }

@@ -44,7 +44,7 @@ export interface EngineIssueParams {
   'duty-before-curve': Record<string, never>;
   'duty-beyond-curve': Record<string, never>;
   /** A branch whose outlet head (m) is above the head at the split (m) takes no flow: no back-flow is modelled. */
-  'branch-no-flow': { branch: number; outletHead: number; junctionHead: number };
+  'branch-no-flow': { branch: number; name: string; outletHead: number; junctionHead: number };
 }
 
 export type EngineIssueCode = keyof EngineIssueParams;
@@ -95,6 +95,9 @@ export interface EngineInputErrorParams {
   /** valveK 0: the branch already takes more with no valve; else not reached with that K on the others. */
   'branch-target-unreachable': { branch: string; valveK: number };
   'no-operating-point-with-valve': { valveK: number };
+  'suction-after-discharge': { segment: number };
+  'suction-needs-site': { what: 'siteElevation' | 'pumpElevation' };
+  'pump-elevation-without-suction': Record<string, never>;
 }
 
 export type EngineInputErrorCode = keyof EngineInputErrorParams;

@@ -29,3 +29,5 @@ export * from './affinity-laws';
 export * from './npsh';
 export * from './plausible-limits';
 export * from './pump-curve-points';
+export * from './suction-side';
+export * from './gravity-flow';

@@ -8,6 +8,8 @@ import { MATERIAL_DEFAULTS, PIPE_MATERIALS, type PipeMaterial, pipeSizeById } fr
  */
 
 export type FrictionMethod = 'hazen-williams' | 'darcy-weisbach';
+/** Which side of the pump a segment is on: the suction pipe from the intake, or the discharge pipe after the pump. */
+export type SegmentSide = 'suction' | 'discharge';
 /** The friction methods a system may name: Hazen-Williams (SI form) or Darcy-Weisbach with Colebrook. */
 export const FRICTION_METHODS: readonly FrictionMethod[] = ['hazen-williams', 'darcy-weisbach'];
 
@@ -71,6 +73,8 @@ export interface PipeSegmentInput {
   fittings?: readonly FittingCount[];
   /** Additional resistance coefficient (e.g. a filter module or manifold), dimensionless. */
   extraK?: number;
+  /** Suction segments come first, from the intake to the pump; default discharge. */
+  side?: SegmentSide;
   /** Equipment rated by a head loss at a flow, scaled as (Q / Q_rated)^2. */
   equipment?: readonly EquipmentInput[];
 }
@@ -84,6 +88,10 @@ export interface SystemCurveInput {
   /** Water temperature, C (0-40); default 20. */
   temperature?: number;
   frictionMethod: FrictionMethod;
+  /** Site elevation above mean sea level, m: sets the atmospheric pressure on the intake surface (NPSH). */
+  siteElevation?: number;
+  /** Pump impeller eye above the intake water surface, m; negative for a flooded suction (NPSH). */
+  pumpElevation?: number;
 }
 
 /** A segment with every value resolved to SI numbers. */

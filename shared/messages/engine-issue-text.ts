@@ -67,8 +67,8 @@ const ENGINE_ISSUE_TEXT: {
   'arrangement-run-out': () => 'at least one pump would run past the last published point of its curve (run-out)',
   'duty-before-curve': () => 'the duty point maps onto the curve left of its first point',
   'duty-beyond-curve': () => 'the duty point maps onto the curve past its last point',
-  'branch-no-flow': ({ branch, outletHead, junctionHead }, units) =>
-    `branch ${branch} takes no flow: its outlet head ${units.head(outletHead)} is above the head at the split ${units.head(junctionHead)}`,
+  'branch-no-flow': ({ name, outletHead, junctionHead }, units) =>
+    `branch "${name}" takes no flow: its outlet head ${units.head(outletHead)} is above the head at the split ${units.head(junctionHead)}`,
 };
 
 function degreeName(degree: 2 | 3): string {
@@ -139,6 +139,14 @@ const ENGINE_INPUT_ERROR_TEXT: {
       : `branch '${branch}' does not reach that even with a valve K of ${valveK} on the other branches`,
   'no-operating-point-with-valve': ({ valveK }) =>
     `with a valve K of ${valveK} on the other branches the pump meets the system nowhere on its published curve`,
+  'suction-after-discharge': ({ segment }) =>
+    `segment ${segment} is on the suction side after a discharge segment; suction segments come first, from the intake to the pump`,
+  'suction-needs-site': ({ what }) =>
+    what === 'siteElevation'
+      ? 'a system with a suction side needs the site elevation (for the atmospheric pressure on the intake)'
+      : 'a system with a suction side needs the pump elevation above the intake water surface (negative when flooded)',
+  'pump-elevation-without-suction': () =>
+    'a pump elevation needs suction segments (side: suction); a submersible pump needs neither',
 };
 
 /** The sentence for one refused input, with values written by `units`. */

@@ -17,6 +17,13 @@ export const appRoutes: Routes = [
     loadComponent: () => import('./accounts/account-page').then((m) => m.AccountPage),
   },
   {
+    path: 'account/profile',
+    title: 'Company profile - Riffle',
+    canActivate: [roleGuard],
+    data: { roles: ['designer', 'admin'] },
+    loadComponent: () => import('./profile/company-profile-page').then((m) => m.CompanyProfilePage),
+  },
+  {
     path: 'admin',
     canActivate: [roleGuard],
     data: { roles: ['admin'] },

@@ -10,6 +10,7 @@
 import {
   annualEnergy,
   classifyOperatingRegion,
+  compileBranchedSystem,
   compileSystemCurve,
   fitPumpCurve,
   powerAtOperatingPoint,
@@ -176,7 +177,22 @@ const POND_SYSTEM: Omit<SystemCurveInput, 'frictionMethod'> = {
   ],
 };
 
-function report(label: string, system: CompiledSystemCurve, fits: readonly PumpCurveFit[]): void {
+/** The same pond with its last segment split: falls 4.4 m up, a filter return 1.2 m up, each on its own pipe. */
+const POND_WITH_TWO_BRANCHES = {
+  temperature: POND_SYSTEM.temperature,
+  segments: POND_SYSTEM.segments.slice(0, 2),
+  branches: [
+    { name: 'falls', staticHead: 4.4, outletPressureHead: 0.3, segments: POND_SYSTEM.segments.slice(2) },
+    {
+      name: 'filter return',
+      staticHead: 1.2,
+      segments: [{ length: 12, pipeSizeId: 'pvc-sch40-1.5', fittings: [{ kind: 'exit', count: 1 }], extraK: 6 }],
+    },
+  ],
+};
+
+/** One system's figures; `against` is the series route's median, for the per-pump cost of branches. */
+function report(label: string, system: CompiledSystemCurve, fits: readonly PumpCurveFit[], against?: number): number {
   const density = 999.1;
   const solver = measure(searchWithSolver, fits, system, density);
   const bisection = measure(searchWithBisection, fits, system, density);
@@ -203,6 +219,12 @@ function report(label: string, system: CompiledSystemCurve, fits: readonly PumpC
   console.log(
     `  largest flow difference between the two, relative to the curve's range: ${largestDifference.toExponential(1)}`,
   );
+  if (against !== undefined) {
+    console.log(
+      `  solver time against the single route with the same friction: ${(solver.medianMs / against).toFixed(1)}x`,
+    );
+  }
+  return solver.medianMs;
 }
 
 const fits = syntheticStoredFits(PUMP_COUNT);
@@ -210,13 +232,25 @@ console.log(
   `Riffle solver benchmark: ${PUMP_COUNT} stored fits, ${WARM_UP_ROUNDS} warm-up and ${MEASURED_ROUNDS} measured rounds, single thread`,
 );
 console.log('Per pump: operating point, preferred-band class, input power and annual energy.');
-report(
+const hazenWilliams = report(
   'System with Hazen-Williams friction (3 segments, 12 fittings)',
   compileSystemCurve({ ...POND_SYSTEM, frictionMethod: 'hazen-williams' }),
   fits,
 );
-report(
+const darcyWeisbach = report(
   'System with Darcy-Weisbach friction (precomputed Colebrook table)',
   compileSystemCurve({ ...POND_SYSTEM, frictionMethod: 'darcy-weisbach' }),
   fits,
+);
+report(
+  'Two branches after a common run (falls and filter return), Hazen-Williams',
+  compileBranchedSystem({ ...POND_WITH_TWO_BRANCHES, frictionMethod: 'hazen-williams' }),
+  fits,
+  hazenWilliams,
+);
+report(
+  'Two branches after a common run (falls and filter return), Darcy-Weisbach',
+  compileBranchedSystem({ ...POND_WITH_TWO_BRANCHES, frictionMethod: 'darcy-weisbach' }),
+  fits,
+  darcyWeisbach,
 );

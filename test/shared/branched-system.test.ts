@@ -303,7 +303,7 @@ describe('branched system', () => {
       expect(split.branches[0].issues).to.deep.equal([
         {
           code: 'branch-no-flow',
-          params: { branch: 0, outletHead: 4, junctionHead: split.junctionHead },
+          params: { branch: 0, name: 'falls', outletHead: 4, junctionHead: split.junctionHead },
           pointer: '/branches/0',
         },
       ]);

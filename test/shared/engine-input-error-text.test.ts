@@ -105,6 +105,18 @@ const inputSamples: { [Code in EngineInputErrorCode]: [EngineInputErrorParams[Co
     { valveK: 10 },
     'with a valve K of 10 on the other branches the pump meets the system nowhere on its published curve',
   ],
+  'suction-after-discharge': [
+    { segment: 2 },
+    'segment 2 is on the suction side after a discharge segment; suction segments come first, from the intake to the pump',
+  ],
+  'suction-needs-site': [
+    { what: 'siteElevation' },
+    'a system with a suction side needs the site elevation (for the atmospheric pressure on the intake)',
+  ],
+  'pump-elevation-without-suction': [
+    {},
+    'a pump elevation needs suction segments (side: suction); a submersible pump needs neither',
+  ],
 };
 
 const issueSamples: { [Code in EngineIssueCode]: [EngineIssueParams[Code], string] } = {
@@ -152,8 +164,8 @@ const issueSamples: { [Code in EngineIssueCode]: [EngineIssueParams[Code], strin
   'duty-before-curve': [{}, 'the duty point maps onto the curve left of its first point'],
   'duty-beyond-curve': [{}, 'the duty point maps onto the curve past its last point'],
   'branch-no-flow': [
-    { branch: 1, outletHead: 4, junctionHead: 3.5 },
-    'branch 1 takes no flow: its outlet head 4.00 m is above the head at the split 3.50 m',
+    { branch: 1, name: 'return', outletHead: 4, junctionHead: 3.5 },
+    'branch "return" takes no flow: its outlet head 4.00 m is above the head at the split 3.50 m',
   ],
 };
 

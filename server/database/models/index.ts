@@ -15,6 +15,9 @@ import { CurveRevision } from './curve-revision';
 import { Pump } from './pump';
 // projects
 import { Project } from './project';
+// reports
+import { CompanyProfile } from './company-profile';
+import { ProjectReport } from './project-report';
 
 /** Initialises every model and declares the associations, in one place. */
 export function initialiseModels(sequelize: Sequelize): void {
@@ -44,9 +47,17 @@ export function initialiseModels(sequelize: Sequelize): void {
   }
   // projects
   Project.initialise(sequelize);
+  // reports
+  for (const model of [CompanyProfile, ProjectReport]) model.initialise(sequelize);
+  if (!ProjectReport.associations.project) {
+    ProjectReport.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
+    Project.hasMany(ProjectReport, { as: 'reports', foreignKey: 'projectId' });
+    CompanyProfile.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  }
 }
 
 export { Supplier };
 export { ApiToken, AuditEvent, Invitation, PasswordResetLink, Session, User };
 export { CurveDeclaredRange, CurveImport, CurvePoint, CurveRevision, Pump };
 export { Project };
+export { CompanyProfile, ProjectReport };

@@ -23,6 +23,11 @@ import { MatIconModule } from '@angular/material/icon';
           every parallel pump; close valves slowly to spare the pipe from water hammer.
         </li>
         <li>
+          <strong>Suction lift and priming.</strong> An external pump standing above the water it draws must be
+          self-priming, or be primed and kept full with a foot valve on the suction pipe; a flooded suction (pump below
+          the water) avoids both. Defer to the pump maker's data for the lift and NPSH it needs.
+        </li>
+        <li>
           <strong>Vaults, wet wells and trenches</strong> are confined spaces and excavations: follow the entry and
           shoring rules that apply.
         </li>

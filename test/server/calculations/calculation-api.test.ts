@@ -81,9 +81,9 @@ describe('calculations API', function () {
     return (openApiDocument.paths?.[path] as OpenAPIV3_1.PathItemObject)[method] as OpenAPIV3_1.OperationObject;
   }
 
-  function requestExample(path: string): Record<string, unknown> {
-    return (operation(path, 'post').requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json']
-      .example as Record<string, unknown>;
+  function requestExample(path: string, name = 'single-route'): Record<string, unknown> {
+    const media = (operation(path, 'post').requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json'];
+    return (media.examples?.[name] as OpenAPIV3_1.ExampleObject).value as Record<string, unknown>;
   }
 
   function responseValidator(path: string, method: 'get' | 'post') {

@@ -1,6 +1,4 @@
 import { expect } from 'chai';
-import { Ajv2020 } from 'ajv/dist/2020.js';
-import addFormats from 'ajv-formats';
 import { QueryTypes } from 'sequelize';
 import request from 'supertest';
 import type { OpenAPIV3_1 } from 'openapi-types';
@@ -22,6 +20,7 @@ import {
 } from '../../../shared/hydraulics';
 import type { SelectionCandidate, SelectionResponse } from '../../../shared/api/api-schemas';
 import { createUserWithSession } from '../../support/accounts';
+import { contractSchemaValidator } from '../../support/contract-validator';
 import { createScratchDatabase } from '../../support/test-database';
 import { seedSyntheticCatalog, syntheticShapes } from './synthetic-catalog';
 
@@ -126,13 +125,10 @@ describe('POST /api/v1/selections', function () {
   it('answers the contract example with a body its schema accepts', async () => {
     const operation = (openApiDocument.paths?.['/selections'] as OpenAPIV3_1.PathItemObject)
       .post as OpenAPIV3_1.OperationObject;
-    const example = (operation.requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json'].example;
+    const media = (operation.requestBody as OpenAPIV3_1.RequestBodyObject).content['application/json'];
+    const example = (media.examples?.['single-route'] as OpenAPIV3_1.ExampleObject).value as object;
     const response = await post('/selections', example).expect(200);
-    const ajv = new Ajv2020({ allErrors: true, strict: true, strictRequired: false, allowUnionTypes: true });
-    ajv.addVocabulary(['example', 'xml', 'externalDocs', 'discriminator', 'components']);
-    addFormats.default(ajv);
-    ajv.addSchema({ $id: 'contract.json', components: openApiDocument.components });
-    const validate = ajv.compile({ $ref: 'contract.json#/components/schemas/SelectionResponse' });
+    const validate = contractSchemaValidator('SelectionResponse');
     expect(validate(response.body), JSON.stringify(validate.errors)).to.equal(true);
     expect(response.body.candidates.length).to.be.within(1, 10);
     for (const candidate of response.body.candidates as SelectionCandidate[]) {

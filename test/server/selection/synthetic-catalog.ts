@@ -15,14 +15,17 @@ export interface SyntheticPumpShape {
   lastFlow: number;
   /** Peak efficiency, 0-1. */
   peakEfficiency: number;
+  /** NPSH3 at the curve's end, m, for NPSH3 = this x (0.3 + 0.7 x^2) on every point; none when left out. */
+  npshAtEnd?: number;
 }
 
-/** Six published points: H = H0 (1 - 0.2 x - 0.6 x^2), eta = eta_max (2 x/0.6 - (x/0.6)^2) clipped at 0, x = Q / Q_last. */
+/** Six published points: H = H0 (1 - 0.2 x - 0.6 x^2), eta = eta_max (2 x/0.6 - (x/0.6)^2) clipped at 0, x = Q / Q_last; NPSH3 when the shape has it. */
 export function syntheticCurve(shape: SyntheticPumpShape): PumpCurvePoint[] {
   return [0, 0.2, 0.4, 0.6, 0.8, 1].map((x) => ({
     flow: x * shape.lastFlow,
     head: shape.shutOffHead * (1 - 0.2 * x - 0.6 * x * x),
     efficiency: Math.max(0, shape.peakEfficiency * ((2 * x) / 0.6 - (x / 0.6) ** 2)),
+    ...(shape.npshAtEnd === undefined ? {} : { npshRequired: shape.npshAtEnd * (0.3 + 0.7 * x * x) }),
   }));
 }
 
@@ -67,6 +70,7 @@ export async function seedSyntheticCatalog(
   sequelize: Sequelize,
   shapes: readonly SyntheticPumpShape[],
   supplierName = 'Synthetic Test Pumps',
+  kind: 'submersible' | 'external-centrifugal' = 'submersible',
 ): Promise<number[]> {
   const now = new Date();
   const code = `SYN${Date.now().toString(36).toUpperCase()}${Math.floor(Math.random() * 1e4)}`.slice(0, 32);
@@ -122,15 +126,7 @@ export async function seedSyntheticCatalog(
     sequelize,
     'pumps',
     ['supplier_id', 'model_code', 'display_name', 'kind', 'status', 'created_at', 'updated_at'],
-    shapes.map((_, index) => [
-      supplierId,
-      `SYN-${index + 1}`,
-      `Synthetic pump ${index + 1}`,
-      'submersible',
-      'active',
-      now,
-      now,
-    ]),
+    shapes.map((_, index) => [supplierId, `SYN-${index + 1}`, `Synthetic pump ${index + 1}`, kind, 'active', now, now]),
   );
   const pumps = await sequelize.query<{ id: number }>('SELECT id FROM pumps WHERE supplier_id = ? ORDER BY id', {
     replacements: [supplierId],

@@ -19,6 +19,7 @@ import { drawComparisonChart } from '../compare/comparison-chart';
 import { candidateLabel, comparisonModel } from '../compare/comparison-model';
 import { SelectionDraft } from '../selection-draft';
 import { compileDraft, staticHeadOf } from '../system-draft';
+import { ReportDocuments } from './report-documents';
 
 /** Candidates a report shows when none were ticked for comparison: the first few of the search. */
 const reportedWithoutComparison = 3;
@@ -29,7 +30,7 @@ const reportedWithoutComparison = 3;
  */
 @Component({
   selector: 'rf-selection-report-page',
-  imports: [DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule],
+  imports: [DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, ReportDocuments],
   templateUrl: './selection-report-page.html',
   styleUrls: ['../design-page.scss', '../../shared/chart-frame.scss', './selection-report-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,0 +1,41 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
+import type { Project } from './project';
+
+/** A proposal PDF made from a project's saved design, kept as made with its sha-256. */
+export class ProjectReport extends Model<InferAttributes<ProjectReport>, InferCreationAttributes<ProjectReport>> {
+  declare id: CreationOptional<number>;
+  declare projectId: ForeignKey<Project['id']>;
+  declare madeByUserId: number | null;
+  declare paper: 'a4' | 'letter';
+  declare pdf: Buffer;
+  declare byteLength: number;
+  /** sha-256 of the PDF's bytes, hex. */
+  declare sha256: string;
+  /** The highest curve revision id in the catalog when it was made. */
+  declare catalogRevision: number;
+  declare createdAt: CreationOptional<Date>;
+
+  static initialise(sequelize: Sequelize): void {
+    ProjectReport.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        madeByUserId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        paper: { type: DataTypes.ENUM('a4', 'letter'), allowNull: false },
+        pdf: { type: DataTypes.BLOB('medium'), allowNull: false },
+        byteLength: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        sha256: { type: DataTypes.CHAR(64), allowNull: false },
+        catalogRevision: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        createdAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: 'project_reports', updatedAt: false },
+    );
+  }
+}

@@ -1,0 +1,26 @@
+/**
+ * The cautions every proposal carries, in the words the design pages' cautions panel uses: what
+ * could hurt someone when the design is built or wired, and that the figures are estimates.
+ */
+export const REPORT_CAUTIONS: ReadonlyArray<{ title: string; text: string }> = [
+  {
+    title: 'Electricity near water.',
+    text: 'Ground-fault (GFCI/RCD) protection, pumps and cords listed for wet locations and bonding as the local electrical code requires; a licensed electrician where the code asks for one; lock out the power before anyone touches a pump or reaches into the water.',
+  },
+  {
+    title: 'Suction and drowning.',
+    text: 'Intakes people or animals can reach need covers, split drains or vacuum relief against entrapment.',
+  },
+  {
+    title: 'Running the pumps.',
+    text: 'No dry running and no running against a closed valve; a check valve on every parallel pump; close valves slowly to spare the pipe from water hammer.',
+  },
+  {
+    title: 'Vaults, wet wells and trenches',
+    text: 'are confined spaces and excavations: follow the entry and shoring rules that apply.',
+  },
+  {
+    title: 'Estimates, not guarantees.',
+    text: "Every figure here is a design estimate from published curves and textbook formulas: verify it against the pump maker's data, local codes and licensed practice before ordering or building.",
+  },
+];

@@ -1,0 +1,17 @@
+declare module 'svg-to-pdfkit' {
+  interface SvgToPdfOptions {
+    width?: number;
+    height?: number;
+    preserveAspectRatio?: string;
+    assumePt?: boolean;
+    fontCallback?: (family: string, bold: boolean, italic: boolean) => string;
+  }
+  /** Draws SVG text into a pdfkit document at (x, y). */
+  export default function SVGtoPDF(
+    doc: PDFKit.PDFDocument,
+    svg: string,
+    x: number,
+    y: number,
+    options?: SvgToPdfOptions,
+  ): void;
+}
