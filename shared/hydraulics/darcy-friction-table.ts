@@ -50,7 +50,7 @@ export interface DarcySegmentTable {
 
 /**
  * Tabulates one resolved segment's friction at the water's kinematic viscosity: Colebrook f over
- * ln Re, 2300 to 1e8, 128 intervals of a cubic Hermite table with the exact slope df/d(ln Re)
+ * ln Re, 2300 to 1e8, 160 intervals of a cubic Hermite table with the exact slope df/d(ln Re)
  * from the implicit derivative of Colebrook's equation (Colebrook 1939, J. ICE 11(4); de Boor, A
  * Practical Guide to Splines, rev. ed., ch. IV for the error bound).
  * @param segment - a resolved segment (resolveSegment): length and bore (m), area (m2), roughness (m)

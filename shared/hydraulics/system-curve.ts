@@ -55,7 +55,7 @@ export interface CompiledSystemCurve {
  * Hazen-Williams: H(Q) = Hs + a Q^1.852 + b Q^2 with a = sum 10.67 L/(C^1.852 D^4.8704)
  * and b = sum K/(2 g A^2) + sum c (equipment, h = c Q^2). Darcy-Weisbach: Hs + sum c_i f_i(Re_i) Q^2 + b Q^2 with
  * f_i from a cubic Hermite table of Colebrook over ln Re (darcy-friction-table.ts; relative
- * error of the friction head below 1e-8 for Re 4000-1e8, exact rules below 4000).
+ * error of the friction head below 1e-8 for Re 2300-1e8, the laminar rule and its ramp exact below 2300).
  * Throws HydraulicsInputError (with the field path) for invalid input.
  *
  * Sources: TDH as the sum of static, pressure and loss heads (ANSI/HI 1.1-1.2 definitions;
