@@ -472,6 +472,16 @@ describe('calculations API', function () {
         pointer: '/body/system/segments/0/equipment/0/atFlow',
       },
       {
+        name: 'an equipment name with a control character',
+        path: '/calculations/system-curve',
+        body: curveRequest({
+          ...practitionerSystem,
+          segments: [{ ...segment, equipment: [{ name: 'filter\u0007', headLoss: 1, atFlow: 50 }] }],
+        }),
+        status: 422,
+        pointer: '/body/system/segments/0/equipment/0/name',
+      },
+      {
         name: 'a reducer without its diameter ratio',
         path: '/calculations/system-curve',
         body: curveRequest({
