@@ -36,7 +36,7 @@ import { balancingAnswer, branchedCurvePoint, branchFlowSummaries } from './bran
 import { dutyOfParallelPumps, type DutyPoint, type PumpOnFile } from './arrangement-duty';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
 import { fitInlinePump, preferredBandOf, summarizeFit } from './pump-request';
-import { answerUnits, echoedUnits, round } from './request-units';
+import { answerUnits, echoedUnits, requestValueText, round } from './request-units';
 import { gravityFlowMessage, npshCheckAnswer, npshGuidanceOf, npshMessage, suctionLiftCaution } from './suction-answer';
 import { prepareSystem, requirePlausible, requirePlausibleFlow, velocityWarnings } from './system-request';
 
@@ -103,6 +103,9 @@ export function createCalculationHandlers(
       const { curve, branched, suction, gravityFlow } = prepareSystem(body.units, body.system);
       const to = answerUnits(body.units);
       const warnings = new Set<string>();
+      const valueText = requestValueText(body.units);
+      // transitional flow and Hazen-Williams out of range: once per segment, at the first flow they occur
+      const reportedSegmentIssues = new Set<string>();
       const points = body.flows.map((flowInUnits, index) => {
         const flow = flowToSI(flowInUnits, body.units.flow);
         requirePlausibleFlow(flow, `/body/flows/${index}`, body.units);
@@ -111,8 +114,14 @@ export function createCalculationHandlers(
           return branchedCurvePoint(branched, flowInUnits, flow, body.units, warnings);
         }
         const breakdown = systemBreakdown(curve, flow);
-        for (const issue of breakdown.issues)
-          if (issue.code !== 'segment-velocity') warnings.add(engineIssueText(issue));
+        for (const issue of breakdown.issues) {
+          if (issue.code === 'segment-velocity') continue;
+          const key = `${issue.code} ${issue.pointer ?? ''}`;
+          if (issue.code === 'hazen-williams-temperature' || !reportedSegmentIssues.has(key)) {
+            reportedSegmentIssues.add(key);
+            warnings.add(engineIssueText(issue, valueText));
+          }
+        }
         if (breakdown.segments.some((segment) => segment.velocity > VELOCITY_WARNING_LIMIT)) {
           for (const warning of velocityWarnings(curve, flow, body.units)) warnings.add(warning);
         }
@@ -123,7 +132,16 @@ export function createCalculationHandlers(
           outletPressureHead: to.head(breakdown.outletPressureHead),
           frictionHead: to.head(breakdown.frictionHead),
           minorHead: to.head(breakdown.minorHead),
+          equipmentHead: to.head(breakdown.equipmentHead),
           velocities: breakdown.segments.map((segment) => to.length(segment.velocity)),
+          reynoldsNumbers: breakdown.segments.map((segment) => segment.reynolds),
+          equipment: breakdown.segments.flatMap((segment) =>
+            segment.equipment.map((entry) => ({
+              segment: segment.index,
+              name: entry.name,
+              headLoss: to.head(entry.headLoss),
+            })),
+          ),
           ...(suction ? { npshAvailable: to.head(npshAvailableAt(suction, flow)) } : {}),
         };
       });
@@ -248,24 +266,18 @@ export function createCalculationHandlers(
         frictionFactor = craneFullyTurbulentFrictionFactor(bore);
       }
       const answer: FittingsResponse = {
-        fittings: FITTINGS.map((fitting) =>
-          fitting.resistance.method === 'fixed'
-            ? {
-                kind: fitting.kind,
-                label: fitting.label,
-                method: 'fixed',
-                k: fitting.resistance.k,
-                source: fitting.source,
-              }
-            : {
-                kind: fitting.kind,
-                label: fitting.label,
-                method: 'crane',
-                multiplier: fitting.resistance.multiplier,
-                ...(frictionFactor === null ? {} : { k: fitting.resistance.multiplier * frictionFactor }),
-                source: fitting.source,
-              },
-        ),
+        fittings: FITTINGS.map(({ kind, label, resistance, source }) => {
+          if (resistance.method === 'fixed') return { kind, label, method: 'fixed', k: resistance.k, source };
+          if (resistance.method === 'diameter-ratio') return { kind, label, method: 'diameter-ratio', source };
+          return {
+            kind,
+            label,
+            method: 'crane',
+            multiplier: resistance.multiplier,
+            ...(frictionFactor === null ? {} : { k: resistance.multiplier * frictionFactor }),
+            source,
+          };
+        }),
       };
       response.set('Cache-Control', 'private, max-age=3600').json(answer);
     },

@@ -19,6 +19,7 @@ import {
 } from '../../shared/hydraulics';
 import { branchedSystemInputOf, SYSTEM_FIELD_RENAMES, systemInputOf } from '../../shared/api/system-input';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
+import { checkedName } from '../api/checked-text';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
 import { requestValueText } from './request-units';
 
@@ -58,6 +59,7 @@ function requirePlausibleSegments(
       requirePlausible('insideDiameter', segment.insideDiameter, `${at}/insideDiameter`, units);
     if (segment.roughness !== undefined) requirePlausible('roughness', segment.roughness, `${at}/roughness`, units);
     if (segment.extraK !== undefined) requirePlausible('extraK', segment.extraK, `${at}/minorLossK`, units);
+    segment.equipment?.forEach((entry, entryIndex) => checkedName(entry.name, `${at}/equipment/${entryIndex}/name`));
   });
 }
 

@@ -308,9 +308,14 @@ export interface paths {
          * Head the pipework needs at each flow (the system curve)
          * @description Total dynamic head at each requested flow: static head, outlet pressure head, pipe
          *     friction (Hazen-Williams or Darcy-Weisbach with Colebrook) and fitting losses
-         *     (Crane TP-410 K values), with the velocity in each segment. Numbers in and out are in
-         *     the request's `units`. A velocity above 5 ft/s (1.52 m/s), the common-practice limit
-         *     for plastic pipe, is reported in `warnings`. For a branched system each point gives the
+         *     (Crane TP-410 K values), equipment rated by a head loss at a flow (scaled as the square
+         *     of flow), with the velocity, Reynolds number and equipment heads of each segment.
+         *     Numbers in and out are in the request's `units`. A velocity above 5 ft/s (1.52 m/s),
+         *     the common-practice limit for plastic pipe, flow in the transition band (Re 2300-4000,
+         *     where the turbulent friction factor is taken) and Hazen-Williams outside its range
+         *     (bore under 50 mm, Re under 4000, water outside 4-25 C; with the Darcy-Weisbach figure)
+         *     are reported in `warnings` (the last two once per segment, at the first flow they occur).
+         *     For a branched system each point gives the
          *     head at the split and each branch's flow (`branches`): the branch flows are those for
          *     which every outlet level plus its losses equals the head at the split and they add up to
          *     the total; a branch whose outlet is above that head takes no flow and says so. With a
@@ -725,7 +730,7 @@ export type webhooks = Record<string, never>;
 export interface components {
     schemas: {
         /** @enum {string} */
-        FlowUnit: "gpm" | "gph" | "L/min" | "L/s" | "m3/h" | "m3/s";
+        FlowUnit: "gpm" | "gph" | "L/h" | "L/min" | "L/s" | "m3/h" | "m3/s";
         /** @enum {string} */
         HeadUnit: "m" | "ft";
         /** @enum {string} */
@@ -748,8 +753,33 @@ export interface components {
         };
         FittingCount: {
             /** @enum {string} */
-            kind: "elbow-90-standard" | "elbow-90-long-radius" | "elbow-45-standard" | "bend-180-return" | "tee-run" | "tee-branch" | "valve-gate" | "valve-ball" | "valve-globe" | "valve-butterfly" | "check-valve-swing" | "check-valve-swing-clearway" | "foot-valve-poppet" | "foot-valve-hinged" | "entrance-sharp" | "entrance-inward-projecting" | "exit";
+            kind: "elbow-90-standard" | "elbow-90-long-radius" | "elbow-45-standard" | "bend-180-return" | "tee-run" | "tee-branch" | "valve-gate" | "valve-ball" | "valve-globe" | "valve-butterfly" | "check-valve-swing" | "check-valve-swing-clearway" | "check-valve-spring" | "foot-valve-poppet" | "foot-valve-hinged" | "entrance-sharp" | "entrance-inward-projecting" | "exit" | "reducer" | "expansion" | "union" | "bulkhead" | "valve-three-way-run" | "valve-three-way-branch";
             count: number;
+            /** @description Reducer (flow in from a larger pipe) and expansion (flow out into a larger pipe): this segment's bore over the larger bore. Required for those two kinds. */
+            diameterRatio?: number;
+            /** @description Reducer and expansion: included cone angle in degrees; default 180, a sudden change. */
+            angle?: number;
+        };
+        /**
+         * @description A filter, UV clarifier, skimmer, spray bar or heat exchanger as its maker rates it: a head loss at a flow. Its loss at another flow Q is headLoss x (Q / atFlow)^2 (fully turbulent, K constant: Crane TP-410 ch. 2).
+         * @example {
+         *       "name": "bead filter",
+         *       "headLoss": 2,
+         *       "headLossUnit": "psi",
+         *       "atFlow": 100
+         *     }
+         */
+        Equipment: {
+            name: string;
+            /** @description The maker's head loss at atFlow, in headLossUnit. */
+            headLoss: number;
+            /**
+             * @description Unit of headLoss: a head unit or a pressure unit (a pressure drop, turned into head of the system's water); default the request's head unit.
+             * @enum {string}
+             */
+            headLossUnit?: "m" | "ft" | "psi" | "kPa" | "bar";
+            /** @description The rated flow, in flow units; zero is refused (422). */
+            atFlow: number;
         };
         /** @description One run of pipe of one bore. Give `pipe` (a catalogue size id) or `insideDiameter`; C and roughness default to the size's or the material's. */
         PipeSegment: {
@@ -772,6 +802,8 @@ export interface components {
              * @enum {string}
              */
             side?: "suction" | "discharge";
+            /** @description Equipment rated by a head loss at a flow, beside the K of the fittings. */
+            equipment?: components["schemas"]["Equipment"][];
         };
         /**
          * @description The pipework from the intake water surface to the outlet, segments in series. A branched
@@ -797,6 +829,11 @@ export interface components {
             segments: components["schemas"]["PipeSegment"][];
             /** @description The branches after the split, each to its own outlet; names unique. */
             branches?: components["schemas"]["PipeBranch"][];
+            /**
+             * @description Unit of outletPressureHead: a head unit or a pressure unit (gauge pressure at the outlet, turned into head of the system's water); default the request's head unit. Answers give it in head units.
+             * @enum {string}
+             */
+            outletPressureUnit?: "m" | "ft" | "psi" | "kPa" | "bar";
         };
         /** @description One branch of a branched system, from the split to its outlet, segments in series. */
         PipeBranch: {
@@ -825,14 +862,24 @@ export interface components {
         };
         SystemCurvePoint: {
             flow: number;
-            /** @description Total dynamic head. */
+            /** @description Total dynamic head: static, outlet pressure, friction, minor and equipment heads. */
             head: number;
             staticHead: number;
             outletPressureHead: number;
             frictionHead: number;
             minorHead: number;
+            /** @description Sum of the equipment's heads at this flow; systems without branches. */
+            equipmentHead?: number;
             /** @description Mean velocity in each segment (with branches, of the common run), length units per second. */
             velocities: number[];
+            /** @description Reynolds number in each segment at the system's water temperature (2300-4000 is the transition band, warned of); systems without branches. */
+            reynoldsNumbers?: number[];
+            /** @description Each equipment's head at this flow, in head units; systems without branches. */
+            equipment?: {
+                segment: number;
+                name: string;
+                headLoss: number;
+            }[];
             /** @description Branched systems: the head at the split; head = frictionHead + minorHead (of the common run) + junctionHead. staticHead and outletPressureHead are then the lowest outlet's. */
             junctionHead?: number;
             /** @description Branched systems only, in the order of system.branches. */
@@ -1006,8 +1053,11 @@ export interface components {
             fittings: {
                 kind: string;
                 label: string;
-                /** @enum {string} */
-                method: "crane" | "fixed";
+                /**
+                 * @description diameter-ratio: K from the fitting's diameterRatio and angle (reducer, expansion; see source).
+                 * @enum {string}
+                 */
+                method: "crane" | "fixed" | "diameter-ratio";
                 /** @description n in K = n f_T (Crane fittings). */
                 multiplier?: number;
                 /** @description K for the bore asked for, or the fixed K. */
@@ -1406,6 +1456,18 @@ export interface components {
             length: number;
             fittings: components["schemas"]["FittingCount"][];
             extraK: number;
+            /** @description A custom bore in the design's diameter unit, instead of the size's; null or absent: the size's bore. */
+            insideDiameter?: number | null;
+            /** @description A custom Hazen-Williams C; null or absent: the series' default. */
+            hazenWilliamsC?: number | null;
+            /** @description A custom absolute roughness in the design's diameter unit; null or absent: the series' default. */
+            roughness?: number | null;
+            /** @description Equipment rated by a head loss (design's head unit) at a flow (design's flow unit). */
+            equipment?: {
+                name: string;
+                headLoss: number;
+                atFlow: number;
+            }[];
         };
         /** @description The measured system as the design form holds it, in the design's units. */
         DesignSystem: {
@@ -2718,6 +2780,12 @@ export interface operations {
                      *           "method": "fixed",
                      *           "k": 1,
                      *           "source": "Crane TP-410, Appendix A-29: K = 1"
+                     *         },
+                     *         {
+                     *           "kind": "reducer",
+                     *           "label": "Reducer into this segment from a larger pipe (diameter ratio and angle)",
+                     *           "method": "diameter-ratio",
+                     *           "source": "Crane TP-410, A-26: K = 0.8 sin(theta/2) (1 - beta^2) for theta <= 45 degrees, 0.5 (1 - beta^2) sqrt(sin(theta/2)) above, referred to this (smaller) bore"
                      *         }
                      *       ]
                      *     }

@@ -1,9 +1,15 @@
 import {
+  PRESSURE_UNITS,
   diameterToSI,
+  flowToSI,
   headToSI,
   lengthToSI,
+  pressureToHead,
+  waterDensity,
   type BranchedSystemInput,
+  type HeadUnit,
   type PipeSegmentInput,
+  type PressureUnit,
   type SystemCurveInput,
 } from '../hydraulics';
 import type { CalculationUnits, PipeSystem } from './api-schemas';
@@ -25,8 +31,23 @@ export const SYSTEM_FIELD_RENAMES: Readonly<Record<string, string>> = Object.fre
   extraK: 'minorLossK',
 });
 
+/**
+ * A head given in a head unit, or a pressure (psi, kPa, bar) turned into head of water at the
+ * system's temperature by h = p / (rho g) (units.ts pressureToHead; density from IAPWS-95 as
+ * water-properties.ts gives it).
+ */
+function headOrPressureToSI(value: number, unit: HeadUnit | PressureUnit, temperature: number | undefined): number {
+  return (PRESSURE_UNITS as readonly string[]).includes(unit)
+    ? pressureToHead(value, unit as PressureUnit, waterDensity(temperature ?? 20))
+    : headToSI(value, unit as HeadUnit);
+}
+
 /** One segment of the contract's system in SI (lengths in `units.length`, bores and roughness in `units.diameter`). */
-function segmentInputOf(segment: PipeSystem['segments'][number], units: CalculationUnits): PipeSegmentInput {
+function segmentInputOf(
+  segment: PipeSystem['segments'][number],
+  units: CalculationUnits,
+  temperature: number | undefined,
+): PipeSegmentInput {
   return {
     length: lengthToSI(segment.length, units.length),
     pipeSizeId: segment.pipe,
@@ -38,14 +59,21 @@ function segmentInputOf(segment: PipeSystem['segments'][number], units: Calculat
     fittings: segment.fittings,
     extraK: segment.minorLossK,
     side: segment.side,
+    equipment: segment.equipment?.map((entry) => ({
+      name: entry.name,
+      headLoss: headOrPressureToSI(entry.headLoss, entry.headLossUnit ?? units.head, temperature),
+      atFlow: flowToSI(entry.atFlow, units.flow),
+    })),
   };
 }
 
 /**
- * The system as compileSystemCurve takes it: lengths (with the site and pump elevations), bores, roughness and heads converted to SI by
- * the engine's unit conversions (units.ts; NIST SP 811 factors), no outlet pressure meaning 0.
+ * The system as compileSystemCurve takes it: lengths (with the site and pump elevations), bores,
+ * roughness, heads and flows converted to SI by the engine's unit conversions (units.ts; NIST SP
+ * 811 factors), no outlet pressure meaning 0; an outlet pressure or equipment loss given in a
+ * pressure unit becomes head of water at the system's temperature (h = p / rho g).
  * @param system - the contract's system, in the request's units
- * @param units - the request's units: `length` for lengths, `diameter` for bores and roughness, `head` for heads
+ * @param units - the request's units: `length` for lengths, `diameter` for bores and roughness, `head` for heads, `flow` for equipment's rated flows
  * @returns the engine's SI input (m, C)
  * @example
  * // exact: 10 ft = 3.048 m, 100 ft = 30.48 m, 0.0018 in = 4.572e-5 m
@@ -55,13 +83,19 @@ function segmentInputOf(segment: PipeSystem['segments'][number], units: Calculat
  * input.segments[0].length // => 30.48
  * input.segments[0].roughness // => 4.572e-5
  * compileSystemCurve(input).staticHead // => 3.048
+ * // 1 bar at 20 C: 1e5 / (998.206 x 9.80665) = 10.2155 m (water density of python3-iapws)
+ * systemInputOf({ staticHead: 0, outletPressureHead: 1, outletPressureUnit: 'bar', frictionMethod: 'darcy-weisbach', segments: [{ length: 1, insideDiameter: 2 }] }, units).outletPressureHead // => 10.2155
  */
 export function systemInputOf(system: PipeSystem, units: CalculationUnits): SystemCurveInput {
   return {
     // The contract requires staticHead on a system without branches; a missing one is refused at /staticHead.
     staticHead: headToSI(system.staticHead ?? Number.NaN, units.head, '/staticHead'),
-    outletPressureHead: headToSI(system.outletPressureHead ?? 0, units.head),
-    segments: system.segments.map((segment) => segmentInputOf(segment, units)),
+    outletPressureHead: headOrPressureToSI(
+      system.outletPressureHead ?? 0,
+      system.outletPressureUnit ?? units.head,
+      system.waterTemperatureC,
+    ),
+    segments: system.segments.map((segment) => segmentInputOf(segment, units, system.waterTemperatureC)),
     temperature: system.waterTemperatureC,
     frictionMethod: system.frictionMethod,
     siteElevation: system.siteElevation === undefined ? undefined : lengthToSI(system.siteElevation, units.length),
@@ -89,12 +123,12 @@ export function branchedSystemInputOf(system: PipeSystem, units: CalculationUnit
   return {
     frictionMethod: system.frictionMethod,
     temperature: system.waterTemperatureC,
-    segments: system.segments.map((segment) => segmentInputOf(segment, units)),
+    segments: system.segments.map((segment) => segmentInputOf(segment, units, system.waterTemperatureC)),
     branches: system.branches.map((branch) => ({
       name: branch.name,
       staticHead: headToSI(branch.staticHead, units.head),
       outletPressureHead: headToSI(branch.outletPressureHead ?? 0, units.head),
-      segments: branch.segments.map((segment) => segmentInputOf(segment, units)),
+      segments: branch.segments.map((segment) => segmentInputOf(segment, units, system.waterTemperatureC)),
     })),
   };
 }

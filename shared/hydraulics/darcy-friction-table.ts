@@ -1,26 +1,27 @@
 import { CubicHermiteTable } from './cubic-hermite-table';
 import {
   LAMINAR_REYNOLDS_LIMIT,
-  TURBULENT_REYNOLDS_LIMIT,
+  LAMINAR_STEP_START,
   frictionFactorColebrook,
-  transitionFrictionFactor,
+  laminarStepFrictionFactor,
 } from './friction';
 import { STANDARD_GRAVITY } from './physical-constants';
 import type { ResolvedSegment } from './system-input';
 
 /*
  * Darcy-Weisbach friction is precomputed per segment as a table of the
- * Colebrook factor f over u = ln(Re) from Re = 4000 to 1e8, with the exact
- * derivative df/du at each node, evaluated by cubic Hermite interpolation.
- * Accuracy: relative error of the friction head below 1e-8 against the exact
- * Colebrook solution over that range (the tests check it). Below Re 4000 the
- * laminar and transition rules (friction.ts) are evaluated exactly; above
- * 1e8 Colebrook is solved directly.
+ * Colebrook factor f over u = ln(Re) from Re = 2300 to 1e8 (the transition
+ * band takes the turbulent value, friction.ts), with the exact derivative
+ * df/du at each node, evaluated by cubic Hermite interpolation. Accuracy:
+ * relative error of the friction head below 1e-8 against the exact Colebrook
+ * solution over that range (the tests check it). Below Re 2300 the laminar
+ * rule and the ramp up to the turbulent value (friction.ts) are evaluated
+ * exactly; above 1e8 Colebrook is solved directly.
  */
-const TABLE_LOG_RE_MIN = Math.log(TURBULENT_REYNOLDS_LIMIT);
+const TABLE_LOG_RE_MIN = Math.log(LAMINAR_REYNOLDS_LIMIT);
 const TABLE_REYNOLDS_MAX = 1e8;
 const TABLE_LOG_RE_MAX = Math.log(TABLE_REYNOLDS_MAX);
-const TABLE_INTERVALS = 128;
+const TABLE_INTERVALS = 160;
 
 /** Colebrook f and df/d(ln Re) from the implicit derivative of x = 1/sqrt(f). */
 function colebrookWithLogSlope(reynolds: number, relativeRoughness: number, out: Float64Array): void {
@@ -41,15 +42,15 @@ export interface DarcySegmentTable {
   /** Re = reynoldsPerFlow * Q */
   reynoldsPerFlow: number;
   relativeRoughness: number;
-  /** Colebrook f at Re 4000, the upper end of the transition blend. */
-  turbulentAt4000: number;
-  /** Colebrook f over ln(Re) from Re 4000 to 1e8. */
+  /** Colebrook f at Re 2300, the top of the ramp from laminar friction. */
+  turbulentAt2300: number;
+  /** Colebrook f over ln(Re) from Re 2300 to 1e8. */
   colebrook: CubicHermiteTable;
 }
 
 /**
  * Tabulates one resolved segment's friction at the water's kinematic viscosity: Colebrook f over
- * ln Re, 4000 to 1e8, 128 intervals of a cubic Hermite table with the exact slope df/d(ln Re)
+ * ln Re, 2300 to 1e8, 160 intervals of a cubic Hermite table with the exact slope df/d(ln Re)
  * from the implicit derivative of Colebrook's equation (Colebrook 1939, J. ICE 11(4); de Boor, A
  * Practical Guide to Splines, rev. ed., ch. IV for the error bound).
  * @param segment - a resolved segment (resolveSegment): length and bore (m), area (m2), roughness (m)
@@ -70,7 +71,7 @@ export function buildDarcyTable(segment: ResolvedSegment, kinematicViscosity: nu
     coefficient: segment.length / (segment.insideDiameter * 2 * STANDARD_GRAVITY * segment.area * segment.area),
     reynoldsPerFlow: segment.insideDiameter / (segment.area * kinematicViscosity),
     relativeRoughness,
-    turbulentAt4000: colebrook.value(TABLE_LOG_RE_MIN),
+    turbulentAt2300: colebrook.value(TABLE_LOG_RE_MIN),
     colebrook,
   };
 }
@@ -80,8 +81,8 @@ const factorScratch = new Float64Array(2);
 
 /**
  * Darcy-Weisbach friction head h_f = f (L/D) V^2 / 2g of one tabulated segment at `flow` and its
- * derivative dh_f/dQ = c Q (2 f + df/d(ln Re)), into out[0] and out[1]; laminar and transition
- * rules exact (friction.ts), Colebrook from the table (relative error below 1e-8), solved directly
+ * derivative dh_f/dQ = c Q (2 f + df/d(ln Re)), into out[0] and out[1]; the laminar rule and its
+ * ramp exact (friction.ts), Colebrook from the table from Re 2300 (relative error below 1e-8), solved directly
  * above Re 1e8. No checks: the solver's inner loop.
  * @param table - the segment's table (buildDarcyTable)
  * @param flow - volumetric flow, m3/s (>= 0)
@@ -96,24 +97,20 @@ const factorScratch = new Float64Array(2);
  */
 export function darcyFrictionWithSlope(table: DarcySegmentTable, flow: number, out: Float64Array): void {
   const reynolds = table.reynoldsPerFlow * flow;
-  if (reynolds < LAMINAR_REYNOLDS_LIMIT) {
+  if (reynolds < LAMINAR_STEP_START) {
     const linear = (table.coefficient * 64) / table.reynoldsPerFlow;
     out[0] = linear * flow;
     out[1] = linear;
     return;
   }
-  let f: number;
-  let dfdu: number;
-  if (reynolds < TURBULENT_REYNOLDS_LIMIT) {
-    const [value, perReynolds] = transitionFrictionFactor(reynolds, table.turbulentAt4000);
-    f = value;
-    dfdu = perReynolds * reynolds;
-  } else {
-    if (reynolds >= TABLE_REYNOLDS_MAX) colebrookWithLogSlope(reynolds, table.relativeRoughness, factorScratch);
-    else table.colebrook.valueAndSlope(Math.log(reynolds), factorScratch);
-    f = factorScratch[0];
-    dfdu = factorScratch[1];
-  }
+  if (reynolds < LAMINAR_REYNOLDS_LIMIT) {
+    const [value, perReynolds] = laminarStepFrictionFactor(reynolds, table.turbulentAt2300);
+    factorScratch[0] = value;
+    factorScratch[1] = perReynolds * reynolds;
+  } else if (reynolds >= TABLE_REYNOLDS_MAX) colebrookWithLogSlope(reynolds, table.relativeRoughness, factorScratch);
+  else table.colebrook.valueAndSlope(Math.log(reynolds), factorScratch);
+  const f = factorScratch[0];
+  const dfdu = factorScratch[1];
   const q2c = table.coefficient * flow * flow;
   out[0] = q2c * f;
   out[1] = table.coefficient * flow * (2 * f + dfdu);

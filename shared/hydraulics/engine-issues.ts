@@ -4,12 +4,28 @@
  * one table (shared/messages/engine-issue-text.ts), in the units the reader asked for.
  */
 
+/** Why a Hazen-Williams segment is outside the range the formula is fitted to (system-breakdown HAZEN_WILLIAMS_RANGE). */
+export type HazenWilliamsRangeReason = 'small-bore' | 'low-reynolds' | 'temperature';
+
 /** The numbers each engine issue carries, by code (SI: m3/s, m/s, C). */
 export interface EngineIssueParams {
   /** Hazen-Williams used outside the water temperatures it was fitted to. */
   'hazen-williams-temperature': { temperature: number };
   /** A segment's velocity above the common-practice limit for plastic pipe. */
   'segment-velocity': { segment: number; flow: number; velocity: number; limit: number };
+  /** Darcy-Weisbach flow in the transition band Re 2300-4000, where the turbulent friction factor is taken. */
+  'transitional-flow': { segment: number; flow: number; reynolds: number };
+  /** A Hazen-Williams segment outside the formula's range, with the Darcy-Weisbach friction head (m) beside it. */
+  'hazen-williams-out-of-range': {
+    segment: number;
+    flow: number;
+    reynolds: number;
+    reasons: HazenWilliamsRangeReason[];
+    hazenWilliamsHead: number;
+    darcyWeisbachHead: number;
+    /** The segment has no roughness: the Darcy-Weisbach figure is for a smooth pipe. */
+    smoothPipe: boolean;
+  };
   /** The least-squares head fit would rise; a constrained one is used instead. */
   'head-fit-constrained': { leastSquaresDegree: 2 | 3; degree: 2 | 3; heldFlatAt: 'first' | 'last' | null };
   /** The published points ran from the largest flow down and were reversed. */
@@ -53,6 +69,8 @@ export interface EngineInputErrorParams {
   'not-whole-number': { what: string; value: number; min: number };
   'trim-only': { ratio: number };
   'unknown-fitting-kind': { value: string; accepted: string[] };
+  /** A reducer or expansion without its diameter ratio. */
+  'no-diameter-ratio': { kind: string };
   'unknown-friction-method': { value: string; accepted: string[] };
   'unknown-material': { value: string; accepted: string[] };
   'unknown-unit': { quantity: string; value: string; accepted: string[] };

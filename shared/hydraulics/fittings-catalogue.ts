@@ -1,4 +1,4 @@
-import { HydraulicsInputError, requirePositive } from './hydraulics-error';
+import { HydraulicsInputError, requireInRange, requirePositive } from './hydraulics-error';
 import { diameterToSI } from './units';
 
 /*
@@ -10,7 +10,10 @@ import { diameterToSI } from './units';
  * fitting's bore,
  *   f_T = 0.25 / [log10((eps/D) / 3.7)]^2,  eps = 0.0018 in (45.72 um).
  * Multipliers n are Crane's, for full-bore valves (beta = 1). Entrance and
- * exit coefficients are fixed K (Crane TP-410, A-29).
+ * exit coefficients are fixed K (Crane TP-410, A-29). Reducers and expansions
+ * take Crane's formulas in the diameter ratio (A-26), the tee through its
+ * branch Crane's diverging-branch formula (2009 edition, ch. 2); a union and a
+ * bulkhead fitting, which Crane does not tabulate, common-practice values.
  */
 
 /** Crane's roughness of clean commercial steel, 0.0018 in, in m. */
@@ -30,17 +33,39 @@ export const FITTING_KINDS = [
   'valve-butterfly',
   'check-valve-swing',
   'check-valve-swing-clearway',
+  'check-valve-spring',
   'foot-valve-poppet',
   'foot-valve-hinged',
   'entrance-sharp',
   'entrance-inward-projecting',
   'exit',
+  'reducer',
+  'expansion',
+  'union',
+  'bulkhead',
+  'valve-three-way-run',
+  'valve-three-way-branch',
 ] as const;
 
 export type FittingKind = (typeof FITTING_KINDS)[number];
 
-/** How a fitting's K is found: a multiple of f_T (Crane) or a fixed value. */
-export type FittingResistance = { method: 'crane'; multiplier: number } | { method: 'fixed'; k: number };
+/**
+ * How a fitting's K is found: a multiple of f_T (Crane), a fixed value, or Crane's formula in the
+ * diameter ratio and angle of a reducer (contraction) or expansion (enlargement).
+ */
+export type FittingResistance =
+  | { method: 'crane'; multiplier: number }
+  | { method: 'fixed'; k: number }
+  | { method: 'diameter-ratio'; change: 'contraction' | 'enlargement' };
+
+/** A fitting as a segment names it; reducers and expansions also give their diameter ratio and angle. */
+export interface FittingGeometry {
+  kind: string;
+  /** Reducer and expansion: this segment's bore over the larger bore, 0 < beta < 1. */
+  diameterRatio?: number;
+  /** Reducer and expansion: included cone angle, degrees (0, 180]; default 180, a sudden change. */
+  angle?: number;
+}
 
 export interface FittingDefinition {
   kind: FittingKind;
@@ -55,15 +80,35 @@ function crane(kind: FittingKind, label: string, multiplier: number, note = ''):
   return { kind, label, resistance: { method: 'crane', multiplier }, source: `${CRANE}: K = ${multiplier} f_T${note}` };
 }
 
-function fixed(kind: FittingKind, label: string, k: number): FittingDefinition {
-  return { kind, label, resistance: { method: 'fixed', k }, source: `${CRANE}: K = ${k}` };
+function fixed(kind: FittingKind, label: string, k: number, source = `${CRANE}: K = ${k}`): FittingDefinition {
+  return { kind, label, resistance: { method: 'fixed', k }, source };
+}
+
+function diameterRatio(
+  kind: FittingKind,
+  label: string,
+  change: 'contraction' | 'enlargement',
+  source: string,
+): FittingDefinition {
+  return { kind, label, resistance: { method: 'diameter-ratio', change }, source };
 }
 
 /**
- * The catalogue, in the order of FITTING_KINDS, each entry with its Crane TP-410 source (Appendix
- * A-29 multipliers n of K = n f_T, or fixed K for entrances and the exit).
+ * A standard tee with all the flow turning through its branch, by Crane's diverging-branch
+ * formula K = G [1 + H (q/beta^2)^2 - J (q/beta^2) cos theta] (Crane TP-410, 2009 edition, ch. 2,
+ * with its errata): branch bore equal to the run's (beta = 1), theta = 90 degrees, q = Q_branch /
+ * Q_combined = 1, so H = 0.3, J = 0, G = 1 + 0.3 q^2 = 1.3 and K = 1.3 x 1.3 = 1.69, referred to
+ * the inlet, which is this segment's bore.
+ */
+const TEE_AS_ELBOW_K = 1.3 * (1 + 0.3);
+
+/**
+ * The catalogue, in the order of FITTING_KINDS, each entry with its source: Crane TP-410 (Appendix
+ * A-29 multipliers n of K = n f_T, fixed K for entrances and the exit, A-26 formulas for reducers
+ * and expansions, the 2009 diverging-branch formula for a tee through its branch) or common
+ * practice where Crane tabulates nothing (union, bulkhead fitting).
  * @example
- * FITTINGS.length // => 17
+ * FITTINGS.length // => 24
  * FITTINGS[0].kind // => 'elbow-90-standard'
  */
 export const FITTINGS: readonly FittingDefinition[] = Object.freeze([
@@ -71,24 +116,61 @@ export const FITTINGS: readonly FittingDefinition[] = Object.freeze([
   crane(
     'elbow-90-long-radius',
     '90-degree long-radius elbow',
-    20,
-    " (Crane's 90-degree bend at r/d = 1; at r/d = 1.5 Crane gives 14 f_T, so 20 is the conservative value)",
+    14,
+    " (Crane's 90-degree bend at its real radius, r/d = 1.5 as ASME B16.9 makes a long-radius elbow)",
   ),
   crane('elbow-45-standard', '45-degree standard elbow', 16),
   crane('bend-180-return', '180-degree close-pattern return bend', 50),
   crane('tee-run', 'Standard tee, flow through run', 20, " (older editions' fixed value)"),
-  crane('tee-branch', 'Standard tee, flow through branch', 60, " (older editions' fixed value)"),
+  fixed(
+    'tee-branch',
+    'Standard tee used as an elbow, all flow through the branch',
+    TEE_AS_ELBOW_K,
+    "Crane TP-410 (2009), diverging-branch formula with all the flow through a branch of the run's bore at 90 degrees: K = 1.3 x (1 + 0.3) = 1.69",
+  ),
   crane('valve-gate', 'Gate valve, full bore, open', 8),
   crane('valve-ball', 'Ball valve, full bore, open', 3),
   crane('valve-globe', 'Globe valve, full bore, open', 340),
   crane('valve-butterfly', 'Butterfly valve, open', 45, ' (Crane tabulates 45 f_T for 2" to 8")'),
   crane('check-valve-swing', 'Swing check valve, conventional', 100),
   crane('check-valve-swing-clearway', 'Swing check valve, clearway', 50),
+  crane(
+    'check-valve-spring',
+    'Spring (in-line) check valve',
+    600,
+    " (the lift check valve, in-line pattern, which a spring check resembles: the flow lifts a disc off its seat; give the maker's loss at a flow as equipment when known)",
+  ),
   crane('foot-valve-poppet', 'Foot valve with strainer, poppet disc', 420),
   crane('foot-valve-hinged', 'Foot valve with strainer, hinged disc', 75),
   fixed('entrance-sharp', 'Pipe entrance, flush sharp-edged', 0.5),
   fixed('entrance-inward-projecting', 'Pipe entrance, inward projecting', 0.78),
   fixed('exit', 'Pipe exit into a tank or pond (count once)', 1.0),
+  diameterRatio(
+    'reducer',
+    'Reducer into this segment from a larger pipe (diameter ratio and angle)',
+    'contraction',
+    'Crane TP-410, A-26: K = 0.8 sin(theta/2) (1 - beta^2) for theta <= 45 degrees, 0.5 (1 - beta^2) sqrt(sin(theta/2)) above, referred to this (smaller) bore',
+  ),
+  diameterRatio(
+    'expansion',
+    'Expansion out of this segment into a larger pipe (diameter ratio and angle)',
+    'enlargement',
+    'Crane TP-410, A-26: K = 2.6 sin(theta/2) (1 - beta^2)^2 for theta <= 45 degrees, (1 - beta^2)^2 above (Borda-Carnot), referred to this (smaller) bore',
+  ),
+  fixed(
+    'union',
+    'Union (or coupling)',
+    0.08,
+    'Common practice: K = 0.08, the value the loss tables of the trade give a threaded union (Crane TP-410 tabulates none)',
+  ),
+  fixed(
+    'bulkhead',
+    'Bulkhead (tank or liner wall) fitting',
+    0.5,
+    "Common practice: K = 0.5 for a fitting whose bore narrows and widens again through the wall (Crane TP-410 tabulates none; give the maker's loss at a flow as equipment when known). The pipe's entrance or exit is counted apart",
+  ),
+  crane('valve-three-way-run', 'Three-way valve, flow straight through', 30, ' (three-way plug valve)'),
+  crane('valve-three-way-branch', 'Three-way valve, flow through the branch', 90, ' (three-way plug valve)'),
 ]);
 
 const FITTINGS_BY_KIND: ReadonlyMap<string, FittingDefinition> = new Map(FITTINGS.map((f) => [f.kind, f]));
@@ -134,22 +216,61 @@ export function fittingByKind(kind: string, field = '/kind'): FittingDefinition 
 }
 
 /**
+ * K of a reducer (contraction into this bore) or expansion (enlargement out of it), referred to
+ * this, the smaller, bore, beta = d_small / d_large, theta the included cone angle:
+ *   contraction: K = 0.8 sin(theta/2) (1 - beta^2) for theta <= 45 degrees, else 0.5 (1 - beta^2) sqrt(sin(theta/2));
+ *   enlargement: K = 2.6 sin(theta/2) (1 - beta^2)^2 for theta <= 45 degrees, else (1 - beta^2)^2.
+ * Source: Crane TP-410, Appendix A-26 (formulas 1 to 4, the K_1 of the small bore). Valid for
+ * turbulent flow; theta = 180 degrees is the sudden change.
+ * @param change - 'contraction' (reducer) or 'enlargement' (expansion)
+ * @param ratio - diameter ratio beta, 0 < beta < 1
+ * @param angle - included angle theta, degrees (0, 180]
+ * @returns resistance coefficient K, dimensionless
+ * @example
+ * // sudden, beta 0.5: 0.5 x 0.75 and 0.75^2; python3-fluids 1.0.22 contraction_sharp(method='Crane') gives 0.375
+ * diameterChangeK('contraction', 0.5, 180) // => 0.375
+ * diameterChangeK('enlargement', 0.5, 180) // => 0.5625
+ */
+export function diameterChangeK(change: 'contraction' | 'enlargement', ratio: number, angle: number): number {
+  const area = 1 - ratio * ratio;
+  const halfAngleSine = Math.sin((angle * Math.PI) / 360);
+  const gradual = angle <= 45;
+  if (change === 'contraction') return gradual ? 0.8 * halfAngleSine * area : 0.5 * area * Math.sqrt(halfAngleSine);
+  return gradual ? 2.6 * halfAngleSine * area * area : area * area;
+}
+
+/**
  * Resistance coefficient K of one fitting in a pipe of `insideDiameter` (m), for h_m = K V^2 / 2g.
- * Crane fittings: K = n f_T(D); entrances and exit: fixed K. Source per entry (Crane TP-410,
- * Appendix A-29). Valid for full-bore fittings in turbulent flow, Crane's bores 1/2" to 24".
- * @param kind - one of FITTING_KINDS
+ * Crane fittings: K = n f_T(D); entrances, exit, tee through its branch, union and bulkhead: fixed
+ * K; reducer and expansion: diameterChangeK of their ratio and angle (which they must give).
+ * Source per entry (FITTINGS). Valid for full-bore fittings in turbulent flow, Crane's bores 1/2"
+ * to 24".
+ * @param fitting - its kind (one of FITTING_KINDS) and, for a reducer or expansion, diameter ratio and angle
  * @param insideDiameter - inside diameter, m (> 0)
- * @param field - JSON pointer named when the kind is unknown
+ * @param field - JSON pointer of the fitting (its kind, ratio and angle are named under it)
  * @returns resistance coefficient K, dimensionless
  * @example
  * // 90-degree standard elbow in 3" Schedule 40: 30 f_T = 30 x 0.017315 by hand; the exit is K = 1
- * fittingK('elbow-90-standard', 0.0779272) // => 0.51945
- * fittingK('exit', 0.0779272) // => 1
+ * fittingK({ kind: 'elbow-90-standard' }, 0.0779272) // => 0.51945
+ * fittingK({ kind: 'exit' }, 0.0779272) // => 1
+ * fittingK({ kind: 'expansion', diameterRatio: 0.5 }, 0.0779272) // => 0.5625
  */
-export function fittingK(kind: string, insideDiameter: number, field = '/kind'): number {
-  const { resistance } = fittingByKind(kind, field);
+export function fittingK(fitting: FittingGeometry, insideDiameter: number, field = ''): number {
+  const { resistance } = fittingByKind(fitting.kind, `${field}/kind`);
   if (resistance.method === 'fixed') {
     return resistance.k;
   }
-  return resistance.multiplier * craneFullyTurbulentFrictionFactor(insideDiameter);
+  if (resistance.method === 'diameter-ratio') {
+    if (fitting.diameterRatio === undefined) {
+      throw new HydraulicsInputError({
+        code: 'no-diameter-ratio',
+        params: { kind: fitting.kind },
+        pointer: `${field}/diameterRatio`,
+      });
+    }
+    const ratio = requireInRange(fitting.diameterRatio, 0.05, 0.99, `${field}/diameterRatio`, 'diameter ratio');
+    const angle = requireInRange(fitting.angle ?? 180, 1, 180, `${field}/angle`, 'angle (degrees)');
+    return diameterChangeK(resistance.change, ratio, angle);
+  }
+  return resistance.multiplier * craneFullyTurbulentFrictionFactor(insideDiameter, `${field}/insideDiameter`);
 }

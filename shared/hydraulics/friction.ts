@@ -6,16 +6,24 @@ import { STANDARD_GRAVITY } from './physical-constants';
  *
  * Flow-regime rule used everywhere in Riffle: laminar f = 64/Re below
  * Re = 2300; the turbulent correlation (Colebrook-White by default) from
- * Re = 4000; in the transition band 2300-4000 a straight line in Re from
- * 64/2300 to the turbulent value at 4000. The blend keeps the system curve
- * continuous, so a pump curve that crosses it always has an exact operating
- * point; real flow in that band is unsteady and no correlation predicts it.
+ * there on, the transition band 2300-4000 included. Real flow in that band
+ * is intermittent and no correlation predicts it; the turbulent value is the
+ * upper one, so a system curve never runs low there, where a straight line
+ * from 64/2300 to the turbulent value at 4000 would run 17-40 % low
+ * (Colebrook 1939 extended into the band, as the Moody chart's dashed
+ * curves do; Moody 1944). The step up at Re 2300 is taken as a steep straight
+ * ramp over the last 1 % below it (Re 2277-2300, LAMINAR_STEP_START), so the
+ * system curve stays continuous and a pump curve that crosses it always has
+ * an exact operating point; the ramp only raises friction, so it errs on the
+ * safe side too. The answer warns of flow in the band (system-breakdown).
  */
 
 /** Reynolds number below which flow is taken as laminar: ~2300, the usual engineering value (White, Fluid Mechanics, 7th ed., ch. 6). */
 export const LAMINAR_REYNOLDS_LIMIT = 2300;
-/** Reynolds number from which flow is taken as fully turbulent: 4000, where the Moody chart's turbulent curves begin (Moody 1944). */
+/** Reynolds number from which flow is fully turbulent: 4000, where the Moody chart's turbulent curves begin (Moody 1944); below it the answer warns. */
 export const TURBULENT_REYNOLDS_LIMIT = 4000;
+/** Reynolds number where the ramp from 64/Re up to the turbulent value at 2300 begins: 1 % below it (Riffle's own rule, above). */
+export const LAMINAR_STEP_START = 0.99 * LAMINAR_REYNOLDS_LIMIT;
 
 export type FrictionFactorMethod = 'colebrook' | 'swamee-jain';
 
@@ -185,36 +193,39 @@ export function frictionFactorColebrook(reynolds: number, relativeRoughness: num
 }
 
 /**
- * Friction factor in the transition band as a straight line through
- * (2300, 64/2300) and (4000, turbulentAt4000). Riffle's own rule (see the top of this file), not
- * a published correlation: real flow at 2300 < Re < 4000 is intermittent and no correlation
- * predicts it; the line keeps the system curve continuous. Valid for 2300 <= Re <= 4000.
+ * Friction factor on the ramp that closes the step from laminar to turbulent friction: a straight
+ * line in Re through (2277, 64/2277) and (2300, turbulentAt2300). Riffle's own rule (the top of
+ * this file), not a published correlation; it keeps the curve continuous and raises friction
+ * only. Valid for 2277 <= Re <= 2300.
  * @param reynolds - Reynolds number, dimensionless
- * @param turbulentAt4000 - the turbulent correlation's friction factor at Re 4000, dimensionless
+ * @param turbulentAt2300 - the turbulent correlation's friction factor at Re 2300, dimensionless
  * @returns [Darcy friction factor, its slope d f / d Re], both dimensionless
  * @example
- * // halfway along the line from 64/2300 = 0.0278261 to 0.04 (checked by hand)
- * transitionFrictionFactor(3150, 0.04)[0] // => 0.0339130
- * transitionFrictionFactor(3150, 0.04)[1] // => 7.16113e-6
+ * // at the ramp's ends: 64/2277 and the turbulent value; halfway between them (checked by hand)
+ * laminarStepFrictionFactor(2277, 0.05)[0] // => 0.0281072
+ * laminarStepFrictionFactor(2288.5, 0.05)[0] // => 0.0390536
+ * laminarStepFrictionFactor(2300, 0.05)[0] // => 0.05
  */
-export function transitionFrictionFactor(reynolds: number, turbulentAt4000: number): [number, number] {
-  const laminarAt2300 = 64 / LAMINAR_REYNOLDS_LIMIT;
-  const slope = (turbulentAt4000 - laminarAt2300) / (TURBULENT_REYNOLDS_LIMIT - LAMINAR_REYNOLDS_LIMIT);
-  return [laminarAt2300 + slope * (reynolds - LAMINAR_REYNOLDS_LIMIT), slope];
+export function laminarStepFrictionFactor(reynolds: number, turbulentAt2300: number): [number, number] {
+  const laminarAtStart = 64 / LAMINAR_STEP_START;
+  const slope = (turbulentAt2300 - laminarAtStart) / (LAMINAR_REYNOLDS_LIMIT - LAMINAR_STEP_START);
+  return [laminarAtStart + slope * (reynolds - LAMINAR_STEP_START), slope];
 }
 
 /**
  * Darcy friction factor with Riffle's regime rule (top of this file): 64/Re
- * below Re 2300, Colebrook-White (default) or Swamee-Jain from 4000, a
- * straight-line blend between. Sources as frictionFactorLaminar, frictionFactorColebrook
+ * below Re 2277, Colebrook-White (default) or Swamee-Jain from 2300, the
+ * transition band 2300-4000 taking the turbulent value, a straight ramp between 2277 and 2300. Sources as frictionFactorLaminar, frictionFactorColebrook
  * (Colebrook 1939, J. ICE 11(4)) and frictionFactorSwameeJain (J. Hydraulics Div. 102(HY5)).
  * @param reynolds - Reynolds number, dimensionless (> 0)
  * @param relativeRoughness - relative roughness eps/D, dimensionless (>= 0)
  * @param method - turbulent correlation: 'colebrook' (default) or 'swamee-jain'
  * @returns Darcy friction factor, dimensionless
  * @example
- * // laminar, exact 64/1000; turbulent as python3-fluids Colebrook(1e5, 1e-4) = 0.0185139
+ * // laminar, exact 64/1000; turbulent as python3-fluids Colebrook(1e5, 1e-4) = 0.0185139;
+ * // transitional as python3-fluids 1.0.22 friction_factor(3000, 1e-4) = 0.0436091
  * darcyFrictionFactor(1000, 1e-4) // => 0.064
+ * darcyFrictionFactor(3000, 1e-4) // => 0.0436091
  * darcyFrictionFactor(1e5, 1e-4) // => 0.0185139
  * darcyFrictionFactor(1e5, 1e-4, 'swamee-jain') // => 0.0184524
  */
@@ -223,14 +234,14 @@ export function darcyFrictionFactor(
   relativeRoughness: number,
   method: FrictionFactorMethod = 'colebrook',
 ): number {
-  if (reynolds < LAMINAR_REYNOLDS_LIMIT) {
+  if (reynolds < LAMINAR_STEP_START) {
     return frictionFactorLaminar(reynolds);
   }
   const turbulent = method === 'colebrook' ? frictionFactorColebrook : frictionFactorSwameeJain;
-  if (reynolds >= TURBULENT_REYNOLDS_LIMIT) {
+  if (reynolds >= LAMINAR_REYNOLDS_LIMIT) {
     return turbulent(reynolds, relativeRoughness);
   }
-  return transitionFrictionFactor(reynolds, turbulent(TURBULENT_REYNOLDS_LIMIT, relativeRoughness))[0];
+  return laminarStepFrictionFactor(reynolds, turbulent(LAMINAR_REYNOLDS_LIMIT, relativeRoughness))[0];
 }
 
 /**

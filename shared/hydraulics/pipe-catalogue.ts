@@ -1,8 +1,10 @@
 import { HydraulicsInputError } from './hydraulics-error';
+import { METRIC_SERIES_DEFINITIONS, type MetricSeriesDefinition } from './metric-pipe-series';
 import { diameterToSI } from './units';
 
 /*
- * Pipe sizes by series. Inch dimensions are those the standards tabulate;
+ * Pipe sizes by series. Inch dimensions are those the standards tabulate, as
+ * are the millimetre dimensions of the metric series (ISO 4427, ISO 1452);
  * they are converted to metres once here. Hazen-Williams C and absolute
  * roughness are the series' defaults (a segment may override them):
  *   plastic (PVC, PE): C = 150 (USDA NRCS Conservation Practice Standard 430,
@@ -39,9 +41,9 @@ export interface PipeSize {
   id: string;
   /** Series id, e.g. `pvc-sch40`. */
   series: string;
-  /** Nominal pipe size in inches, e.g. 1.5. */
+  /** Nominal size: inches for the inch series, e.g. 1.5; the outside diameter in mm for the metric ones, e.g. 63. */
   nominalSize: number;
-  /** Nominal size as the trade writes it, e.g. `1-1/2"`. */
+  /** Nominal size as the trade writes it, e.g. `1-1/2"` or `63 mm`. */
   nominalLabel: string;
   material: PipeMaterial;
   /** Outside diameter, m; null where no dimensional standard fixes it (flexible hose). */
@@ -225,20 +227,44 @@ const SERIES_DEFINITIONS: readonly SeriesDefinition[] = [
   },
 ];
 
+function sizeOf(
+  definition: { id: string; material: PipeMaterial },
+  nominal: number,
+  nominalLabel: string,
+  outsideDiameter: number | null,
+  insideDiameter: number,
+): PipeSize {
+  return Object.freeze({
+    id: `${definition.id}-${nominal}`,
+    series: definition.id,
+    nominalSize: nominal,
+    nominalLabel,
+    material: definition.material,
+    outsideDiameter,
+    insideDiameter,
+    hazenWilliamsC: MATERIAL_DEFAULTS[definition.material].hazenWilliamsC,
+    roughness: MATERIAL_DEFAULTS[definition.material].roughness,
+  });
+}
+
+function buildMetricSeries(definition: MetricSeriesDefinition): PipeSeries {
+  const sizes = Object.entries(definition.wallByOutsideDiameter).map(([outside, wall]) =>
+    sizeOf(definition, Number(outside), `${outside} mm`, Number(outside) / 1000, (Number(outside) - 2 * wall) / 1000),
+  );
+  const { id, label, material, source } = definition;
+  return Object.freeze({ id, label, material, source, sizes: Object.freeze(sizes) });
+}
+
 function buildSeries(definition: SeriesDefinition): PipeSeries {
   const sizes = definition.nominalSizes.map((nominal): PipeSize => {
     const inches = definition.dimensionsInInches(nominal);
-    return Object.freeze({
-      id: `${definition.id}-${nominal}`,
-      series: definition.id,
-      nominalSize: nominal,
-      nominalLabel: NOMINAL_LABELS[nominal],
-      material: definition.material,
-      outsideDiameter: inches.outside === null ? null : inches.outside * INCH,
-      insideDiameter: inches.inside * INCH,
-      hazenWilliamsC: MATERIAL_DEFAULTS[definition.material].hazenWilliamsC,
-      roughness: MATERIAL_DEFAULTS[definition.material].roughness,
-    });
+    return sizeOf(
+      definition,
+      nominal,
+      NOMINAL_LABELS[nominal],
+      inches.outside === null ? null : inches.outside * INCH,
+      inches.inside * INCH,
+    );
   });
   return Object.freeze({
     id: definition.id,
@@ -254,7 +280,10 @@ function buildSeries(definition: SeriesDefinition): PipeSeries {
  * @example
  * PIPE_SERIES.find((series) => series.id === 'pvc-sch40').sizes.length > 0 // => true
  */
-export const PIPE_SERIES: readonly PipeSeries[] = Object.freeze(SERIES_DEFINITIONS.map(buildSeries));
+export const PIPE_SERIES: readonly PipeSeries[] = Object.freeze([
+  ...SERIES_DEFINITIONS.map(buildSeries),
+  ...METRIC_SERIES_DEFINITIONS.map(buildMetricSeries),
+]);
 
 /**
  * Every pipe size in the catalogue, bores in m from the inch dimensions of each series' standard.
@@ -269,13 +298,15 @@ const SIZES_BY_ID: ReadonlyMap<string, PipeSize> = new Map(PIPE_SIZES.map((size)
 /**
  * The catalogue size with this id, e.g. `pvc-sch40-3`.
  * Unknown id -> HydraulicsInputError naming the series and how ids are formed.
- * @param id - `<series>-<nominal inches>`, e.g. `pvc-sch40-1.5`
+ * @param id - `<series>-<nominal inches>`, e.g. `pvc-sch40-1.5`, or `<series>-<outside mm>`, e.g. `pe100-sdr11-63`
  * @param field - JSON pointer named when the id is unknown
  * @returns the size: bores in m, default C and roughness (m)
  * @example
  * // 2" Schedule 40 PVC, ASTM D1785: bore 2.067 in (the handbook's table; python3-fluids nearest_pipe agrees)
  * pipeSizeById('pvc-sch40-2').insideDiameter // => 0.0525018
  * pipeSizeById('pvc-sch40-2').hazenWilliamsC // => 150
+ * // 63 mm PE100 SDR 11, ISO 4427-2: wall 5.8 mm, bore 63 - 2 x 5.8 = 51.4 mm
+ * pipeSizeById('pe100-sdr11-63').insideDiameter // => 0.0514
  */
 export function pipeSizeById(id: string, field = '/pipeSizeId'): PipeSize {
   const size = SIZES_BY_ID.get(id);

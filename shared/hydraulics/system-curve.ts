@@ -14,11 +14,12 @@ import { waterKinematicViscosity } from './water-properties';
 
 /*
  * The system curve: head the pipework needs at a flow,
- *   H(Q) = H_static + H_outlet + sum_i h_f,i(Q) + sum_i K_i V_i^2 / 2g,
+ *   H(Q) = H_static + H_outlet + sum_i h_f,i(Q) + sum_i K_i V_i^2 / 2g + sum_j c_j Q^2,
  * i.e. the total dynamic head (TDH) for a pump lifting between two open
  * water surfaces (the velocity head at the outlet is counted by the exit K,
  * Crane TP-410 A-29, so it is not added again). Segments are in series and
- * carry the same flow. Inputs in SI: m, m3/s, C.
+ * carry the same flow; c_j is each equipment's rated loss over its rated flow squared
+ * (system-input resolveEquipment). Inputs in SI: m, m3/s, C.
  */
 
 /**
@@ -38,7 +39,7 @@ export interface CompiledSystemCurve {
   readonly outletPressureHead: number;
   /** Hazen-Williams only: H = staticHead + a Q^1.852 + b Q^2 (a, b in SI); null for Darcy-Weisbach. */
   readonly hazenWilliams: { readonly a: number; readonly b: number } | null;
-  /** Minor-loss coefficient b = sum K / (2 g A^2), s2/m5. */
+  /** Minor-loss coefficient b = sum K / (2 g A^2) + sum of equipment coefficients, s2/m5. */
   readonly minorCoefficient: number;
   evaluate(flow: number): number;
   slope(flow: number): number;
@@ -52,9 +53,9 @@ export interface CompiledSystemCurve {
 /**
  * Prepares a system curve for fast evaluation (see CompiledSystemCurve).
  * Hazen-Williams: H(Q) = Hs + a Q^1.852 + b Q^2 with a = sum 10.67 L/(C^1.852 D^4.8704)
- * and b = sum K/(2 g A^2). Darcy-Weisbach: Hs + sum c_i f_i(Re_i) Q^2 + b Q^2 with
+ * and b = sum K/(2 g A^2) + sum c (equipment, h = c Q^2). Darcy-Weisbach: Hs + sum c_i f_i(Re_i) Q^2 + b Q^2 with
  * f_i from a cubic Hermite table of Colebrook over ln Re (darcy-friction-table.ts; relative
- * error of the friction head below 1e-8 for Re 4000-1e8, exact rules below 4000).
+ * error of the friction head below 1e-8 for Re 2300-1e8, the laminar rule and its ramp exact below 2300).
  * Throws HydraulicsInputError (with the field path) for invalid input.
  *
  * Sources: TDH as the sum of static, pressure and loss heads (ANSI/HI 1.1-1.2 definitions;
@@ -98,7 +99,10 @@ export function compileSystemCurve(input: SystemCurveInput): CompiledSystemCurve
   const segments = input.segments.map((segment, index) => resolveSegment(segment, index, input.frictionMethod));
   const staticHead = input.staticHead + outletPressureHead;
   const minorCoefficient = segments.reduce(
-    (sum, segment) => sum + segment.totalK / (2 * STANDARD_GRAVITY * segment.area * segment.area),
+    (sum, segment) =>
+      sum +
+      segment.totalK / (2 * STANDARD_GRAVITY * segment.area * segment.area) +
+      segment.equipment.reduce((equipmentSum, equipment) => equipmentSum + equipment.coefficient, 0),
     0,
   );
   const common = {

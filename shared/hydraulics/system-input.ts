@@ -35,6 +35,26 @@ export const SYSTEM_INPUT_LIMITS = Object.freeze({
 export interface FittingCount {
   kind: string;
   count: number;
+  /** Reducer and expansion: this segment's bore over the larger bore, 0 < beta < 1. */
+  diameterRatio?: number;
+  /** Reducer and expansion: included cone angle, degrees; default 180, a sudden change. */
+  angle?: number;
+}
+
+/** A filter, UV clarifier, skimmer, spray bar or heat exchanger, as its maker rates it: a head loss at a flow. */
+export interface EquipmentInput {
+  name: string;
+  /** Head loss at the rated flow, m (>= 0). */
+  headLoss: number;
+  /** The rated flow, m3/s (> 0). */
+  atFlow: number;
+}
+
+/** Equipment resolved to its loss coefficient: head loss = coefficient x Q^2. */
+export interface ResolvedEquipment {
+  name: string;
+  /** headLoss / atFlow^2, m per (m3/s)^2. */
+  coefficient: number;
 }
 
 export interface PipeSegmentInput {
@@ -55,6 +75,8 @@ export interface PipeSegmentInput {
   extraK?: number;
   /** Suction segments come first, from the intake to the pump; default discharge. */
   side?: SegmentSide;
+  /** Equipment rated by a head loss at a flow, scaled as (Q / Q_rated)^2. */
+  equipment?: readonly EquipmentInput[];
 }
 
 export interface SystemCurveInput {
@@ -82,17 +104,44 @@ export interface ResolvedSegment {
   roughness: number;
   /** Sum of all K of the segment's fittings and extraK. */
   totalK: number;
+  /** The segment's equipment, each with its head loss = coefficient x Q^2. */
+  equipment: readonly ResolvedEquipment[];
+}
+
+/**
+ * Equipment's loss coefficient from its maker's rating: h = h_r (Q / Q_r)^2, so h = c Q^2 with
+ * c = h_r / Q_r^2. The square law holds for fully turbulent flow, where K is constant (Crane
+ * TP-410, ch. 2: resistance coefficient independent of Reynolds number in fully turbulent flow);
+ * a rating taken far from the working flow carries that assumption. Zero rated flow is refused.
+ * @param equipment - name, head loss (m) at the rated flow (m3/s)
+ * @param field - JSON pointer of the equipment entry
+ * @returns its name and coefficient, m per (m3/s)^2
+ * @example
+ * // 2 m at 5 L/s: 2 / 0.005^2
+ * resolveEquipment({ name: 'bead filter', headLoss: 2, atFlow: 0.005 }, '/segments/0/equipment/0').coefficient // => 80000
+ */
+export function resolveEquipment(equipment: EquipmentInput, field: string): ResolvedEquipment {
+  const headLoss = requireInRange(
+    equipment.headLoss,
+    0,
+    SYSTEM_INPUT_LIMITS.maxAbsoluteHead,
+    `${field}/headLoss`,
+    'equipment head loss (m)',
+  );
+  requirePositive(equipment.atFlow, `${field}/atFlow`, 'equipment rated flow');
+  const atFlow = requireInRange(equipment.atFlow, 1e-6, 100, `${field}/atFlow`, 'equipment rated flow (m3/s)');
+  return { name: equipment.name, coefficient: headLoss / (atFlow * atFlow) };
 }
 
 /**
  * Resolves one segment to SI numbers; throws HydraulicsInputError naming the field. The bore comes
  * from the catalogue size or is given; C and roughness are given or the size's or material's
  * defaults (pipe-catalogue); total K = extraK + sum count x K of each fitting (Crane TP-410 K = n
- * f_T, fittings-catalogue); flow area A = pi D^2 / 4.
- * @param segment - length (m), a catalogue size id or a bore (m), optional material, C, roughness (m), fittings, extra K
+ * f_T, fittings-catalogue); equipment as resolveEquipment; flow area A = pi D^2 / 4.
+ * @param segment - length (m), a catalogue size id or a bore (m), optional material, C, roughness (m), fittings, extra K, equipment
  * @param index - the segment's position, for the JSON pointer of an error (`/segments/<index>`)
  * @param method - the friction method, which decides whether C or roughness must be known
- * @returns the segment in SI: length and bore (m), area (m2), C, roughness (m), total K
+ * @returns the segment in SI: length and bore (m), area (m2), C, roughness (m), total K, equipment coefficients
  * @example
  * // 3" Schedule 40 PVC (bore 3.068 in) with two standard elbows: K = 2 x 30 f_T, f_T = 0.017315 by Crane's formula
  * const segment = resolveSegment({ length: 12, pipeSizeId: 'pvc-sch40-3', fittings: [{ kind: 'elbow-90-standard', count: 2 }] }, 0, 'hazen-williams')
@@ -171,8 +220,11 @@ export function resolveSegment(segment: PipeSegmentInput, index: number, method:
         pointer: `${fittingField}/count`,
       });
     }
-    totalK += fitting.count * fittingK(fitting.kind, insideDiameter, `${fittingField}/kind`);
+    totalK += fitting.count * fittingK(fitting, insideDiameter, fittingField);
   });
+  const equipment = (segment.equipment ?? []).map((entry, entryIndex) =>
+    resolveEquipment(entry, `${field}/equipment/${entryIndex}`),
+  );
   return {
     length: segment.length,
     insideDiameter,
@@ -180,5 +232,6 @@ export function resolveSegment(segment: PipeSegmentInput, index: number, method:
     hazenWilliamsC,
     roughness,
     totalK,
+    equipment,
   };
 }

@@ -12,7 +12,7 @@ import { STANDARD_GRAVITY } from './physical-constants';
  */
 
 /** Flow units accepted at the API edge. */
-export const FLOW_UNITS = ['gpm', 'gph', 'L/min', 'L/s', 'm3/h', 'm3/s'] as const;
+export const FLOW_UNITS = ['gpm', 'gph', 'L/h', 'L/min', 'L/s', 'm3/h', 'm3/s'] as const;
 /** Head units accepted at the API edge. */
 export const HEAD_UNITS = ['m', 'ft'] as const;
 /** Pipe length units accepted at the API edge. */
@@ -49,6 +49,7 @@ const FLOW_FACTORS = factorsToSI<FlowUnit>(
   {
     gpm: 'gallon/minute',
     gph: 'gallon/hour',
+    'L/h': 'liter/hour',
     'L/min': 'liter/minute',
     'L/s': 'liter/second',
     'm3/h': 'm^3/hour',

@@ -5,6 +5,7 @@ import type {
   EngineIssue,
   EngineIssueCode,
   EngineIssueParams,
+  HazenWilliamsRangeReason,
 } from '../hydraulics/engine-issues';
 
 /** How a reader wants SI values written: each gives the number with its unit, e.g. `150 gpm`. */
@@ -27,6 +28,13 @@ export const SI_VALUE_TEXT: IssueValueText = {
   power: (power) => `${power.toFixed(1)} W`,
 };
 
+/** Each reason Hazen-Williams is outside its range, as a phrase. */
+const HAZEN_WILLIAMS_REASON_TEXT: Readonly<Record<HazenWilliamsRangeReason, string>> = {
+  'small-bore': 'bore under 50 mm',
+  'low-reynolds': 'flow not fully turbulent',
+  temperature: 'water outside 4-25 C',
+};
+
 /** The one sentence of every engine issue, from its numbers and the reader's units. */
 const ENGINE_ISSUE_TEXT: {
   [Code in EngineIssueCode]: (params: EngineIssueParams[Code], units: IssueValueText) => string;
@@ -35,6 +43,17 @@ const ENGINE_ISSUE_TEXT: {
     `Hazen-Williams is fitted to water at about 4-25 C; at ${temperature} C prefer Darcy-Weisbach`,
   'segment-velocity': ({ segment, flow, velocity, limit }, units) =>
     `at ${units.flow(flow)} segment ${segment}: velocity ${units.velocity(velocity)} exceeds ${units.velocity(limit)}, the common-practice limit for plastic pipe`,
+  'transitional-flow': ({ segment, flow, reynolds }, units) =>
+    `at ${units.flow(flow)} segment ${segment}: Reynolds number ${Math.round(reynolds)} is in the transition band 2300-4000, where flow is unsteady; friction is taken at its turbulent value, the higher one`,
+  'hazen-williams-out-of-range': (
+    { segment, flow, reynolds, reasons, hazenWilliamsHead, darcyWeisbachHead, smoothPipe },
+    units,
+  ) =>
+    `at ${units.flow(flow)} segment ${segment}: Hazen-Williams is outside its range (${reasons
+      .map((reason) => HAZEN_WILLIAMS_REASON_TEXT[reason])
+      .join(
+        ', ',
+      )}; Reynolds number ${Math.round(reynolds)}); friction ${units.head(hazenWilliamsHead)}, Darcy-Weisbach gives ${units.head(darcyWeisbachHead)}${smoothPipe ? ' for a smooth pipe' : ''}`,
   'head-fit-constrained': ({ leastSquaresDegree, degree, heldFlatAt }) =>
     `the ${degreeName(leastSquaresDegree)} least-squares fit would rise within the data range; head is fitted as a ${degreeName(degree)}${heldFlatAt ? ` held flat at the ${heldFlatAt} point` : ''} so that it does not rise`,
   'points-reversed': () => 'the points were given from the largest flow down; they are used in increasing flow order',
@@ -84,13 +103,15 @@ const ENGINE_INPUT_ERROR_TEXT: {
   'trim-only': ({ ratio }) => `an impeller can only be trimmed (ratio <= 1), got ${ratio}`,
   'unknown-fitting-kind': ({ value, accepted }) =>
     `unknown fitting kind '${value}'; valid kinds: ${accepted.join(', ')}`,
+  'no-diameter-ratio': ({ kind }) =>
+    `a ${kind} needs its diameterRatio, this segment's bore over the larger bore (between 0 and 1)`,
   'unknown-friction-method': ({ value, accepted }) =>
     `unknown friction method '${value}'; valid methods: ${accepted.join(', ')}`,
   'unknown-material': ({ value, accepted }) => `unknown material '${value}'; valid materials: ${accepted.join(', ')}`,
   'unknown-unit': ({ quantity, value, accepted }) =>
     `unknown ${quantity} unit '${value}'; accepted units: ${accepted.join(', ')}`,
   'unknown-pipe-size': ({ value, series }) =>
-    `unknown pipe size id '${value}'; ids are '<series>-<nominal inches>' such as 'pvc-sch40-1.5', series: ${series.join(', ')}; PIPE_SIZES lists every id`,
+    `unknown pipe size id '${value}'; ids are '<series>-<nominal inches>' such as 'pvc-sch40-1.5' or '<series>-<outside mm>' such as 'pe100-sdr11-63', series: ${series.join(', ')}; PIPE_SIZES lists every id`,
   'band-reversed': () => 'preferred band maximum must exceed its minimum',
   'allowable-region-reversed': () => 'allowable region maximum flow must exceed its minimum',
   'running-exceeds-installed': ({ running, installed }) =>

@@ -36,6 +36,10 @@ const inputSamples: { [Code in EngineInputErrorCode]: [EngineInputErrorParams[Co
     { value: 'x', accepted: ['elbow', 'tee'] },
     "unknown fitting kind 'x'; valid kinds: elbow, tee",
   ],
+  'no-diameter-ratio': [
+    { kind: 'reducer' },
+    "a reducer needs its diameterRatio, this segment's bore over the larger bore (between 0 and 1)",
+  ],
   'unknown-friction-method': [
     { value: 'x', accepted: ['darcy-weisbach'] },
     "unknown friction method 'x'; valid methods: darcy-weisbach",
@@ -44,7 +48,7 @@ const inputSamples: { [Code in EngineInputErrorCode]: [EngineInputErrorParams[Co
   'unknown-unit': [{ quantity: 'flow', value: 'x', accepted: ['gpm'] }, "unknown flow unit 'x'; accepted units: gpm"],
   'unknown-pipe-size': [
     { value: 'x', series: ['pvc-sch40'] },
-    "unknown pipe size id 'x'; ids are '<series>-<nominal inches>' such as 'pvc-sch40-1.5', series: pvc-sch40; PIPE_SIZES lists every id",
+    "unknown pipe size id 'x'; ids are '<series>-<nominal inches>' such as 'pvc-sch40-1.5' or '<series>-<outside mm>' such as 'pe100-sdr11-63', series: pvc-sch40; PIPE_SIZES lists every id",
   ],
   'band-reversed': [{}, 'preferred band maximum must exceed its minimum'],
   'allowable-region-reversed': [{}, 'allowable region maximum flow must exceed its minimum'],
@@ -139,6 +143,22 @@ const issueSamples: { [Code in EngineIssueCode]: [EngineIssueParams[Code], strin
   'segment-velocity': [
     { segment: 0, flow: 0.001, velocity: 3.183, limit: 1.524 },
     'at 0.001 m3/s segment 0: velocity 3.18 m/s exceeds 1.52 m/s, the common-practice limit for plastic pipe',
+  ],
+  'transitional-flow': [
+    { segment: 1, flow: 0.0001, reynolds: 3123.4 },
+    'at 0.0001 m3/s segment 1: Reynolds number 3123 is in the transition band 2300-4000, where flow is unsteady; friction is taken at its turbulent value, the higher one',
+  ],
+  'hazen-williams-out-of-range': [
+    {
+      segment: 0,
+      flow: 0.0005,
+      reynolds: 25000,
+      reasons: ['small-bore', 'temperature'],
+      hazenWilliamsHead: 1.234,
+      darcyWeisbachHead: 1.5,
+      smoothPipe: true,
+    },
+    'at 0.0005 m3/s segment 0: Hazen-Williams is outside its range (bore under 50 mm, water outside 4-25 C; Reynolds number 25000); friction 1.23 m, Darcy-Weisbach gives 1.50 m for a smooth pipe',
   ],
   'head-fit-constrained': [
     { leastSquaresDegree: 3, degree: 3, heldFlatAt: 'first' },

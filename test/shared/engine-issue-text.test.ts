@@ -12,7 +12,11 @@ describe('engine issue text', () => {
 
   it('gives the engine issues as codes with SI numbers and the input they concern', () => {
     const issues = systemBreakdown(coldHazenWilliams, 0.001).issues;
-    expect(issues.map((issue) => issue.code)).to.deep.equal(['hazen-williams-temperature', 'segment-velocity']);
+    expect(issues.map((issue) => issue.code)).to.deep.equal([
+      'hazen-williams-temperature',
+      'segment-velocity',
+      'hazen-williams-out-of-range',
+    ]);
     expect(issues[0]).to.deep.equal({
       code: 'hazen-williams-temperature',
       params: { temperature: 2 },

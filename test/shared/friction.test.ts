@@ -12,11 +12,15 @@ import { type FluidsAnswer, fluidsReference } from './reference/fluids-reference
 const REYNOLDS = [2300, 4000, 1e4, 1e5, 1e6, 1e7, 1e8];
 const RELATIVE_ROUGHNESS = [0, 1e-6, 1e-5, 1e-4, 1e-3, 1e-2, 5e-2];
 const GRID: [number, number][] = REYNOLDS.flatMap((re) => RELATIVE_ROUGHNESS.map((ed): [number, number] => [re, ed]));
+/** The transition band, where fluids' friction_factor (Clamond's solution of Colebrook) is the reference. */
+const TRANSITION: [number, number][] = [2300, 2500, 2800, 3200, 3600, 3999].flatMap((re) =>
+  [0, 1e-5, 1e-4, 1e-3, 1e-2].map((ed): [number, number] => [re, ed]),
+);
 
 describe('friction', () => {
   let reference: FluidsAnswer;
   before(() => {
-    reference = fluidsReference({ colebrook: GRID, swameeJain: GRID });
+    reference = fluidsReference({ colebrook: GRID, swameeJain: GRID, frictionFactor: TRANSITION });
   });
 
   it('solves Colebrook-White to 1e-12 of python3-fluids Colebrook (exact Lambert-W solution) over Re 2300-1e8, eps/D 0-0.05', () => {
@@ -42,19 +46,25 @@ describe('friction', () => {
     });
   });
 
-  it('uses 64/Re below Re 2300, the turbulent correlation from 4000 and a straight line between', () => {
+  it('uses 64/Re below Re 2277, the turbulent correlation from 2300 (the transition band included) and a ramp between', () => {
     expect(darcyFrictionFactor(2000, 1e-4)).to.equal(64 / 2000);
-    expect(darcyFrictionFactor(2299.9, 0)).to.equal(64 / 2299.9);
-    expect(darcyFrictionFactor(2300, 1e-3)).to.be.closeTo(64 / 2300, 1e-15);
-    const at4000 = frictionFactorColebrook(4000, 1e-3);
-    expect(darcyFrictionFactor(4000, 1e-3)).to.equal(at4000);
-    expect(darcyFrictionFactor(3999.999, 1e-3)).to.be.closeTo(at4000, 1e-8);
-    expect(darcyFrictionFactor(3150, 1e-3)).to.be.closeTo((64 / 2300 + at4000) / 2, 1e-15);
-    expect(darcyFrictionFactor(3150, 1e-3, 'swamee-jain')).to.be.closeTo(
-      (64 / 2300 + frictionFactorSwameeJain(4000, 1e-3)) / 2,
-      1e-15,
-    );
+    expect(darcyFrictionFactor(2276.9, 0)).to.equal(64 / 2276.9);
+    expect(darcyFrictionFactor(2277, 0)).to.be.closeTo(64 / 2277, 1e-15);
+    expect(darcyFrictionFactor(2299.999, 1e-3)).to.be.closeTo(frictionFactorColebrook(2300, 1e-3), 1e-6);
+    expect(darcyFrictionFactor(2300, 1e-3)).to.equal(frictionFactorColebrook(2300, 1e-3));
+    expect(darcyFrictionFactor(3150, 1e-3)).to.equal(frictionFactorColebrook(3150, 1e-3));
+    expect(darcyFrictionFactor(3150, 1e-3, 'swamee-jain')).to.equal(frictionFactorSwameeJain(3150, 1e-3));
     expect(darcyFrictionFactor(1e5, 1e-4, 'swamee-jain')).to.equal(frictionFactorSwameeJain(1e5, 1e-4));
+  });
+
+  it('gives python3-fluids friction_factor in the transition band (Re 2300-4000) to 1e-12, where a straight-line blend would run 17-40 % low', () => {
+    TRANSITION.forEach(([re, ed], index) => {
+      const expected = reference.frictionFactor[index];
+      expect(darcyFrictionFactor(re, ed), `Re ${re}, eps/D ${ed}`).to.be.closeTo(expected, 1e-12 * expected);
+    });
+    // the old blend at Re 3000, eps/D 1e-4: a line from 64/2300 to Colebrook at 4000
+    const blend = 64 / 2300 + ((frictionFactorColebrook(4000, 1e-4) - 64 / 2300) * (3000 - 2300)) / 1700;
+    expect(blend / darcyFrictionFactor(3000, 1e-4)).to.be.lessThan(0.83);
   });
 
   it('Darcy-Weisbach head loss equals f L/D V^2/2g and is zero at zero flow', () => {

@@ -5,6 +5,7 @@ import {
   compileSystemCurve,
   fittingK,
   flowToSI,
+  frictionFactorColebrook,
   headFromSI,
   headLossDarcyWeisbach,
   headLossHazenWilliams,
@@ -15,6 +16,7 @@ import {
   type SystemCurveInput,
 } from '../../shared/hydraulics';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
+import { refusalOf } from '../support/engine-refusal';
 
 const gpm = (value: number) => flowToSI(value, 'gpm');
 const feet = (value: number) => lengthToSI(value, 'ft');
@@ -72,7 +74,7 @@ describe('system curve', () => {
     expect(worst).to.be.lessThan(1e-8);
   });
 
-  it('Darcy-Weisbach: continuous through the laminar, transition and turbulent limits (Re 2300 and 4000)', () => {
+  it('Darcy-Weisbach: ramps up to the turbulent value over Re 2277-2300 and is continuous through 2277, 2300 and 4000', () => {
     const system = compileSystemCurve({
       staticHead: 0,
       frictionMethod: 'darcy-weisbach',
@@ -80,11 +82,18 @@ describe('system curve', () => {
     });
     const segment = system.segments[0];
     const flowAt = (reynolds: number) => (reynolds * system.kinematicViscosity * segment.area) / segment.insideDiameter;
-    for (const limit of [2300, 4000]) {
+    for (const limit of [2277, 2300, 4000]) {
       const below = system.evaluate(flowAt(limit * (1 - 1e-9)));
       const above = system.evaluate(flowAt(limit * (1 + 1e-9)));
       expect(Math.abs(above / below - 1), `at Re ${limit}`).to.be.lessThan(1e-7);
     }
+    // from 64/Re at 2277 up to Colebrook's value at 2300: the transition band never runs low
+    const relativeRoughness = segment.roughness / segment.insideDiameter;
+    const ratio = system.evaluate(flowAt(2300)) / system.evaluate(flowAt(2277));
+    expect(ratio).to.be.closeTo(
+      (frictionFactorColebrook(2300, relativeRoughness) * 2300 ** 2) / ((64 / 2277) * 2277 ** 2),
+      1e-6,
+    );
   });
 
   it('breaks the head down into static, outlet pressure, friction and minor losses that add up', () => {
@@ -103,13 +112,14 @@ describe('system curve', () => {
       1e-15,
     );
     const kFirst =
-      fittingK('foot-valve-hinged', first.insideDiameter) + 2 * fittingK('elbow-90-standard', first.insideDiameter);
+      fittingK({ kind: 'foot-valve-hinged' }, first.insideDiameter) +
+      2 * fittingK({ kind: 'elbow-90-standard' }, first.insideDiameter);
     const velocity = flow / ((Math.PI * first.insideDiameter ** 2) / 4);
     expect(breakdown.segments[0].velocity).to.be.closeTo(velocity, 1e-12);
     expect(breakdown.segments[0].totalK).to.be.closeTo(kFirst, 1e-12);
     expect(breakdown.segments[0].minorHead).to.be.closeTo((kFirst * velocity ** 2) / (2 * 9.80665), 1e-12);
     expect(breakdown.segments[1].totalK).to.be.closeTo(
-      fittingK('check-valve-swing', pipeSizeById('pvc-sch40-2').insideDiameter) + 1.5,
+      fittingK({ kind: 'check-valve-swing' }, pipeSizeById('pvc-sch40-2').insideDiameter) + 1.5,
       1e-12,
     );
     expect(breakdown.segments[2].reynolds).to.be.closeTo(((flow / ((Math.PI * 0.04 ** 2) / 4)) * 0.04) / nu, 1e-6);
@@ -131,10 +141,10 @@ describe('system curve', () => {
       3 +
       headLossHazenWilliams(25, flow, d2, 150) +
       headLossHazenWilliams(5, flow, 0.03, 150) +
-      (4 * fittingK('elbow-90-standard', d2) * (flow / area) ** 2) / (2 * 9.80665);
+      (4 * fittingK({ kind: 'elbow-90-standard' }, d2) * (flow / area) ** 2) / (2 * 9.80665);
     expect(system.evaluate(flow)).to.be.closeTo(expected, 1e-12);
     expect(system.hazenWilliams?.b).to.be.closeTo(
-      (4 * fittingK('elbow-90-standard', d2)) / (2 * 9.80665 * area * area),
+      (4 * fittingK({ kind: 'elbow-90-standard' }, d2)) / (2 * 9.80665 * area * area),
       1e-6,
     );
     expect(systemBreakdown(system, flow).totalHead).to.be.closeTo(expected, 1e-12);
@@ -165,11 +175,130 @@ describe('system curve', () => {
       ],
     });
     const area = (Math.PI * pipeSizeById('pvc-sch40-1').insideDiameter ** 2) / 4;
-    expect(systemBreakdown(system, 1.5 * area).issues).to.deep.equal([]);
-    const issues = systemBreakdown(system, 1.55 * area).issues;
+    const velocityIssues = (flow: number) =>
+      systemBreakdown(system, flow).issues.filter((issue) => issue.code === 'segment-velocity');
+    expect(velocityIssues(1.5 * area)).to.deep.equal([]);
+    const issues = velocityIssues(1.55 * area);
     expect(issues).to.have.length(1);
     expect(issues[0]).to.deep.include({ code: 'segment-velocity', pointer: '/segments/0' });
     expect(engineIssueText(issues[0])).to.match(/segment 0: velocity 1\.55 m\/s exceeds 1\.52 m\/s/);
+  });
+
+  it('adds equipment as its rated loss times (Q / Q_rated)^2, beside K, and lists each one in the breakdown', () => {
+    const plain: SystemCurveInput = {
+      staticHead: 1,
+      frictionMethod: 'darcy-weisbach',
+      segments: [{ length: 20, pipeSizeId: 'pvc-sch40-2', fittings: [{ kind: 'exit', count: 1 }] }],
+    };
+    const withEquipment: SystemCurveInput = {
+      ...plain,
+      segments: [
+        {
+          ...plain.segments[0],
+          equipment: [
+            { name: 'bead filter', headLoss: 3, atFlow: 0.005 },
+            { name: 'UV clarifier', headLoss: 0.5, atFlow: 0.004 },
+          ],
+        },
+      ],
+    };
+    const flow = 0.006;
+    const bead = 3 * (flow / 0.005) ** 2;
+    const uv = 0.5 * (flow / 0.004) ** 2;
+    const breakdown = systemBreakdown(compileSystemCurve(withEquipment), flow);
+    expect(breakdown.segments[0].equipment).to.deep.equal([
+      { name: 'bead filter', headLoss: bead },
+      { name: 'UV clarifier', headLoss: uv },
+    ]);
+    expect(breakdown.equipmentHead).to.be.closeTo(bead + uv, 1e-12);
+    const without = systemBreakdown(compileSystemCurve(plain), flow);
+    expect(breakdown.totalHead - without.totalHead).to.be.closeTo(bead + uv, 1e-12);
+    expect(breakdown.minorHead).to.equal(without.minorHead);
+    expect(compileSystemCurve(withEquipment).evaluate(flow)).to.be.closeTo(breakdown.totalHead, 1e-8);
+    // at its rated flow, equipment loses exactly its rated head
+    expect(systemBreakdown(compileSystemCurve(withEquipment), 0.005).segments[0].equipment[0].headLoss).to.be.closeTo(
+      3,
+      1e-12,
+    );
+  });
+
+  it('refuses equipment with zero rated flow or a negative loss, naming the field', () => {
+    const system = (equipment: { name: string; headLoss: number; atFlow: number }) => () =>
+      compileSystemCurve({
+        staticHead: 1,
+        frictionMethod: 'hazen-williams',
+        segments: [
+          { length: 5, pipeSizeId: 'pvc-sch40-2' },
+          { length: 5, pipeSizeId: 'pvc-sch40-2', equipment: [equipment] },
+        ],
+      });
+    expect(refusalOf(system({ name: 'skimmer', headLoss: 1, atFlow: 0 }))).to.deep.include({
+      code: 'not-positive',
+      pointer: '/segments/1/equipment/0/atFlow',
+    });
+    expect(refusalOf(system({ name: 'skimmer', headLoss: -1, atFlow: 0.002 }))).to.deep.include({
+      pointer: '/segments/1/equipment/0/headLoss',
+    });
+  });
+
+  it('gives the Reynolds number of every segment and warns of Darcy-Weisbach flow in the transition band', () => {
+    const system = compileSystemCurve({
+      staticHead: 0,
+      frictionMethod: 'darcy-weisbach',
+      segments: [
+        { length: 10, pipeSizeId: 'pvc-sch40-1' },
+        { length: 10, pipeSizeId: 'pvc-sch40-3' },
+      ],
+    });
+    const [small, large] = system.segments;
+    const flowAt = (reynolds: number) => (reynolds * system.kinematicViscosity * small.area) / small.insideDiameter;
+    const breakdown = systemBreakdown(system, flowAt(3000));
+    expect(breakdown.segments[0].reynolds).to.be.closeTo(3000, 1e-9);
+    expect(breakdown.segments[1].reynolds).to.be.closeTo((3000 * small.insideDiameter) / large.insideDiameter, 1e-9);
+    // the 3" segment is at Re ~1140 (laminar): only the 1" one is in the band
+    expect(breakdown.issues).to.deep.equal([
+      {
+        code: 'transitional-flow',
+        params: { segment: 0, flow: flowAt(3000), reynolds: breakdown.segments[0].reynolds },
+        pointer: '/segments/0',
+      },
+    ]);
+    expect(systemBreakdown(system, flowAt(4100)).issues).to.deep.equal([]);
+    expect(systemBreakdown(system, flowAt(2200)).issues).to.deep.equal([]);
+  });
+
+  it('warns when Hazen-Williams is outside its range (bore under 50 mm, Re under 4000, 4-25 C) with the Darcy-Weisbach figure', () => {
+    const input = (temperature: number): SystemCurveInput => ({
+      staticHead: 0,
+      temperature,
+      frictionMethod: 'hazen-williams',
+      segments: [
+        { length: 10, pipeSizeId: 'pvc-sch40-1' },
+        { length: 10, pipeSizeId: 'pvc-sch40-3' },
+      ],
+    });
+    const system = compileSystemCurve(input(20));
+    const flow = 0.002;
+    const issues = systemBreakdown(system, flow).issues.filter((issue) => issue.code === 'hazen-williams-out-of-range');
+    expect(issues.map((issue) => issue.pointer)).to.deep.equal(['/segments/0']);
+    const small = pipeSizeById('pvc-sch40-1');
+    const nu = waterKinematicViscosity(20);
+    expect(issues[0].params).to.deep.include({ segment: 0, reasons: ['small-bore'], smoothPipe: false });
+    const params = issues[0].params as { darcyWeisbachHead: number; hazenWilliamsHead: number };
+    expect(params.darcyWeisbachHead).to.be.closeTo(
+      headLossDarcyWeisbach(10, flow, small.insideDiameter, small.roughness, nu),
+      1e-12,
+    );
+    expect(params.hazenWilliamsHead).to.be.closeTo(headLossHazenWilliams(10, flow, small.insideDiameter, 150), 1e-12);
+    // at a trickle the 3" segment is laminar; warm water puts both outside the range
+    const trickle = systemBreakdown(compileSystemCurve(input(30)), 3e-5).issues.filter(
+      (issue) => issue.code === 'hazen-williams-out-of-range',
+    );
+    expect(trickle.map((issue) => (issue.params as { reasons: string[] }).reasons)).to.deep.equal([
+      ['small-bore', 'low-reynolds', 'temperature'],
+      ['low-reynolds', 'temperature'],
+    ]);
+    expect(systemBreakdown(system, 0).issues).to.deep.equal([]);
   });
 
   it('either throws HydraulicsInputError or evaluates to finite heads, whatever numbers it is given (property)', () => {

@@ -107,7 +107,7 @@ describe('units', () => {
   it('names the accepted units when a unit is unknown', () => {
     expect(refusalOf(() => flowToSI(1, 'cfs' as FlowUnit))).to.deep.equal({
       code: 'unknown-unit',
-      params: { quantity: 'flow', value: 'cfs', accepted: ['gpm', 'gph', 'L/min', 'L/s', 'm3/h', 'm3/s'] },
+      params: { quantity: 'flow', value: 'cfs', accepted: ['gpm', 'gph', 'L/h', 'L/min', 'L/s', 'm3/h', 'm3/s'] },
       pointer: '/flowUnit',
     });
     expect(refusalOf(() => headToSI(1, 'yd' as never)).params).to.deep.include({ accepted: ['m', 'ft'] });

@@ -44,4 +44,44 @@ describe('system draft', () => {
     expect(metric.segments[0].fittings).toEqual(draft.segments[0].fittings);
     expect(convertSystemDraft(metric, si, us)).toEqual(draft);
   });
+
+  it('sends a custom bore with the series material, custom C and roughness, and equipment', () => {
+    const draft = exampleDraft();
+    draft.segments[0] = {
+      ...draft.segments[0],
+      insideDiameter: 2.9,
+      hazenWilliamsC: 140,
+      roughness: null,
+      equipment: [{ name: 'bead filter', headLoss: 4, atFlow: 80 }],
+    };
+    const segment = toPipeSystem(draft).segments[0];
+    expect(segment.pipe).toBeUndefined();
+    expect(segment.insideDiameter).toBe(2.9);
+    expect(segment.material).toBe('pvc');
+    expect(segment.hazenWilliamsC).toBe(140);
+    expect(segment.roughness).toBeUndefined();
+    expect(segment.equipment).toEqual([{ name: 'bead filter', headLoss: 4, atFlow: 80 }]);
+    const units = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' } as const;
+    const plain = compileDraft(toPipeSystem({ ...draft, segments: [{ ...draft.segments[0], equipment: [] }] }), units);
+    // 4 ft (1.2192 m) at its rated 80 gpm
+    const rated = (80 * 3.785411784e-3) / 60;
+    expect(compileDraft(toPipeSystem(draft), units).evaluate(rated) - plain.evaluate(rated)).toBeCloseTo(1.2192, 9);
+  });
+
+  it('converts custom bores, roughness and equipment with the units: 4 ft at 80 gpm is 1.2192 m at 302.83 L/min', () => {
+    const us = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' } as const;
+    const si = { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm' } as const;
+    const draft = exampleDraft();
+    draft.segments[0] = {
+      ...draft.segments[0],
+      insideDiameter: 3,
+      roughness: 0.0018,
+      equipment: [{ name: 'bead filter', headLoss: 4, atFlow: 80 }],
+    };
+    const metric = convertSystemDraft(draft, us, si).segments[0];
+    expect(metric.insideDiameter).toBe(76.2);
+    expect(metric.roughness).toBe(0.04572);
+    expect(metric.equipment?.[0].headLoss).toBe(1.2192);
+    expect(metric.equipment?.[0].atFlow).toBeCloseTo(302.833, 3);
+  });
 });

@@ -1,6 +1,14 @@
 import type { CalculationUnits, DesignSystem, PipeSystem } from '../../../shared/api/api-schemas';
 import { systemInputOf } from '../../../shared/api/system-input';
-import { compileSystemCurve, convertHead, convertLength, type CompiledSystemCurve } from '../../../shared/hydraulics';
+import {
+  PIPE_SERIES,
+  compileSystemCurve,
+  convertDiameter,
+  convertFlow,
+  convertHead,
+  convertLength,
+  type CompiledSystemCurve,
+} from '../../../shared/hydraulics';
 
 /** The system as the designer's form holds it, in the draft's unit system (the contract's DesignSystem). */
 export type SystemDraft = DesignSystem;
@@ -11,6 +19,25 @@ export function staticHeadOf(draft: SystemDraft): number {
   return draft.staticMode === 'levels' ? draft.dischargeLevel - draft.intakeLevel : draft.staticHead;
 }
 
+/** One segment as the API's: a custom bore replaces the size (the series' material gives the defaults C and roughness do not override). */
+function toPipeSegment(segment: SegmentDraft): PipeSystem['segments'][number] {
+  const customBore = segment.insideDiameter ?? null;
+  return {
+    length: segment.length,
+    ...(customBore === null
+      ? { pipe: segment.size }
+      : {
+          insideDiameter: customBore,
+          material: PIPE_SERIES.find((series) => series.id === segment.series)?.material,
+        }),
+    ...(segment.hazenWilliamsC == null ? {} : { hazenWilliamsC: segment.hazenWilliamsC }),
+    ...(segment.roughness == null ? {} : { roughness: segment.roughness }),
+    fittings: segment.fittings.filter((fitting) => fitting.count > 0) as PipeSystem['segments'][number]['fittings'],
+    minorLossK: segment.extraK,
+    ...(segment.equipment?.length ? { equipment: segment.equipment } : {}),
+  };
+}
+
 /** The draft as the API's `system`. Fittings with a zero count are left out. */
 export function toPipeSystem(draft: SystemDraft): PipeSystem {
   return {
@@ -18,12 +45,7 @@ export function toPipeSystem(draft: SystemDraft): PipeSystem {
     outletPressureHead: draft.outletPressureHead,
     frictionMethod: draft.frictionMethod,
     waterTemperatureC: draft.waterTemperatureC,
-    segments: draft.segments.map((segment) => ({
-      length: segment.length,
-      pipe: segment.size,
-      fittings: segment.fittings.filter((fitting) => fitting.count > 0) as PipeSystem['segments'][number]['fittings'],
-      minorLossK: segment.extraK,
-    })),
+    segments: draft.segments.map(toPipeSegment),
   };
 }
 
@@ -40,17 +62,30 @@ function roundConverted(value: number): number {
   return Number(value.toPrecision(7));
 }
 
-/** The same measured system in other units: levels, heads and lengths converted, the rest as it was. */
+/** The same measured system in other units: levels, heads, lengths, custom bores, roughness and equipment converted, the rest as it was. */
 export function convertSystemDraft(draft: SystemDraft, from: CalculationUnits, to: CalculationUnits): SystemDraft {
   const head = (value: number) => roundConverted(convertHead(value, from.head, to.head));
   const length = (value: number) => roundConverted(convertLength(value, from.length, to.length));
+  const diameter = (value: number | null | undefined) =>
+    value == null ? value : roundConverted(convertDiameter(value, from.diameter, to.diameter));
+  const flow = (value: number) => roundConverted(convertFlow(value, from.flow, to.flow));
   return {
     ...draft,
     staticHead: head(draft.staticHead),
     intakeLevel: head(draft.intakeLevel),
     dischargeLevel: head(draft.dischargeLevel),
     outletPressureHead: head(draft.outletPressureHead),
-    segments: draft.segments.map((segment) => ({ ...segment, length: length(segment.length) })),
+    segments: draft.segments.map((segment) => ({
+      ...segment,
+      length: length(segment.length),
+      insideDiameter: diameter(segment.insideDiameter),
+      roughness: diameter(segment.roughness),
+      equipment: segment.equipment?.map((entry) => ({
+        ...entry,
+        headLoss: head(entry.headLoss),
+        atFlow: flow(entry.atFlow),
+      })),
+    })),
   };
 }
 

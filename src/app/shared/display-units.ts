@@ -10,6 +10,7 @@ export interface DisplayUnits {
 export const displayUnitChoices: readonly DisplayUnits[] = [
   { label: 'm3/h and m', flow: 'm3/h', head: 'm' },
   { label: 'L/min and m', flow: 'L/min', head: 'm' },
+  { label: 'L/h and m', flow: 'L/h', head: 'm' },
   { label: 'US gpm and ft', flow: 'gpm', head: 'ft' },
   { label: 'US gph and ft', flow: 'gph', head: 'ft' },
 ];

@@ -21,6 +21,8 @@ import {
   headFromSI,
   headToSI,
   polynomialValue,
+  waterDensity,
+  waterKinematicViscosity,
 } from '../../../shared/hydraulics';
 
 /*
@@ -31,7 +33,9 @@ import {
  *   here by hand; the engine uses the SI form, which differs by up to ~0.6 %;
  * - velocity V = Q / A from the definitions of the US gallon (231 in3) and the foot;
  * - Crane TP-410 A-26/A-29: K = n f_T, f_T = 0.25 / log10(0.0018 in / (3.7 d))^2;
- * - ASTM D1785 Table 1: 3" Schedule 40 has OD 3.500 in and minimum wall 0.216 in.
+ * - ASTM D1785 Table 1: 3" Schedule 40 has OD 3.500 in and minimum wall 0.216 in;
+ * - ISO 4427-2: 50 mm PE100 SDR 11 has a 4.6 mm wall; Crane TP-410 A-26 for a sudden contraction;
+ * - water density and viscosity at 20 C of the engine (python3-iapws in test/shared), 1 psi = 6894.757 Pa.
  */
 
 describe('calculations API', function () {
@@ -204,6 +208,93 @@ describe('calculations API', function () {
       const response = await post('/calculations/system-curve', { units: usUnits, system, flows: [100] }).expect(200);
       // Two different friction laws for the same smooth pipe: agreement within 15 % is what texts show at this Reynolds number.
       expect(response.body.points[0].frictionHead).to.be.closeTo(5.61, 5.61 * 0.15);
+    });
+  });
+
+  describe('equipment, pressure units, L/h and the per-segment breakdown', () => {
+    const metricUnits = { flow: 'L/h', head: 'm', length: 'm', diameter: 'mm' } as const;
+    const pondSystem = (equipment: unknown[], extra: Record<string, unknown> = {}) => ({
+      staticHead: 1.5,
+      frictionMethod: 'darcy-weisbach',
+      waterTemperatureC: 20,
+      segments: [{ length: 12, pipe: 'pe100-sdr11-50', equipment }],
+      ...extra,
+    });
+
+    it('scales each equipment loss as (Q / Q_rated)^2, in head or pressure units, and lists it per flow', async () => {
+      const system = pondSystem([
+        { name: 'pressure filter', headLoss: 0.2, headLossUnit: 'bar', atFlow: 10000 },
+        { name: 'UV clarifier', headLoss: 0.4, atFlow: 8000 },
+      ]);
+      const response = await post('/calculations/system-curve', {
+        units: metricUnits,
+        system,
+        flows: [0, 12000],
+      }).expect(200);
+      const validate = responseValidator('/calculations/system-curve', 'post');
+      expect(validate(response.body), JSON.stringify(validate.errors)).to.equal(true);
+      const point = response.body.points[1];
+      // 0.2 bar of water at 20 C (density 998.206 kg/m3, python3-iapws): 2e4 / (998.206 x 9.80665) m
+      const filterAtRating = 2e4 / (waterDensity(20) * 9.80665);
+      const filter = filterAtRating * (12000 / 10000) ** 2;
+      const uv = 0.4 * (12000 / 8000) ** 2;
+      expect(point.equipment).to.have.length(2);
+      expect(point.equipment[0]).to.deep.include({ segment: 0, name: 'pressure filter' });
+      expect(point.equipment[0].headLoss).to.be.closeTo(filter, 1e-9);
+      expect(point.equipment[1].headLoss).to.be.closeTo(uv, 1e-9);
+      expect(point.equipmentHead).to.be.closeTo(filter + uv, 1e-9);
+      expect(point.staticHead + point.frictionHead + point.minorHead + point.equipmentHead).to.be.closeTo(
+        point.head,
+        1e-9,
+      );
+      expect(response.body.points[0].equipmentHead).to.equal(0);
+      // 12000 L/h in a 50 mm SDR 11 bore (50 - 2 x 4.6 = 40.8 mm), nu at 20 C
+      const velocity = 12 / 3600 / ((Math.PI / 4) * 0.0408 ** 2);
+      expect(point.reynoldsNumbers[0]).to.be.closeTo((velocity * 0.0408) / waterKinematicViscosity(20), 1e-6);
+    });
+
+    it('takes the outlet pressure in psi, kPa or bar as head of water', async () => {
+      const answer = async (outletPressureHead: number, outletPressureUnit?: string) =>
+        (
+          await post('/calculations/system-curve', {
+            units: metricUnits,
+            system: pondSystem([], { outletPressureHead, ...(outletPressureUnit ? { outletPressureUnit } : {}) }),
+            flows: [0],
+          }).expect(200)
+        ).body.points[0];
+      const density = waterDensity(20);
+      expect((await answer(10, 'psi')).outletPressureHead).to.be.closeTo(68947.57 / (density * 9.80665), 1e-6);
+      expect((await answer(50, 'kPa')).outletPressureHead).to.be.closeTo(5e4 / (density * 9.80665), 1e-9);
+      expect((await answer(0.5, 'bar')).head).to.be.closeTo(1.5 + 5e4 / (density * 9.80665), 1e-9);
+      expect((await answer(3)).outletPressureHead).to.equal(3);
+    });
+
+    it('warns of transitional flow by segment', async () => {
+      const response = await post('/calculations/system-curve', {
+        units: metricUnits,
+        system: { staticHead: 0, frictionMethod: 'darcy-weisbach', segments: [{ length: 5, pipe: 'pvc-sch40-1' }] },
+        flows: [200],
+      }).expect(200);
+      expect(response.body.points[0].reynoldsNumbers[0]).to.be.within(2300, 4000);
+      expect(response.body.warnings.join(' ')).to.contain('segment 0').and.contain('transition band 2300-4000');
+    });
+
+    it('lists the new fittings; a reducer takes its K from its diameter ratio', async () => {
+      const fittings = (await get('/fittings').expect(200)).body.fittings as { kind: string; method: string }[];
+      expect(fittings.find((fitting) => fitting.kind === 'reducer')).to.deep.include({ method: 'diameter-ratio' });
+      expect(fittings.map((fitting) => fitting.kind)).to.include.members(['union', 'bulkhead', 'check-valve-spring']);
+      const withReducer = await post('/calculations/system-curve', {
+        units: metricUnits,
+        system: pondSystem([], {
+          segments: [
+            { length: 12, pipe: 'pe100-sdr11-50', fittings: [{ kind: 'reducer', count: 1, diameterRatio: 0.5 }] },
+          ],
+        }),
+        flows: [12000],
+      }).expect(200);
+      const velocity = 12 / 3600 / ((Math.PI / 4) * 0.0408 ** 2);
+      // sudden contraction, Crane A-26: K = 0.5 (1 - 0.5^2) = 0.375
+      expect(withReducer.body.points[0].minorHead).to.be.closeTo((0.375 * velocity ** 2) / (2 * 9.80665), 1e-9);
     });
   });
 
@@ -500,6 +591,43 @@ describe('calculations API', function () {
         body: curveRequest({ ...practitionerSystem, segments: [{ ...segment, length: 0 }] }),
         status: 400,
         pointer: '/body/system/segments/0/length',
+      },
+      {
+        name: 'equipment with zero rated flow',
+        path: '/calculations/system-curve',
+        body: curveRequest({
+          ...practitionerSystem,
+          segments: [{ ...segment, equipment: [{ name: 'skimmer', headLoss: 1, atFlow: 0 }] }],
+        }),
+        status: 422,
+        pointer: '/body/system/segments/0/equipment/0/atFlow',
+      },
+      {
+        name: 'an equipment name with a control character',
+        path: '/calculations/system-curve',
+        body: curveRequest({
+          ...practitionerSystem,
+          segments: [{ ...segment, equipment: [{ name: 'filter\u0007', headLoss: 1, atFlow: 50 }] }],
+        }),
+        status: 422,
+        pointer: '/body/system/segments/0/equipment/0/name',
+      },
+      {
+        name: 'a reducer without its diameter ratio',
+        path: '/calculations/system-curve',
+        body: curveRequest({
+          ...practitionerSystem,
+          segments: [{ ...segment, fittings: [{ kind: 'reducer', count: 1 }] }],
+        }),
+        status: 422,
+        pointer: '/body/system/segments/0/fittings/0/diameterRatio',
+      },
+      {
+        name: 'an unknown outlet pressure unit',
+        path: '/calculations/system-curve',
+        body: curveRequest({ ...practitionerSystem, outletPressureHead: 1, outletPressureUnit: 'atm' }),
+        status: 400,
+        pointer: '/body/system/outletPressureUnit',
       },
       {
         name: 'an unknown flow unit',

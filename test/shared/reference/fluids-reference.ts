@@ -15,6 +15,9 @@ export interface FluidsRequest {
   swameeJain?: [number, number][];
   pipes?: [string, number][];
   crane?: number[];
+  frictionFactor?: [number, number][];
+  /** [diameter ratio, included angle in degrees] */
+  diameterChanges?: [number, number][];
 }
 
 export type CraneValues = Record<
@@ -23,6 +26,11 @@ export type CraneValues = Record<
   | 'elbow45'
   | 'return180'
   | 'bend90rd1'
+  | 'bend90rd15'
+  | 'liftCheckInline'
+  | 'plugThreeWayRun'
+  | 'plugThreeWayBranch'
+  | 'teeAsElbow'
   | 'gate'
   | 'ball'
   | 'globe'
@@ -44,6 +52,8 @@ export interface FluidsAnswer {
   /** [inside diameter, outside diameter], m */
   pipes: [number, number][];
   crane: CraneValues[];
+  frictionFactor: number[];
+  diameterChanges: { contraction: number; enlargement: number }[];
 }
 
 export function fluidsReference(request: FluidsRequest): FluidsAnswer {

@@ -35,12 +35,22 @@ import { compileDraft, staticHeadOf, toPipeSystem, type SegmentDraft, type Syste
 import { SystemCurvePreview, type CurvePoint } from './system-curve-preview';
 
 type FittingForm = FormGroup<{ kind: FormControl<string>; count: FormControl<number> }>;
+type EquipmentForm = FormGroup<{
+  name: FormControl<string>;
+  headLoss: FormControl<number>;
+  atFlow: FormControl<number>;
+}>;
 type SegmentForm = FormGroup<{
   series: FormControl<string>;
   size: FormControl<string>;
   length: FormControl<number>;
   extraK: FormControl<number>;
+  /** Custom bore, C and roughness: empty (null) keeps the size's. */
+  insideDiameter: FormControl<number | null>;
+  hazenWilliamsC: FormControl<number | null>;
+  roughness: FormControl<number | null>;
   fittings: FormArray<FittingForm>;
+  equipment: FormArray<EquipmentForm>;
 }>;
 
 /** Points of the preview: enough for a smooth curve, cheap for the engine. */
@@ -70,7 +80,8 @@ export class SystemBuilderPage {
   protected readonly draft = inject(SelectionDraft);
   protected readonly units = this.draft.units;
   protected readonly series = PIPE_SERIES;
-  protected readonly fittingKinds = FITTINGS;
+  /** Reducers and expansions need a diameter ratio this form does not ask for: the API takes them. */
+  protected readonly fittingKinds = FITTINGS.filter((fitting) => fitting.resistance.method !== 'diameter-ratio');
   protected readonly frictionMethods: ReadonlyArray<{ id: FrictionMethod; label: string }> = [
     { id: 'hazen-williams', label: 'Hazen-Williams (water, 4-25 C)' },
     { id: 'darcy-weisbach', label: 'Darcy-Weisbach with Colebrook' },
@@ -163,6 +174,7 @@ export class SystemBuilderPage {
         length: 10,
         extraK: 0,
         fittings: [],
+        equipment: [],
       }),
     );
   }
@@ -177,6 +189,16 @@ export class SystemBuilderPage {
 
   protected removeFitting(segment: SegmentForm, index: number): void {
     segment.controls.fittings.removeAt(index);
+  }
+
+  protected addEquipment(segment: SegmentForm): void {
+    segment.controls.equipment.push(
+      this.equipmentForm({ name: 'Filter', headLoss: 1, atFlow: this.draft.band().flowMax }),
+    );
+  }
+
+  protected removeEquipment(segment: SegmentForm, index: number): void {
+    segment.controls.equipment.removeAt(index);
   }
 
   private buildForm(system: SystemDraft) {
@@ -214,7 +236,28 @@ export class SystemBuilderPage {
         Validators.min(0),
         plausibleValidator('extraK', this.units),
       ]),
+      insideDiameter: this.formBuilder.control<number | null>(segment.insideDiameter ?? null, [
+        aboveZero,
+        plausibleValidator('insideDiameter', this.units),
+      ]),
+      hazenWilliamsC: this.formBuilder.control<number | null>(segment.hazenWilliamsC ?? null, [
+        Validators.min(1),
+        Validators.max(200),
+      ]),
+      roughness: this.formBuilder.control<number | null>(segment.roughness ?? null, [
+        Validators.min(0),
+        plausibleValidator('roughness', this.units),
+      ]),
       fittings: this.formBuilder.array(segment.fittings.map((fitting) => this.fittingForm(fitting))),
+      equipment: this.formBuilder.array((segment.equipment ?? []).map((entry) => this.equipmentForm(entry))),
+    });
+  }
+
+  private equipmentForm(entry: { name: string; headLoss: number; atFlow: number }): EquipmentForm {
+    return this.formBuilder.group({
+      name: this.formBuilder.control(entry.name, [Validators.required, Validators.maxLength(80)]),
+      headLoss: this.formBuilder.control(entry.headLoss, [Validators.required, Validators.min(0)]),
+      atFlow: this.formBuilder.control(entry.atFlow, [Validators.required, aboveZero]),
     });
   }
 
