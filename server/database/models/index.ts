@@ -15,6 +15,7 @@ import { CurveRevision } from './curve-revision';
 import { Pump } from './pump';
 // projects
 import { Project } from './project';
+import { ProjectRevision } from './project-revision';
 
 /** Initialises every model and declares the associations, in one place. */
 export function initialiseModels(sequelize: Sequelize): void {
@@ -44,9 +45,14 @@ export function initialiseModels(sequelize: Sequelize): void {
   }
   // projects
   Project.initialise(sequelize);
+  ProjectRevision.initialise(sequelize);
+  if (!Project.associations.revisions) {
+    Project.hasMany(ProjectRevision, { as: 'revisions', foreignKey: 'projectId' });
+    ProjectRevision.belongsTo(User, { as: 'author', foreignKey: 'authorUserId' });
+  }
 }
 
 export { Supplier };
 export { ApiToken, AuditEvent, Invitation, PasswordResetLink, Session, User };
 export { CurveDeclaredRange, CurveImport, CurvePoint, CurveRevision, Pump };
-export { Project };
+export { Project, ProjectRevision };
