@@ -112,5 +112,11 @@ describe('saved projects in Chromium', function () {
     await changes.getByRole('row', { name: /\/system\/segments\/0\/length 250 280/ }).waitFor();
     expect(await page.getByRole('table', { name: 'Effect' }).getByRole('row').count()).to.equal(4);
     await saveScreenshot(page, 'projects-history');
+
+    // this tab's design is the project's: it is recorded as a dated visit with notes
+    await page.getByLabel('Visited on').fill('2026-11-28');
+    await page.getByLabel('Notes').fill('Weir raised by two stones.');
+    await page.getByRole('button', { name: 'Record visit' }).click();
+    await revisions.getByRole('row', { name: /^4 2026-11-28 .*Weir raised by two stones\./ }).waitFor();
   });
 });

@@ -14,6 +14,7 @@ import type {
 } from '../../../../shared/api/api-schemas';
 import { describeHttpError } from '../../core/problem-details';
 import { ProjectsApi } from './projects-api';
+import { RecordVisitForm } from './record-visit-form';
 
 /**
  * One project's site visits: each revision with its date, author and notes; for any two, what
@@ -22,7 +23,16 @@ import { ProjectsApi } from './projects-api';
  */
 @Component({
   selector: 'rf-project-history-page',
-  imports: [DatePipe, DecimalPipe, FormsModule, MatButtonModule, MatFormFieldModule, MatSelectModule, RouterLink],
+  imports: [
+    DatePipe,
+    DecimalPipe,
+    FormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatSelectModule,
+    RecordVisitForm,
+    RouterLink,
+  ],
   template: `
     <section class="rf-card" aria-labelledby="rf-history-title">
       <h2 id="rf-history-title">Site visits of this project</h2>
@@ -142,6 +152,7 @@ import { ProjectsApi } from './projects-api';
             </tbody>
           </table>
         }
+        <rf-record-visit-form [projectId]="projectId" (recorded)="reload()" />
         @if (hasChoice()) {
           <h3>Re-check against the current catalog</h3>
           <button mat-stroked-button type="button" (click)="recheck()">Re-check</button>
@@ -185,7 +196,7 @@ import { ProjectsApi } from './projects-api';
 })
 export class ProjectHistoryPage {
   private readonly api = inject(ProjectsApi);
-  private readonly projectId = Number(inject(ActivatedRoute).snapshot.paramMap.get('projectId'));
+  protected readonly projectId = Number(inject(ActivatedRoute).snapshot.paramMap.get('projectId'));
   protected readonly revisions = signal<ProjectRevisionView[] | null>(null);
   protected readonly comparison = signal<RevisionComparison | null>(null);
   protected readonly recheckAnswer = signal<ProjectRecheck | null>(null);
@@ -195,6 +206,10 @@ export class ProjectHistoryPage {
   protected to = 1;
 
   constructor() {
+    this.reload();
+  }
+
+  protected reload(): void {
     this.api.listProjectRevisions(this.projectId).subscribe(({ revisions }) => {
       this.revisions.set(revisions);
       // the last visit against the one before it, the question asked most
