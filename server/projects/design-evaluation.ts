@@ -6,10 +6,11 @@ import type {
   PipeSystem,
 } from '../../shared/api/api-schemas';
 import { flowToSI, type CompiledSystemCurve } from '../../shared/hydraulics';
+import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { dutyOfParallelPumps } from '../calculations/arrangement-duty';
 import { operatingPointSummary } from '../calculations/calculation-handlers';
 import { preferredBandOf } from '../calculations/pump-request';
-import { answerUnits } from '../calculations/request-units';
+import { answerUnits, requestValueText } from '../calculations/request-units';
 import { prepareSystem } from '../calculations/system-request';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
 import { CurveDeclaredRange, CurveRevision, Pump, Supplier } from '../database/models';
@@ -118,7 +119,14 @@ export function choiceOutcome(
   const base = { curveRevisionId: curve.pump.revisionId, curveRevisionNumber: curve.revisionNumber };
   const duty = dutyOfParallelPumps(curve.pump, system, arrangement.running, query.band, density, 1);
   if (!duty.ok)
-    return { ...base, operatingPoint: null, inBand: false, region: null, redundant: false, reasons: [duty.reason] };
+    return {
+      ...base,
+      operatingPoint: null,
+      inBand: false,
+      region: null,
+      redundant: false,
+      reasons: [engineIssueText(duty.issue, requestValueText(units))],
+    };
   const ranked = rankCandidate(curve.pump, arrangement.running, duty.point, query);
   if (!ranked) throw new Error('a chosen pump is never filtered out');
   return {

@@ -1,10 +1,12 @@
 import type { Request, RequestHandler } from 'express';
+import type { Transaction } from 'sequelize';
 import type { ProjectInput, ProjectList } from '../../shared/api/api-schemas';
 import { PIPE_SERIES } from '../../shared/hydraulics';
 import { currentUser } from '../accounts/authenticated-user';
 import { ProblemError } from '../api/problem-details';
 import { unprocessable } from '../calculations/engine-problem';
 import { Project, ProjectRevision } from '../database/models';
+import type { StoredChoice } from '../database/models/project-revision';
 import { checkedName } from '../api/checked-text';
 import { answerProject, latestRevision, requireCurrent, storedChoice } from './project-revisions';
 
@@ -32,9 +34,27 @@ function checkedInput(request: Request): ProjectInput {
   return { ...input, name: checkedName(input.name, '/body/name') };
 }
 
-/** Today as YYYY-MM-DD (UTC), the visit date of a save that names none. */
-function today(): string {
-  return new Date().toISOString().slice(0, 10);
+/** The save as revision `number` of the project: its visit (today, UTC, when it names none) and design. */
+function recordVisit(
+  projectId: number,
+  number: number,
+  input: ProjectInput,
+  authorUserId: number,
+  choice: StoredChoice | null,
+  transaction: Transaction,
+): Promise<ProjectRevision> {
+  return ProjectRevision.create(
+    {
+      projectId,
+      number,
+      visitedOn: input.visit?.visitedOn ?? new Date().toISOString().slice(0, 10),
+      authorUserId,
+      notes: input.visit?.notes ?? null,
+      design: input.design,
+      choice,
+    },
+    { transaction },
+  );
 }
 
 export async function ownProject(request: Request): Promise<Project> {
@@ -82,19 +102,7 @@ export function createProjectHandlers(): Record<
           { ownerUserId: author, name: input.name, design: input.design },
           { transaction },
         );
-        const first = await ProjectRevision.create(
-          {
-            projectId: made.id,
-            number: 1,
-            visitedOn: input.visit?.visitedOn ?? today(),
-            authorUserId: author,
-            notes: input.visit?.notes ?? null,
-            design: input.design,
-            choice,
-          },
-          { transaction },
-        );
-        return [made, first] as const;
+        return [made, await recordVisit(made.id, 1, input, author, choice, transaction)] as const;
       });
       await answerProject(response, 201, project, revision);
     },
@@ -126,19 +134,11 @@ export function createProjectHandlers(): Record<
         locked.design = input.design;
         locked.changed('design', true);
         await locked.save({ transaction });
-        const next = await ProjectRevision.create(
-          {
-            projectId: locked.id,
-            number: previous.number + 1,
-            visitedOn: input.visit?.visitedOn ?? today(),
-            authorUserId: currentUser(request).id,
-            notes: input.visit?.notes ?? null,
-            design: input.design,
-            choice,
-          },
-          { transaction },
-        );
-        return [locked, next] as const;
+        const next = previous.number + 1;
+        return [
+          locked,
+          await recordVisit(locked.id, next, input, currentUser(request).id, choice, transaction),
+        ] as const;
       });
       await answerProject(response, 200, project, revision);
     },

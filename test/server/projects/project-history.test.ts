@@ -212,6 +212,36 @@ describe('projects: site visits, what they changed, and the re-check', function 
     await designer.get(`/projects/${project.id}/revision-comparison?from=1&to=9`).expect(404);
   });
 
+  it('says so in words when the chosen pumps cannot lift the water of a later visit', async () => {
+    const designer = as((await createUserWithSession(scratch.sequelize, 'designer')).token);
+    const created = await designer
+      .post('/projects', {
+        name: 'Hilltop',
+        design: firstVisit(),
+        choice: { pumpId, arrangement: { installed: 2, running: 2 } },
+      })
+      .expect(201);
+    const higher = firstVisit();
+    higher.system.staticHead = 12;
+    const id = (created.body as Project).id;
+    await designer
+      .put(`/projects/${id}`, { name: 'Hilltop', design: higher }, created.headers.etag as string)
+      .expect(200);
+    const comparison = (await designer.get(`/projects/${id}/revision-comparison?from=1&to=2`).expect(200))
+      .body as RevisionComparison;
+    expect(comparison.before.choice!.operatingPoint).to.not.equal(null);
+    // K-10 shuts off at 8 m, below the 12 m lift
+    expect(comparison.after.choice).to.deep.include({
+      operatingPoint: null,
+      inBand: false,
+      region: null,
+      redundant: false,
+    });
+    expect(comparison.after.choice!.reasons).to.deep.equal([
+      "shut-off head 8 m is below the system's static head 12 m",
+    ]);
+  });
+
   it('refuses a save on a stale ETag with 412 and writes nothing; a save without If-Match is taken', async () => {
     const designer = as((await createUserWithSession(scratch.sequelize, 'designer')).token);
     const created = await designer.post('/projects', { name: 'Two tabs', design: firstVisit() }).expect(201);
