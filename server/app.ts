@@ -19,6 +19,7 @@ import { createCalculationHandlers } from './calculations/calculation-handlers';
 import { CatalogSnapshot } from './catalog/catalog-snapshot';
 import { createCatalogHandlers } from './catalog/catalog-handlers';
 import { createProjectHandlers } from './projects/project-handlers';
+import { createProjectHistoryHandlers } from './projects/project-history-handlers';
 import { createCurveImportHandlers } from './catalog/curve-import-handlers';
 import { createProfileHandlers } from './reports/profile-handlers';
 import { createReportHandlers } from './reports/report-handlers';
@@ -115,6 +116,7 @@ export function createApp({ sequelize, logger, clientFolder, accounts, trustedPr
     ...createProjectHandlers(),
     ...createProfileHandlers(),
     ...createReportHandlers(catalogSnapshot),
+    ...createProjectHistoryHandlers(),
   };
   const guardFor = createOperationGuards(openApiDocument, accountsDependencies.rateLimits);
   app.use('/api/v1', createOperationRouter({ document: openApiDocument, handlers, guardFor }));

@@ -1,27 +1,22 @@
 import type { Request, RequestHandler } from 'express';
-import type { Project as ProjectView, ProjectInput, ProjectList } from '../../shared/api/api-schemas';
+import type { Transaction } from 'sequelize';
+import type { ProjectInput, ProjectList } from '../../shared/api/api-schemas';
 import { PIPE_SERIES } from '../../shared/hydraulics';
 import { currentUser } from '../accounts/authenticated-user';
 import { ProblemError } from '../api/problem-details';
 import { unprocessable } from '../calculations/engine-problem';
-import { Project } from '../database/models';
+import { Project, ProjectRevision } from '../database/models';
+import type { StoredChoice } from '../database/models/project-revision';
 import { checkedName } from '../api/checked-text';
+import { answerProject, latestRevision, requireCurrent, storedChoice } from './project-revisions';
 
 /*
  * A designer's saved designs. Each caller sees its own projects only: another's is as absent as
  * one that never existed. Fittings are checked by the contract; pipe series and sizes here, so a
- * saved design always opens in the design pages.
+ * saved design always opens in the design pages. Every save is a new revision (a site visit) in
+ * the same transaction as the project row, which it locks, so two saves cannot both pass the
+ * If-Match check.
  */
-
-function view(project: Project): ProjectView {
-  return {
-    id: project.id,
-    name: project.name,
-    createdAt: project.createdAt.toISOString(),
-    updatedAt: project.updatedAt.toISOString(),
-    design: project.design,
-  };
-}
 
 /** The request's project input, every pipe a size of its series in the catalogue. */
 function checkedInput(request: Request): ProjectInput {
@@ -36,10 +31,33 @@ function checkedInput(request: Request): ProjectInput {
   });
   if (input.design.band.flowMin > input.design.band.flowMax)
     throw unprocessable('/body/design/band/flowMax', 'must not be less than flowMin');
-  return { name: checkedName(input.name, '/body/name'), design: input.design };
+  return { ...input, name: checkedName(input.name, '/body/name') };
 }
 
-async function ownProject(request: Request): Promise<Project> {
+/** The save as revision `number` of the project: its visit (today, UTC, when it names none) and design. */
+function recordVisit(
+  projectId: number,
+  number: number,
+  input: ProjectInput,
+  authorUserId: number,
+  choice: StoredChoice | null,
+  transaction: Transaction,
+): Promise<ProjectRevision> {
+  return ProjectRevision.create(
+    {
+      projectId,
+      number,
+      visitedOn: input.visit?.visitedOn ?? new Date().toISOString().slice(0, 10),
+      authorUserId,
+      notes: input.visit?.notes ?? null,
+      design: input.design,
+      choice,
+    },
+    { transaction },
+  );
+}
+
+export async function ownProject(request: Request): Promise<Project> {
   const projectId = Number(request.params.projectId);
   const project = await Project.findOne({ where: { id: projectId, ownerUserId: currentUser(request).id } });
   if (!project)
@@ -76,26 +94,53 @@ export function createProjectHandlers(): Record<
 
     createProject: async (request, response) => {
       const input = checkedInput(request);
-      const project = await Project.create({
-        ownerUserId: currentUser(request).id,
-        name: input.name,
-        design: input.design,
+      const author = currentUser(request).id;
+      const sequelize = Project.sequelize!;
+      const [project, revision] = await sequelize.transaction(async (transaction) => {
+        const choice = input.choice ? await storedChoice(input.choice, '/body/choice', transaction) : null;
+        const made = await Project.create(
+          { ownerUserId: author, name: input.name, design: input.design },
+          { transaction },
+        );
+        return [made, await recordVisit(made.id, 1, input, author, choice, transaction)] as const;
       });
-      response.status(201).json(view(project));
+      await answerProject(response, 201, project, revision);
     },
 
     getProject: async (request, response) => {
-      response.json(view(await ownProject(request)));
+      const project = await ownProject(request);
+      await answerProject(response, 200, project, await latestRevision(project));
     },
 
     updateProject: async (request, response) => {
       const input = checkedInput(request);
-      const project = await ownProject(request);
-      project.name = input.name;
-      project.design = input.design;
-      project.changed('design', true);
-      await project.save();
-      response.json(view(project));
+      const owned = await ownProject(request);
+      const sequelize = Project.sequelize!;
+      const [project, revision] = await sequelize.transaction(async (transaction) => {
+        const locked = await Project.findByPk(owned.id, { transaction, lock: transaction.LOCK.UPDATE });
+        if (!locked)
+          throw new ProblemError(404, 'Not found', `You have no project ${owned.id}`, [
+            { pointer: '/path/projectId', detail: 'is not one of your projects' },
+          ]);
+        const previous = await latestRevision(locked, transaction);
+        requireCurrent(request, locked, previous.number);
+        const choice =
+          input.choice === undefined
+            ? previous.choice
+            : input.choice === null
+              ? null
+              : await storedChoice(input.choice, '/body/choice', transaction);
+        locked.name = input.name;
+        locked.design = input.design;
+        locked.changed('design', true);
+        await locked.save({ transaction });
+        const next = previous.number + 1;
+        return [
+          locked,
+          await recordVisit(locked.id, next, input, currentUser(request).id, choice, transaction),
+        ] as const;
+      });
+      await answerProject(response, 200, project, revision);
     },
 
     deleteProject: async (request, response) => {

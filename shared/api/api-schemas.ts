@@ -101,6 +101,15 @@ export type DesignSearch = Schemas['DesignSearch'];
 export type ProjectInput = Schemas['ProjectInput'];
 export type Project = Schemas['Project'];
 export type ProjectList = Schemas['ProjectList'];
+export type ProjectChoiceInput = Schemas['ProjectChoiceInput'];
+export type ProjectChoice = Schemas['ProjectChoice'];
+export type ProjectVisit = Schemas['ProjectVisit'];
+export type ChoiceOutcome = Schemas['ChoiceOutcome'];
+export type DesignOutcome = Schemas['DesignOutcome'];
+export type RevisionComparison = Schemas['RevisionComparison'];
+export type ProjectRecheck = Schemas['ProjectRecheck'];
+export type ProjectRevisionView = Schemas['ProjectRevision'];
+export type ProjectRevisionList = Schemas['ProjectRevisionList'];
 
 // Query parameters of the contract's operations, as the server reads them once validated and coerced.
 type QueryOf<Operation extends keyof operations> = NonNullable<operations[Operation]['parameters']['query']>;

@@ -600,11 +600,77 @@ export interface paths {
         };
         /** One of my projects with its design */
         get: operations["getProject"];
-        /** Save my project again, with a new name or design */
+        /**
+         * Save my project again, with a new name or design
+         * @description Every save is a new revision: a site visit (`visit`, today when left out) with its author. `choice` left out keeps the pump chosen before; null clears it. Send `If-Match` with the ETag of the revision you opened: when the project was saved since, the answer is 412 and nothing is written. Without `If-Match` the save is taken as it comes (the last save wins): integrations written before ETags keep working, and a script that is the only writer of its projects need not read first. The design pages always send it.
+         */
         put: operations["updateProject"];
         post?: never;
         /** Delete one of my projects */
         delete: operations["deleteProject"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/revisions": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        /** The site visits of my project, oldest first */
+        get: operations["listProjectRevisions"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/revision-comparison": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        /**
+         * What changed between two site visits of my project, and what it did
+         * @description `changes` lists every measured value that differs (levels, lengths, fittings by kind, pipe sizes, the band), each by its JSON pointer into the design. `before` and `after` are the system head over the band and the chosen pump on each revision's system, computed by the same code as the calculations and the search, both in the units of revision `to`. The pump is the one chosen at `to` (else at `from`) on the curve revision it was chosen on.
+         */
+        get: operations["compareProjectRevisions"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/recheck": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Re-check my project's chosen pump against the current catalog
+         * @description The chosen pump on the current design, once on the curve revision it was chosen on and once on the pump's current curve revision; `changesAnswer` says whether the newer curve moves it out of the band or the preferred region or loses the redundancy (or the pump left the catalog). Writes nothing; a 422 when no pump is chosen.
+         */
+        post: operations["recheckProject"];
+        delete?: never;
         options?: never;
         head?: never;
         patch?: never;
@@ -1506,6 +1572,105 @@ export interface components {
         ProjectInput: {
             name: components["schemas"]["ProjectName"];
             design: components["schemas"]["DesignDraft"];
+            /** @description The chosen candidate; left out keeps the one chosen before, null clears it. */
+            choice?: components["schemas"]["ProjectChoiceInput"] | null;
+            visit?: components["schemas"]["ProjectVisit"];
+        };
+        ProjectChoiceInput: {
+            pumpId: number;
+            arrangement: components["schemas"]["ProjectArrangement"];
+            /** @description The speed chosen for a variable-speed pump, kept with the choice; null or left out is the rated speed. */
+            speedRpm?: number | null;
+            /** @description A curve revision of that pump; left out, the pump's current one. */
+            curveRevisionId?: number;
+        };
+        ProjectArrangement: {
+            /** @description Running pumps plus any standby. */
+            installed: number;
+            running: number;
+        };
+        ProjectVisit: {
+            /**
+             * Format: date
+             * @description The day the measurements were taken.
+             */
+            visitedOn: string;
+            /** @description What was measured or changed; no angle brackets or control characters but line breaks and tabs. */
+            notes?: string | null;
+        };
+        ProjectChoice: {
+            pumpId: number;
+            supplier: string;
+            model: string;
+            modelCode: string;
+            arrangement: components["schemas"]["ProjectArrangement"];
+            speedRpm: number | null;
+            curveRevisionId: number;
+            curveRevisionNumber: number;
+        };
+        /** @description The chosen pump on one system, as the search would rank it. */
+        ChoiceOutcome: {
+            curveRevisionId: number;
+            curveRevisionNumber: number;
+            /** @description null when the curves do not cross. */
+            operatingPoint: components["schemas"]["OperatingPoint"] | null;
+            inBand: boolean;
+            region: components["schemas"]["OperatingRegion"] | null;
+            /** @description With one running pump failed (or the standby in its place), still at or above the band minimum. */
+            redundant: boolean;
+            reasons: string[];
+        };
+        DesignOutcome: {
+            units: {
+                flow: components["schemas"]["FlowUnit"];
+                head: components["schemas"]["HeadUnit"];
+            };
+            /** @description TDH at the band's low end, middle and high end. */
+            systemHead: {
+                flow: number;
+                head: number;
+            }[];
+            choice: components["schemas"]["ChoiceOutcome"] | null;
+        };
+        RevisionComparison: {
+            from: number;
+            to: number;
+            changes: {
+                /** @description JSON pointer into the design; fittings by kind (/system/segments/0/fittings/exit). */
+                pointer: string;
+                from: number | string | boolean | null;
+                to: number | string | boolean | null;
+            }[];
+            before: components["schemas"]["DesignOutcome"];
+            after: components["schemas"]["DesignOutcome"];
+        };
+        ProjectRecheck: {
+            revision: number;
+            choice: components["schemas"]["ProjectChoice"];
+            /** @description The pump has a newer curve revision than the one it was chosen on. */
+            newerCurve: boolean;
+            changesAnswer: boolean;
+            summary: string;
+            saved: components["schemas"]["ChoiceOutcome"];
+            /** @description null when the pump is no longer an active catalog pump. */
+            current: components["schemas"]["ChoiceOutcome"] | null;
+        };
+        ProjectRevision: {
+            number: number;
+            /** Format: date */
+            visitedOn: string;
+            author: {
+                id: number;
+                name: string;
+            } | null;
+            notes: string | null;
+            /** Format: date-time */
+            savedAt: string;
+            design: components["schemas"]["DesignDraft"];
+            choice: components["schemas"]["ProjectChoice"] | null;
+        };
+        ProjectRevisionList: {
+            revisions: components["schemas"]["ProjectRevision"][];
         };
         /** @description No angle brackets or control characters. */
         ProjectName: string;
@@ -1524,6 +1689,12 @@ export interface components {
             createdAt: string;
             /** Format: date-time */
             updatedAt: string;
+            /** @description The number of the revision this is (its ETag names it too). */
+            revision: number;
+            /** Format: date */
+            visitedOn: string;
+            notes: string | null;
+            choice: components["schemas"]["ProjectChoice"] | null;
             design: components["schemas"]["DesignDraft"];
         };
         ProjectList: {
@@ -1908,7 +2079,10 @@ export interface components {
     };
     parameters: never;
     requestBodies: never;
-    headers: never;
+    headers: {
+        /** @description The revision this answer shows, for `If-Match` on the next save, e.g. "p4r2". */
+        ProjectETag: string;
+    };
     pathItems: never;
 }
 export type $defs = Record<string, never>;
@@ -3585,6 +3759,10 @@ export interface operations {
                  *           "tariffPerKWh": 0.18,
                  *           "limit": 20
                  *         }
+                 *       },
+                 *       "visit": {
+                 *         "visitedOn": "2026-12-01",
+                 *         "notes": "Intake moved 0.5 ft lower after the autumn dig."
                  *       }
                  *     }
                  */
@@ -3595,6 +3773,7 @@ export interface operations {
             /** @description The saved project. */
             201: {
                 headers: {
+                    ETag: components["headers"]["ProjectETag"];
                     [name: string]: unknown;
                 };
                 content: {
@@ -3604,6 +3783,10 @@ export interface operations {
                      *       "name": "Hillside cascade",
                      *       "createdAt": "2026-12-01T15:30:00.000Z",
                      *       "updatedAt": "2026-12-01T15:30:00.000Z",
+                     *       "revision": 1,
+                     *       "visitedOn": "2026-12-01",
+                     *       "notes": "Intake moved 0.5 ft lower after the autumn dig.",
+                     *       "choice": null,
                      *       "design": {
                      *         "unitSystem": "us",
                      *         "system": {
@@ -3676,6 +3859,7 @@ export interface operations {
             /** @description The project. */
             200: {
                 headers: {
+                    ETag: components["headers"]["ProjectETag"];
                     [name: string]: unknown;
                 };
                 content: {
@@ -3685,6 +3869,22 @@ export interface operations {
                      *       "name": "Hillside cascade",
                      *       "createdAt": "2026-12-01T15:30:00.000Z",
                      *       "updatedAt": "2026-12-01T15:30:00.000Z",
+                     *       "revision": 2,
+                     *       "visitedOn": "2026-12-01",
+                     *       "notes": "Intake moved 0.5 ft lower after the autumn dig.",
+                     *       "choice": {
+                     *         "pumpId": 12,
+                     *         "supplier": "Alderbrook (invented)",
+                     *         "model": "Submersible 40",
+                     *         "modelCode": "AB-SUB-40",
+                     *         "arrangement": {
+                     *           "installed": 3,
+                     *           "running": 2
+                     *         },
+                     *         "speedRpm": null,
+                     *         "curveRevisionId": 31,
+                     *         "curveRevisionNumber": 1
+                     *       },
                      *       "design": {
                      *         "unitSystem": "us",
                      *         "system": {
@@ -3746,7 +3946,10 @@ export interface operations {
     updateProject: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /** @description The ETag of the project as you opened it (GET answers it), or `*`. */
+                "If-Match"?: string;
+            };
             path: {
                 projectId: number;
             };
@@ -3803,6 +4006,18 @@ export interface operations {
                  *           "tariffPerKWh": 0.18,
                  *           "limit": 20
                  *         }
+                 *       },
+                 *       "choice": {
+                 *         "pumpId": 12,
+                 *         "arrangement": {
+                 *           "installed": 3,
+                 *           "running": 2
+                 *         },
+                 *         "speedRpm": null
+                 *       },
+                 *       "visit": {
+                 *         "visitedOn": "2026-12-01",
+                 *         "notes": "Intake moved 0.5 ft lower after the autumn dig."
                  *       }
                  *     }
                  */
@@ -3813,6 +4028,7 @@ export interface operations {
             /** @description The saved project. */
             200: {
                 headers: {
+                    ETag: components["headers"]["ProjectETag"];
                     [name: string]: unknown;
                 };
                 content: {
@@ -3822,6 +4038,22 @@ export interface operations {
                      *       "name": "Hillside cascade",
                      *       "createdAt": "2026-12-01T15:30:00.000Z",
                      *       "updatedAt": "2026-12-01T15:30:00.000Z",
+                     *       "revision": 2,
+                     *       "visitedOn": "2026-12-01",
+                     *       "notes": "Intake moved 0.5 ft lower after the autumn dig.",
+                     *       "choice": {
+                     *         "pumpId": 12,
+                     *         "supplier": "Alderbrook (invented)",
+                     *         "model": "Submersible 40",
+                     *         "modelCode": "AB-SUB-40",
+                     *         "arrangement": {
+                     *           "installed": 3,
+                     *           "running": 2
+                     *         },
+                     *         "speedRpm": null,
+                     *         "curveRevisionId": 31,
+                     *         "curveRevisionNumber": 1
+                     *       },
                      *       "design": {
                      *         "unitSystem": "us",
                      *         "system": {
@@ -3878,6 +4110,31 @@ export interface operations {
             401: components["responses"]["Unauthorized"];
             403: components["responses"]["NotAllowed"];
             404: components["responses"]["NotFound"];
+            /** @description The project was saved since the ETag in `If-Match`; nothing was written. `currentRevision` is its revision now. */
+            412: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "type": "/api/v1/problems/project-saved-since",
+                     *       "title": "Project saved since",
+                     *       "status": 412,
+                     *       "detail": "the project was saved since you opened it (it is at revision 3 now): reload it, or save yours as a new project",
+                     *       "pointer": "/headers/if-match",
+                     *       "errors": [
+                     *         {
+                     *           "pointer": "/headers/if-match",
+                     *           "detail": "is not the project's current revision"
+                     *         }
+                     *       ],
+                     *       "currentRevision": 3
+                     *     }
+                     */
+                    "application/problem+json": components["schemas"]["ProblemDetails"];
+                };
+            };
             422: components["responses"]["UnprocessableInput"];
         };
     };
@@ -3903,6 +4160,307 @@ export interface operations {
             401: components["responses"]["Unauthorized"];
             403: components["responses"]["NotAllowed"];
             404: components["responses"]["NotFound"];
+        };
+    };
+    listProjectRevisions: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Every revision with its design and choice. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "revisions": [
+                     *         {
+                     *           "number": 1,
+                     *           "visitedOn": "2026-11-20",
+                     *           "author": {
+                     *             "id": 3,
+                     *             "name": "Dana Reed"
+                     *           },
+                     *           "notes": null,
+                     *           "savedAt": "2026-11-20T09:00:00.000Z",
+                     *           "choice": null,
+                     *           "design": {
+                     *             "unitSystem": "us",
+                     *             "system": {
+                     *               "staticMode": "direct",
+                     *               "staticHead": 14.5,
+                     *               "intakeLevel": 0,
+                     *               "dischargeLevel": 14.5,
+                     *               "outletPressureHead": 0,
+                     *               "waterTemperatureC": 20,
+                     *               "frictionMethod": "hazen-williams",
+                     *               "segments": [
+                     *                 {
+                     *                   "series": "pvc-sch40",
+                     *                   "size": "pvc-sch40-3",
+                     *                   "length": 240,
+                     *                   "fittings": [
+                     *                     {
+                     *                       "kind": "elbow-90-standard",
+                     *                       "count": 4
+                     *                     }
+                     *                   ],
+                     *                   "extraK": 0
+                     *                 }
+                     *               ]
+                     *             },
+                     *             "band": {
+                     *               "flowMin": 90,
+                     *               "flowMax": 130
+                     *             },
+                     *             "search": {
+                     *               "arrangements": [
+                     *                 1,
+                     *                 2
+                     *               ],
+                     *               "requireOneFailed": true,
+                     *               "standby": false,
+                     *               "onlyPreferredRegion": false,
+                     *               "maxInputPowerPerPump": null,
+                     *               "hoursPerDay": 24,
+                     *               "tariffPerKWh": 0.18,
+                     *               "limit": 20
+                     *             }
+                     *           }
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ProjectRevisionList"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    compareProjectRevisions: {
+        parameters: {
+            query: {
+                from: number;
+                to: number;
+            };
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The changes and their effect. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "from": 1,
+                     *       "to": 2,
+                     *       "changes": [
+                     *         {
+                     *           "pointer": "/system/intakeLevel",
+                     *           "from": 100,
+                     *           "to": 99.5
+                     *         },
+                     *         {
+                     *           "pointer": "/system/segments/0/fittings/elbow-90-standard",
+                     *           "from": 4,
+                     *           "to": 6
+                     *         }
+                     *       ],
+                     *       "before": {
+                     *         "units": {
+                     *           "flow": "gpm",
+                     *           "head": "ft"
+                     *         },
+                     *         "systemHead": [
+                     *           {
+                     *             "flow": 90,
+                     *             "head": 18.2
+                     *           },
+                     *           {
+                     *             "flow": 110,
+                     *             "head": 19.6
+                     *           },
+                     *           {
+                     *             "flow": 130,
+                     *             "head": 21.2
+                     *           }
+                     *         ],
+                     *         "choice": {
+                     *           "curveRevisionId": 31,
+                     *           "curveRevisionNumber": 1,
+                     *           "operatingPoint": {
+                     *             "flow": 118,
+                     *             "head": 20.1,
+                     *             "flowPerPump": 59,
+                     *             "percentOfBep": 96,
+                     *             "region": "preferred",
+                     *             "efficiency": 54,
+                     *             "inputPower": 0.62
+                     *           },
+                     *           "inBand": true,
+                     *           "region": "preferred",
+                     *           "redundant": true,
+                     *           "reasons": [
+                     *             "in the duty band",
+                     *             "in the preferred operating region (96 % of BEP)"
+                     *           ]
+                     *         }
+                     *       },
+                     *       "after": {
+                     *         "units": {
+                     *           "flow": "gpm",
+                     *           "head": "ft"
+                     *         },
+                     *         "systemHead": [
+                     *           {
+                     *             "flow": 90,
+                     *             "head": 19.1
+                     *           },
+                     *           {
+                     *             "flow": 110,
+                     *             "head": 20.6
+                     *           },
+                     *           {
+                     *             "flow": 130,
+                     *             "head": 22.3
+                     *           }
+                     *         ],
+                     *         "choice": {
+                     *           "curveRevisionId": 31,
+                     *           "curveRevisionNumber": 1,
+                     *           "operatingPoint": {
+                     *             "flow": 112,
+                     *             "head": 20.8,
+                     *             "flowPerPump": 56,
+                     *             "percentOfBep": 91,
+                     *             "region": "preferred",
+                     *             "efficiency": 53,
+                     *             "inputPower": 0.6
+                     *           },
+                     *           "inBand": true,
+                     *           "region": "preferred",
+                     *           "redundant": false,
+                     *           "reasons": [
+                     *             "in the duty band",
+                     *             "in the preferred operating region (91 % of BEP)",
+                     *             "below band with one failed"
+                     *           ]
+                     *         }
+                     *       }
+                     *     }
+                     */
+                    "application/json": components["schemas"]["RevisionComparison"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    recheckProject: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The saved choice on the saved and the current curve. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "revision": 2,
+                     *       "choice": {
+                     *         "pumpId": 12,
+                     *         "supplier": "Alderbrook (invented)",
+                     *         "model": "Submersible 40",
+                     *         "modelCode": "AB-SUB-40",
+                     *         "arrangement": {
+                     *           "installed": 3,
+                     *           "running": 2
+                     *         },
+                     *         "speedRpm": null,
+                     *         "curveRevisionId": 31,
+                     *         "curveRevisionNumber": 1
+                     *       },
+                     *       "newerCurve": true,
+                     *       "changesAnswer": true,
+                     *       "summary": "curve revision 2 of AB-SUB-40 changes the answer: no longer redundant",
+                     *       "saved": {
+                     *         "curveRevisionId": 31,
+                     *         "curveRevisionNumber": 1,
+                     *         "operatingPoint": {
+                     *           "flow": 118,
+                     *           "head": 20.1,
+                     *           "flowPerPump": 59,
+                     *           "percentOfBep": 96,
+                     *           "region": "preferred",
+                     *           "efficiency": 54,
+                     *           "inputPower": 0.62
+                     *         },
+                     *         "inBand": true,
+                     *         "region": "preferred",
+                     *         "redundant": true,
+                     *         "reasons": [
+                     *           "in the duty band"
+                     *         ]
+                     *       },
+                     *       "current": {
+                     *         "curveRevisionId": 40,
+                     *         "curveRevisionNumber": 2,
+                     *         "operatingPoint": {
+                     *           "flow": 111,
+                     *           "head": 19.9,
+                     *           "flowPerPump": 55.5,
+                     *           "percentOfBep": 90,
+                     *           "region": "preferred",
+                     *           "efficiency": 52,
+                     *           "inputPower": 0.6
+                     *         },
+                     *         "inBand": true,
+                     *         "region": "preferred",
+                     *         "redundant": false,
+                     *         "reasons": [
+                     *           "in the duty band",
+                     *           "below band with one failed"
+                     *         ]
+                     *       }
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ProjectRecheck"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["UnprocessableInput"];
         };
     };
     getCompanyProfile: {

@@ -18,6 +18,7 @@ import { Project } from './project';
 // reports
 import { CompanyProfile } from './company-profile';
 import { ProjectReport } from './project-report';
+import { ProjectRevision } from './project-revision';
 
 /** Initialises every model and declares the associations, in one place. */
 export function initialiseModels(sequelize: Sequelize): void {
@@ -47,6 +48,11 @@ export function initialiseModels(sequelize: Sequelize): void {
   }
   // projects
   Project.initialise(sequelize);
+  ProjectRevision.initialise(sequelize);
+  if (!Project.associations.revisions) {
+    Project.hasMany(ProjectRevision, { as: 'revisions', foreignKey: 'projectId' });
+    ProjectRevision.belongsTo(User, { as: 'author', foreignKey: 'authorUserId' });
+  }
   // reports
   for (const model of [CompanyProfile, ProjectReport]) model.initialise(sequelize);
   if (!ProjectReport.associations.project) {
@@ -59,5 +65,5 @@ export function initialiseModels(sequelize: Sequelize): void {
 export { Supplier };
 export { ApiToken, AuditEvent, Invitation, PasswordResetLink, Session, User };
 export { CurveDeclaredRange, CurveImport, CurvePoint, CurveRevision, Pump };
-export { Project };
+export { Project, ProjectRevision };
 export { CompanyProfile, ProjectReport };

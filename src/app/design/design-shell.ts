@@ -1,5 +1,5 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatDialog } from '@angular/material/dialog';
@@ -8,7 +8,9 @@ import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { describeHttpError } from '../core/problem-details';
 import { SessionService } from '../core/session-service';
 import { CautionsPanel } from './cautions-panel';
+import { ProjectTags } from './projects/project-tags';
 import { ProjectsApi } from './projects/projects-api';
+import { SaveConflictDialog, type SaveConflictChoice } from './projects/save-conflict-dialog';
 import { SaveProjectDialog } from './projects/save-project-dialog';
 import { SelectionDraft } from './selection-draft';
 import { unitSystems, type UnitSystem } from './unit-systems';
@@ -74,8 +76,8 @@ interface DesignStep {
         </a>
       }
     </nav>
-    <!-- A step's form is built from the draft: a change of units builds it again, in the new units. -->
-    @for (units of [draft.unitSystem()]; track units) {
+    <!-- A step's form is built from the draft: a change of units, or the saved project reloaded, builds it again. -->
+    @for (form of [draft.unitSystem() + '/' + reloads()]; track form) {
       <router-outlet />
     }
     <rf-cautions-panel />
@@ -161,6 +163,9 @@ export class DesignShell {
   ];
 
   private readonly projectsApi = inject(ProjectsApi);
+  private readonly projectTags = inject(ProjectTags);
+  /** How often the saved project replaced the draft on this page, so the step's form is built anew. */
+  protected readonly reloads = signal(0);
   private readonly session = inject(SessionService);
   /** Projects are kept for the roles that design: designers, integrators and admins. */
   protected readonly canSave = computed(
@@ -177,17 +182,45 @@ export class DesignShell {
     this.draft.setUnitSystem(unitSystem);
   }
 
-  /** Saves the design again into its project, or as a new one when it has none. */
+  /**
+   * Saves the design again into its project, on the revision this tab opened, or as a new one
+   * when it has none. A refusal as stale (412) offers to reload the saved project or save as new.
+   */
   protected save(): void {
     const project = this.draft.project();
     if (!project) {
       this.saveAsNew();
       return;
     }
-    this.projectsApi.updateProject(project.id, { name: project.name, design: this.draft.design() }).subscribe({
-      next: (saved) => this.saveNote.set(`Saved at ${new Date(saved.updatedAt).toLocaleTimeString()}.`),
-      error: (error: HttpErrorResponse) => this.saveNote.set(describeHttpError(error)),
-    });
+    this.projectsApi
+      .updateProject(project.id, { name: project.name, design: this.draft.design() }, this.projectTags.of(project.id))
+      .subscribe({
+        next: ({ project: saved, etag }) => {
+          this.projectTags.remember(saved.id, etag);
+          this.saveNote.set(`Saved at ${new Date(saved.updatedAt).toLocaleTimeString()}.`);
+        },
+        error: (error: HttpErrorResponse) => {
+          if (error.status === 412) this.resolveConflict(project.id, project.name);
+          else this.saveNote.set(describeHttpError(error));
+        },
+      });
+  }
+
+  private resolveConflict(projectId: number, name: string): void {
+    this.dialog
+      .open<SaveConflictDialog, string, SaveConflictChoice>(SaveConflictDialog, { width: '32rem', data: name })
+      .afterClosed()
+      .subscribe((choice) => {
+        if (choice === 'save-as-new') this.saveAsNew();
+        else if (choice === 'reload')
+          this.projectsApi.getProject(projectId).subscribe(({ project, etag }) => {
+            this.projectTags.remember(projectId, etag);
+            this.draft.openProject(project);
+            this.reloads.update((count) => count + 1);
+            this.saveNote.set(`Reloaded "${project.name}" as saved (revision ${project.revision}).`);
+          });
+        else this.saveNote.set('Not saved: the project was saved elsewhere since you opened it.');
+      });
   }
 
   protected saveAsNew(): void {

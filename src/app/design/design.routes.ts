@@ -33,6 +33,11 @@ export const designRoutes: Routes = [
         loadComponent: () => import('./projects/projects-page').then((m) => m.ProjectsPage),
       },
       {
+        path: 'projects/:projectId',
+        title: 'Project history - Riffle',
+        loadComponent: () => import('./projects/project-history-page').then((m) => m.ProjectHistoryPage),
+      },
+      {
         path: 'report',
         title: 'Report - Riffle',
         loadComponent: () => import('./report/selection-report-page').then((m) => m.SelectionReportPage),

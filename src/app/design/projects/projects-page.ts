@@ -2,15 +2,16 @@ import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { Router } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import type { ProjectList } from '../../../../shared/api/api-schemas';
 import { SelectionDraft } from '../selection-draft';
+import { ProjectTags } from './project-tags';
 import { ProjectsApi } from './projects-api';
 
-/** The designer's saved projects: open one to re-check it, or delete it. */
+/** The designer's saved projects: open one to work on it, see its site visits, or delete it. */
 @Component({
   selector: 'rf-projects-page',
-  imports: [DatePipe, MatButtonModule, MatIconModule],
+  imports: [DatePipe, MatButtonModule, MatIconModule, RouterLink],
   template: `
     <section class="rf-card" aria-labelledby="rf-projects-title">
       <h2 id="rf-projects-title">Your saved projects</h2>
@@ -44,6 +45,9 @@ import { ProjectsApi } from './projects-api';
                   >
                     Open
                   </button>
+                  <a mat-stroked-button [routerLink]="[project.id]" [attr.aria-label]="'History of ' + project.name"
+                    >History</a
+                  >
                   <button
                     mat-stroked-button
                     type="button"
@@ -89,6 +93,7 @@ import { ProjectsApi } from './projects-api';
 export class ProjectsPage {
   private readonly api = inject(ProjectsApi);
   private readonly router = inject(Router);
+  private readonly tags = inject(ProjectTags);
   protected readonly draft = inject(SelectionDraft);
   protected readonly projects = signal<ProjectList['projects'] | null>(null);
 
@@ -97,7 +102,8 @@ export class ProjectsPage {
   }
 
   protected open(projectId: number): void {
-    this.api.getProject(projectId).subscribe((project) => {
+    this.api.getProject(projectId).subscribe(({ project, etag }) => {
+      this.tags.remember(projectId, etag);
       this.draft.openProject(project);
       void this.router.navigate(['/design/system']);
     });

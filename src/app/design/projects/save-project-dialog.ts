@@ -9,6 +9,7 @@ import type { Project } from '../../../../shared/api/api-schemas';
 import { visibleTextPattern } from '../../accounts/account-validators';
 import { describeHttpError } from '../../core/problem-details';
 import { SelectionDraft } from '../selection-draft';
+import { ProjectTags } from './project-tags';
 import { ProjectsApi } from './projects-api';
 
 /** Names the design and saves it as a new project; closes with the saved project or nothing. */
@@ -54,6 +55,7 @@ import { ProjectsApi } from './projects-api';
 export class SaveProjectDialog {
   private readonly api = inject(ProjectsApi);
   private readonly draft = inject(SelectionDraft);
+  private readonly tags = inject(ProjectTags);
   private readonly dialogRef = inject<MatDialogRef<SaveProjectDialog, Project | undefined>>(MatDialogRef);
   private readonly suggested = inject<string>(MAT_DIALOG_DATA);
 
@@ -70,7 +72,8 @@ export class SaveProjectDialog {
     }
     this.saving.set(true);
     this.api.createProject({ name: this.form.getRawValue().name, design: this.draft.design() }).subscribe({
-      next: (project) => {
+      next: ({ project, etag }) => {
+        this.tags.remember(project.id, etag);
         this.draft.savedAs(project);
         this.dialogRef.close(project);
       },

@@ -1,0 +1,164 @@
+import type {
+  CalculationUnits,
+  ChoiceOutcome,
+  DesignDraft,
+  DesignOutcome,
+  PipeSystem,
+} from '../../shared/api/api-schemas';
+import { DEFAULT_NPSH_GUIDANCE, flowToSI, type CompiledSystemCurve } from '../../shared/hydraulics';
+import { engineIssueText } from '../../shared/messages/engine-issue-text';
+import { dutyOfParallelPumps } from '../calculations/arrangement-duty';
+import { operatingPointSummary } from '../calculations/calculation-handlers';
+import { preferredBandOf } from '../calculations/pump-request';
+import { answerUnits, requestValueText } from '../calculations/request-units';
+import { prepareSystem } from '../calculations/system-request';
+import type { CatalogPump } from '../catalog/catalog-snapshot';
+import { CurveDeclaredRange, CurveRevision, Pump, Supplier } from '../database/models';
+import type { SelectionQuery } from '../selection/selection-query';
+import { rankCandidate } from '../selection/selection-reasons';
+
+/*
+ * A saved design worked out as the API works out a calculation and a search: its system through
+ * `prepareSystem`, the chosen pumps through `dutyOfParallelPumps`, and band, region and the
+ * one-failed check through the search's own `rankCandidate`, so the project page and the
+ * candidates page cannot disagree.
+ */
+
+/** The units a design's numbers are in (DesignDraft in openapi.yaml: us gpm, ft, in; si L/min, m, mm). */
+export function designUnits(unitSystem: DesignDraft['unitSystem']): CalculationUnits {
+  return unitSystem === 'us'
+    ? { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' }
+    : { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm', power: 'kW' };
+}
+
+/** The design's system as the calculations take it; fittings counted zero are left out. */
+export function designPipeSystem(design: DesignDraft): PipeSystem {
+  const { system } = design;
+  return {
+    staticHead: system.staticMode === 'levels' ? system.dischargeLevel - system.intakeLevel : system.staticHead,
+    outletPressureHead: system.outletPressureHead,
+    frictionMethod: system.frictionMethod,
+    waterTemperatureC: system.waterTemperatureC,
+    segments: system.segments.map((segment) => ({
+      length: segment.length,
+      pipe: segment.size,
+      fittings: segment.fittings.filter((fitting) => fitting.count > 0),
+      minorLossK: segment.extraK,
+    })),
+  };
+}
+
+/** A chosen pump on one stored curve revision, as the search holds catalog pumps. */
+export interface ChosenCurve {
+  pump: CatalogPump;
+  revisionNumber: number;
+}
+
+/** The pump's curve revision `revisionId` as the search would hold it, or null when it is not that pump's. */
+export async function chosenCurve(pumpId: number, revisionId: number): Promise<ChosenCurve | null> {
+  const [pump, revision, preferred] = await Promise.all([
+    Pump.findByPk(pumpId, { include: [{ model: Supplier, as: 'supplier' }] }),
+    CurveRevision.findByPk(revisionId, { attributes: ['id', 'pumpId', 'number', 'fit'] }),
+    CurveDeclaredRange.findOne({ where: { revisionId, region: 'preferred' } }),
+  ]);
+  if (!pump || !revision || revision.pumpId !== pump.id) return null;
+  const fit = typeof revision.fit === 'string' ? JSON.parse(revision.fit) : revision.fit;
+  return {
+    revisionNumber: revision.number,
+    pump: {
+      pumpId: pump.id,
+      supplierId: pump.supplierId,
+      supplier: pump.supplier?.name ?? '',
+      model: pump.displayName,
+      modelCode: pump.modelCode,
+      kind: pump.kind,
+      revisionId: revision.id,
+      fit,
+      declaredPreferred: preferred ? { flowMin: preferred.flowMinM3s, flowMax: preferred.flowMaxM3s } : null,
+    },
+  };
+}
+
+interface Arrangement {
+  installed: number;
+  running: number;
+}
+
+function queryFor(design: DesignDraft, system: CompiledSystemCurve, density: number, arrangement: Arrangement) {
+  const units = designUnits(design.unitSystem);
+  const query: SelectionQuery = {
+    system,
+    density,
+    flowMin: flowToSI(design.band.flowMin, units.flow),
+    flowMax: flowToSI(design.band.flowMax, units.flow),
+    arrangements: [arrangement.running],
+    requireOneFailed: design.search.requireOneFailed,
+    standby: arrangement.installed > arrangement.running,
+    band: preferredBandOf(undefined),
+    hoursPerDay: design.search.hoursPerDay,
+    tariffPerKWh: design.search.tariffPerKWh,
+    motorEfficiency: 1,
+    // the chosen pump is judged, not filtered: no power limit, every region
+    maxInputPowerPerPump: null,
+    onlyPreferredRegion: false,
+    accepts: () => true,
+    limit: 1,
+    // a saved design keeps no suction side yet: submersible-style, nothing to check
+    suction: null,
+    npshGuidance: DEFAULT_NPSH_GUIDANCE,
+  };
+  return query;
+}
+
+/** The chosen pumps on `design`'s system, answered in `units`. */
+export function choiceOutcome(
+  design: DesignDraft,
+  curve: ChosenCurve,
+  arrangement: Arrangement,
+  units: CalculationUnits,
+): ChoiceOutcome {
+  const { curve: system, density } = prepareSystem(designUnits(design.unitSystem), designPipeSystem(design), '');
+  const query = queryFor(design, system, density, arrangement);
+  const base = { curveRevisionId: curve.pump.revisionId, curveRevisionNumber: curve.revisionNumber };
+  const duty = dutyOfParallelPumps(curve.pump, system, arrangement.running, query.band, density, 1);
+  if (!duty.ok)
+    return {
+      ...base,
+      operatingPoint: null,
+      inBand: false,
+      region: null,
+      redundant: false,
+      reasons: [engineIssueText(duty.issue, requestValueText(units))],
+    };
+  const ranked = rankCandidate(curve.pump, arrangement.running, duty.point, query);
+  if (!ranked) throw new Error('a chosen pump is never filtered out');
+  return {
+    ...base,
+    operatingPoint: operatingPointSummary(duty.point, units),
+    inBand: ranked.inBand,
+    region: ranked.point.region,
+    redundant: ranked.oneFailedMeetsMinimum === true,
+    reasons: ranked.reasons,
+  };
+}
+
+/** TDH over the band (low end, middle, high end) and the chosen pumps on `design`, in `units`. */
+export function designOutcome(
+  design: DesignDraft,
+  units: CalculationUnits,
+  chosen: { curve: ChosenCurve; arrangement: Arrangement } | null,
+): DesignOutcome {
+  const from = designUnits(design.unitSystem);
+  const { curve: system } = prepareSystem(from, designPipeSystem(design), '');
+  const to = answerUnits(units);
+  const low = flowToSI(design.band.flowMin, from.flow);
+  const high = flowToSI(design.band.flowMax, from.flow);
+  return {
+    units: { flow: units.flow, head: units.head },
+    systemHead: [low, (low + high) / 2, high].map((flow) => ({
+      flow: to.flow(flow),
+      head: to.head(system.evaluate(flow)),
+    })),
+    choice: chosen ? choiceOutcome(design, chosen.curve, chosen.arrangement, units) : null,
+  };
+}
