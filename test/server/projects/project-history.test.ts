@@ -15,6 +15,7 @@ import { designPipeSystem } from '../../../server/projects/design-evaluation';
 import { createUserWithSession, tableChecksums } from '../../support/accounts';
 import { createScratchDatabase } from '../../support/test-database';
 import { importText } from '../../data-import/catalog-fixtures';
+import { snapshotClock, STAMP_REUSE_MS } from '../../../server/catalog/catalog-snapshot';
 
 /** Two invented pumps; K-10 publishes its preferred range, 4 to 7 m3/h. */
 const curveTable = [
@@ -329,8 +330,11 @@ describe('projects: site visits, what they changed, and the re-check', function 
     expect(rechecked.summary).to.equal(
       'curve revision 2 of K-10 changes the answer: out of the duty band; region preferred becomes outside',
     );
-    // the current curve's outcome is the search's own on today's catalog
-    const candidate = await searched(designer, firstVisit());
+    // the current curve's outcome is the search's own on today's catalog; move the snapshot's clock
+    // past its stamp reuse so the search sees the import made straight into the database
+    const realClock = snapshotClock.now;
+    snapshotClock.now = () => realClock() + STAMP_REUSE_MS + 50;
+    const candidate = await searched(designer, firstVisit()).finally(() => (snapshotClock.now = realClock));
     expect(rechecked.current!.operatingPoint!.flow).to.be.closeTo(candidate.operatingPoint.flow, 1e-6);
     expect(rechecked.current!.inBand).to.equal(candidate.inBand);
     // the project itself still records the curve revision it was chosen on
