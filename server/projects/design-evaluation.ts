@@ -3,8 +3,8 @@ import type {
   ChoiceOutcome,
   DesignDraft,
   DesignOutcome,
-  PipeSystem,
 } from '../../shared/api/api-schemas';
+import { DESIGN_UNITS, designPipeSystem } from '../../shared/api/design-system';
 import { DEFAULT_NPSH_GUIDANCE, flowToSI, type CompiledSystemCurve } from '../../shared/hydraulics';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { dutyOfParallelPumps } from '../calculations/arrangement-duty';
@@ -26,26 +26,7 @@ import { rankCandidate } from '../selection/selection-reasons';
 
 /** The units a design's numbers are in (DesignDraft in openapi.yaml: us gpm, ft, in; si L/min, m, mm). */
 export function designUnits(unitSystem: DesignDraft['unitSystem']): CalculationUnits {
-  return unitSystem === 'us'
-    ? { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' }
-    : { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm', power: 'kW' };
-}
-
-/** The design's system as the calculations take it; fittings counted zero are left out. */
-export function designPipeSystem(design: DesignDraft): PipeSystem {
-  const { system } = design;
-  return {
-    staticHead: system.staticMode === 'levels' ? system.dischargeLevel - system.intakeLevel : system.staticHead,
-    outletPressureHead: system.outletPressureHead,
-    frictionMethod: system.frictionMethod,
-    waterTemperatureC: system.waterTemperatureC,
-    segments: system.segments.map((segment) => ({
-      length: segment.length,
-      pipe: segment.size,
-      fittings: segment.fittings.filter((fitting) => fitting.count > 0),
-      minorLossK: segment.extraK,
-    })),
-  };
+  return DESIGN_UNITS[unitSystem];
 }
 
 /** A chosen pump on one stored curve revision, as the search holds catalog pumps. */
@@ -117,7 +98,7 @@ export function choiceOutcome(
   arrangement: Arrangement,
   units: CalculationUnits,
 ): ChoiceOutcome {
-  const { curve: system, density } = prepareSystem(designUnits(design.unitSystem), designPipeSystem(design), '');
+  const { curve: system, density } = prepareSystem(designUnits(design.unitSystem), designPipeSystem(design.system), '');
   const query = queryFor(design, system, density, arrangement);
   const base = { curveRevisionId: curve.pump.revisionId, curveRevisionNumber: curve.revisionNumber };
   const duty = dutyOfParallelPumps(curve.pump, system, arrangement.running, query.band, density, 1);
@@ -149,7 +130,7 @@ export function designOutcome(
   chosen: { curve: ChosenCurve; arrangement: Arrangement } | null,
 ): DesignOutcome {
   const from = designUnits(design.unitSystem);
-  const { curve: system } = prepareSystem(from, designPipeSystem(design), '');
+  const { curve: system } = prepareSystem(from, designPipeSystem(design.system), '');
   const to = answerUnits(units);
   const low = flowToSI(design.band.flowMin, from.flow);
   const high = flowToSI(design.band.flowMax, from.flow);

@@ -1,10 +1,5 @@
-import type {
-  CalculationUnits,
-  DesignDraft,
-  PipeSystem,
-  SelectionRequest,
-  SelectionResponse,
-} from '../../shared/api/api-schemas';
+import type { CalculationUnits, DesignDraft, SelectionRequest, SelectionResponse } from '../../shared/api/api-schemas';
+import { DESIGN_UNITS, designPipeSystem } from '../../shared/api/design-system';
 import { flowToSI, headFromSI } from '../../shared/hydraulics';
 import { prepareSystem } from '../calculations/system-request';
 import type { CatalogSnapshot } from '../catalog/catalog-snapshot';
@@ -12,32 +7,7 @@ import { answerSelection } from '../selection/selection-handlers';
 
 /** The units of a saved design, as the contract's DesignDraft states them (us: gpm, ft, in; si: L/min, m, mm). */
 export function designUnits(design: DesignDraft): Required<CalculationUnits> {
-  return design.unitSystem === 'us'
-    ? { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' }
-    : { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm', power: 'kW' };
-}
-
-/** Static head of the saved system: as typed, or the rise from the intake to the discharge level. */
-export function designStaticHead(design: DesignDraft): number {
-  const { system } = design;
-  return system.staticMode === 'levels' ? system.dischargeLevel - system.intakeLevel : system.staticHead;
-}
-
-/** The saved system as the API's `system`, fittings with a zero count left out (as the design pages send it). */
-export function designPipeSystem(design: DesignDraft): PipeSystem {
-  const { system } = design;
-  return {
-    staticHead: designStaticHead(design),
-    outletPressureHead: system.outletPressureHead,
-    frictionMethod: system.frictionMethod,
-    waterTemperatureC: system.waterTemperatureC,
-    segments: system.segments.map((segment) => ({
-      length: segment.length,
-      pipe: segment.size,
-      fittings: segment.fittings.filter((fitting) => fitting.count > 0),
-      minorLossK: segment.extraK,
-    })),
-  };
+  return DESIGN_UNITS[design.unitSystem];
 }
 
 /** The selection request the design pages send for this design: the same search, the same answer. */
@@ -45,7 +15,7 @@ export function designSelectionRequest(design: DesignDraft): SelectionRequest {
   const { search } = design;
   return {
     units: designUnits(design),
-    system: designPipeSystem(design),
+    system: designPipeSystem(design.system),
     duty: { flowMin: design.band.flowMin, flowMax: design.band.flowMax },
     arrangements: search.arrangements,
     requireOneFailed: search.requireOneFailed,

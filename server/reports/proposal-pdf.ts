@@ -5,7 +5,8 @@ import type { DesignDraft, ReportPaper, SelectionCandidate } from '../../shared/
 import { FITTINGS } from '../../shared/hydraulics';
 import { projectRoot } from '../config';
 import type { DesignFigures } from './design-selection';
-import { designStaticHead, designUnits } from './design-selection';
+import { designStaticHead } from '../../shared/api/design-system';
+import { designUnits } from './design-selection';
 import { pipeLabels, type PartsLine } from './parts-list';
 import { proposalChartSvg, pumpColours } from './proposal-chart';
 import { candidateCosts, figure, LIFE_CYCLE_YEARS, type PumpPrice } from './proposal-costs';
@@ -161,7 +162,7 @@ function systemSection(doc: Doc, content: ProposalContent): void {
           ['Discharge level', `${figure(system.dischargeLevel, 2)} ${units.head}`],
         ] as const)
       : []),
-    ['Static head', `${figure(designStaticHead(design), 2)} ${units.head}`],
+    ['Static head', `${figure(designStaticHead(design.system), 2)} ${units.head}`],
     ['Outlet pressure head', `${figure(system.outletPressureHead, 2)} ${units.head}`],
     ['Water', `${system.waterTemperatureC} C`],
     ['Friction', system.frictionMethod === 'hazen-williams' ? 'Hazen-Williams' : 'Darcy-Weisbach with Colebrook'],

@@ -1,7 +1,7 @@
 import type { CalculationUnits, DesignSystem, PipeSystem } from '../../../shared/api/api-schemas';
+import { designPipeSystem, designStaticHead } from '../../../shared/api/design-system';
 import { systemInputOf } from '../../../shared/api/system-input';
 import {
-  PIPE_SERIES,
   compileSystemCurve,
   convertDiameter,
   convertFlow,
@@ -15,39 +15,10 @@ export type SystemDraft = DesignSystem;
 export type SegmentDraft = DesignSystem['segments'][number];
 
 /** Static head from the draft: entered directly, or the rise from the intake to the discharge level. */
-export function staticHeadOf(draft: SystemDraft): number {
-  return draft.staticMode === 'levels' ? draft.dischargeLevel - draft.intakeLevel : draft.staticHead;
-}
-
-/** One segment as the API's: a custom bore replaces the size (the series' material gives the defaults C and roughness do not override). */
-function toPipeSegment(segment: SegmentDraft): PipeSystem['segments'][number] {
-  const customBore = segment.insideDiameter ?? null;
-  return {
-    length: segment.length,
-    ...(customBore === null
-      ? { pipe: segment.size }
-      : {
-          insideDiameter: customBore,
-          material: PIPE_SERIES.find((series) => series.id === segment.series)?.material,
-        }),
-    ...(segment.hazenWilliamsC == null ? {} : { hazenWilliamsC: segment.hazenWilliamsC }),
-    ...(segment.roughness == null ? {} : { roughness: segment.roughness }),
-    fittings: segment.fittings.filter((fitting) => fitting.count > 0) as PipeSystem['segments'][number]['fittings'],
-    minorLossK: segment.extraK,
-    ...(segment.equipment?.length ? { equipment: segment.equipment } : {}),
-  };
-}
+export const staticHeadOf: (draft: SystemDraft) => number = designStaticHead;
 
 /** The draft as the API's `system`. Fittings with a zero count are left out. */
-export function toPipeSystem(draft: SystemDraft): PipeSystem {
-  return {
-    staticHead: staticHeadOf(draft),
-    outletPressureHead: draft.outletPressureHead,
-    frictionMethod: draft.frictionMethod,
-    waterTemperatureC: draft.waterTemperatureC,
-    segments: draft.segments.map(toPipeSegment),
-  };
-}
+export const toPipeSystem: (draft: SystemDraft) => PipeSystem = designPipeSystem;
 
 /**
  * The same system compiled by the shared engine in the browser, for the live preview; the

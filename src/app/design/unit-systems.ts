@@ -1,4 +1,5 @@
 import type { CalculationUnits } from '../../../shared/api/api-schemas';
+import { DESIGN_UNITS } from '../../../shared/api/design-system';
 
 /** The two ways a designer states numbers: the US trade's and metric. */
 export type UnitSystem = 'us' | 'si';
@@ -15,13 +16,13 @@ export interface UnitSystemDefinition {
 export const unitSystems: Readonly<Record<UnitSystem, UnitSystemDefinition>> = {
   us: {
     label: 'US (gpm, ft, in)',
-    units: { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' },
+    units: DESIGN_UNITS.us,
     volume: 'gal',
     weirWidth: 'in',
   },
   si: {
     label: 'Metric (L/min, m, mm)',
-    units: { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm', power: 'kW' },
+    units: DESIGN_UNITS.si,
     volume: 'm3',
     weirWidth: 'mm',
   },

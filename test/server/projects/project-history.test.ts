@@ -11,7 +11,7 @@ import type {
 import { createApp } from '../../../server/app';
 import { Pump, Supplier } from '../../../server/database/models';
 import { createLogger } from '../../../server/logging';
-import { designPipeSystem } from '../../../server/projects/design-evaluation';
+import { designPipeSystem } from '../../../shared/api/design-system';
 import { createUserWithSession, tableChecksums } from '../../support/accounts';
 import { createScratchDatabase } from '../../support/test-database';
 import { importText } from '../../data-import/catalog-fixtures';
@@ -115,7 +115,7 @@ describe('projects: site visits, what they changed, and the re-check', function 
       await designer
         .post('/selections', {
           units: { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm' },
-          system: designPipeSystem(design),
+          system: designPipeSystem(design.system),
           duty: design.band,
           arrangements: [2],
           requireOneFailed: true,
@@ -201,7 +201,7 @@ describe('projects: site visits, what they changed, and the re-check', function 
       await designer
         .post('/calculations/system-curve', {
           units: { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm' },
-          system: designPipeSystem(second),
+          system: designPipeSystem(second.system),
           flows: [150, 205, 260],
         })
         .expect(200)
