@@ -1,9 +1,4 @@
-import type {
-  CalculationUnits,
-  ChoiceOutcome,
-  DesignDraft,
-  DesignOutcome,
-} from '../../shared/api/api-schemas';
+import type { CalculationUnits, ChoiceOutcome, DesignDraft, DesignOutcome } from '../../shared/api/api-schemas';
 import { DESIGN_UNITS, designPipeSystem } from '../../shared/api/design-system';
 import { DEFAULT_NPSH_GUIDANCE, flowToSI, type CompiledSystemCurve } from '../../shared/hydraulics';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
