@@ -1,14 +1,20 @@
 import type { RequestHandler } from 'express';
 import type { SelectionCandidate, SelectionRequest, SelectionResponse } from '../../shared/api/api-schemas';
-import { flowToSI, powerToSI } from '../../shared/hydraulics';
+import {
+  DEFAULT_MOTOR_EFFICIENCY_BY_KIND,
+  flowToSI,
+  powerToSI,
+  presentValueOfGrowingAnnuity,
+} from '../../shared/hydraulics';
 import { operatingPointSummary } from '../calculations/calculation-handlers';
 import { unprocessable } from '../calculations/engine-problem';
 import { preferredBandOf } from '../calculations/pump-request';
 import { answerUnits, echoedUnits, powerUnitOf } from '../calculations/request-units';
 import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
 import type { CatalogPump, CatalogSnapshot } from '../catalog/catalog-snapshot';
-import type { RankedCandidate, SelectionQuery } from './selection-query';
+import type { CostTerms, RankedCandidate, SelectionQuery } from './selection-query';
 import { sampledCombinedCurve, searchCatalog } from './selection-search';
+import { unmetSummary, type BandMissFacts } from './selection-shortfalls';
 
 const defaultArrangements = [1, 2];
 const defaultLimit = 20;
@@ -41,6 +47,14 @@ function candidateAnswer(candidate: RankedCandidate, rank: number, body: Selecti
     region: candidate.point.region,
     annualKWh: candidate.annualKWh,
     annualCost: candidate.annualCost,
+    motorEfficiency: {
+      percent: candidate.motor.source === 'curve-is-electrical' ? null : candidate.motor.value * 100,
+      source: candidate.motor.source,
+    },
+    listPrice: candidate.pump.listPrice,
+    firstCost: candidate.firstCost,
+    lifeCycleCost: candidate.lifeCycleCost,
+    misses: candidate.misses,
     warnings: candidate.warnings,
     reasons: candidate.reasons,
     curve: sampledCombinedCurve(candidate.pump, candidate.running).map((point) => ({
@@ -51,6 +65,32 @@ function candidateAnswer(candidate: RankedCandidate, rank: number, body: Selecti
       ? { flowMin: to.flow(candidate.preferredRange.flowMin), flowMax: to.flow(candidate.preferredRange.flowMax) }
       : null,
   };
+}
+
+function costTermsOf(costs: SelectionRequest['costs']): CostTerms | null {
+  if (!costs) return null;
+  const discountRate = costs.discountRate / 100;
+  const energyPriceRise = (costs.energyPriceRise ?? 0) / 100;
+  return {
+    currency: costs.currency,
+    years: costs.years,
+    discountRate,
+    energyPriceRise,
+    energyFactor: presentValueOfGrowingAnnuity(1, discountRate, energyPriceRise, costs.years),
+  };
+}
+
+/** With no pair in band: which side the nearest fall on, and whether three in parallel would reach it. */
+function bandMissFacts(
+  outcome: ReturnType<typeof searchCatalog>,
+  query: SelectionQuery,
+  state: Parameters<typeof searchCatalog>[0],
+): BandMissFacts {
+  const below = outcome.candidates.filter((candidate) => candidate.point.flow < query.flowMin).length;
+  const threeInParallelInBand = query.arrangements.includes(3)
+    ? null
+    : searchCatalog(state, { ...query, arrangements: [3], limit: 1 }).inBand;
+  return { below: 2 * below >= outcome.candidates.length, threeInParallelInBand };
 }
 
 /** The search's input in SI, every problem a 4xx pointing at the field. */
@@ -65,6 +105,11 @@ function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnin
       '/body/duty/flowMax',
       `must not be less than flowMin (${body.duty.flowMin} ${body.units.flow})`,
     );
+  const rankBy = body.rankBy ?? 'energy';
+  if (rankBy !== 'energy' && !body.costs)
+    throw unprocessable('/body/costs', `must be given to rank by ${rankBy} (the currency prices are compared in)`);
+  if (rankBy === 'life-cycle-cost' && body.energy?.tariffPerKWh === undefined)
+    throw unprocessable('/body/energy/tariffPerKWh', 'must be given to rank by life-cycle cost');
   const maxPower = body.filters?.maxInputPowerPerPump;
   const warnings: string[] = [];
   if (body.energy?.tariffPerKWh === undefined) warnings.push('no tariff given: annual cost is left out');
@@ -80,7 +125,9 @@ function selectionQuery(body: SelectionRequest): { query: SelectionQuery; warnin
       band: preferredBandOf(body.preferredBand),
       hoursPerDay: body.energy?.hoursPerDay ?? defaultHoursPerDay,
       tariffPerKWh: body.energy?.tariffPerKWh ?? null,
-      motorEfficiency: (body.energy?.motorEfficiency ?? 100) / 100,
+      motorEfficiency: body.energy?.motorEfficiency === undefined ? null : body.energy.motorEfficiency / 100,
+      rankBy,
+      costs: costTermsOf(body.costs),
       maxInputPowerPerPump: maxPower === undefined ? null : powerToSI(maxPower, powerUnitOf(body.units)),
       onlyPreferredRegion: body.filters?.onlyPreferredRegion ?? false,
       accepts: pumpFilter(body.filters),
@@ -95,12 +142,26 @@ export function createSelectionHandlers(catalog: CatalogSnapshot): Record<'searc
     searchSelections: async (request, response) => {
       const body = request.body as SelectionRequest;
       const { query, warnings } = selectionQuery(body);
-      const outcome = searchCatalog(await catalog.current(), query);
+      const state = await catalog.current();
+      const outcome = searchCatalog(state, query);
       if (outcome.candidates.length === 0)
         warnings.push('no catalog pump meets this system in the arrangements asked for');
       const answer: SelectionResponse = {
         units: echoedUnits(body.units),
         duty: body.duty,
+        rankBy: query.rankBy,
+        energyBasis: {
+          basis: 'wire-to-water',
+          motorEfficiencyByKind: {
+            submersible: DEFAULT_MOTOR_EFFICIENCY_BY_KIND.submersible * 100,
+            'external-centrifugal': DEFAULT_MOTOR_EFFICIENCY_BY_KIND['external-centrifugal'] * 100,
+            'mixed-flow': DEFAULT_MOTOR_EFFICIENCY_BY_KIND['mixed-flow'] * 100,
+          },
+        },
+        unmet: unmetSummary(
+          outcome.candidates.map((candidate) => candidate.misses),
+          outcome.inBand === 0 && outcome.candidates.length > 0 ? bandMissFacts(outcome, query, state) : null,
+        ),
         considered: outcome.considered,
         inBand: outcome.inBand,
         candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body)),

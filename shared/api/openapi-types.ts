@@ -401,10 +401,12 @@ export interface paths {
          * @description Every active catalog pump (its current curve revision) in each requested arrangement
          *     (1, 2 or 3 identical pumps in parallel, all running; with `standby`, one more installed
          *     idle to take over from a failed one) is put on the system curve.
-         *     Candidates are ranked: in the duty band and in the preferred operating region (and, with
-         *     `requireOneFailed`, still at or above the band's minimum with one pump off) first, then
-         *     in band but outside the preferred region or failing the one-failed check, then outside
-         *     the band; within each group by annual energy. `reasons` says why each candidate sits
+         *     Candidates in the duty band are ranked by how many of the designer's requirements they
+         *     miss (`misses`: redundancy with `requireOneFailed`, the preferred operating region, the
+         *     pipe velocity limit), then by `rankBy` (annual energy, first cost or life-cycle cost);
+         *     candidates outside the band come after, nearest the band first. `unmet` says which
+         *     requirement no candidate meets and, when none reaches the band, what would. Every power
+         *     and energy figure is wire-to-water (`energyBasis`). `reasons` says why each candidate sits
          *     where it does. `curve` samples the combined curve and `preferredRange` its preferred
          *     region, in total flow, for drawing. Results are design estimates: verify them against
          *     the maker's data.
@@ -801,8 +803,28 @@ export interface components {
             hoursPerDay: number;
             /** @description Currency per kWh; without it annualCost is null. */
             tariffPerKWh?: number;
-            /** @description Percent (at least 0.1, the lowest the engine accepts), applied when the curve gives pump shaft power; default 100 (curve power taken as input power). */
+            /** @description Percent, for pumps whose catalog entry gives no motor efficiency and whose curve gives shaft power; default the pump kind's assumed value (energyBasis.motorEfficiencyByKind in the answer). Every energy figure is wire-to-water. */
             motorEfficiency?: number;
+        };
+        /** @description Life-cycle cost terms (Hydraulic Institute and Europump, Pump Life Cycle Costs, 2001: LCC = Cic + Cin + Ce + Co + Cm + Cs + Cenv + Cd in present value; here Cic, the list price of the set, and Ce, the energy, with the other terms unknown and left at zero). Ce is the present value of a growing annuity of the first year's energy cost. The tariff is taken in this currency. */
+        SelectionCosts: {
+            /** @description ISO 4217 code; pumps priced in another currency get no life-cycle cost and rank last by cost. */
+            currency: string;
+            years: number;
+            /** @description Percent a year. */
+            discountRate: number;
+            /** @description Percent a year; default 0. */
+            energyPriceRise?: number;
+        };
+        /**
+         * @description A designer's requirement a candidate may miss: the duty band, redundancy (requireOneFailed), the preferred operating region, the pipe velocity limit.
+         * @enum {string}
+         */
+        SelectionRequirement: "band" | "redundancy" | "preferred-region" | "velocity";
+        Money: {
+            amount: number;
+            /** @description ISO 4217 code. */
+            currency: string;
         };
         SelectionRequest: {
             units: components["schemas"]["CalculationUnits"];
@@ -817,6 +839,12 @@ export interface components {
             filters?: components["schemas"]["SelectionFilters"];
             energy?: components["schemas"]["EnergyInputs"];
             preferredBand?: components["schemas"]["PreferredBand"];
+            /**
+             * @description What orders candidates that miss as many requirements: annual energy (default), first cost of the set (needs costs) or life-cycle cost (needs costs and energy.tariffPerKWh).
+             * @enum {string}
+             */
+            rankBy?: "energy" | "first-cost" | "life-cycle-cost";
+            costs?: components["schemas"]["SelectionCosts"];
             /** @description Most candidates to return; default 20. */
             limit?: number;
         };
@@ -838,6 +866,20 @@ export interface components {
             region: components["schemas"]["OperatingRegion"];
             annualKWh: number | null;
             annualCost: number | null;
+            /** @description The motor efficiency input power is reckoned with (wire-to-water): null percent when the curve's power is electrical already. */
+            motorEfficiency: {
+                percent: number | null;
+                /** @enum {string} */
+                source: "curve-is-electrical" | "catalog" | "designer" | "kind-default";
+            };
+            /** @description One pump's list price. */
+            listPrice: components["schemas"]["Money"] | null;
+            /** @description List price of the set (duty plus standby pumps). */
+            firstCost: components["schemas"]["Money"] | null;
+            /** @description First cost plus the energy's present value over costs.years, in costs.currency; null without costs, a tariff, a price in that currency or energy data. */
+            lifeCycleCost: components["schemas"]["Money"] | null;
+            /** @description The designer's requirements this candidate misses; candidates in band are ordered by how many. */
+            misses: components["schemas"]["SelectionRequirement"][];
             warnings: components["schemas"]["SelectionWarning"][];
             reasons: string[];
             /** @description The combined head curve of the running pumps, sampled over its published range. */
@@ -854,6 +896,25 @@ export interface components {
         SelectionResponse: {
             units: components["schemas"]["CalculationUnits"];
             duty: components["schemas"]["DutyBand"];
+            /** @enum {string} */
+            rankBy: "energy" | "first-cost" | "life-cycle-cost";
+            /** @description Every power and energy figure is electrical input (wire-to-water). Shaft-power curves are divided by the motor efficiency: the catalog's, else energy.motorEfficiency, else the pump kind's assumed value (percent; common practice, not a standard's table). */
+            energyBasis: {
+                /** @enum {string} */
+                basis: "wire-to-water";
+                motorEfficiencyByKind: {
+                    submersible: number;
+                    "external-centrifugal": number;
+                    "mixed-flow": number;
+                };
+            };
+            /** @description Null when the first candidate meets every requirement; else which requirements no candidate meets and, with none in the band, what would reach it. */
+            unmet: {
+                requirements: components["schemas"]["SelectionRequirement"][];
+                noneInBand: boolean;
+                summary: string;
+                whatWould: string[];
+            } | null;
             /** @description Pump and arrangement pairs examined. */
             considered: number;
             /** @description Pairs whose operating point lies in the duty band. */
@@ -1181,6 +1242,11 @@ export interface components {
             maxInputPowerPerPump: number | null;
             hoursPerDay: number;
             tariffPerKWh: number | null;
+            /** @description Percent; null for the pump kind's assumed value. */
+            motorEfficiency?: number | null;
+            /** @enum {string} */
+            rankBy?: "energy" | "first-cost" | "life-cycle-cost";
+            costs?: components["schemas"]["SelectionCosts"] | null;
             limit: number;
         };
         /** @description A whole design as the design pages keep it; numbers are in the units of `unitSystem` (us - gpm, ft, in; si - L/min, m, mm). */
@@ -2667,7 +2733,15 @@ export interface operations {
                  *       },
                  *       "energy": {
                  *         "hoursPerDay": 24,
-                 *         "tariffPerKWh": 0.18
+                 *         "tariffPerKWh": 0.18,
+                 *         "motorEfficiency": 78
+                 *       },
+                 *       "rankBy": "life-cycle-cost",
+                 *       "costs": {
+                 *         "currency": "USD",
+                 *         "years": 15,
+                 *         "discountRate": 6,
+                 *         "energyPriceRise": 3
                  *       },
                  *       "limit": 10
                  *     }
@@ -2695,6 +2769,16 @@ export interface operations {
                      *         "flowMin": 90,
                      *         "flowMax": 130
                      *       },
+                     *       "rankBy": "life-cycle-cost",
+                     *       "energyBasis": {
+                     *         "basis": "wire-to-water",
+                     *         "motorEfficiencyByKind": {
+                     *           "submersible": 70,
+                     *           "external-centrifugal": 75,
+                     *           "mixed-flow": 80
+                     *         }
+                     *       },
+                     *       "unmet": null,
                      *       "considered": 2,
                      *       "inBand": 1,
                      *       "candidates": [
@@ -2731,6 +2815,23 @@ export interface operations {
                      *           "region": "preferred",
                      *           "annualKWh": 8147,
                      *           "annualCost": 1466.5,
+                     *           "motorEfficiency": {
+                     *             "percent": null,
+                     *             "source": "curve-is-electrical"
+                     *           },
+                     *           "listPrice": {
+                     *             "amount": 412.5,
+                     *             "currency": "USD"
+                     *           },
+                     *           "firstCost": {
+                     *             "amount": 825,
+                     *             "currency": "USD"
+                     *           },
+                     *           "lifeCycleCost": {
+                     *             "amount": 17930,
+                     *             "currency": "USD"
+                     *           },
+                     *           "misses": [],
                      *           "warnings": [],
                      *           "reasons": [
                      *             "in the duty band",
