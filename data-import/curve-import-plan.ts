@@ -58,6 +58,7 @@ function sameDetails(a: ReadPumpDetails, b: ReadPumpDetails): boolean {
     near(a.solidsHandlingMm, b.solidsHandlingMm) &&
     near(a.listPrice, b.listPrice) &&
     a.priceCurrency === b.priceCurrency &&
+    near(a.motorEfficiency, b.motorEfficiency) &&
     a.status === b.status
   );
 }

@@ -147,6 +147,7 @@ export function readDetails(cells: CellContext, values: RowValues): ReadPumpDeta
     return typeof value === 'number' ? diameterToSI(value, sizeUnit) * 1000 : null;
   };
   const price = numberCell(cells, values, 'list_price', { unit: cells.unitOf('currency') ?? null, min: 0, max: 1e9 });
+  const motor = numberCell(cells, values, 'motor_efficiency', { unit: '%', min: 10, max: 100 });
   const phases = numberCell(cells, values, 'phases', { unit: null, integer: true, min: 1, max: 3 });
   if (phases === 2) cells.errors.add(issue(values.row, 'phases', 'phases-unknown', { value: phases }));
   return {
@@ -160,6 +161,7 @@ export function readDetails(cells: CellContext, values: RowValues): ReadPumpDeta
     solidsHandlingMm: size('solids_size'),
     listPrice: typeof price === 'number' ? Math.round(price * 100) / 100 : null,
     priceCurrency: typeof price === 'number' ? (cells.unitOf('currency') ?? null) : null,
+    motorEfficiency: typeof motor === 'number' ? motor / 100 : null,
     status: choiceCell(cells, values, 'status', pumpStatuses, 'active') ?? 'active',
     notes: textCell(cells, values, 'notes', 2000, false),
   };

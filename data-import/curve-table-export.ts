@@ -38,6 +38,7 @@ export interface StoredPumpCurve {
   solidsHandlingMm: number | null;
   listPrice: string | null;
   priceCurrency: string | null;
+  motorEfficiency?: number | null;
   status: PumpStatus;
   currentRevision?: {
     fileUnits: object;
@@ -112,6 +113,7 @@ export function curveTableOf(supplier: { name: string; code: string }, pumps: St
     npsh: points.some((point) => point.npshRequiredM !== null),
     size: pumps.some((pump) => pump.dischargeSizeMm !== null || pump.solidsHandlingMm !== null),
     price: pumps.some((pump) => pump.listPrice !== null),
+    motor: pumps.some((pump) => (pump.motorEfficiency ?? null) !== null),
   };
   const comments = [
     `Curve table of ${supplier.name} (${supplier.code}), written by Riffle. Loaded again unchanged, it changes nothing.`,
@@ -126,6 +128,7 @@ export function curveTableOf(supplier: { name: string; code: string }, pumps: St
   const unused = new Set<CurveTableColumn>([
     ...(has.size ? [] : (['discharge_size', 'solids_size'] as const)),
     ...(has.price ? [] : (['list_price'] as const)),
+    ...(has.motor ? [] : (['motor_efficiency'] as const)),
     ...(ranges.length > 0
       ? []
       : (['preferred_flow_min', 'preferred_flow_max', 'allowable_flow_min', 'allowable_flow_max'] as const)),
@@ -150,6 +153,7 @@ export function curveTableOf(supplier: { name: string; code: string }, pumps: St
       discharge_size: size(pump.dischargeSizeMm),
       solids_size: size(pump.solidsHandlingMm),
       list_price: pump.priceCurrency === currency ? pump.listPrice : null,
+      motor_efficiency: pump.motorEfficiency == null ? null : exact(pump.motorEfficiency * 100),
       status: pump.status,
       preferred_flow_min: preferred ? flow(preferred.flowMinM3s) : null,
       preferred_flow_max: preferred ? flow(preferred.flowMaxM3s) : null,

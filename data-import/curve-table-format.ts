@@ -55,6 +55,7 @@ export const pumpColumns = [
   'discharge_size',
   'solids_size',
   'list_price',
+  'motor_efficiency',
   'status',
   'preferred_flow_min',
   'preferred_flow_max',

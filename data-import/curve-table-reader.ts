@@ -53,6 +53,8 @@ export interface ReadPumpDetails {
   solidsHandlingMm: number | null;
   listPrice: number | null;
   priceCurrency: string | null;
+  /** The motor's efficiency at its rating, 0-1, when the supplier gives it. */
+  motorEfficiency: number | null;
   status: PumpStatus;
   notes: string | null;
 }

@@ -28,6 +28,9 @@ export interface CatalogPump extends PumpOnFile {
   modelCode: string;
   kind: string;
   revisionId: number;
+  /** The motor's efficiency, 0-1, as the supplier gives it; null when the curve table has none. */
+  motorEfficiency: number | null;
+  listPrice: { amount: number; currency: string } | null;
 }
 
 /** The pumps of one catalog state, and a place for derived structures that live as long as it does. */
@@ -46,6 +49,9 @@ type CurrentCurveRow = Pick<PumpRow, 'supplier_id' | 'supplier_name' | 'model_co
   fit: string | PumpCurveFit;
   preferred_min: number | null;
   preferred_max: number | null;
+  motor_efficiency: number | null;
+  list_price: string | null;
+  price_currency: string | null;
 };
 
 const stampQuery = `
@@ -57,6 +63,7 @@ const stampQuery = `
 
 const pumpsQuery = `
   SELECT p.id AS pump_id, p.supplier_id, s.name AS supplier_name, p.model_code, p.display_name, p.kind,
+         p.motor_efficiency, p.list_price, p.price_currency,
          r.id AS revision_id, r.fit, d.flow_min_m3s AS preferred_min, d.flow_max_m3s AS preferred_max
   FROM pumps p
   JOIN suppliers s ON s.id = p.supplier_id
@@ -75,6 +82,11 @@ function toCatalogPump(row: CurrentCurveRow): CatalogPump {
     modelCode: row.model_code,
     kind: row.kind,
     revisionId: row.revision_id,
+    motorEfficiency: row.motor_efficiency,
+    listPrice:
+      row.list_price === null || row.price_currency === null
+        ? null
+        : { amount: Number(row.list_price), currency: row.price_currency },
     fit,
     declaredPreferred:
       row.preferred_min !== null && row.preferred_max !== null

@@ -28,13 +28,14 @@ export async function loadExistingPumps(
     solids_handling_mm: number | null;
     list_price: string | null;
     price_currency: string | null;
+    motor_efficiency: number | null;
     status: ReadPumpDetails['status'];
     content_hash: string | null;
     current_number: number | null;
     highest_number: number | null;
   }>(
     `SELECT p.id, p.model_code, p.display_name, p.kind, p.nominal_speed_rpm, p.voltage_v, p.phase_count, p.discharge_size_mm,
-            p.solids_handling_mm, p.list_price, p.price_currency, p.status, r.content_hash, r.number AS current_number,
+            p.solids_handling_mm, p.list_price, p.price_currency, p.motor_efficiency, p.status, r.content_hash, r.number AS current_number,
             (SELECT MAX(x.number) FROM curve_revisions x WHERE x.pump_id = p.id) AS highest_number
        FROM pumps p LEFT JOIN curve_revisions r ON r.id = p.current_revision_id
       WHERE p.supplier_id = ?`,
@@ -58,6 +59,7 @@ export async function loadExistingPumps(
           solidsHandlingMm: row.solids_handling_mm,
           listPrice: row.list_price === null ? null : Number(row.list_price),
           priceCurrency: row.price_currency,
+          motorEfficiency: row.motor_efficiency,
           status: row.status,
           notes: null,
         },
@@ -109,6 +111,7 @@ export async function writePumps(sequelize: Sequelize, options: WriteOptions): P
           'solidsHandlingMm',
           'listPrice',
           'priceCurrency',
+          'motorEfficiency',
           'status',
           'updatedAt',
         ],

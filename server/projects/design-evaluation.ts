@@ -9,8 +9,9 @@ import { answerUnits, requestValueText } from '../calculations/request-units';
 import { prepareSystem } from '../calculations/system-request';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
 import { CurveDeclaredRange, CurveRevision, Pump, Supplier } from '../database/models';
-import type { SelectionQuery } from '../selection/selection-query';
+import { costTermsOf, type SelectionQuery } from '../selection/selection-query';
 import { rankCandidate } from '../selection/selection-reasons';
+import { motorEfficiencyFor } from '../selection/wire-to-water';
 
 /*
  * A saved design worked out as the API works out a calculation and a search: its system through
@@ -51,6 +52,11 @@ export async function chosenCurve(pumpId: number, revisionId: number): Promise<C
       revisionId: revision.id,
       fit,
       declaredPreferred: preferred ? { flowMin: preferred.flowMinM3s, flowMax: preferred.flowMaxM3s } : null,
+      motorEfficiency: pump.motorEfficiency,
+      listPrice:
+        pump.listPrice === null || pump.priceCurrency === null
+          ? null
+          : { amount: Number(pump.listPrice), currency: pump.priceCurrency },
     },
   };
 }
@@ -73,7 +79,9 @@ function queryFor(design: DesignDraft, system: CompiledSystemCurve, density: num
     band: preferredBandOf(undefined),
     hoursPerDay: design.search.hoursPerDay,
     tariffPerKWh: design.search.tariffPerKWh,
-    motorEfficiency: 1,
+    motorEfficiency: design.search.motorEfficiency == null ? null : design.search.motorEfficiency / 100,
+    rankBy: design.search.rankBy ?? 'energy',
+    costs: costTermsOf(design.search.costs ?? undefined),
     // the chosen pump is judged, not filtered: no power limit, every region
     maxInputPowerPerPump: null,
     onlyPreferredRegion: false,
@@ -96,7 +104,8 @@ export function choiceOutcome(
   const { curve: system, density } = prepareSystem(designUnits(design.unitSystem), designPipeSystem(design.system), '');
   const query = queryFor(design, system, density, arrangement);
   const base = { curveRevisionId: curve.pump.revisionId, curveRevisionNumber: curve.revisionNumber };
-  const duty = dutyOfParallelPumps(curve.pump, system, arrangement.running, query.band, density, 1);
+  const motor = motorEfficiencyFor(curve.pump, query.motorEfficiency).value;
+  const duty = dutyOfParallelPumps(curve.pump, system, arrangement.running, query.band, density, motor);
   if (!duty.ok)
     return {
       ...base,

@@ -1,5 +1,5 @@
 import type { CalculationUnits, DesignDraft, SelectionRequest, SelectionResponse } from '../../shared/api/api-schemas';
-import { DESIGN_UNITS, designPipeSystem } from '../../shared/api/design-system';
+import { DESIGN_UNITS, designSelectionRequest } from '../../shared/api/design-system';
 import { flowToSI, headFromSI } from '../../shared/hydraulics';
 import { prepareSystem } from '../calculations/system-request';
 import type { CatalogSnapshot } from '../catalog/catalog-snapshot';
@@ -8,28 +8,6 @@ import { answerSelection } from '../selection/selection-handlers';
 /** The units of a saved design, as the contract's DesignDraft states them (us: gpm, ft, in; si: L/min, m, mm). */
 export function designUnits(design: DesignDraft): Required<CalculationUnits> {
   return DESIGN_UNITS[design.unitSystem];
-}
-
-/** The selection request the design pages send for this design: the same search, the same answer. */
-export function designSelectionRequest(design: DesignDraft): SelectionRequest {
-  const { search } = design;
-  return {
-    units: designUnits(design),
-    system: designPipeSystem(design.system),
-    duty: { flowMin: design.band.flowMin, flowMax: design.band.flowMax },
-    arrangements: search.arrangements,
-    requireOneFailed: search.requireOneFailed,
-    standby: search.standby ?? false,
-    filters: {
-      onlyPreferredRegion: search.onlyPreferredRegion,
-      ...(search.maxInputPowerPerPump === null ? {} : { maxInputPowerPerPump: search.maxInputPowerPerPump }),
-    },
-    energy: {
-      hoursPerDay: search.hoursPerDay,
-      ...(search.tariffPerKWh === null ? {} : { tariffPerKWh: search.tariffPerKWh }),
-    },
-    limit: search.limit,
-  };
 }
 
 export interface DesignFigures {

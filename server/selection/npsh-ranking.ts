@@ -2,6 +2,7 @@ import { npshAtDuty, type NpshAtDuty } from '../../shared/hydraulics';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
 import type { SelectionQuery } from './selection-query';
 import { TIER_SPAN } from './selection-ranking';
+import { OUT_OF_BAND_TIER } from './selection-shortfalls';
 
 /*
  * NPSH in the ranking: a pair whose NPSH available falls short of the margin asked for over its
@@ -10,8 +11,8 @@ import { TIER_SPAN } from './selection-ranking';
  * order of their tiers and energy. A pump without NPSH data is not moved, and says so.
  */
 
-/** Added to the rank key of a pair short of NPSH margin: past the three tiers of every other pair. */
-export const NPSH_SHORTFALL_OFFSET = 3 * TIER_SPAN;
+/** Added to the rank key of a pair short of NPSH margin: past every tier of every other pair. */
+export const NPSH_SHORTFALL_OFFSET = (OUT_OF_BAND_TIER + 1) * TIER_SPAN;
 
 /**
  * NPSH at a pair's duty, or null when there is nothing to check: no suction side, or a

@@ -1,6 +1,11 @@
 import type { RequestHandler } from 'express';
 import type { SelectionCandidate, SelectionRequest, SelectionResponse } from '../../shared/api/api-schemas';
-import { flowToSI, powerToSI, type CompiledBranchedSystem } from '../../shared/hydraulics';
+import {
+  DEFAULT_MOTOR_EFFICIENCY_BY_KIND,
+  flowToSI,
+  powerToSI,
+  type CompiledBranchedSystem,
+} from '../../shared/hydraulics';
 import { branchTotalFlowBand } from '../calculations/branch-answers';
 import { operatingPointSummary } from '../calculations/calculation-handlers';
 import { unprocessable } from '../calculations/engine-problem';
@@ -14,8 +19,9 @@ import {
 } from '../calculations/suction-answer';
 import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
 import type { CatalogPump, CatalogSnapshot } from '../catalog/catalog-snapshot';
-import type { RankedCandidate, SelectionQuery } from './selection-query';
+import { costTermsOf, type RankedCandidate, type SelectionQuery } from './selection-query';
 import { sampledCombinedCurve, searchCatalog } from './selection-search';
+import { unmetSummary, type BandMissFacts } from './selection-shortfalls';
 
 const defaultArrangements = [1, 2];
 const defaultLimit = 20;
@@ -53,6 +59,14 @@ function candidateAnswer(
     region: candidate.point.region,
     annualKWh: candidate.annualKWh,
     annualCost: candidate.annualCost,
+    motorEfficiency: {
+      percent: candidate.motor.source === 'curve-is-electrical' ? null : candidate.motor.value * 100,
+      source: candidate.motor.source,
+    },
+    listPrice: candidate.pump.listPrice,
+    firstCost: candidate.firstCost,
+    lifeCycleCost: candidate.lifeCycleCost,
+    misses: candidate.misses,
     warnings: candidate.warnings,
     ...(candidate.npsh
       ? { npsh: npshCheckAnswer(candidate.npsh, npshGuidanceOf(body.npshMarginRatio), body.units) }
@@ -66,6 +80,19 @@ function candidateAnswer(
       ? { flowMin: to.flow(candidate.preferredRange.flowMin), flowMax: to.flow(candidate.preferredRange.flowMax) }
       : null,
   };
+}
+
+/** With no pair in band: which side the nearest fall on, and whether three in parallel would reach it. */
+function bandMissFacts(
+  outcome: ReturnType<typeof searchCatalog>,
+  query: SelectionQuery,
+  state: Parameters<typeof searchCatalog>[0],
+): BandMissFacts {
+  const below = outcome.candidates.filter((candidate) => candidate.point.flow < query.flowMin).length;
+  const threeInParallelInBand = query.arrangements.includes(3)
+    ? null
+    : searchCatalog(state, { ...query, arrangements: [3], limit: 1 }).inBand;
+  return { below: 2 * below >= outcome.candidates.length, threeInParallelInBand };
 }
 
 /** The duty band as total flow (SI): the band itself, or with duty.branch the totals that keep that branch in it. */
@@ -100,6 +127,11 @@ function selectionQuery(body: SelectionRequest): {
 } {
   const { curve, branched, density, suction, gravityFlow } = prepareSystem(body.units, body.system);
   const { flowMin, flowMax } = totalDutyBand(body, branched);
+  const rankBy = body.rankBy ?? 'energy';
+  if (rankBy !== 'energy' && !body.costs)
+    throw unprocessable('/body/costs', `must be given to rank by ${rankBy} (the currency prices are compared in)`);
+  if (rankBy === 'life-cycle-cost' && body.energy?.tariffPerKWh === undefined)
+    throw unprocessable('/body/energy/tariffPerKWh', 'must be given to rank by life-cycle cost');
   const maxPower = body.filters?.maxInputPowerPerPump;
   const warnings: string[] = [];
   if (body.energy?.tariffPerKWh === undefined) warnings.push('no tariff given: annual cost is left out');
@@ -121,7 +153,9 @@ function selectionQuery(body: SelectionRequest): {
       band: preferredBandOf(body.preferredBand),
       hoursPerDay: body.energy?.hoursPerDay ?? defaultHoursPerDay,
       tariffPerKWh: body.energy?.tariffPerKWh ?? null,
-      motorEfficiency: (body.energy?.motorEfficiency ?? 100) / 100,
+      motorEfficiency: body.energy?.motorEfficiency === undefined ? null : body.energy.motorEfficiency / 100,
+      rankBy,
+      costs: costTermsOf(body.costs),
       maxInputPowerPerPump: maxPower === undefined ? null : powerToSI(maxPower, powerUnitOf(body.units)),
       onlyPreferredRegion: body.filters?.onlyPreferredRegion ?? false,
       accepts: pumpFilter(body.filters),
@@ -138,12 +172,26 @@ function selectionQuery(body: SelectionRequest): {
 /** The search's answer for one request, as `POST /selections` gives it (reports use it too). */
 export async function answerSelection(catalog: CatalogSnapshot, body: SelectionRequest): Promise<SelectionResponse> {
   const { query, branched, gravityFlow, warnings } = selectionQuery(body);
-  const outcome = searchCatalog(await catalog.current(), query);
+  const state = await catalog.current();
+  const outcome = searchCatalog(state, query);
   if (outcome.candidates.length === 0) warnings.push('no catalog pump meets this system in the arrangements asked for');
   return {
     units: echoedUnits(body.units),
     duty: body.duty,
     ...(body.duty.branch === undefined ? {} : { totalFlowBand: totalFlowBandAnswer(query, answerUnits(body.units)) }),
+    rankBy: query.rankBy,
+    energyBasis: {
+      basis: 'wire-to-water',
+      motorEfficiencyByKind: {
+        submersible: DEFAULT_MOTOR_EFFICIENCY_BY_KIND.submersible * 100,
+        'external-centrifugal': DEFAULT_MOTOR_EFFICIENCY_BY_KIND['external-centrifugal'] * 100,
+        'mixed-flow': DEFAULT_MOTOR_EFFICIENCY_BY_KIND['mixed-flow'] * 100,
+      },
+    },
+    unmet: unmetSummary(
+      outcome.candidates.map((candidate) => candidate.misses),
+      outcome.inBand === 0 && outcome.candidates.length > 0 ? bandMissFacts(outcome, query, state) : null,
+    ),
     considered: outcome.considered,
     inBand: outcome.inBand,
     candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body, branched)),

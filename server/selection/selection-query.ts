@@ -1,16 +1,52 @@
-import type {
-  CompiledSystemCurve,
-  NpshAtDuty,
-  NpshGuidance,
-  PreferredBand,
-  SuctionSide,
+import type { SelectionRequest } from '../../shared/api/api-schemas';
+import {
+  presentValueOfGrowingAnnuity,
+  type CompiledSystemCurve,
+  type NpshAtDuty,
+  type NpshGuidance,
+  type PreferredBand,
+  type SuctionSide,
 } from '../../shared/hydraulics';
 import type { DutyPoint, DutyWarning } from '../calculations/arrangement-duty';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
+import type { SelectionRequirement } from './selection-shortfalls';
+import type { MotorEfficiencyUsed } from './wire-to-water';
 
 /* What a selection search is asked (SI throughout) and what it answers. */
 
 export type SelectionWarningCode = DutyWarning | 'velocity' | 'estimated-curve';
+
+/** What ranks candidates within a tier: annual energy, the set's first cost, or its life-cycle cost. */
+export type RankBy = 'energy' | 'first-cost' | 'life-cycle-cost';
+
+/** The terms costs are reckoned on; rates are fractions a year. */
+export interface CostTerms {
+  currency: string;
+  years: number;
+  discountRate: number;
+  energyPriceRise: number;
+  /** The present value of 1 a year of energy over the life (presentValueOfGrowingAnnuity(1, ...)). */
+  energyFactor: number;
+}
+
+/** The request's costs (rates in percent) as the search reckons them. */
+export function costTermsOf(costs: SelectionRequest['costs']): CostTerms | null {
+  if (!costs) return null;
+  const discountRate = costs.discountRate / 100;
+  const energyPriceRise = (costs.energyPriceRise ?? 0) / 100;
+  return {
+    currency: costs.currency,
+    years: costs.years,
+    discountRate,
+    energyPriceRise,
+    energyFactor: presentValueOfGrowingAnnuity(1, discountRate, energyPriceRise, costs.years),
+  };
+}
+
+export interface Money {
+  amount: number;
+  currency: string;
+}
 
 export interface SelectionQuery {
   system: CompiledSystemCurve;
@@ -25,7 +61,10 @@ export interface SelectionQuery {
   band: PreferredBand;
   hoursPerDay: number;
   tariffPerKWh: number | null;
-  motorEfficiency: number;
+  /** 0-1, the designer's figure for pumps the catalog gives none; null for the pump kind's. */
+  motorEfficiency: number | null;
+  rankBy: RankBy;
+  costs: CostTerms | null;
   /** W per pump, or null for no limit. */
   maxInputPowerPerPump: number | null;
   onlyPreferredRegion: boolean;
@@ -46,8 +85,14 @@ export interface RankedCandidate {
   annualKWh: number | null;
   annualCost: number | null;
   warnings: SelectionWarningCode[];
-  /** 0 best: in band, preferred and one-failed as required; 1 in band with a shortfall; 2 outside the band. */
+  /** The requirements it misses; its tier is tierOfShortfalls of these. */
+  misses: SelectionRequirement[];
   tier: number;
+  motor: MotorEfficiencyUsed;
+  /** List price of the set (duty plus standby), in the pump's currency. */
+  firstCost: Money | null;
+  /** In the cost currency; null without costs, a tariff, a price in that currency or energy. */
+  lifeCycleCost: Money | null;
   reasons: string[];
   /** NPSH at the duty; null without a suction side or for a submersible pump. */
   npsh: NpshAtDuty | null;

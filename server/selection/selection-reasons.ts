@@ -1,20 +1,10 @@
-import {
-  annualEnergy,
-  energyCost,
-  preferredFlowRegion,
-  VELOCITY_WARNING_LIMIT,
-  type CompiledSystemCurve,
-} from '../../shared/hydraulics';
+import { annualEnergy, energyCost, lifeCycleCost, preferredFlowRegion } from '../../shared/hydraulics';
 import { dutyOfParallelPumps, type DutyOutcome, type DutyPoint } from '../calculations/arrangement-duty';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
 import { npshOfPair, npshReason } from './npsh-ranking';
-import type { RankedCandidate, SelectionQuery, SelectionWarningCode } from './selection-query';
-import { tierOf } from './selection-ranking';
-
-/** Velocity warning for the whole system at a total flow: the smallest bore carries the highest velocity. */
-function velocityExceeded(system: CompiledSystemCurve, flow: number): boolean {
-  return system.segments.some((segment) => flow / segment.area > VELOCITY_WARNING_LIMIT);
-}
+import type { Money, RankedCandidate, SelectionQuery, SelectionWarningCode } from './selection-query';
+import { shortfallsOf, tierOfShortfalls, velocityExceeded } from './selection-shortfalls';
+import { motorEfficiencyFor } from './wire-to-water';
 
 function percent(value: number | null): string {
   return value === null ? '' : ` (${Math.round(value)} % of BEP)`;
@@ -31,6 +21,7 @@ export function rankCandidate(
   query: SelectionQuery,
 ): RankedCandidate | null {
   if (query.onlyPreferredRegion && point.region !== 'preferred') return null;
+  const motor = motorEfficiencyFor(pump, query.motorEfficiency);
   if (
     query.maxInputPowerPerPump !== null &&
     point.inputPower !== null &&
@@ -65,7 +56,7 @@ export function rankCandidate(
       running - 1,
       query.band,
       query.density,
-      query.motorEfficiency,
+      motor.value,
     );
     if (failed.ok) {
       oneFailed = failed.point;
@@ -96,8 +87,36 @@ export function rankCandidate(
   const npsh = npshOfPair(pump, running, point.flow, query);
   if (npsh) reasons.push(npshReason(npsh, query));
 
-  const tier = tierOf(inBand, point.region === 'preferred', !query.requireOneFailed || oneFailedMeetsMinimum === true);
+  const misses = shortfallsOf({
+    inBand,
+    redundancyMet: !query.requireOneFailed || oneFailedMeetsMinimum === true,
+    preferred: point.region === 'preferred',
+    velocityOk: !warnings.includes('velocity'),
+    npshMarginMet: !npsh?.margin || npsh.margin.adequate,
+  });
   const annualKWh = point.inputPower === null ? null : annualEnergy(point.inputPower, query.hoursPerDay);
+  const annualCost =
+    annualKWh === null || query.tariffPerKWh === null ? null : energyCost(annualKWh, query.tariffPerKWh);
+  const installed = running + (query.standby ? 1 : 0);
+  const firstCost: Money | null = pump.listPrice
+    ? { amount: pump.listPrice.amount * installed, currency: pump.listPrice.currency }
+    : null;
+  const costs = query.costs;
+  const lifeCycle: Money | null =
+    costs && firstCost?.currency === costs.currency && annualCost !== null
+      ? {
+          amount: lifeCycleCost({
+            initialCost: firstCost.amount,
+            annualEnergyCost: annualCost,
+            years: costs.years,
+            discountRate: costs.discountRate,
+            energyPriceRise: costs.energyPriceRise,
+          }),
+          currency: costs.currency,
+        }
+      : null;
+  if (costs && firstCost && firstCost.currency !== costs.currency)
+    reasons.push(`priced in ${firstCost.currency}, not ${costs.currency}: left out of the life-cycle cost`);
   const perPump = preferredFlowRegion(pump.fit, query.band, pump.declaredPreferred);
   return {
     pump,
@@ -107,9 +126,13 @@ export function rankCandidate(
     inBand,
     oneFailedMeetsMinimum,
     annualKWh,
-    annualCost: annualKWh === null || query.tariffPerKWh === null ? null : energyCost(annualKWh, query.tariffPerKWh),
+    annualCost,
     warnings,
-    tier,
+    misses,
+    tier: tierOfShortfalls(misses),
+    motor,
+    firstCost,
+    lifeCycleCost: lifeCycle,
     reasons,
     npsh,
     preferredRange: perPump ? { flowMin: perPump.flowMin * running, flowMax: perPump.flowMax * running } : null,

@@ -7,7 +7,9 @@ import { combinedCurves, cubicAt, packedCurves } from './packed-curves';
 import type { RankedCandidate, SelectionOutcome, SelectionQuery } from './selection-query';
 import { rankCandidate } from './selection-reasons';
 import { screenPoint, TIER_SPAN, tierInBand, TopPairs } from './selection-ranking';
+import { OUT_OF_BAND_TIER } from './selection-shortfalls';
 import { BandSystemTable } from './system-table';
+import { motorEfficiencyFor, pumpTermsOf, type PumpTerms } from './wire-to-water';
 
 /*
  * The duty-point search over the catalog snapshot, in SI. For each pump and each number of
@@ -26,6 +28,7 @@ export function searchCatalog(state: CatalogState, query: SelectionQuery): Selec
   const { coefficients, flowMin, flowMax } = packed;
   const { system, arrangements } = query;
   const table = new BandSystemTable(system, query.flowMin, query.flowMax);
+  const terms = pumpTermsOf(state, query);
   const systemAtMin = table.head(query.flowMin);
   const systemAtMax = table.head(query.flowMax);
   const accepted = new Uint8Array(state.pumps.length);
@@ -56,15 +59,15 @@ export function searchCatalog(state: CatalogState, query: SelectionQuery): Selec
     }
   }
 
-  // Tiers first, by sign tests alone; pairs of a tier are solved only while the better tiers
-  // leave room in the answer, since a tier's every key ranks below the tier above it.
+  // Least tiers first, by sign tests alone; pairs of a tier are solved only while the answer has
+  // room or holds a key they might beat, since a pair's key is at least its least tier's.
   const tiers = tierBuffer(inBandCount);
   for (let pair = 0; pair < inBandCount; pair += 1) {
     const at = 4 * pair;
     tiers[pair] = tierInBand(packed, inBand[at], inBand[at + 1], inBand[at + 2], inBand[at + 3], query, table);
   }
   const ranking = new TopPairs(query.limit);
-  for (let tier = 0; tier <= 1 && ranking.admits(tier * TIER_SPAN); tier += 1) {
+  for (let tier = 0; tier <= 2 && ranking.admits(tier * TIER_SPAN); tier += 1) {
     for (let pair = 0; pair < inBandCount; pair += 1) {
       if (tiers[pair] !== tier) continue;
       const at = 4 * pair;
@@ -72,18 +75,19 @@ export function searchCatalog(state: CatalogState, query: SelectionQuery): Selec
       const running = inBand[at + 1];
       const flow = crossingInBracket(coefficients, index * 4, running, table, inBand[at + 2], inBand[at + 3]);
       const head = cubicAt(coefficients, index * 4, flow / running);
-      const key = screenPoint(packed, index, running, flow, head, query, table);
+      const key = screenPoint(packed, index, running, flow, head, query, table, terms);
       ranking.offer(index, running, withNpshShortfall(key, state.pumps[index], running, flow, query));
     }
   }
-  const adequateInBand = ranking.countBelow(2 * TIER_SPAN);
-  if (ranking.admits(2 * TIER_SPAN))
-    nearMisses(state, query, accepted, 2 * (query.limit - adequateInBand), ranking, table);
+  const adequateInBand = ranking.countBelow(OUT_OF_BAND_TIER * TIER_SPAN);
+  if (ranking.admits(OUT_OF_BAND_TIER * TIER_SPAN))
+    nearMisses(state, query, accepted, 2 * (query.limit - adequateInBand), ranking, table, terms);
   const candidates = ranking
     .best()
     .map(([index, running]) => {
       const pump = state.pumps[index];
-      const duty = dutyOfParallelPumps(pump, system, running, query.band, query.density, query.motorEfficiency);
+      const motor = motorEfficiencyFor(pump, query.motorEfficiency).value;
+      const duty = dutyOfParallelPumps(pump, system, running, query.band, query.density, motor);
       return duty.ok ? rankCandidate(pump, running, duty.point, query) : null;
     })
     .filter((candidate): candidate is RankedCandidate => candidate !== null);
@@ -110,7 +114,8 @@ function inBandBuffer(length: number): Float64Array {
 
 /**
  * When too few pairs run in band: the `count` out-of-band pairs whose head at the band's middle
- * comes closest to the system's, solved on their whole published range.
+ * comes closest to the system's, solved on their whole published range and ranked by how far they
+ * fall from the band.
  */
 function nearMisses(
   state: CatalogState,
@@ -119,6 +124,7 @@ function nearMisses(
   count: number,
   ranking: TopPairs,
   table: BandSystemTable,
+  terms: PumpTerms,
 ): void {
   const packed = packedCurves(state);
   const { coefficients, flowMin, flowMax } = packed;
@@ -136,8 +142,8 @@ function nearMisses(
   for (const { index, running } of gaps.slice(0, count)) {
     const solved = solveOperatingPoint(combinedCurves(state, running)[index], query.system);
     if (!solved.ok) continue;
-    const key = screenPoint(packed, index, running, solved.flow, solved.head, query, table);
-    if (key !== null && key >= 2 * TIER_SPAN)
+    const key = screenPoint(packed, index, running, solved.flow, solved.head, query, table, terms);
+    if (key !== null && key >= OUT_OF_BAND_TIER * TIER_SPAN)
       ranking.offer(index, running, withNpshShortfall(key, state.pumps[index], running, solved.flow, query));
   }
 }

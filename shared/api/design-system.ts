@@ -1,5 +1,5 @@
 import { PIPE_SERIES } from '../hydraulics/pipe-catalogue';
-import type { CalculationUnits, DesignDraft, DesignSystem, PipeSystem } from './api-schemas';
+import type { CalculationUnits, DesignDraft, DesignSystem, PipeSystem, SelectionRequest } from './api-schemas';
 
 /*
  * A saved or drafted design (the contract's DesignDraft) as the calculations take it: one mapping
@@ -53,5 +53,30 @@ export function designPipeSystem(system: DesignSystem): PipeSystem {
     frictionMethod: system.frictionMethod,
     waterTemperatureC: system.waterTemperatureC,
     segments: system.segments.map(designPipeSegment),
+  };
+}
+
+/** The selection request of a design: the search the pages run, the proposal prints and a re-check repeats. */
+export function designSelectionRequest(design: DesignDraft): SelectionRequest {
+  const { search } = design;
+  return {
+    units: DESIGN_UNITS[design.unitSystem],
+    system: designPipeSystem(design.system),
+    duty: { flowMin: design.band.flowMin, flowMax: design.band.flowMax },
+    arrangements: search.arrangements,
+    requireOneFailed: search.requireOneFailed,
+    standby: search.standby ?? false,
+    filters: {
+      onlyPreferredRegion: search.onlyPreferredRegion,
+      ...(search.maxInputPowerPerPump === null ? {} : { maxInputPowerPerPump: search.maxInputPowerPerPump }),
+    },
+    energy: {
+      hoursPerDay: search.hoursPerDay,
+      ...(search.tariffPerKWh === null ? {} : { tariffPerKWh: search.tariffPerKWh }),
+      ...(search.motorEfficiency == null ? {} : { motorEfficiency: search.motorEfficiency }),
+    },
+    ...(search.rankBy === undefined ? {} : { rankBy: search.rankBy }),
+    ...(search.costs == null ? {} : { costs: search.costs }),
+    limit: search.limit,
   };
 }

@@ -421,12 +421,14 @@ export interface paths {
          * @description Every active catalog pump (its current curve revision) in each requested arrangement
          *     (1, 2 or 3 identical pumps in parallel, all running; with `standby`, one more installed
          *     idle to take over from a failed one) is put on the system curve.
-         *     Candidates are ranked: in the duty band and in the preferred operating region (and, with
-         *     `requireOneFailed`, still at or above the band's minimum with one pump off) first, then
-         *     in band but outside the preferred region or failing the one-failed check, then outside
-         *     the band; within each group by annual energy. With a suction side, a non-submersible
-         *     pump short of the NPSH margin (see the operating point) ranks below every pump with
-         *     enough, and a pump without NPSH data says so. `reasons` says why each candidate sits
+         *     Candidates in the duty band are ranked by how many of the designer's requirements they
+         *     miss (`misses`: redundancy with `requireOneFailed`, the preferred operating region, the
+         *     pipe velocity limit), then by `rankBy` (annual energy, first cost or life-cycle cost);
+         *     candidates outside the band come after, nearest the band first. `unmet` says which
+         *     requirement no candidate meets and, when none reaches the band, what would. Every power
+         *     and energy figure is wire-to-water (`energyBasis`). With a suction side, a non-submersible
+         *     pump short of the NPSH margin (see the operating point) misses `npsh-margin` and ranks below
+         *     every pump with enough, and a pump without NPSH data says so. `reasons` says why each candidate sits
          *     where it does. `curve` samples the combined curve and `preferredRange` its preferred
          *     region, in total flow, for drawing. On a branched system, `duty.branch` makes the band
          *     that branch's flow: the search ranks on the total flows that keep it there
@@ -1151,8 +1153,28 @@ export interface components {
             hoursPerDay: number;
             /** @description Currency per kWh; without it annualCost is null. */
             tariffPerKWh?: number;
-            /** @description Percent (at least 0.1, the lowest the engine accepts), applied when the curve gives pump shaft power; default 100 (curve power taken as input power). */
+            /** @description Percent, for pumps whose catalog entry gives no motor efficiency and whose curve gives shaft power; default the pump kind's assumed value (energyBasis.motorEfficiencyByKind in the answer). Every energy figure is wire-to-water. */
             motorEfficiency?: number;
+        };
+        /** @description Life-cycle cost terms (Hydraulic Institute and Europump, Pump Life Cycle Costs, 2001: LCC = Cic + Cin + Ce + Co + Cm + Cs + Cenv + Cd in present value; here Cic, the list price of the set, and Ce, the energy, with the other terms unknown and left at zero). Ce is the present value of a growing annuity of the first year's energy cost. The tariff is taken in this currency. */
+        SelectionCosts: {
+            /** @description ISO 4217 code; pumps priced in another currency get no life-cycle cost and rank last by cost. */
+            currency: string;
+            years: number;
+            /** @description Percent a year. */
+            discountRate: number;
+            /** @description Percent a year; default 0. */
+            energyPriceRise?: number;
+        };
+        /**
+         * @description A designer's requirement a candidate may miss: the duty band, redundancy (requireOneFailed), the preferred operating region, the pipe velocity limit, the NPSH margin (with a suction side).
+         * @enum {string}
+         */
+        SelectionRequirement: "band" | "redundancy" | "preferred-region" | "velocity" | "npsh-margin";
+        Money: {
+            amount: number;
+            /** @description ISO 4217 code. */
+            currency: string;
         };
         SelectionRequest: {
             units: components["schemas"]["CalculationUnits"];
@@ -1168,6 +1190,12 @@ export interface components {
             energy?: components["schemas"]["EnergyInputs"];
             preferredBand?: components["schemas"]["PreferredBand"];
             npshMarginRatio?: components["schemas"]["NpshMarginRatio"];
+            /**
+             * @description What orders candidates that miss as many requirements: annual energy (default), first cost of the set (needs costs) or life-cycle cost (needs costs and energy.tariffPerKWh).
+             * @enum {string}
+             */
+            rankBy?: "energy" | "first-cost" | "life-cycle-cost";
+            costs?: components["schemas"]["SelectionCosts"];
             /** @description Most candidates to return; default 20. */
             limit?: number;
         };
@@ -1192,6 +1220,20 @@ export interface components {
             region: components["schemas"]["OperatingRegion"];
             annualKWh: number | null;
             annualCost: number | null;
+            /** @description The motor efficiency input power is reckoned with (wire-to-water): null percent when the curve's power is electrical already. */
+            motorEfficiency: {
+                percent: number | null;
+                /** @enum {string} */
+                source: "curve-is-electrical" | "catalog" | "designer" | "kind-default";
+            };
+            /** @description One pump's list price. */
+            listPrice: components["schemas"]["Money"] | null;
+            /** @description List price of the set (duty plus standby pumps). */
+            firstCost: components["schemas"]["Money"] | null;
+            /** @description First cost plus the energy's present value over costs.years, in costs.currency; null without costs, a tariff, a price in that currency or energy data. */
+            lifeCycleCost: components["schemas"]["Money"] | null;
+            /** @description The designer's requirements this candidate misses; candidates in band are ordered by how many. */
+            misses: components["schemas"]["SelectionRequirement"][];
             warnings: components["schemas"]["SelectionWarning"][];
             /** @description Present when the system has a suction side and the pump is not submersible. */
             npsh?: components["schemas"]["NpshCheck"];
@@ -1215,6 +1257,25 @@ export interface components {
                 flowMin: number;
                 flowMax: number;
             };
+            /** @enum {string} */
+            rankBy: "energy" | "first-cost" | "life-cycle-cost";
+            /** @description Every power and energy figure is electrical input (wire-to-water). Shaft-power curves are divided by the motor efficiency: the catalog's, else energy.motorEfficiency, else the pump kind's assumed value (percent; common practice, not a standard's table). */
+            energyBasis: {
+                /** @enum {string} */
+                basis: "wire-to-water";
+                motorEfficiencyByKind: {
+                    submersible: number;
+                    "external-centrifugal": number;
+                    "mixed-flow": number;
+                };
+            };
+            /** @description Null when the first candidate meets every requirement; else which requirements no candidate meets and, with none in the band, what would reach it. */
+            unmet: {
+                requirements: components["schemas"]["SelectionRequirement"][];
+                noneInBand: boolean;
+                summary: string;
+                whatWould: string[];
+            } | null;
             /** @description Pump and arrangement pairs examined. */
             considered: number;
             /** @description Pairs whose operating point lies in the duty band. */
@@ -1559,6 +1620,11 @@ export interface components {
             maxInputPowerPerPump: number | null;
             hoursPerDay: number;
             tariffPerKWh: number | null;
+            /** @description Percent; null for the pump kind's assumed value. */
+            motorEfficiency?: number | null;
+            /** @enum {string} */
+            rankBy?: "energy" | "first-cost" | "life-cycle-cost";
+            costs?: components["schemas"]["SelectionCosts"] | null;
             limit: number;
         };
         /** @description A whole design as the design pages keep it; numbers are in the units of `unitSystem` (us - gpm, ft, in; si - L/min, m, mm). */

@@ -95,6 +95,23 @@ export function powerAtOperatingPoint(
 }
 
 /**
+ * Motor efficiency assumed, 0-1, for a pump kind when the catalog gives none and the curve's power
+ * is shaft power. Common practice, from memory, not a standard's table: the small single-phase
+ * motors of pond submersibles run at some 60-80 % (sealed, oil- or water-filled, low rating);
+ * a dry 0.5-1.5 kW motor of an external centrifugal pump about 75-80 % (IEC 60034-30-1 puts a
+ * 0.75 kW four-pole IE2 motor near 80 %, single-phase capacitor motors below it); the 1.5-4 kW
+ * three-phase motors of mixed-flow pumps about 80-85 % (IE2 to IE3 at that rating).
+ * @example
+ * DEFAULT_MOTOR_EFFICIENCY_BY_KIND.submersible // => 0.7
+ * DEFAULT_MOTOR_EFFICIENCY_BY_KIND['external-centrifugal'] // => 0.75
+ */
+export const DEFAULT_MOTOR_EFFICIENCY_BY_KIND: Readonly<Record<string, number>> = {
+  submersible: 0.7,
+  'external-centrifugal': 0.75,
+  'mixed-flow': 0.8,
+};
+
+/**
  * Days of running in the year the energy figures count: a common year (common practice).
  * @example
  * RUNNING_DAYS_PER_YEAR // => 365

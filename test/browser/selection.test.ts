@@ -118,7 +118,8 @@ describe('pump selection in Chromium', function () {
     expect(await page.locator('svg.rf-chart path.rf-operating-point').count()).to.equal(3);
     expect(await page.locator('.rf-side thead th').count()).to.equal(4);
 
-    await page.locator('svg.rf-chart path.rf-operating-point').first().hover();
+    // the first candidates' points may lie on one another: the hover goes to whichever is on top
+    await page.locator('svg.rf-chart path.rf-operating-point').first().hover({ force: true });
     await page.locator('.rf-details', { hasText: 'TDH' }).waitFor();
     await page.locator('svg.rf-chart path.rf-operating-point').nth(1).focus();
     await page.locator('.rf-details', { hasText: 'gpm at' }).waitFor();
@@ -180,5 +181,34 @@ describe('pump selection in Chromium', function () {
     const labels = await page.locator('tr[data-candidate] td.mat-column-arrangement').allInnerTexts();
     expect(labels.length).to.be.greaterThan(3);
     expect(labels.every((label) => label.endsWith('+ standby'))).to.equal(true);
+  });
+  it('shows input power as wire-to-water, ranks by life-cycle cost when asked, and says plainly when no pump reaches the band', async () => {
+    const { page } = app;
+    await page.getByRole('switch', { name: /Plus one standby pump/ }).click();
+    await page.selectOption('select[name=rankBy]', 'life-cycle-cost');
+    await page.getByRole('button', { name: /Find candidates/ }).click();
+    await page.locator('.rf-results-head', { hasText: 'then by life-cycle cost' }).waitFor({ timeout: 15_000 });
+    expect(await page.locator('th.mat-column-power').innerText()).to.contain('wire-to-water');
+    const costs = await page.locator('tr[data-candidate] td.mat-column-lifeCycleCost').allInnerTexts();
+    expect(costs.length).to.be.greaterThan(0);
+    // an amount in a currency, or a dash for a pump with no price in the search's currency
+    expect(costs.every((cost) => /^(–|[\d,]+ [A-Z]{3})$/.test(cost.trim()))).to.equal(true);
+    expect((await page.locator('[data-unmet]').allInnerTexts()).join(' ')).to.not.contain(
+      'No pump in the catalog reaches',
+    );
+
+    await page.getByRole('link', { name: /Flow band/ }).click();
+    await page.waitForURL(/design\/band/);
+    await page.fill('input[name=flowMin]', '2000');
+    await page.fill('input[name=flowMax]', '3000');
+    await page.getByRole('button', { name: /Next: find candidates/ }).click();
+    await page.waitForURL(/design\/candidates/);
+    await page.getByRole('button', { name: /Find candidates/ }).click();
+    const unmet = page.locator('[data-unmet]', { hasText: 'No pump in the catalog reaches the duty band' });
+    await unmet.waitFor({ timeout: 15_000 });
+    expect(await unmet.innerText()).to.contain('a larger pipe');
+    const misses = await page.locator('tr[data-candidate] td.mat-column-misses').allInnerTexts();
+    expect(misses.length).to.be.greaterThan(0);
+    expect(misses.every((miss) => miss.includes('duty band'))).to.equal(true);
   });
 });

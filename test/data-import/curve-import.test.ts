@@ -108,6 +108,28 @@ describe('curve-table reader', () => {
     expect(table.fileUnits).to.deep.equal({ flow: 'gph', head: 'ft', power: 'hp' });
   });
 
+  it('reads a motor efficiency in percent as a fraction, and refuses one of 0 or over 100 naming the column', async () => {
+    const withMotor = (value: string) =>
+      smallTable
+        .replace('preferred_flow_max,flow', 'preferred_flow_max,motor_efficiency,flow')
+        .split('\n')
+        .map((line, index) =>
+          index < 5
+            ? line
+            : line.replace(/^(K-\d+,[^,]*,[^,]*,[^,]*,[^,]*,)/, (cells) => `${cells}${index === 5 ? value : ''},`),
+        )
+        .join('\n');
+    const table = await read(withMotor('82.5'));
+    expect(table.errors).to.deep.equal([]);
+    expect(table.pumps.map((pump) => pump.details.motorEfficiency)).to.deep.equal([0.825, null]);
+    for (const bad of ['0', '150']) {
+      const refused = await read(withMotor(bad));
+      expect(refused.errors.map((error) => [error.row, error.column, error.code])).to.deep.equal([
+        [6, 'motor_efficiency', 'number-out-of-range'],
+      ]);
+    }
+  });
+
   it('hashes the bytes it read (sha-256) and counts the point rows', async () => {
     const { createHash } = await import('node:crypto');
     const table = await read(smallTable);

@@ -28,6 +28,8 @@ export class Pump extends Model<InferAttributes<Pump>, InferCreationAttributes<P
   /** Decimal text as MariaDB returns DECIMAL, e.g. "412.50". */
   declare listPrice: string | null;
   declare priceCurrency: string | null;
+  /** The motor's efficiency at its rating, 0-1, when the supplier gives it. */
+  declare motorEfficiency: number | null;
   declare status: CreationOptional<PumpStatus>;
   declare currentRevisionId: ForeignKey<CurveRevision['id']> | null;
   declare createdAt: CreationOptional<Date>;
@@ -50,6 +52,7 @@ export class Pump extends Model<InferAttributes<Pump>, InferCreationAttributes<P
         solidsHandlingMm: { type: DataTypes.DOUBLE, allowNull: true },
         listPrice: { type: DataTypes.DECIMAL(12, 2), allowNull: true },
         priceCurrency: { type: DataTypes.CHAR(3), allowNull: true },
+        motorEfficiency: { type: DataTypes.DOUBLE, allowNull: true },
         status: { type: DataTypes.ENUM(...pumpStatuses), allowNull: false, defaultValue: 'active' },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -7,6 +7,12 @@ function results(...pumpIds: number[]): SelectionResponse {
   return {
     units: { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in' },
     duty: { flowMin: 90, flowMax: 130 },
+    rankBy: 'energy',
+    energyBasis: {
+      basis: 'wire-to-water',
+      motorEfficiencyByKind: { submersible: 70, 'external-centrifugal': 75, 'mixed-flow': 80 },
+    },
+    unmet: null,
     considered: pumpIds.length,
     inBand: pumpIds.length,
     candidates: pumpIds.map((pumpId) => ({ pumpId, arrangement: { installed: 1, running: 1 } }) as SelectionCandidate),

@@ -57,6 +57,9 @@ function initialDraft(): StoredDraft {
       maxInputPowerPerPump: null,
       hoursPerDay: 24,
       tariffPerKWh: 0.18,
+      motorEfficiency: null,
+      rankBy: 'energy',
+      costs: null,
       limit: 20,
     },
     results: null,
@@ -67,7 +70,11 @@ function initialDraft(): StoredDraft {
 function readStored(): StoredDraft {
   try {
     const text = sessionStorage.getItem(storageKey);
-    return text ? { ...initialDraft(), ...(JSON.parse(text) as Partial<StoredDraft>) } : initialDraft();
+    if (!text) return initialDraft();
+    const stored = JSON.parse(text) as Partial<StoredDraft>;
+    // an answer kept from before answers stated their energy basis is asked for again
+    if (stored.results && !stored.results.energyBasis) stored.results = null;
+    return { ...initialDraft(), ...stored };
   } catch {
     return initialDraft();
   }

@@ -6,6 +6,7 @@ import { rankCandidate } from '../../../server/selection/selection-reasons';
 import { screenPoint, TopPairs } from '../../../server/selection/selection-ranking';
 import type { SelectionQuery } from '../../../server/selection/selection-query';
 import type { BandSystemTable } from '../../../server/selection/system-table';
+import { pumpTermsOf } from '../../../server/selection/wire-to-water';
 import { compileSystemCurve, DEFAULT_PREFERRED_BAND, fitPumpCurve, polynomialValue } from '../../../shared/hydraulics';
 
 /*
@@ -21,11 +22,24 @@ describe('ranking of estimated curves', () => {
   const measured = { ...estimated, curveBasis: 'published' as const };
   const state = {
     stamp: 'test',
-    pumps: [estimated, measured].map((fit, index) => ({ id: index + 1, fit, declaredPreferred: null })),
+    pumps: [estimated, measured].map((fit, index) => ({
+      id: index + 1,
+      kind: 'submersible',
+      fit,
+      declaredPreferred: null,
+      motorEfficiency: null,
+      listPrice: null,
+    })),
     byId: new Map(),
     derived: new Map(),
   } as unknown as CatalogState;
+  const system = compileSystemCurve({
+    staticHead: 1,
+    frictionMethod: 'hazen-williams',
+    segments: [{ length: 5, insideDiameter: 0.05, hazenWilliamsC: 150 }],
+  });
   const query = {
+    system,
     density: 998.2,
     flowMin: 0.0005,
     flowMax: 0.0015,
@@ -34,9 +48,12 @@ describe('ranking of estimated curves', () => {
     band: DEFAULT_PREFERRED_BAND,
     hoursPerDay: 24,
     tariffPerKWh: null,
-    motorEfficiency: 1,
+    motorEfficiency: null,
+    rankBy: 'energy',
+    costs: null,
     maxInputPowerPerPump: null,
     onlyPreferredRegion: false,
+    suction: null,
   } as unknown as SelectionQuery;
   const table = {} as BandSystemTable;
 
@@ -44,7 +61,8 @@ describe('ranking of estimated curves', () => {
     const packed = packedCurves(state);
     const flow = 0.001;
     const head = polynomialValue(estimated.headCoefficients, flow);
-    const keys = [0, 1].map((index) => screenPoint(packed, index, 1, flow, head, query, table) as number);
+    const terms = pumpTermsOf(state, query);
+    const keys = [0, 1].map((index) => screenPoint(packed, index, 1, flow, head, query, table, terms) as number);
     expect(keys[0]).to.be.greaterThan(keys[1]);
     // the same tier and, to 0.1 kWh a year, the same energy: equal merit but for the curve's basis
     expect(keys[0] - keys[1]).to.be.lessThan(0.1);
@@ -55,11 +73,6 @@ describe('ranking of estimated curves', () => {
   });
 
   it('says so in the candidate: a warning and a reason', () => {
-    const system = compileSystemCurve({
-      staticHead: 1,
-      frictionMethod: 'hazen-williams',
-      segments: [{ length: 5, insideDiameter: 0.05, hazenWilliamsC: 150 }],
-    });
     const point = {
       running: 1,
       flow: 0.001,
@@ -71,9 +84,7 @@ describe('ranking of estimated curves', () => {
       inputPower: 70,
       warnings: [],
     };
-    const [forEstimated, forMeasured] = state.pumps.map((pump) =>
-      rankCandidate(pump as CatalogPump, 1, point, { ...query, system }),
-    );
+    const [forEstimated, forMeasured] = state.pumps.map((pump) => rankCandidate(pump as CatalogPump, 1, point, query));
     expect(forEstimated?.warnings).to.include('estimated-curve');
     expect(forEstimated?.reasons).to.include('estimated curve: only shut-off and open flow are published');
     expect(forMeasured?.warnings).not.to.include('estimated-curve');

@@ -9,12 +9,14 @@ import { snapshotClock, STAMP_REUSE_MS } from '../../../server/catalog/catalog-s
 import {
   classifyOperatingRegion,
   compileSystemCurve,
+  DEFAULT_MOTOR_EFFICIENCY_BY_KIND,
   DEFAULT_PREFERRED_BAND,
   flowToSI,
   headToSI,
   lengthToSI,
   powerAtOperatingPoint,
   solveParallelIdentical,
+  VELOCITY_WARNING_LIMIT,
   waterDensity,
   type PumpCurveFit,
 } from '../../../shared/hydraulics';
@@ -27,7 +29,8 @@ import { seedSyntheticCatalog, syntheticShapes } from './synthetic-catalog';
 /*
  * The search over a catalog of 400 invented pumps, checked against a brute-force pass that puts
  * every pump on the system with the engine's own solver (no shortcut), and against the ranking
- * rule: in band and in the preferred region (and redundant when asked) first, then by energy.
+ * rule: in band and missing fewest requirements (preferred region, redundancy when asked, pipe
+ * velocity) first, then by wire-to-water energy.
  */
 
 const units = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' } as const;
@@ -56,9 +59,14 @@ const search = {
   limit: 50,
 };
 
+/** In band: how many of the requirements asked it misses (region, one failed, velocity); outside: last. */
 function tierOf(candidate: SelectionCandidate): number {
-  if (!candidate.inBand) return 2;
-  return candidate.region === 'preferred' && candidate.oneFailedMeetsMinimum === true ? 0 : 1;
+  if (!candidate.inBand) return 9;
+  return [
+    candidate.region !== 'preferred',
+    candidate.oneFailedMeetsMinimum !== true,
+    candidate.warnings.includes('velocity'),
+  ].filter(Boolean).length;
 }
 
 describe('POST /api/v1/selections', function () {
@@ -74,8 +82,9 @@ describe('POST /api/v1/selections', function () {
 
   /**
    * Every pump of the catalog on the system with the engine's own solver (no shortcut): the pairs
-   * tried, those in band, and the least-energy pair in band, preferred and redundant (the rest
-   * reaching the band's minimum with one off, or a standby taking over).
+   * tried, those in band, and the least-energy pair in band of those missing fewest requirements
+   * (preferred region; redundancy: the rest reaching the band's minimum with one off, or a standby
+   * taking over; pipe velocity).
    */
   async function bruteForce(frictionMethod: 'hazen-williams' | 'darcy-weisbach', redundancy: 'one failed' | 'standby') {
     const rows = await scratch.sequelize.query<{ pump_id: number; fit: string | PumpCurveFit }>(
@@ -90,7 +99,7 @@ describe('POST /api/v1/selections', function () {
     const [low, high] = [flowToSI(duty.flowMin, 'gpm'), flowToSI(duty.flowMax, 'gpm')];
     const density = waterDensity(20);
     let inBand = 0;
-    let best: { pumpId: number; running: number; energy: number } | null = null;
+    let best: { pumpId: number; running: number; misses: number; energy: number } | null = null;
     for (const row of rows) {
       const fit = (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as PumpCurveFit;
       for (const running of [1, 2, 3]) {
@@ -100,10 +109,16 @@ describe('POST /api/v1/selections', function () {
         const perPump = point.totalFlow / running;
         const failed = running > 1 ? solveParallelIdentical(fit, compiled, running - 1, running - 1) : null;
         const redundant = redundancy === 'standby' || (failed !== null && failed.ok && failed.totalFlow >= low);
-        if (classifyOperatingRegion(fit, perPump, DEFAULT_PREFERRED_BAND).region !== 'preferred' || !redundant)
-          continue;
-        const energy = powerAtOperatingPoint(fit, perPump, point.head, density).electrical! * running;
-        if (!best || energy < best.energy) best = { pumpId: row.pump_id, running, energy };
+        const velocityOk = compiled.segments.every(
+          (segment) => point.totalFlow / segment.area <= VELOCITY_WARNING_LIMIT,
+        );
+        const preferred = classifyOperatingRegion(fit, perPump, DEFAULT_PREFERRED_BAND).region === 'preferred';
+        const misses = [!preferred, !redundant, !velocityOk].filter(Boolean).length;
+        // the synthetic pumps are submersibles whose curves give pump efficiency: wire-to-water with the kind's motor
+        const motor = DEFAULT_MOTOR_EFFICIENCY_BY_KIND.submersible;
+        const energy = powerAtOperatingPoint(fit, perPump, point.head, density, { motor }).electrical! * running;
+        if (!best || misses < best.misses || (misses === best.misses && energy < best.energy))
+          best = { pumpId: row.pump_id, running, misses, energy };
       }
     }
     return { pairs: rows.length * 3, inBand, best };
@@ -144,7 +159,8 @@ describe('POST /api/v1/selections', function () {
       expect(body.considered).to.equal(pairs);
       expect(body.inBand).to.equal(inBand);
       expect(inBand, 'the synthetic catalog should put some pumps in this band').to.be.greaterThan(5);
-      expect(best, 'some pair should be in band, preferred and redundant').to.not.equal(null);
+      expect(best, 'some pair should be in band').to.not.equal(null);
+      expect(body.candidates[0].misses.length).to.equal(best!.misses);
       expect(body.candidates[0]).to.include({ pumpId: best!.pumpId });
       expect(body.candidates[0].arrangement.running).to.equal(best!.running);
       // annual energy: input power x 24 h x 365 d
@@ -168,7 +184,7 @@ describe('POST /api/v1/selections', function () {
     }
   });
 
-  it('ranks in band and preferred first, then by annual energy, and says why', async () => {
+  it('ranks in band and missing fewest requirements first, then by annual energy, and says why', async () => {
     const body = (await post('/selections', search).expect(200)).body as SelectionResponse;
     const candidates = body.candidates;
     expect(candidates.map((candidate) => candidate.rank)).to.deep.equal(candidates.map((_, index) => index + 1));

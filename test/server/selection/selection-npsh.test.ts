@@ -100,10 +100,13 @@ describe('NPSH and gravity in POST /api/v1/selections', function () {
     const unknown = byPump(candidates, external[2]);
     expect(short.npsh!.adequate).to.equal(false);
     expect(short.reasons.join(' ')).to.contain('NPSH shortfall');
+    expect(short.misses).to.include('npsh-margin');
+    expect(enough.misses).not.to.include('npsh-margin');
     expect(enough.npsh!.adequate).to.equal(true);
     expect(enough.reasons.join(' ')).to.contain('NPSH margin met');
     expect(unknown.npsh).to.include({ required: null, adequate: null });
     expect(unknown.reasons.join(' ')).to.contain('NPSH required unknown');
+    expect(unknown.misses).not.to.include('npsh-margin');
     expect(byPump(candidates, submersible[0])).not.to.have.property('npsh');
     expect(response.body.warnings.join(' ')).to.contain('self-priming');
 

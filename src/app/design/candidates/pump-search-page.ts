@@ -17,9 +17,11 @@ import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import type { SelectionCandidate, SelectionRequest } from '../../../../shared/api/api-schemas';
+import type { SelectionCandidate } from '../../../../shared/api/api-schemas';
+import { designSelectionRequest } from '../../../../shared/api/design-system';
 import { CalculationsApi } from '../calculations-api';
 import { candidateKey, maxCompared, SelectionDraft, type SearchSettings } from '../selection-draft';
+import { missesLabel, moneyLabel, motorLabel, rankByWords, type RankBy } from '../energy-and-costs';
 
 /** At least one arrangement must be ticked. */
 function someArrangement(group: AbstractControl): ValidationErrors | null {
@@ -37,6 +39,10 @@ const sortValues: Record<string, (candidate: SelectionCandidate) => number | str
   power: (candidate) => candidate.operatingPoint.inputPower ?? Number.POSITIVE_INFINITY,
   energy: (candidate) => candidate.annualKWh ?? Number.POSITIVE_INFINITY,
   cost: (candidate) => candidate.annualCost ?? Number.POSITIVE_INFINITY,
+  price: (candidate) => candidate.listPrice?.amount ?? Number.POSITIVE_INFINITY,
+  firstCost: (candidate) => candidate.firstCost?.amount ?? Number.POSITIVE_INFINITY,
+  lifeCycleCost: (candidate) => candidate.lifeCycleCost?.amount ?? Number.POSITIVE_INFINITY,
+  misses: (candidate) => candidate.misses.length,
   oneFailed: (candidate) => candidate.oneFailed?.flow ?? -1,
 };
 
@@ -83,7 +89,11 @@ export class PumpSearchPage {
     'power',
     'energy',
     'cost',
+    'price',
+    'firstCost',
+    'lifeCycleCost',
     'oneFailed',
+    'misses',
     'warnings',
     'reasons',
   ];
@@ -110,6 +120,27 @@ export class PumpSearchPage {
       Validators.max(24),
     ]),
     tariffPerKWh: this.formBuilder.control<number | null>(this.settings.tariffPerKWh, [Validators.min(0)]),
+    motorEfficiency: this.formBuilder.control<number | null>(this.settings.motorEfficiency ?? null, [
+      Validators.min(1),
+      Validators.max(100),
+    ]),
+    rankBy: this.formBuilder.control<RankBy>(this.settings.rankBy ?? 'energy'),
+    currency: this.formBuilder.control(this.settings.costs?.currency ?? 'USD', [Validators.pattern(/^[A-Z]{3}$/)]),
+    years: this.formBuilder.control(this.settings.costs?.years ?? 15, [
+      Validators.required,
+      Validators.min(1),
+      Validators.max(50),
+      Validators.pattern(/^\d+$/),
+    ]),
+    discountRate: this.formBuilder.control(this.settings.costs?.discountRate ?? 6, [
+      Validators.required,
+      Validators.min(0),
+      Validators.max(50),
+    ]),
+    energyPriceRise: this.formBuilder.control(this.settings.costs?.energyPriceRise ?? 3, [
+      Validators.min(0),
+      Validators.max(50),
+    ]),
     limit: this.formBuilder.control(this.settings.limit, [
       Validators.required,
       Validators.min(1),
@@ -152,26 +183,18 @@ export class PumpSearchPage {
       maxInputPowerPerPump: value.maxInputPowerPerPump || null,
       hoursPerDay: value.hoursPerDay,
       tariffPerKWh: value.tariffPerKWh ?? null,
+      motorEfficiency: value.motorEfficiency || null,
+      rankBy: value.rankBy,
+      costs: {
+        currency: value.currency,
+        years: value.years,
+        discountRate: value.discountRate,
+        energyPriceRise: value.energyPriceRise ?? 0,
+      },
       limit: value.limit,
     };
     this.draft.setSearch(settings);
-    const body: SelectionRequest = {
-      units: this.units(),
-      system: this.draft.pipeSystem(),
-      duty: this.draft.band(),
-      arrangements: settings.arrangements,
-      requireOneFailed: settings.requireOneFailed,
-      standby: settings.standby,
-      filters: {
-        onlyPreferredRegion: settings.onlyPreferredRegion,
-        ...(settings.maxInputPowerPerPump ? { maxInputPowerPerPump: settings.maxInputPowerPerPump } : {}),
-      },
-      energy: {
-        hoursPerDay: settings.hoursPerDay,
-        ...(settings.tariffPerKWh === null ? {} : { tariffPerKWh: settings.tariffPerKWh }),
-      },
-      limit: settings.limit,
-    };
+    const body = designSelectionRequest(this.draft.design());
     this.searching.set(true);
     this.failed.set(false);
     this.api.searchSelections(body).subscribe({
@@ -189,6 +212,12 @@ export class PumpSearchPage {
   protected toggle(candidate: SelectionCandidate): void {
     this.draft.toggleCompared(candidateKey(candidate));
   }
+
+  protected readonly rankByWords = rankByWords;
+  protected readonly motorLabel = motorLabel;
+  protected readonly moneyLabel = moneyLabel;
+
+  protected readonly missesLabel = missesLabel;
 
   protected arrangementLabel(candidate: SelectionCandidate): string {
     const { running, installed } = candidate.arrangement;

@@ -14,6 +14,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
+import { missesLabel, moneyLabel, motorLabel } from '../energy-and-costs';
 import { candidateKey, SelectionDraft } from '../selection-draft';
 import { unitSystems, type UnitSystem } from '../unit-systems';
 import { downloadPng, downloadSvg } from '../../shared/chart-export';
@@ -86,6 +87,9 @@ export class PumpComparisonPage {
   }
 
   protected readonly label = candidateLabel;
+  protected readonly motorLabel = motorLabel;
+  protected readonly moneyLabel = moneyLabel;
+  protected readonly missesLabel = missesLabel;
 
   protected flow(value: number): number {
     return this.convert().flow(value);

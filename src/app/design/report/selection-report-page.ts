@@ -17,6 +17,7 @@ import { FITTINGS, PIPE_SERIES, flowToSI, headFromSI } from '../../../../shared/
 import { SessionService } from '../../core/session-service';
 import { drawComparisonChart } from '../compare/comparison-chart';
 import { candidateLabel, comparisonModel } from '../compare/comparison-model';
+import { moneyLabel, motorLabel } from '../energy-and-costs';
 import { SelectionDraft } from '../selection-draft';
 import { compileDraft, staticHeadOf } from '../system-draft';
 import { ReportDocuments } from './report-documents';
@@ -94,6 +95,8 @@ export class SelectionReportPage {
   });
 
   protected readonly label = candidateLabel;
+  protected readonly motorLabel = motorLabel;
+  protected readonly moneyLabel = moneyLabel;
 
   constructor() {
     afterRenderEffect({
