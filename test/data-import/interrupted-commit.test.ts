@@ -55,6 +55,19 @@ async function waitForDirtyPointCount(
   throw new Error(`the dirty count of curve points stayed at ${count} for ${timeoutMs} ms`);
 }
 
+/** Resolves once no process has this pid (a kill is asynchronous); gives up after 30 s. */
+async function waitUntilGone(pid: number): Promise<void> {
+  for (let waited = 0; waited < 30_000; waited += 50) {
+    try {
+      process.kill(pid, 0);
+    } catch {
+      return;
+    }
+    await new Promise((resolve) => setTimeout(resolve, 50));
+  }
+  throw new Error(`process ${pid} still runs 30 s after SIGKILL`);
+}
+
 describe('an interrupted commit leaves no partial revision', function () {
   this.timeout(300_000);
   const work = mkdtempSync(join(tmpdir(), 'riffle-interrupted-'));
@@ -131,6 +144,8 @@ describe('an interrupted commit leaves no partial revision', function () {
       expect(rowsWritten).to.be.within(4000, 23_999);
       expect(await commit).to.not.equal('finished');
       await sequelize.close().catch(() => undefined);
+      // a killed process holds its port for a moment while the kernel tears it down
+      await waitUntilGone(database.pid);
 
       database = await PrivateMariaDb.startOrReuse({ folder, port });
       sequelize = createSequelize(config);
