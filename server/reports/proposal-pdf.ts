@@ -10,7 +10,7 @@ import { designUnits } from './design-selection';
 import { pipeLabels, type PartsLine } from './parts-list';
 import { proposalChartSvg, pumpColours } from './proposal-chart';
 import { candidateCosts, figure, LIFE_CYCLE_YEARS, type PumpPrice } from './proposal-costs';
-import { REPORT_CAUTIONS } from './report-cautions';
+import { DESIGN_CAUTIONS } from '../../shared/messages/design-cautions';
 
 /*
  * The proposal's layout. pdfkit because it is a well-kept, pure-JavaScript PDF writer for Node: it
@@ -304,7 +304,7 @@ function chartSection(doc: Doc, content: ProposalContent, shown: readonly Select
 
 function cautionsSection(doc: Doc): void {
   heading(doc, 'Before anything is built or wired');
-  for (const caution of REPORT_CAUTIONS) {
+  for (const caution of DESIGN_CAUTIONS) {
     doc.font(fonts.bold).text(`${caution.title} `, { continued: true }).font(fonts.regular).text(caution.text);
     doc.moveDown(0.2);
   }

@@ -1,5 +1,6 @@
 import { expect } from 'chai';
 import { readFileSync } from 'node:fs';
+import { DESIGN_CAUTIONS } from '../../shared/messages/design-cautions';
 import { axeViolations, scratchDatabase, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
 import { saveScreenshot } from '../support/browser';
 import { createUserWithSession, testPassword } from '../support/accounts';
@@ -165,6 +166,8 @@ describe('pump selection in Chromium', function () {
       expect(await page.locator('.rf-design-steps').isVisible()).to.equal(false);
       expect(await page.getByRole('button', { name: /Print or save as PDF/ }).isVisible()).to.equal(false);
       expect(await page.locator('rf-cautions-panel').isVisible()).to.equal(true);
+      // the panel and the proposal carry the same cautions, from one list
+      expect(await page.locator('rf-cautions-panel li').count()).to.equal(DESIGN_CAUTIONS.length);
       await saveScreenshot(page, 'selection-report-print');
     } finally {
       await page.emulateMedia({ media: 'screen' });

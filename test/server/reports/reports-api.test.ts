@@ -161,7 +161,7 @@ describe('reports: proposals of a saved design as PDF', function () {
       const firstCost = 412.5 * chosen.arrangement.installed;
       expect(text).to.include(`${firstCost.toFixed(0)} USD`);
       expect(text).to.include(`${(firstCost + 10 * chosen.annualCost!).toFixed(0)} USD`);
-      expect(text).to.include('Electricity near water').and.to.include('water hammer');
+      expect(text).to.include('Electricity near water').and.to.include('water hammer').and.to.include('Suction lift');
       expect(text).to.include("Crew's parts list");
       // 240 ft of 3" pipe and 10 % allowance: 264 ft, 27 sticks of 10 ft
       expect(text).to.include('264 ft');

@@ -1,8 +1,9 @@
 /**
- * The cautions every proposal carries, in the words the design pages' cautions panel uses: what
- * could hurt someone when the design is built or wired, and that the figures are estimates.
+ * The cautions shown wherever a design result could be acted on (the design pages' panel, every
+ * proposal, what is sent to a client): what could hurt someone when the design is built or wired,
+ * and that the figures are estimates. They defer to local codes and licensed practice.
  */
-export const REPORT_CAUTIONS: ReadonlyArray<{ title: string; text: string }> = [
+export const DESIGN_CAUTIONS: ReadonlyArray<{ title: string; text: string }> = [
   {
     title: 'Electricity near water.',
     text: 'Ground-fault (GFCI/RCD) protection, pumps and cords listed for wet locations and bonding as the local electrical code requires; a licensed electrician where the code asks for one; lock out the power before anyone touches a pump or reaches into the water.',
@@ -14,6 +15,10 @@ export const REPORT_CAUTIONS: ReadonlyArray<{ title: string; text: string }> = [
   {
     title: 'Running the pumps.',
     text: 'No dry running and no running against a closed valve; a check valve on every parallel pump; close valves slowly to spare the pipe from water hammer.',
+  },
+  {
+    title: 'Suction lift and priming.',
+    text: "An external pump standing above the water it draws must be self-priming, or be primed and kept full with a foot valve on the suction pipe; a flooded suction (pump below the water) avoids both. Defer to the pump maker's data for the lift and NPSH it needs.",
   },
   {
     title: 'Vaults, wet wells and trenches',
