@@ -1,14 +1,15 @@
-import { unit } from 'mathjs';
 import { HydraulicsInputError, requireFinite, requirePositive } from './hydraulics-error';
 import { STANDARD_GRAVITY } from './physical-constants';
 
 /*
  * Unit conversion at the edges of the engine. Everything inside works in SI
- * (m, m3/s, Pa). Conversion factors are built once from mathjs's unit
- * definitions at module load (US liquid gallon 3.785411784 L, international
- * foot 0.3048 m and inch 0.0254 m, psi from the avoirdupois pound-force, per
- * NIST SP 811, 2008 edition, Appendix B); conversions are then single
- * multiplications.
+ * (m, m3/s, Pa). The factors follow from the exact definitions of NIST SP 811,
+ * 2008 edition, Appendix B (international foot 0.3048 m and inch 0.0254 m, US
+ * liquid gallon 231 in3, avoirdupois pound 0.45359237 kg with standard gravity
+ * for the pound-force, mechanical horsepower 550 ft lbf/s), so conversions are
+ * single multiplications. test/shared/units.test.ts checks every factor against
+ * mathjs's unit definitions; the factors are spelt here rather than built with
+ * mathjs at load so that the design pages do not download mathjs for them.
  */
 
 /** Flow units accepted at the API edge. */
@@ -37,32 +38,40 @@ export type PowerUnit = (typeof POWER_UNITS)[number];
 export type VolumeUnit = (typeof VOLUME_UNITS)[number];
 export type VelocityUnit = (typeof VELOCITY_UNITS)[number];
 
-function factorsToSI<U extends string>(mathjsNames: Record<U, string>, siName: string): Readonly<Record<U, number>> {
-  const factors = {} as Record<U, number>;
-  for (const key of Object.keys(mathjsNames) as U[]) {
-    factors[key] = unit(1, mathjsNames[key]).toNumber(siName);
-  }
-  return Object.freeze(factors);
-}
+const INCH = 0.0254;
+const FOOT = 0.3048;
+const LITRE = 1e-3;
+const US_GALLON = 231 * INCH ** 3;
+const POUND_FORCE = 0.45359237 * STANDARD_GRAVITY;
+const MINUTE = 60;
+const HOUR = 3600;
 
-const FLOW_FACTORS = factorsToSI<FlowUnit>(
-  {
-    gpm: 'gallon/minute',
-    gph: 'gallon/hour',
-    'L/h': 'liter/hour',
-    'L/min': 'liter/minute',
-    'L/s': 'liter/second',
-    'm3/h': 'm^3/hour',
-    'm3/s': 'm^3/s',
-  },
-  'm^3/s',
-);
-const LENGTH_FACTORS = factorsToSI<LengthUnit>({ m: 'm', ft: 'ft' }, 'm');
-const DIAMETER_FACTORS = factorsToSI<DiameterUnit>({ mm: 'mm', in: 'inch', m: 'm' }, 'm');
-const PRESSURE_FACTORS = factorsToSI<PressureUnit>({ Pa: 'Pa', kPa: 'kPa', bar: 'bar', psi: 'psi' }, 'Pa');
-const POWER_FACTORS = factorsToSI<PowerUnit>({ W: 'W', kW: 'kW', hp: 'hp' }, 'W');
-const VOLUME_FACTORS = factorsToSI<VolumeUnit>({ m3: 'm^3', L: 'liter', gal: 'gallon' }, 'm^3');
-const VELOCITY_FACTORS = factorsToSI<VelocityUnit>({ 'm/s': 'm/s', 'ft/s': 'ft/s' }, 'm/s');
+/** Each unit's size in SI (m3/s, m, Pa, W, m3, m/s), from the definitions above. */
+export const UNIT_FACTORS_TO_SI = Object.freeze({
+  flow: Object.freeze<Record<FlowUnit, number>>({
+    gpm: US_GALLON / MINUTE,
+    gph: US_GALLON / HOUR,
+    'L/h': LITRE / HOUR,
+    'L/min': LITRE / MINUTE,
+    'L/s': LITRE,
+    'm3/h': 1 / HOUR,
+    'm3/s': 1,
+  }),
+  length: Object.freeze<Record<LengthUnit, number>>({ m: 1, ft: FOOT }),
+  diameter: Object.freeze<Record<DiameterUnit, number>>({ mm: 1e-3, in: INCH, m: 1 }),
+  pressure: Object.freeze<Record<PressureUnit, number>>({ Pa: 1, kPa: 1e3, bar: 1e5, psi: POUND_FORCE / INCH ** 2 }),
+  power: Object.freeze<Record<PowerUnit, number>>({ W: 1, kW: 1e3, hp: 550 * FOOT * POUND_FORCE }),
+  volume: Object.freeze<Record<VolumeUnit, number>>({ m3: 1, L: LITRE, gal: US_GALLON }),
+  velocity: Object.freeze<Record<VelocityUnit, number>>({ 'm/s': 1, 'ft/s': FOOT }),
+});
+
+const FLOW_FACTORS = UNIT_FACTORS_TO_SI.flow;
+const LENGTH_FACTORS = UNIT_FACTORS_TO_SI.length;
+const DIAMETER_FACTORS = UNIT_FACTORS_TO_SI.diameter;
+const PRESSURE_FACTORS = UNIT_FACTORS_TO_SI.pressure;
+const POWER_FACTORS = UNIT_FACTORS_TO_SI.power;
+const VOLUME_FACTORS = UNIT_FACTORS_TO_SI.volume;
+const VELOCITY_FACTORS = UNIT_FACTORS_TO_SI.velocity;
 
 /** A pair of conversions between `U` and the SI unit of one quantity. */
 interface Conversion<U extends string> {
@@ -109,7 +118,7 @@ const VOLUME = conversion(VOLUME_FACTORS, VOLUME_UNITS, 'volume', '/volumeUnit')
 const VELOCITY = conversion(VELOCITY_FACTORS, VELOCITY_UNITS, 'velocity', '/velocityUnit');
 
 /**
- * Flow in `unitName` to m3/s: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * Flow in `unitName` to m3/s: value times the unit's factor from the definitions of NIST SP 811 (2008), App. B.
  * @param value - flow in `unitName`
  * @param unitName - one of FLOW_UNITS
  * @param field - JSON pointer named when the value or unit is rejected
@@ -143,7 +152,7 @@ export const flowFromSI = FLOW.fromSI;
  */
 export const convertFlow = FLOW.between;
 /**
- * Head in `unitName` to m: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * Head in `unitName` to m: value times the unit's factor from the definitions of NIST SP 811 (2008), App. B.
  * @param value - head in `unitName`
  * @param unitName - one of HEAD_UNITS
  * @param field - JSON pointer named when the value or unit is rejected
@@ -177,7 +186,7 @@ export const headFromSI = HEAD.fromSI;
  */
 export const convertHead = HEAD.between;
 /**
- * Pipe length in `unitName` to m: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * Pipe length in `unitName` to m: value times the unit's factor from the definitions of NIST SP 811 (2008), App. B.
  * @param value - pipe length in `unitName`
  * @param unitName - one of LENGTH_UNITS
  * @param field - JSON pointer named when the value or unit is rejected
@@ -211,7 +220,7 @@ export const lengthFromSI = LENGTH.fromSI;
  */
 export const convertLength = LENGTH.between;
 /**
- * Diameter in `unitName` to m: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * Diameter in `unitName` to m: value times the unit's factor from the definitions of NIST SP 811 (2008), App. B.
  * @param value - diameter in `unitName`
  * @param unitName - one of DIAMETER_UNITS
  * @param field - JSON pointer named when the value or unit is rejected
@@ -245,7 +254,7 @@ export const diameterFromSI = DIAMETER.fromSI;
  */
 export const convertDiameter = DIAMETER.between;
 /**
- * Pressure in `unitName` to Pa: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * Pressure in `unitName` to Pa: value times the unit's factor from the definitions of NIST SP 811 (2008), App. B.
  * @param value - pressure in `unitName`
  * @param unitName - one of PRESSURE_UNITS
  * @param field - JSON pointer named when the value or unit is rejected
@@ -267,7 +276,7 @@ export const pressureToSI = PRESSURE.toSI;
  */
 export const pressureFromSI = PRESSURE.fromSI;
 /**
- * Power in `unitName` to W: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * Power in `unitName` to W: value times the unit's factor from the definitions of NIST SP 811 (2008), App. B.
  * @param value - power in `unitName`
  * @param unitName - one of POWER_UNITS
  * @param field - JSON pointer named when the value or unit is rejected
@@ -289,7 +298,7 @@ export const powerToSI = POWER.toSI;
  */
 export const powerFromSI = POWER.fromSI;
 /**
- * Volume in `unitName` to m3: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * Volume in `unitName` to m3: value times the unit's factor from the definitions of NIST SP 811 (2008), App. B.
  * @param value - volume in `unitName`
  * @param unitName - one of VOLUME_UNITS
  * @param field - JSON pointer named when the value or unit is rejected
@@ -311,7 +320,7 @@ export const volumeToSI = VOLUME.toSI;
  */
 export const volumeFromSI = VOLUME.fromSI;
 /**
- * Velocity in `unitName` to m/s: value times the unit's factor from mathjs's definitions (NIST SP 811 (2008), App. B).
+ * Velocity in `unitName` to m/s: value times the unit's factor from the definitions of NIST SP 811 (2008), App. B.
  * @param value - velocity in `unitName`
  * @param unitName - one of VELOCITY_UNITS
  * @param field - JSON pointer named when the value or unit is rejected

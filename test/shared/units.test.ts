@@ -1,5 +1,6 @@
 import { expect } from 'chai';
 import fc from 'fast-check';
+import { unit } from 'mathjs';
 import {
   convertFlow,
   convertHead,
@@ -27,12 +28,47 @@ import {
   volumeFromSI,
   volumeToSI,
   convertDiameter,
+  UNIT_FACTORS_TO_SI,
   waterDensity,
   type FlowUnit,
 } from '../../shared/hydraulics';
 import { refusalOf } from '../support/engine-refusal';
 
+/** Each accepted unit as mathjs names it, with the SI unit of its quantity. */
+const mathjsNames: Record<keyof typeof UNIT_FACTORS_TO_SI, { si: string; units: Record<string, string> }> = {
+  flow: {
+    si: 'm^3/s',
+    units: {
+      gpm: 'gallon/minute',
+      gph: 'gallon/hour',
+      'L/h': 'liter/hour',
+      'L/min': 'liter/minute',
+      'L/s': 'liter/second',
+      'm3/h': 'm^3/hour',
+      'm3/s': 'm^3/s',
+    },
+  },
+  length: { si: 'm', units: { m: 'm', ft: 'ft' } },
+  diameter: { si: 'm', units: { mm: 'mm', in: 'inch', m: 'm' } },
+  pressure: { si: 'Pa', units: { Pa: 'Pa', kPa: 'kPa', bar: 'bar', psi: 'psi' } },
+  power: { si: 'W', units: { W: 'W', kW: 'kW', hp: 'hp' } },
+  volume: { si: 'm^3', units: { m3: 'm^3', L: 'liter', gal: 'gallon' } },
+  velocity: { si: 'm/s', units: { 'm/s': 'm/s', 'ft/s': 'ft/s' } },
+};
+
 describe('units', () => {
+  // mathjs's psi and hp sit 6e-11 (relative) below the exact pound-force definition used here; the rest agree to rounding
+  it("has every factor as mathjs's unit definitions give it, to 1e-10", () => {
+    for (const [quantity, { si, units }] of Object.entries(mathjsNames)) {
+      const factors = UNIT_FACTORS_TO_SI[quantity as keyof typeof UNIT_FACTORS_TO_SI] as Record<string, number>;
+      expect(Object.keys(factors).sort(), quantity).to.deep.equal(Object.keys(units).sort());
+      for (const [name, mathjsName] of Object.entries(units)) {
+        const expected = unit(1, mathjsName).toNumber(si);
+        expect(factors[name], `${quantity} ${name}`).to.be.closeTo(expected, expected * 1e-10);
+      }
+    }
+  });
+
   it('converts flows by the exact definitions (US gallon 3.785411784 L, NIST SP 811 Appendix B)', () => {
     expect(flowToSI(1, 'gpm')).to.be.closeTo(3.785411784e-3 / 60, 1e-18);
     expect(flowToSI(1, 'gph')).to.be.closeTo(3.785411784e-3 / 3600, 1e-18);
