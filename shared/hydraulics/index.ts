@@ -8,6 +8,7 @@ export * from './physical-constants';
 export * from './units';
 export * from './water-properties';
 export * from './pipe-catalogue';
+export * from './pipe-size-for-velocity';
 export * from './metric-pipe-series';
 export * from './fittings-catalogue';
 export * from './friction';
