@@ -20,6 +20,7 @@ import {
 import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
 import type { CatalogPump, CatalogSnapshot } from '../catalog/catalog-snapshot';
 import { costTermsOf, type RankedCandidate, type SelectionQuery } from './selection-query';
+import { pipeSizeSuggestions } from './pipe-size-suggestions';
 import { sampledCombinedCurve, searchCatalog } from './selection-search';
 import { unmetSummary, type BandMissFacts } from './selection-shortfalls';
 
@@ -196,6 +197,7 @@ export async function answerSelection(catalog: CatalogSnapshot, body: SelectionR
     inBand: outcome.inBand,
     candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body, branched)),
     ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
+    pipeSizeSuggestions: pipeSizeSuggestions(body.system, branched, query.flowMax, answerUnits(body.units)),
     warnings,
   };
 }

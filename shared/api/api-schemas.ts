@@ -43,6 +43,7 @@ export type EnergyInputs = Schemas['EnergyInputs'];
 export type SelectionRequest = Schemas['SelectionRequest'];
 export type SelectionWarning = Schemas['SelectionWarning'];
 export type SelectionCandidate = Schemas['SelectionCandidate'];
+export type PipeSizeSuggestion = Schemas['PipeSizeSuggestion'];
 export type SelectionResponse = Schemas['SelectionResponse'];
 
 // Catalog and curve imports.

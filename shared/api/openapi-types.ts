@@ -1282,7 +1282,23 @@ export interface components {
             inBand: number;
             candidates: components["schemas"]["SelectionCandidate"][];
             gravityFlow?: components["schemas"]["GravityFlow"];
+            /** @description Segments whose velocity at the top of the band (total flow; a branch at its share of it) is over 5 ft/s (1.524 m/s, common practice for plastic pipe), each with the smallest size of its own series that keeps it under. Segments with a custom bore are not judged. Empty when no segment is over. */
+            pipeSizeSuggestions: components["schemas"]["PipeSizeSuggestion"][];
             warnings: string[];
+        };
+        PipeSizeSuggestion: {
+            /** @description JSON pointer to the segment in the request, e.g. /body/system/segments/0. */
+            segment: string;
+            /** @description The segment's size id. */
+            pipe: string;
+            pipeLabel: string;
+            /** @description The segment's flow at the top of the band, in flow units. */
+            flow: number;
+            /** @description Its velocity there, in length units per second. */
+            velocity: number;
+            /** @description The smallest size of the same series under the limit; null when none is large enough. */
+            suggestedPipe: string | null;
+            suggestedLabel: string | null;
         };
         /** @enum {string} */
         PumpKind: "submersible" | "external-centrifugal" | "mixed-flow";
