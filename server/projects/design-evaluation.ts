@@ -1,6 +1,6 @@
 import type { CalculationUnits, ChoiceOutcome, DesignDraft, DesignOutcome } from '../../shared/api/api-schemas';
 import { DESIGN_UNITS, designPipeSystem } from '../../shared/api/design-system';
-import { DEFAULT_NPSH_GUIDANCE, flowToSI, type CompiledSystemCurve } from '../../shared/hydraulics';
+import { DEFAULT_NPSH_GUIDANCE, flowToSI, motorEfficiencyFor, type CompiledSystemCurve } from '../../shared/hydraulics';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { dutyOfParallelPumps } from '../calculations/arrangement-duty';
 import { operatingPointSummary } from '../calculations/calculation-handlers';
@@ -11,7 +11,6 @@ import type { CatalogPump } from '../catalog/catalog-snapshot';
 import { CurveDeclaredRange, CurveRevision, Pump, Supplier } from '../database/models';
 import { costTermsOf, type SelectionQuery } from '../selection/selection-query';
 import { rankCandidate } from '../selection/selection-reasons';
-import { motorEfficiencyFor } from '../selection/wire-to-water';
 
 /*
  * A saved design worked out as the API works out a calculation and a search: its system through

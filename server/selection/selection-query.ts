@@ -2,6 +2,7 @@ import type { SelectionRequest } from '../../shared/api/api-schemas';
 import {
   presentValueOfGrowingAnnuity,
   type CompiledSystemCurve,
+  type MotorEfficiencyUsed,
   type NpshAtDuty,
   type NpshGuidance,
   type PreferredBand,
@@ -10,7 +11,6 @@ import {
 import type { DutyPoint, DutyWarning } from '../calculations/arrangement-duty';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
 import type { SelectionRequirement } from './selection-shortfalls';
-import type { MotorEfficiencyUsed } from './wire-to-water';
 
 /* What a selection search is asked (SI throughout) and what it answers. */
 

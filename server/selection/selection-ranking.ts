@@ -9,7 +9,7 @@ import {
   velocityExceeded,
 } from './selection-shortfalls';
 import type { BandSystemTable } from './system-table';
-import type { PumpTerms } from './wire-to-water';
+import type { PumpTerms } from './pump-terms';
 
 /** Rank keys are tier x TIER_SPAN + the rank value: no water-feature set costs or uses 1e12 a year. */
 export const TIER_SPAN = 1e12;

@@ -1,10 +1,15 @@
-import { annualEnergy, energyCost, lifeCycleCost, preferredFlowRegion } from '../../shared/hydraulics';
+import {
+  annualEnergy,
+  energyCost,
+  lifeCycleCost,
+  motorEfficiencyFor,
+  preferredFlowRegion,
+} from '../../shared/hydraulics';
 import { dutyOfParallelPumps, type DutyOutcome, type DutyPoint } from '../calculations/arrangement-duty';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
 import { npshOfPair, npshReason } from './npsh-ranking';
 import type { Money, RankedCandidate, SelectionQuery, SelectionWarningCode } from './selection-query';
 import { shortfallsOf, tierOfShortfalls, velocityExceeded } from './selection-shortfalls';
-import { motorEfficiencyFor } from './wire-to-water';
 
 function percent(value: number | null): string {
   return value === null ? '' : ` (${Math.round(value)} % of BEP)`;

@@ -1,4 +1,4 @@
-import { polynomialValue, solveOperatingPoint } from '../../shared/hydraulics';
+import { motorEfficiencyFor, polynomialValue, solveOperatingPoint } from '../../shared/hydraulics';
 import { dutyOfParallelPumps } from '../calculations/arrangement-duty';
 import type { CatalogPump, CatalogState } from '../catalog/catalog-snapshot';
 import { crossingInBracket } from './band-crossing';
@@ -9,7 +9,7 @@ import { rankCandidate } from './selection-reasons';
 import { screenPoint, TIER_SPAN, tierInBand, TopPairs } from './selection-ranking';
 import { OUT_OF_BAND_TIER } from './selection-shortfalls';
 import { BandSystemTable } from './system-table';
-import { motorEfficiencyFor, pumpTermsOf, type PumpTerms } from './wire-to-water';
+import { pumpTermsOf, type PumpTerms } from './pump-terms';
 
 /*
  * The duty-point search over the catalog snapshot, in SI. For each pump and each number of

@@ -26,6 +26,7 @@ export * from './operating-point';
 export * from './pump-arrangements';
 export * from './operating-regions';
 export * from './power-and-energy';
+export * from './wire-to-water';
 export * from './life-cycle-cost';
 export * from './affinity-laws';
 export * from './npsh';

@@ -6,7 +6,7 @@ import { rankCandidate } from '../../../server/selection/selection-reasons';
 import { screenPoint, TopPairs } from '../../../server/selection/selection-ranking';
 import type { SelectionQuery } from '../../../server/selection/selection-query';
 import type { BandSystemTable } from '../../../server/selection/system-table';
-import { pumpTermsOf } from '../../../server/selection/wire-to-water';
+import { pumpTermsOf } from '../../../server/selection/pump-terms';
 import { compileSystemCurve, DEFAULT_PREFERRED_BAND, fitPumpCurve, polynomialValue } from '../../../shared/hydraulics';
 
 /*
