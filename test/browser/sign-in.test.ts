@@ -41,6 +41,8 @@ describe('signing in and out in Chromium', function () {
     expect(labels).to.include.members(['Overview', 'API reference']);
     expect(labels.some((label) => ['Users', 'Audit log', 'Demo mailbox'].includes(label))).to.equal(false);
     expect(await page.locator('nav[aria-label="Account"]').innerText()).to.contain('Demo Designer');
+    // the account page leads a designer to the company profile that heads every proposal
+    expect(await page.getByRole('link', { name: 'company profile' }).getAttribute('href')).to.equal('/account/profile');
     await saveScreenshot(page, 'sign-in-designer');
   });
 

@@ -5,6 +5,7 @@ import { MatCardModule } from '@angular/material/card';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
 import type { ApiTokenSummary } from '../../../shared/api/api-schemas';
 import { roleLabel } from '../core/role-labels';
 import { SessionService } from '../core/session-service';
@@ -18,7 +19,7 @@ import { ChangePasswordForm } from './change-password-form';
  */
 @Component({
   selector: 'rf-account-page',
-  imports: [DatePipe, MatCardModule, MatTableModule, MatButtonModule, MatIconModule, ChangePasswordForm],
+  imports: [DatePipe, RouterLink, MatCardModule, MatTableModule, MatButtonModule, MatIconModule, ChangePasswordForm],
   templateUrl: './account-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
