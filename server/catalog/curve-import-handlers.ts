@@ -12,10 +12,10 @@ import { describeIssue } from '../../data-import/curve-import-plan';
 import {
   claimCurveImport,
   CurveImportRunningError,
-  importCurveTable,
   type CurveImportClaim,
   type ImportActor,
-} from './curve-import-transaction';
+} from './curve-import-claim';
+import { importCurveTable } from './curve-import-transaction';
 import { exportCurveTable } from './curve-table-export-query';
 import { curveTableLimits } from '../../data-import/curve-table-format';
 import { currentUser } from '../accounts/authenticated-user';
@@ -56,9 +56,13 @@ async function withUploadFolder<T>(work: (folder: string) => Promise<T>): Promis
 }
 
 /** The supplier held for this request's import, or 409 while another import of it runs. */
-function claimOrConflict(supplier: Supplier, actor: ImportActor): CurveImportClaim {
+async function claimOrConflict(
+  sequelize: Sequelize,
+  supplier: Supplier,
+  actor: ImportActor,
+): Promise<CurveImportClaim> {
   try {
-    return claimCurveImport(supplier, actor);
+    return await claimCurveImport(sequelize, supplier, actor);
   } catch (error) {
     if (!(error instanceof CurveImportRunningError)) throw error;
     throw new ProblemError(
@@ -221,7 +225,7 @@ export function createCurveImportHandlers(sequelize: Sequelize) {
     const supplier = await supplierFor(request);
     const user = currentUser(request);
     const actor: ImportActor = { userId: user.id, label: user.email, channel: 'api' };
-    const claim = claimOrConflict(supplier, actor);
+    const claim = await claimOrConflict(sequelize, supplier, actor);
     let report: CurveImportReport;
     try {
       // The upload is read whole before the answer, so the file is gone when the caller hears back.
@@ -240,7 +244,7 @@ export function createCurveImportHandlers(sequelize: Sequelize) {
         });
       });
     } finally {
-      claim.release();
+      await claim.release();
     }
     if (report.errors.length > 0) throw refused(report);
     await sendReport(response, report.committed ? 201 : 200, report);

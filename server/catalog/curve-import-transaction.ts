@@ -12,68 +12,15 @@ import { issue } from '../../data-import/curve-table-cells';
 import { readCurveTable, type ReadCurveTable } from '../../data-import/curve-table-reader';
 import { acceptedEncodings, CurveTableDecoder, type UndecodableBytes } from '../../data-import/curve-table-stream';
 import { CurveImport, type Supplier } from '../database/models';
-import type { CurveImportChannel } from '../database/models/curve-import';
+import { claimCurveImport, type CurveImportClaim, type ImportActor } from './curve-import-claim';
 import { loadExistingPumps, writePumps } from './curve-store';
 
 /*
  * The one import path, used by the command, the API and the demo seed: read and check the file
  * (data-import), compare with what the supplier already has and, unless a dry run, write every
- * pump of the file in one transaction, or none. One import per supplier runs at a time in a
- * process, dry run or not, so that two large files never share the memory an import may take;
- * across processes (the command beside the server) commits still wait on the supplier's row lock.
+ * pump of the file in one transaction, or none. One import per supplier runs at a time, across
+ * processes (curve-import-claim.ts).
  */
-
-export interface ImportActor {
-  /** The account that imports; null for the command line and the demo seed. */
-  userId: number | null;
-  /** Who, readably: an e-mail, or "command line (user)". */
-  label: string;
-  channel: CurveImportChannel;
-}
-
-/** Who started a supplier's running import, and when: what a refused second import is told. */
-export interface RunningImport {
-  supplierCode: string;
-  channel: CurveImportChannel;
-  by: string;
-  startedAt: Date;
-}
-
-/** A second import of a supplier while one runs; the API answers it with 409. */
-export class CurveImportRunningError extends Error {
-  constructor(readonly running: RunningImport) {
-    super(
-      `an import of ${running.supplierCode}'s curve table (${running.channel}, by ${running.by}) has been running since ${running.startedAt.toISOString()}; try again when it has finished`,
-    );
-  }
-}
-
-/** The supplier held for one import until `release`. */
-export interface CurveImportClaim {
-  readonly supplierId: number;
-  release(): void;
-}
-
-const runningImports = new Map<number, RunningImport>();
-
-/** Holds the supplier for one import, or throws CurveImportRunningError while another holds it. */
-export function claimCurveImport(supplier: Supplier, actor: ImportActor): CurveImportClaim {
-  const running = runningImports.get(supplier.id);
-  if (running) throw new CurveImportRunningError(running);
-  const mine: RunningImport = {
-    supplierCode: supplier.code,
-    channel: actor.channel,
-    by: actor.label,
-    startedAt: new Date(),
-  };
-  runningImports.set(supplier.id, mine);
-  return {
-    supplierId: supplier.id,
-    release: () => {
-      if (runningImports.get(supplier.id) === mine) runningImports.delete(supplier.id);
-    },
-  };
-}
 
 export interface CurveImportOptions {
   sequelize: Sequelize;
@@ -119,11 +66,11 @@ export async function importCurveTable(options: CurveImportOptions): Promise<Cur
     if (options.claim.supplierId !== options.supplier.id) throw new Error('the claim is for another supplier');
     return importClaimed(options);
   }
-  const claim = claimCurveImport(options.supplier, options.actor);
+  const claim = await claimCurveImport(options.sequelize, options.supplier, options.actor);
   try {
     return await importClaimed(options);
   } finally {
-    claim.release();
+    await claim.release();
   }
 }
 

@@ -7,6 +7,7 @@ import { parseArgs } from 'node:util';
 import cliProgress from 'cli-progress';
 import type { CurveImportReport } from '../../shared/api/api-schemas';
 import { describeIssue, type ImportPhase } from '../../data-import/curve-import-plan';
+import { CurveImportRunningError } from '../catalog/curve-import-claim';
 import { importCurveTable } from '../catalog/curve-import-transaction';
 import { ConfigError, loadConfig } from '../config';
 import { createSequelize } from '../database/connection';
@@ -129,7 +130,9 @@ main().then(
     process.exitCode = code;
   },
   (error: unknown) => {
-    console.error(error instanceof ConfigError || error instanceof MariaDbStartError ? error.message : error);
+    const told =
+      error instanceof ConfigError || error instanceof MariaDbStartError || error instanceof CurveImportRunningError;
+    console.error(told ? error.message : error);
     process.exitCode = 1;
   },
 );

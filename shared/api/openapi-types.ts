@@ -533,8 +533,8 @@ export interface paths {
          *     offset. The file name follows the rule for names people type (no control or
          *     bidirectional characters): otherwise 422 with `pointer` `/body/file`.
          *
-         *     A supplier has one import at a time, dry run or not: while one runs (from its upload on),
-         *     another for the same supplier is answered with 409 problem details of type
+         *     A supplier has one import at a time, dry run or not, whether it came through the API or the
+         *     import command: while one runs (from its upload on), another for the same supplier is answered with 409 problem details of type
          *     `/api/v1/problems/curve-import-running`, whose `runningImport` says who started the running
          *     one, how and when.
          */

@@ -5,10 +5,13 @@ import { request as httpRequest, type IncomingMessage, type Server } from 'node:
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { Readable } from 'node:stream';
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
 import type { CurveImportReport } from '../../../shared/api/api-schemas';
 import { createApp } from '../../../server/app';
+import { claimCurveImport, CurveImportRunningError } from '../../../server/catalog/curve-import-claim';
+import { importCurveTable } from '../../../server/catalog/curve-import-transaction';
 import { Supplier } from '../../../server/database/models';
 import { createLogger } from '../../../server/logging';
 import { createUserWithSession, testPassword } from '../../support/accounts';
@@ -124,6 +127,41 @@ describe('curve-table uploads', function () {
     expect(await catalogRowCounts(sequelize)).to.deep.equal(before);
     // Released: the same supplier may import again.
     await upload(suppliers[0], table).expect(200);
+  });
+
+  it('holds a supplier across processes: an upload is refused while the command holds it, and the command while an upload does', async () => {
+    // a claim on a connection of its own is what the import command in its own process takes
+    const command = { userId: null, label: 'command line (tester)', channel: 'command' as const };
+    const held = await claimCurveImport(sequelize, suppliers[0], command);
+    try {
+      const refused = await upload(suppliers[0], table).expect(409);
+      expect(refused.body.runningImport).to.include({ channel: 'command', by: 'command line (tester)' });
+      await upload(suppliers[1], table).expect(200);
+    } finally {
+      await held.release();
+    }
+    await upload(suppliers[0], table).expect(200);
+
+    const api = { userId: null, label: email, channel: 'api' as const };
+    const upload0 = await claimCurveImport(sequelize, suppliers[0], api);
+    try {
+      const attempt = importCurveTable({
+        sequelize,
+        supplier: suppliers[0],
+        source: Readable.from([table]),
+        fileName: 'from-the-command.csv',
+        dryRun: false,
+        actor: command,
+      });
+      const error = await attempt.then(
+        () => null,
+        (caught: unknown) => caught,
+      );
+      expect(error).to.be.instanceOf(CurveImportRunningError);
+      expect((error as CurveImportRunningError).running).to.include({ channel: 'api', by: email });
+    } finally {
+      await upload0.release();
+    }
   });
 
   it('removes the uploaded file whatever the answer: 201, 422, 413, 400', async () => {
