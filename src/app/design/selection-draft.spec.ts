@@ -15,6 +15,7 @@ function results(...pumpIds: number[]): SelectionResponse {
     unmet: null,
     considered: pumpIds.length,
     inBand: pumpIds.length,
+    pipeSizeSuggestions: [],
     candidates: pumpIds.map((pumpId) => ({ pumpId, arrangement: { installed: 1, running: 1 } }) as SelectionCandidate),
     warnings: [],
   };
