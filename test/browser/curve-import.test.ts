@@ -75,6 +75,36 @@ describe('a supplier admin loads a curve table in Chromium', function () {
     expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
   });
 
+  it('shows the send in progress and can cancel it: nothing is saved and the preview is not replaced', async () => {
+    const { page } = app;
+    // hold the upload so that the send is still running when Cancel is pressed
+    let held = 0;
+    await page.route('**/curve-imports', (route) => {
+      if (route.request().method() !== 'POST') return route.continue();
+      held += 1;
+      return new Promise<void>(() => undefined);
+    });
+    try {
+      await page.getByRole('button', { name: /Commit 1 pump/ }).click();
+      const progress = page.getByRole('region', { name: 'Progress' });
+      await progress.waitFor();
+      expect(await progress.locator('mat-progress-bar').count()).to.equal(1);
+      expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
+      await progress.getByRole('button', { name: 'Cancel' }).click();
+      await progress.waitFor({ state: 'detached' });
+      expect(await page.locator('.rf-problem').innerText()).to.contain('Cancelled: nothing was saved');
+      expect(held).to.equal(1);
+    } finally {
+      await page.unroute('**/curve-imports');
+    }
+    const [stored] = await app.sequelize.query<{ n: number }>(
+      "SELECT COUNT(*) AS n FROM pumps WHERE model_code = 'BRW-7'",
+      { type: QueryTypes.SELECT },
+    );
+    expect(Number(stored.n)).to.equal(0);
+    await page.locator('.rf-summary', { hasText: 'Preview: nothing is saved yet' }).waitFor();
+  });
+
   it('commits, downloads the current table with the new pump, and the pump appears in the catalog with its curve', async () => {
     const { page } = app;
     await page.getByRole('button', { name: /Commit 1 pump/ }).click();

@@ -1,4 +1,4 @@
-import { HttpClient, type HttpResponse } from '@angular/common/http';
+import { HttpClient, type HttpEvent, type HttpResponse } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
 import type { CurveImportList, CurveImportReport } from '../../../shared/api/api-schemas';
@@ -8,11 +8,15 @@ import type { CurveImportList, CurveImportReport } from '../../../shared/api/api
 export class CurveImportApi {
   private readonly http = inject(HttpClient);
 
-  importCurveTable(supplierId: number, file: File, dryRun: boolean): Observable<CurveImportReport> {
+  /** The upload's events (progress of the bytes sent, then the report); unsubscribing aborts it. */
+  importCurveTable(supplierId: number, file: File, dryRun: boolean): Observable<HttpEvent<CurveImportReport>> {
     const body = new FormData();
     body.append('dryRun', String(dryRun));
     body.append('file', file, file.name);
-    return this.http.post<CurveImportReport>(`/api/v1/suppliers/${supplierId}/curve-imports`, body);
+    return this.http.post<CurveImportReport>(`/api/v1/suppliers/${supplierId}/curve-imports`, body, {
+      observe: 'events',
+      reportProgress: true,
+    });
   }
 
   listCurveImports(supplierId: number): Observable<CurveImportList> {

@@ -1,11 +1,12 @@
-import { HttpErrorResponse } from '@angular/common/http';
+import { HttpErrorResponse, HttpEventType } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
-import { catchError, map, of } from 'rxjs';
+import { catchError, map, of, type Subscription } from 'rxjs';
 import type { CurveImportIssue, CurveImportRecord, CurveImportReport } from '../../../shared/api/api-schemas';
 import { CatalogApi } from '../catalog/catalog-api';
 import { displayUnitChoices, kindLabels, showFlow, showHead } from '../shared/display-units';
@@ -24,7 +25,7 @@ const outcomeLabels: Record<string, string> = {
 /** For supplier admins: check a curve-table file, preview every pump with its fit, commit it, see past imports, download the current table. */
 @Component({
   selector: 'rf-curve-import-page',
-  imports: [MatButtonModule, MatIconModule, MatSelectModule, MatTableModule, PumpCurveChart],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatSelectModule, MatTableModule, PumpCurveChart],
   templateUrl: './curve-import-page.html',
   styleUrl: './curve-import-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -77,6 +78,11 @@ export class CurveImportPage {
   protected readonly report = signal<CurveImportReport | null>(null);
   protected readonly problem = signal<string | null>(null);
   protected readonly busy = signal(false);
+  /** While busy: the share of the file sent (0-1), then null while the server checks it. */
+  protected readonly sent = signal<number | null>(0);
+  /** Whether the running send is a commit, which the server finishes once the file has arrived. */
+  protected readonly committing = signal(false);
+  private running: Subscription | null = null;
   protected readonly history = signal<CurveImportRecord[]>([]);
 
   protected readonly errors = computed<CurveImportIssue[]>(() => this.report()?.errors ?? []);
@@ -141,20 +147,44 @@ export class CurveImportPage {
     const supplierId = this.supplierId();
     if (!file || supplierId === null) return;
     this.busy.set(true);
+    this.sent.set(0);
+    this.committing.set(!dryRun);
     this.problem.set(null);
-    this.api.importCurveTable(supplierId, file, dryRun).subscribe({
-      next: (report) => {
-        this.report.set(report);
-        this.busy.set(false);
-        if (!dryRun) this.loadHistory(supplierId);
+    this.running = this.api.importCurveTable(supplierId, file, dryRun).subscribe({
+      next: (event) => {
+        if (event.type === HttpEventType.UploadProgress) {
+          const fraction = event.total ? event.loaded / event.total : 0;
+          this.sent.set(fraction >= 1 ? null : fraction);
+        } else if (event.type === HttpEventType.Response && event.body) {
+          this.report.set(event.body);
+          this.finished();
+          if (!dryRun) this.loadHistory(supplierId);
+        }
       },
       error: (error: HttpErrorResponse) => {
-        this.busy.set(false);
+        this.finished();
         const refused = (error.error as { report?: CurveImportReport } | null)?.report;
         if (refused) this.report.set(refused);
         else this.problem.set((error.error as { detail?: string } | null)?.detail ?? 'The file could not be sent.');
       },
     });
+  }
+
+  /** Stops the send: the upload is aborted, and nothing is saved unless a commit's file had already arrived. */
+  protected cancel(): void {
+    const arrived = this.sent() === null;
+    this.running?.unsubscribe();
+    this.finished();
+    this.problem.set(
+      this.committing() && arrived
+        ? 'Stopped waiting: the whole file had arrived, so the server finishes the save. Check the history below.'
+        : 'Cancelled: nothing was saved.',
+    );
+  }
+
+  private finished(): void {
+    this.running = null;
+    this.busy.set(false);
   }
 
   private loadHistory(supplierId: number): void {
