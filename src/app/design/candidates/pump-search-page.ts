@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import {
   NonNullableFormBuilder,
   ReactiveFormsModule,
@@ -14,37 +14,16 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
-import { MatSortModule, type Sort } from '@angular/material/sort';
-import { MatTableModule } from '@angular/material/table';
-import { RouterLink } from '@angular/router';
-import type { SelectionCandidate } from '../../../../shared/api/api-schemas';
 import { designSelectionRequest } from '../../../../shared/api/design-system';
 import { CalculationsApi } from '../calculations-api';
-import { candidateKey, maxCompared, SelectionDraft, type SearchSettings } from '../selection-draft';
-import { missesLabel, moneyLabel, motorLabel, rankByWords, type RankBy } from '../energy-and-costs';
+import { SelectionDraft, type SearchSettings } from '../selection-draft';
+import type { RankBy } from '../energy-and-costs';
+import { CandidateResults } from './candidate-results';
 
 /** At least one arrangement must be ticked. */
 function someArrangement(group: AbstractControl): ValidationErrors | null {
   return Object.values(group.value as Record<string, boolean>).some(Boolean) ? null : { noArrangement: true };
 }
-
-const sortValues: Record<string, (candidate: SelectionCandidate) => number | string> = {
-  rank: (candidate) => candidate.rank,
-  pump: (candidate) => `${candidate.supplier} ${candidate.model}`,
-  arrangement: (candidate) => candidate.arrangement.running,
-  flow: (candidate) => candidate.operatingPoint.flow,
-  head: (candidate) => candidate.operatingPoint.head,
-  bep: (candidate) => candidate.operatingPoint.percentOfBep ?? -1,
-  region: (candidate) => candidate.region,
-  power: (candidate) => candidate.operatingPoint.inputPower ?? Number.POSITIVE_INFINITY,
-  energy: (candidate) => candidate.annualKWh ?? Number.POSITIVE_INFINITY,
-  cost: (candidate) => candidate.annualCost ?? Number.POSITIVE_INFINITY,
-  price: (candidate) => candidate.listPrice?.amount ?? Number.POSITIVE_INFINITY,
-  firstCost: (candidate) => candidate.firstCost?.amount ?? Number.POSITIVE_INFINITY,
-  lifeCycleCost: (candidate) => candidate.lifeCycleCost?.amount ?? Number.POSITIVE_INFINITY,
-  misses: (candidate) => candidate.misses.length,
-  oneFailed: (candidate) => candidate.oneFailed?.flow ?? -1,
-};
 
 /** Step 3: the search over the catalog and its ranked candidates. */
 @Component({
@@ -52,7 +31,7 @@ const sortValues: Record<string, (candidate: SelectionCandidate) => number | str
   imports: [
     DecimalPipe,
     ReactiveFormsModule,
-    RouterLink,
+    CandidateResults,
     MatButtonModule,
     MatCheckboxModule,
     MatFormFieldModule,
@@ -60,8 +39,6 @@ const sortValues: Record<string, (candidate: SelectionCandidate) => number | str
     MatInputModule,
     MatProgressBarModule,
     MatSlideToggleModule,
-    MatSortModule,
-    MatTableModule,
   ],
   templateUrl: './pump-search-page.html',
   styleUrls: ['../design-page.scss', './pump-search-page.scss'],
@@ -72,31 +49,8 @@ export class PumpSearchPage {
   private readonly api = inject(CalculationsApi);
   protected readonly draft = inject(SelectionDraft);
   protected readonly units = this.draft.units;
-  protected readonly maxCompared = maxCompared;
   protected readonly searching = signal(false);
   protected readonly failed = signal(false);
-  private readonly sort = signal<Sort>({ active: 'rank', direction: 'asc' });
-
-  protected readonly columns = [
-    'compare',
-    'rank',
-    'pump',
-    'arrangement',
-    'flow',
-    'head',
-    'bep',
-    'region',
-    'power',
-    'energy',
-    'cost',
-    'price',
-    'firstCost',
-    'lifeCycleCost',
-    'oneFailed',
-    'misses',
-    'warnings',
-    'reasons',
-  ];
 
   private readonly settings = this.draft.search();
   protected readonly form = this.formBuilder.group({
@@ -149,26 +103,6 @@ export class PumpSearchPage {
     ]),
   });
 
-  protected readonly rows = computed(() => {
-    const candidates = [...(this.draft.results()?.candidates ?? [])];
-    const { active, direction } = this.sort();
-    const value = sortValues[active];
-    if (!value || direction === '') return candidates;
-    const sign = direction === 'asc' ? 1 : -1;
-    return candidates.sort((a, b) => {
-      const [left, right] = [value(a), value(b)];
-      return sign * (typeof left === 'string' ? left.localeCompare(String(right)) : left - (right as number));
-    });
-  });
-
-  protected readonly compared = computed(() => new Set(this.draft.compared()));
-
-  protected key = candidateKey;
-
-  protected sortBy(sort: Sort): void {
-    this.sort.set(sort);
-  }
-
   protected search(): void {
     this.form.markAllAsTouched();
     if (this.form.invalid) return;
@@ -207,20 +141,5 @@ export class PumpSearchPage {
         this.searching.set(false);
       },
     });
-  }
-
-  protected toggle(candidate: SelectionCandidate): void {
-    this.draft.toggleCompared(candidateKey(candidate));
-  }
-
-  protected readonly rankByWords = rankByWords;
-  protected readonly motorLabel = motorLabel;
-  protected readonly moneyLabel = moneyLabel;
-
-  protected readonly missesLabel = missesLabel;
-
-  protected arrangementLabel(candidate: SelectionCandidate): string {
-    const { running, installed } = candidate.arrangement;
-    return `${running === 1 ? 'single' : `${running} in parallel`}${installed > running ? ' + standby' : ''}`;
   }
 }

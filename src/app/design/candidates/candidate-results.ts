@@ -1,0 +1,132 @@
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSortModule, type Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
+import type { SelectionCandidate, SelectionResponse } from '../../../../shared/api/api-schemas';
+import { VELOCITY_WARNING_LIMIT, velocityFromSI } from '../../../../shared/hydraulics';
+import { missesLabel, moneyLabel, motorLabel, rankByWords } from '../energy-and-costs';
+import { candidateKey, maxCompared, SelectionDraft } from '../selection-draft';
+import { CandidateColumns, choosableColumns } from './candidate-columns';
+
+const sortValues: Record<string, (candidate: SelectionCandidate) => number | string> = {
+  rank: (candidate) => candidate.rank,
+  pump: (candidate) => `${candidate.supplier} ${candidate.model}`,
+  arrangement: (candidate) => candidate.arrangement.running,
+  flow: (candidate) => candidate.operatingPoint.flow,
+  head: (candidate) => candidate.operatingPoint.head,
+  bep: (candidate) => candidate.operatingPoint.percentOfBep ?? -1,
+  region: (candidate) => candidate.region,
+  power: (candidate) => candidate.operatingPoint.inputPower ?? Number.POSITIVE_INFINITY,
+  energy: (candidate) => candidate.annualKWh ?? Number.POSITIVE_INFINITY,
+  cost: (candidate) => candidate.annualCost ?? Number.POSITIVE_INFINITY,
+  price: (candidate) => candidate.listPrice?.amount ?? Number.POSITIVE_INFINITY,
+  firstCost: (candidate) => candidate.firstCost?.amount ?? Number.POSITIVE_INFINITY,
+  lifeCycleCost: (candidate) => candidate.lifeCycleCost?.amount ?? Number.POSITIVE_INFINITY,
+  misses: (candidate) => candidate.misses.length,
+  oneFailed: (candidate) => candidate.oneFailed?.flow ?? -1,
+};
+
+/** How a candidate's pumps run, in words. */
+export function arrangementLabel(candidate: Pick<SelectionCandidate, 'arrangement'>): string {
+  const { running, installed } = candidate.arrangement;
+  return `${running === 1 ? 'single' : `${running} in parallel`}${installed > running ? ' + standby' : ''}`;
+}
+
+/** The words a filter matches a candidate by: its pump, maker, code, arrangement, region, misses, warnings and reasons. */
+function filterText(candidate: SelectionCandidate): string {
+  return [
+    candidate.model,
+    candidate.supplier,
+    candidate.modelCode,
+    arrangementLabel(candidate),
+    candidate.region,
+    missesLabel(candidate),
+    ...candidate.warnings,
+    ...candidate.reasons,
+  ]
+    .join(' ')
+    .toLocaleLowerCase();
+}
+
+/**
+ * The search's answer: the ranked candidates as a table on a wide screen (columns of the designer's
+ * choosing, pump kept in view, sortable) and as cards on a phone, both narrowed by one filter box.
+ */
+@Component({
+  selector: 'rf-candidate-results',
+  imports: [
+    DecimalPipe,
+    RouterLink,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+  ],
+  templateUrl: './candidate-results.html',
+  styleUrls: ['../design-page.scss', './candidate-results.scss'],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CandidateResults {
+  readonly results = input.required<SelectionResponse>();
+
+  private readonly draft = inject(SelectionDraft);
+  protected readonly columns = inject(CandidateColumns);
+  protected readonly choosableColumns = choosableColumns;
+  protected readonly units = this.draft.units;
+  protected readonly maxCompared = maxCompared;
+  protected readonly filter = signal('');
+  private readonly sort = signal<Sort>({ active: 'rank', direction: 'asc' });
+
+  protected readonly velocityLimit = computed(() => {
+    const unit = this.units().length === 'ft' ? 'ft/s' : 'm/s';
+    return `${Number(velocityFromSI(VELOCITY_WARNING_LIMIT, unit).toFixed(1))} ${unit}`;
+  });
+
+  protected readonly rows = computed(() => {
+    const words = this.filter().trim().toLocaleLowerCase().split(/\s+/).filter(Boolean);
+    const candidates = this.results().candidates.filter((candidate) => {
+      const text = filterText(candidate);
+      return words.every((word) => text.includes(word));
+    });
+    const { active, direction } = this.sort();
+    const value = sortValues[active];
+    if (!value || direction === '') return candidates;
+    const sign = direction === 'asc' ? 1 : -1;
+    return candidates.sort((a, b) => {
+      const [left, right] = [value(a), value(b)];
+      return sign * (typeof left === 'string' ? left.localeCompare(String(right)) : left - (right as number));
+    });
+  });
+
+  protected readonly compared = computed(() => new Set(this.draft.compared()));
+
+  protected readonly key = candidateKey;
+  protected readonly arrangementLabel = arrangementLabel;
+  protected readonly rankByWords = rankByWords;
+  protected readonly motorLabel = motorLabel;
+  protected readonly moneyLabel = moneyLabel;
+  protected readonly missesLabel = missesLabel;
+
+  protected sortBy(sort: Sort): void {
+    this.sort.set(sort);
+  }
+
+  protected filterBy(event: Event): void {
+    this.filter.set((event.target as HTMLInputElement).value);
+  }
+
+  protected toggle(candidate: SelectionCandidate): void {
+    this.draft.toggleCompared(candidateKey(candidate));
+  }
+}
