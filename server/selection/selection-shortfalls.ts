@@ -97,13 +97,19 @@ export function unmetSummary(
   );
   const words = requirements.map((requirement) => requirementWords[requirement]).join(', ');
   if (noneInBand) {
+    // what was tried and failed goes in the summary; the list holds only what would reach the band
+    const threeInParallel = noneInBand.threeInParallelInBand;
+    const tried =
+      noneInBand.below && threeInParallel !== null && threeInParallel === 0
+        ? ' Three pumps in parallel do not reach it either.'
+        : noneInBand.below && threeInParallel === null
+          ? ' Three pumps in parallel were among the arrangements and do not reach it either.'
+          : '';
     const whatWould = noneInBand.below
       ? [
-          noneInBand.threeInParallelInBand === null
-            ? 'three pumps in parallel were tried and do not reach it either'
-            : noneInBand.threeInParallelInBand > 0
-              ? `three pumps in parallel: ${noneInBand.threeInParallelInBand} pump and arrangement pairs of the catalog reach the band`
-              : 'three pumps in parallel do not reach it either',
+          ...(threeInParallel !== null && threeInParallel > 0
+            ? [`three pumps in parallel: ${threeInParallel} pump and arrangement pairs of the catalog reach the band`]
+            : []),
           'a larger pipe: less friction lowers the head the system needs at the band',
           'a bigger class of pump: more flow at this head than any in the catalog gives',
         ]
@@ -114,7 +120,7 @@ export function unmetSummary(
     return {
       requirements,
       noneInBand: true,
-      summary: `No pump in the catalog reaches the duty band in the arrangements asked for. The nearest are listed by how far they fall ${noneInBand.below ? 'below' : 'above'} it.`,
+      summary: `No pump in the catalog reaches the duty band in the arrangements asked for. The nearest are listed by how far they fall ${noneInBand.below ? 'below' : 'above'} it.${tried}`,
       whatWould,
     };
   }
