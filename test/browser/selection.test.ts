@@ -59,6 +59,14 @@ describe('pump selection in Chromium', function () {
       before,
     );
     expect(await page.locator('rf-system-curve-preview svg path').count()).to.be.greaterThan(0);
+    // the preview's numbers: open the table and read no flow from 0 upwards with a rising head
+    await page.locator('rf-system-curve-preview summary').click();
+    const heads = (await page.locator('rf-system-curve-preview tbody tr td').allInnerTexts()).map((text) =>
+      Number(text.replaceAll(',', '')),
+    );
+    expect(heads.length).to.be.within(2, 13);
+    expect(heads[0]).to.be.closeTo(14.5, 0.05);
+    expect(heads).to.deep.equal([...heads].sort((a, b) => a - b));
     await saveScreenshot(page, 'site-and-system');
     expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
   });
@@ -143,6 +151,31 @@ describe('pump selection in Chromium', function () {
     await saveScreenshot(page, 'pump-comparison');
     expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
     expect(app.browser.offLoopbackRequests).to.deep.equal([]);
+  });
+
+  it('gives the chart its numbers in a table, collapsed until asked for, matching the marks', async () => {
+    const { page } = app;
+    const numbers = page.locator('rf-chart-numbers');
+    expect(await numbers.locator('table').first().isVisible()).to.equal(false);
+    await numbers.getByText('Numbers of this chart').click();
+    const points = numbers.getByRole('table', { name: 'Operating points' });
+    await points.waitFor();
+    const rows = await points.locator('tbody tr').allInnerTexts();
+    expect(rows.length).to.equal(3);
+    // each mark's label and its row give the same flow and head
+    const labels = await page
+      .locator('svg.rf-chart path.rf-operating-point')
+      .evaluateAll((marks) => marks.map((mark) => mark.getAttribute('aria-label') ?? ''));
+    for (const [index, label] of labels.entries()) {
+      const [, flow, head] = /: ([\d.]+) gpm at ([\d.]+) ft/.exec(label)!;
+      const cells = rows[index].split('\t');
+      expect(Number(cells[1].replaceAll(',', ''))).to.be.closeTo(Number(flow), 0.051);
+      expect(Number(cells[2].replaceAll(',', ''))).to.be.closeTo(Number(head), 0.051);
+    }
+    const curves = numbers.getByRole('table', { name: /Head at each flow/ });
+    expect(await curves.locator('thead th').count()).to.equal(5);
+    expect(await curves.locator('tbody tr').count()).to.equal(9);
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
   });
 
   it('puts the system, the band, the compared pumps, the chart and the cautions in a printable report', async () => {

@@ -22,7 +22,8 @@ import {
   type PumpCurveFit,
 } from '../../../shared/hydraulics';
 import { appendAxisTitle, drawChartFrame, inheritFont } from './chart-frame';
-import type { DisplayUnits } from './display-units';
+import { ChartNumbers, figure, type NumberTable } from './chart-numbers';
+import { showFlow, showHead, type DisplayUnits } from './display-units';
 
 /** Where the preferred band comes from: the supplier's declaration, or 70-120 % of BEP flow. */
 export interface PreferredBandShown {
@@ -39,6 +40,49 @@ export function preferredBandOf(fit: StoredPumpCurveFit | null, declared: FlowRa
   if (declared) return { range: declared, source: 'supplier' };
   const range = fit ? preferredFlowRegion(fit, DEFAULT_PREFERRED_BAND) : null;
   return range ? { range, source: 'bep' } : null;
+}
+
+/** A pump chart's numbers as tables: its published points, and the BEP and preferred band it marks. */
+export function pumpCurveNumbers(
+  points: readonly CurvePointSi[],
+  fit: StoredPumpCurveFit | null,
+  preferred: FlowRange | null,
+  units: DisplayUnits,
+): NumberTable[] {
+  const withEfficiency = points.some((point) => point.efficiency !== undefined);
+  const withPower = points.some((point) => point.power !== undefined);
+  const band = preferredBandOf(fit, preferred);
+  const marks: string[][] = [];
+  if (fit?.bep) {
+    marks.push([
+      'Best efficiency point',
+      `${showFlow(fit.bep.flow, units.flow)} ${units.flow}, ${showHead(fit.bep.head, units.head)} ${units.head}, ${figure(100 * fit.bep.efficiency, 0)} %`,
+    ]);
+  }
+  if (band) {
+    marks.push([
+      band.source === 'supplier' ? "Preferred region (supplier's)" : 'Preferred region (70-120 % of BEP flow)',
+      `${showFlow(band.range.flowMin, units.flow)} to ${showFlow(band.range.flowMax, units.flow)} ${units.flow}`,
+    ]);
+  }
+  return [
+    {
+      caption: 'Published points',
+      headers: [
+        `Flow (${units.flow})`,
+        `Head (${units.head})`,
+        ...(withEfficiency ? ['Efficiency (%)'] : []),
+        ...(withPower ? ['Power (W)'] : []),
+      ],
+      rows: points.map((point) => [
+        showFlow(point.flow, units.flow),
+        showHead(point.head, units.head),
+        ...(withEfficiency ? [figure(point.efficiency === undefined ? null : 100 * point.efficiency, 0)] : []),
+        ...(withPower ? [figure(point.power, 0)] : []),
+      ]),
+    },
+    ...(marks.length > 0 ? [{ caption: 'Marks on the chart', headers: ['Mark', 'Where'], rows: marks }] : []),
+  ];
 }
 
 const samples = 60;
@@ -74,11 +118,15 @@ const looks = {
 @Component({
   selector: 'rf-pump-curve-chart',
   template: `<svg
-    #chart
-    [attr.viewBox]="'0 0 ' + look().width + ' ' + look().height"
-    role="img"
-    [attr.aria-label]="description()"
-  ></svg>`,
+      #chart
+      [attr.viewBox]="'0 0 ' + look().width + ' ' + look().height"
+      role="img"
+      [attr.aria-label]="description()"
+    ></svg>
+    @if (!compact()) {
+      <rf-chart-numbers [tables]="numbers()" />
+    }`,
+  imports: [ChartNumbers],
   styleUrls: ['./chart-frame.scss'],
   styles: `
     :host {
@@ -108,6 +156,11 @@ export class PumpCurveChart {
       : '';
     return `Pump curve: head against flow, ${this.points().length} published points${bep}`;
   });
+
+  /** The published points, the BEP and the preferred band as tables, in the chosen units. */
+  protected readonly numbers = computed(() =>
+    pumpCurveNumbers(this.points(), this.fit(), this.preferred(), this.units()),
+  );
 
   constructor() {
     afterRenderEffect({ write: () => this.draw() });

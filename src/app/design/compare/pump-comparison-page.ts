@@ -20,11 +20,13 @@ import { unitSystems, type UnitSystem } from '../unit-systems';
 import { downloadPng, downloadSvg } from '../../shared/chart-export';
 import { chartStyle, drawComparisonChart, type ChartModel } from './comparison-chart';
 import { candidateLabel, comparisonModel, unitConverter } from './comparison-model';
+import { comparisonNumbers } from './comparison-numbers';
+import { ChartNumbers } from '../../shared/chart-numbers';
 
 /** Step 4: up to eight candidates on one chart and side by side in a table. */
 @Component({
   selector: 'rf-pump-comparison-page',
-  imports: [DecimalPipe, RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule],
+  imports: [ChartNumbers, DecimalPipe, RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule],
   templateUrl: './pump-comparison-page.html',
   styleUrls: ['../design-page.scss', '../../shared/chart-frame.scss', './pump-comparison-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -44,6 +46,12 @@ export class PumpComparisonPage {
       this.displayUnits(),
     ),
   );
+
+  /** The chart's figures as tables beside it. */
+  protected readonly numbers = computed(() => {
+    const model = this.model();
+    return model ? comparisonNumbers(model) : [];
+  });
 
   /** The hovered or focused point; none once the chart is redrawn, since its marks (and the hover) are gone. */
   protected readonly focused = linkedSignal<

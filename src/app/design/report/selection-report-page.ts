@@ -17,6 +17,8 @@ import { FITTINGS, PIPE_SERIES, flowToSI, headFromSI } from '../../../../shared/
 import { SessionService } from '../../core/session-service';
 import { drawComparisonChart } from '../compare/comparison-chart';
 import { candidateLabel, comparisonModel } from '../compare/comparison-model';
+import { comparisonNumbers } from '../compare/comparison-numbers';
+import { ChartNumbers } from '../../shared/chart-numbers';
 import { moneyLabel, motorLabel } from '../energy-and-costs';
 import { SelectionDraft } from '../selection-draft';
 import { compileDraft, staticHeadOf } from '../system-draft';
@@ -31,7 +33,7 @@ const reportedWithoutComparison = 3;
  */
 @Component({
   selector: 'rf-selection-report-page',
-  imports: [DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, ReportDocuments],
+  imports: [ChartNumbers, DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, ReportDocuments],
   templateUrl: './selection-report-page.html',
   styleUrls: ['../design-page.scss', '../../shared/chart-frame.scss', './selection-report-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -98,15 +100,25 @@ export class SelectionReportPage {
   protected readonly motorLabel = motorLabel;
   protected readonly moneyLabel = moneyLabel;
 
+  private readonly chartModel = computed(() =>
+    comparisonModel(
+      { system: this.draft.pipeSystem(), band: this.draft.band(), units: this.units() },
+      this.candidates(),
+      this.units(),
+    ),
+  );
+
+  /** The chart's figures as tables beside it. */
+  protected readonly numbers = computed(() => {
+    const model = this.chartModel();
+    return model ? comparisonNumbers(model) : [];
+  });
+
   constructor() {
     afterRenderEffect({
       write: () => {
         const element = this.chart()?.nativeElement;
-        const model = comparisonModel(
-          { system: this.draft.pipeSystem(), band: this.draft.band(), units: this.units() },
-          this.candidates(),
-          this.units(),
-        );
+        const model = this.chartModel();
         if (element && model) drawComparisonChart(element, model, { focus: () => undefined });
       },
     });

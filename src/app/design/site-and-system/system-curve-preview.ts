@@ -9,6 +9,7 @@ import {
 } from '@angular/core';
 import { line } from 'd3-shape';
 import { appendHatchPattern, drawChartFrame } from '../../shared/chart-frame';
+import { ChartNumbers, evenlyPicked, figure, type NumberTable } from '../../shared/chart-numbers';
 
 export interface CurvePoint {
   flow: number;
@@ -22,7 +23,9 @@ const margin = { top: 16, right: 16, bottom: 42, left: 52 };
 /** A small chart of the system curve with the duty band shaded; drawn from plain numbers in the charts' one frame. */
 @Component({
   selector: 'rf-system-curve-preview',
-  template: `<svg #chart role="img" [attr.aria-label]="summary()" class="rf-preview"></svg>`,
+  imports: [ChartNumbers],
+  template: `<svg #chart role="img" [attr.aria-label]="summary()" class="rf-preview"></svg>
+    <rf-chart-numbers [tables]="numbers()" />`,
   styleUrls: ['../../shared/chart-frame.scss'],
   styles: `
     .rf-preview {
@@ -48,6 +51,20 @@ export class SystemCurvePreview {
     return first && last
       ? `System curve from ${first.head.toFixed(1)} ${this.headUnit()} at no flow to ${last.head.toFixed(1)} ${this.headUnit()} at ${last.flow.toFixed(0)} ${this.flowUnit()}`
       : 'System curve';
+  });
+
+  /** The curve's points as a table (at most 13 rows, evenly spaced over the flows drawn). */
+  protected readonly numbers = computed((): NumberTable[] => {
+    const band = this.band();
+    return [
+      {
+        caption: band
+          ? `System curve (duty band ${figure(band.flowMin)} to ${figure(band.flowMax)} ${this.flowUnit()})`
+          : 'System curve',
+        headers: [`Flow (${this.flowUnit()})`, `Total dynamic head (${this.headUnit()})`],
+        rows: evenlyPicked(this.points(), 13).map((point) => [figure(point.flow), figure(point.head)]),
+      },
+    ];
   });
 
   constructor() {
