@@ -1,10 +1,22 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  Injector,
+  afterNextRender,
+  computed,
+  inject,
+  linkedSignal,
+  signal,
+} from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
-import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { filter, skip } from 'rxjs';
 import { describeHttpError } from '../core/problem-details';
 import { SessionService } from '../core/session-service';
 import { CautionsPanel } from './cautions-panel';
@@ -177,6 +189,30 @@ export class DesignShell {
     source: () => this.draft.design(),
     computation: () => null,
   });
+
+  constructor() {
+    // A new step gets the focus on its heading, so the keyboard and the screen reader start there
+    // (the link that led to it is gone); the page's first load leaves the focus alone.
+    const host = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
+    const injector = inject(Injector);
+    inject(Router)
+      .events.pipe(
+        filter((event) => event instanceof NavigationEnd),
+        skip(1),
+        takeUntilDestroyed(),
+      )
+      .subscribe(() =>
+        afterNextRender(
+          () => {
+            const heading = host.querySelector<HTMLElement>('h2');
+            if (!heading) return;
+            heading.tabIndex = -1;
+            heading.focus();
+          },
+          { injector },
+        ),
+      );
+  }
 
   protected setUnits(unitSystem: UnitSystem): void {
     this.draft.setUnitSystem(unitSystem);
