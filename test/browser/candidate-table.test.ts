@@ -48,6 +48,32 @@ describe('the candidates table and cards in Chromium', function () {
     expect(await pipeSizes.innerText()).to.match(/ft\/s: (use .+\.|no size of its series)/);
   });
 
+  it('shows the search running and can cancel it, keeping the candidates found before', async () => {
+    const { page } = app;
+    const before = await page.locator('tr[data-candidate]').count();
+    // the server's answer held back two seconds, as over a slow site connection
+    await page.route('**/api/v1/selections', async (route) => {
+      await new Promise((resolve) => setTimeout(resolve, 2000));
+      await route.continue().catch(() => undefined);
+    });
+    // a search for at most 3: were it to land after the cancel, the table would shrink to 3
+    expect(before).to.be.greaterThan(3);
+    await page.fill('input[name=limit]', '3');
+    await page.getByRole('button', { name: /Find candidates/ }).click();
+    await page.getByRole('progressbar', { name: 'Searching the catalog' }).waitFor();
+    await page.getByRole('button', { name: /Cancel search/ }).click();
+    await page.getByRole('status').filter({ hasText: 'Search cancelled' }).waitFor();
+    expect(await page.getByRole('progressbar', { name: 'Searching the catalog' }).count()).to.equal(0);
+    expect(await page.getByRole('button', { name: /Find candidates/ }).isEnabled()).to.equal(true);
+    await page.waitForTimeout(2500); // past the held-back answer: a cancelled search must not land late
+    expect(await page.locator('tr[data-candidate]').count()).to.equal(before);
+    expect(await page.getByRole('status').filter({ hasText: 'Search cancelled' }).count()).to.equal(1);
+    await page.unroute('**/api/v1/selections');
+    await page.fill('input[name=limit]', '20');
+    await findCandidates();
+    expect(await page.locator('tr[data-candidate]').count()).to.equal(before);
+  });
+
   it('keeps the pump in view while the wide table scrolls sideways, with nothing cut off the page', async () => {
     const { page } = app;
     expect(await page.locator('.rf-candidate-cards').isVisible()).to.equal(false);
@@ -91,6 +117,7 @@ describe('the candidates table and cards in Chromium', function () {
     await page.getByRole('status').filter({ hasText: 'No candidate matches' }).waitFor();
     expect(await page.locator('tr[data-candidate]').count()).to.equal(0);
     await page.getByLabel('Filter candidates').fill('');
+    await page.locator('tr[data-candidate]').first().waitFor();
     expect(await page.locator('tr[data-candidate]').count()).to.equal(all);
   });
 

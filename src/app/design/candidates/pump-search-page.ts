@@ -19,6 +19,7 @@ import { CalculationsApi } from '../calculations-api';
 import { SelectionDraft, type SearchSettings } from '../selection-draft';
 import type { RankBy } from '../energy-and-costs';
 import { CandidateResults } from './candidate-results';
+import type { Subscription } from 'rxjs';
 
 /** At least one arrangement must be ticked. */
 function someArrangement(group: AbstractControl): ValidationErrors | null {
@@ -51,6 +52,8 @@ export class PumpSearchPage {
   protected readonly units = this.draft.units;
   protected readonly searching = signal(false);
   protected readonly failed = signal(false);
+  protected readonly cancelled = signal(false);
+  private running: Subscription | null = null;
 
   private readonly settings = this.draft.search();
   protected readonly form = this.formBuilder.group({
@@ -131,7 +134,9 @@ export class PumpSearchPage {
     const body = designSelectionRequest(this.draft.design());
     this.searching.set(true);
     this.failed.set(false);
-    this.api.searchSelections(body).subscribe({
+    this.cancelled.set(false);
+    this.running?.unsubscribe();
+    this.running = this.api.searchSelections(body).subscribe({
       next: (results) => {
         this.draft.setResults(results);
         this.searching.set(false);
@@ -141,5 +146,13 @@ export class PumpSearchPage {
         this.searching.set(false);
       },
     });
+  }
+
+  /** Stops waiting for the search (the request is aborted); the results shown before stay. */
+  protected cancel(): void {
+    this.running?.unsubscribe();
+    this.running = null;
+    this.searching.set(false);
+    this.cancelled.set(true);
   }
 }
