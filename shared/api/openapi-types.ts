@@ -1144,6 +1144,8 @@ export interface components {
             supplierIds?: number[];
             kinds?: ("submersible" | "external-centrifugal" | "mixed-flow")[];
             modelContains?: string;
+            /** @description Only pumps that pass a solid sphere at least this large, mm (leaves and fish waste in a pond or stream; a skimmer or waterfall pump is often asked to pass 6 to 10 mm, common practice). A pump whose catalog entry gives no solids size is left out. */
+            minSolidsMm?: number;
             /** @description In power units. */
             maxInputPowerPerPump?: number;
             /** @description Leave out candidates outside the preferred operating region. */
@@ -1210,6 +1212,9 @@ export interface components {
             supplier: string;
             model: string;
             modelCode: string;
+            kind: components["schemas"]["PumpKind"];
+            /** @description Largest solid sphere the pump passes, mm; null when the catalog does not say. */
+            solidsHandlingMm: number | null;
             arrangement: components["schemas"]["PumpArrangement"];
             operatingPoint: components["schemas"]["OperatingPoint"];
             /** @description The point with one pump off; null for a single pump or when the rest run past their curve. */
@@ -1633,6 +1638,10 @@ export interface components {
             requireOneFailed: boolean;
             standby?: boolean;
             onlyPreferredRegion: boolean;
+            /** @description Only pumps of these kinds; empty or absent for every kind. */
+            kinds?: components["schemas"]["PumpKind"][];
+            /** @description Only pumps passing solids at least this large, mm; null for no limit. */
+            minSolidsMm?: number | null;
             maxInputPowerPerPump: number | null;
             hoursPerDay: number;
             tariffPerKWh: number | null;
