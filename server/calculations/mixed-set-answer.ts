@@ -28,7 +28,7 @@ import { prepareSystem, velocityWarnings } from './system-request';
  * (mixed-set-duty.ts), each entry's figures per single pump of that model.
  */
 
-/** Most pumps a mixed set runs, over all its entries: Riffle's own limit, as for the selection's sets. */
+/** Most pumps a mixed set runs, over all its entries: Riffle's own limit (a water feature's pump station). */
 export const MIXED_SET_MOST_PUMPS = 4;
 
 interface MemberContext {

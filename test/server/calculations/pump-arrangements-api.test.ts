@@ -290,6 +290,40 @@ describe('mixed sets and pumps in series at the operating point', function () {
     });
   });
 
+  describe('a mixed set with a suction side', () => {
+    it('checks NPSH per entry: available at the total flow, required at the flow of each pump', async () => {
+      const suctionSystem = {
+        ...pondSystem,
+        siteElevation: 300,
+        pumpElevation: 1.5,
+        segments: [{ length: 4, insideDiameter: 80, hazenWilliamsC: 150, side: 'suction' }, ...pondSystem.segments],
+      };
+      // NPSH3 = 1 + 0.25 Q (m, L/s) on A, 2 + 0.5 Q on B
+      const withNpsh = (pump: typeof inlineA, n0: number, n1: number) => ({
+        curve: pump.curve.map((point) => ({ ...point, npshRequired: n0 + n1 * point.flow })),
+      });
+      const answer = await operatingPoint({
+        system: suctionSystem,
+        pumps: [
+          { pump: withNpsh(inlineA, 1, 0.25), running: 1 },
+          { pump: withNpsh(inlineB, 2, 0.5), running: 1 },
+        ],
+      });
+      const curveAtTotal = await post('/calculations/system-curve', {
+        units,
+        system: suctionSystem,
+        flows: [answer.operatingPoint.flow],
+      }).expect(200);
+      const available = curveAtTotal.body.points[0].npshAvailable;
+      const [a, b] = answer.operatingPoint.pumps;
+      expect(a.npsh.available).to.be.closeTo(available, 1e-9);
+      expect(b.npsh.available).to.be.closeTo(available, 1e-9);
+      expect(a.npsh.required).to.be.closeTo(1 + 0.25 * a.flow, 1e-6);
+      expect(b.npsh.required).to.be.closeTo(2 + 0.5 * b.flow, 1e-6);
+      expect(answer).to.not.have.property('npsh');
+    });
+  });
+
   describe('pumps in series (arrangement.layout: series)', () => {
     it('meets the closed form for two quadratic pumps: each carries the full flow and half the head', async () => {
       const answer = await operatingPoint({
@@ -331,6 +365,44 @@ describe('mixed sets and pumps in series at the operating point', function () {
       const two = await bruteForceCrossing(tall, (q, head) => 2 * catalogHead(q) - head, 0.01, 6);
       expect(answer.oneFailed.flow).to.be.closeTo(two, 1e-3);
       expect(answer.oneFailed.headPerPump).to.be.closeTo(catalogHead(two), 1e-3);
+    });
+  });
+
+  describe('balancing pumps in series on a branched system', () => {
+    it('gives the valve K that, added on the other branch, gives the named branch its flow', async () => {
+      const branchedSystem = (extraK: number) => ({
+        frictionMethod: 'hazen-williams',
+        waterTemperatureC: 20,
+        segments: [{ length: 6, insideDiameter: 80, hazenWilliamsC: 150 }],
+        branches: [
+          {
+            name: 'falls',
+            staticHead: 9,
+            segments: [{ length: 20, insideDiameter: 50, hazenWilliamsC: 150, minorLossK: 2 }],
+          },
+          {
+            name: 'spray',
+            staticHead: 4,
+            segments: [{ length: 10, insideDiameter: 50, hazenWilliamsC: 150, minorLossK: 8 + extraK }],
+          },
+        ],
+      });
+      const series = { installed: 2, running: 2, layout: 'series' };
+      const balanced = await operatingPoint({
+        system: branchedSystem(0),
+        pump: inlineA,
+        arrangement: series,
+        balance: { branch: 'falls', flow: 5 },
+      });
+      expect(balanced.balancing.valvesOn).to.deep.equal(['spray']);
+      const valved = await operatingPoint({
+        system: branchedSystem(balanced.balancing.valveK),
+        pump: inlineA,
+        arrangement: series,
+      });
+      const falls = valved.operatingPoint.branches.find((branch: { name: string }) => branch.name === 'falls');
+      expect(falls.flow).to.be.closeTo(5, 1e-3);
+      expect(valved.operatingPoint.headPerPump).to.be.closeTo(valved.operatingPoint.head / 2, 1e-9);
     });
   });
 
@@ -430,6 +502,19 @@ describe('mixed sets and pumps in series at the operating point', function () {
         }),
         422,
         '/body/arrangement',
+      ],
+      [
+        'balancing beside a mixed set',
+        () => ({
+          system: quadraticSystem,
+          pumps: [
+            { pump: inlineA, running: 1 },
+            { pump: inlineB, running: 1 },
+          ],
+          balance: { branch: 'falls', flow: 2 },
+        }),
+        422,
+        '/body/balance',
       ],
       [
         'a mixed-set curve that does not start at zero flow',
