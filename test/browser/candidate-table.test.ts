@@ -26,7 +26,12 @@ describe('the candidates table and cards in Chromium', function () {
   });
 
   async function findCandidates(): Promise<void> {
-    await app.page.getByRole('button', { name: /Find candidates/ }).click();
+    // the table holds the search before until the answer lands: wait for the answer, then its rows
+    await Promise.all([
+      app.page.waitForResponse((response) => response.url().endsWith('/api/v1/selections'), { timeout: 15_000 }),
+      app.page.getByRole('button', { name: /Find candidates/ }).click(),
+    ]);
+    await app.page.getByRole('progressbar', { name: 'Searching the catalog' }).waitFor({ state: 'detached' });
     await app.page.locator('tr[data-candidate]').first().waitFor({ timeout: 15_000 });
   }
 
@@ -177,6 +182,12 @@ describe('the candidates table and cards in Chromium', function () {
     await page.getByRole('checkbox', { name: 'External centrifugal' }).check();
     await page.fill('input[name=minSolidsMm]', '6');
     await findCandidates();
+    // the table held the search before until the answer lands
+    await page.waitForFunction(() =>
+      [...document.querySelectorAll('tr[data-candidate] td.mat-column-pump .rf-muted')].every((cell) =>
+        cell.textContent?.includes('External centrifugal'),
+      ),
+    );
     const facts = await page.locator('tr[data-candidate] td.mat-column-pump .rf-muted').allInnerTexts();
     expect(facts.length).to.be.greaterThan(0);
     expect(facts.every((text) => /External centrifugal · passes (6|10) mm solids/.test(text))).to.equal(true);

@@ -3,7 +3,7 @@ import type { Page } from 'playwright-core';
 import type { Sequelize } from 'sequelize';
 import { createSequelize } from '../../server/database/connection';
 import { initialiseModels } from '../../server/database/models';
-import { openBrowser, type BrowserSession } from './browser';
+import { openBrowser, type BrowserOptions, type BrowserSession } from './browser';
 import { createScratchDatabase, testDatabaseConfig } from './test-database';
 import { startTestServer } from './test-server';
 
@@ -40,7 +40,10 @@ export function scratchDatabase(label: string): () => Promise<OpenDatabase> {
  * loopback port over the seeded test database or `openDatabase`, and a fresh Debian Chromium;
  * after them, all closed. The fields are filled in when the `before` hook has run.
  */
-export function useAppInChromium(openDatabase: () => Promise<OpenDatabase> = openSeededTestDatabase): AppInChromium {
+export function useAppInChromium(
+  openDatabase: () => Promise<OpenDatabase> = openSeededTestDatabase,
+  browserOptions: BrowserOptions = {},
+): AppInChromium {
   const fixture = {} as AppInChromium;
   let database: OpenDatabase | undefined;
   let server: Awaited<ReturnType<typeof startTestServer>> | undefined;
@@ -48,7 +51,7 @@ export function useAppInChromium(openDatabase: () => Promise<OpenDatabase> = ope
   before(async () => {
     database = await openDatabase();
     server = await startTestServer(database.sequelize);
-    const browser = await openBrowser();
+    const browser = await openBrowser(browserOptions);
     Object.assign(fixture, { url: server.url, browser, page: browser.page, sequelize: database.sequelize });
   });
 

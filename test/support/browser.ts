@@ -32,13 +32,19 @@ function isLoopback(url: string): boolean {
   return hostname === '127.0.0.1' || hostname === 'localhost' || hostname === '[::1]';
 }
 
+/** What a suite may ask of its browser: the language its user reads (default Chromium's own, en-US). */
+export interface BrowserOptions {
+  locale?: string;
+}
+
 /** Debian's Chromium (never a downloaded one) with a fresh profile. */
-export async function openBrowser(): Promise<BrowserSession> {
+export async function openBrowser(options: BrowserOptions = {}): Promise<BrowserSession> {
   const profile = mkdtempSync(join(tmpdir(), 'riffle-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: '/usr/bin/chromium',
     args: chromiumFlags,
     viewport: { width: 1280, height: 900 },
+    ...(options.locale ? { locale: options.locale } : {}),
   });
   const page = context.pages()[0] ?? (await context.newPage());
   const offLoopbackRequests: string[] = [];

@@ -22,6 +22,7 @@ import type { PumpListQuery, PumpPage, PumpSortKey } from '../../../shared/api/a
 import { pumpKinds } from '../../../shared/vocabularies';
 import { CatalogApi } from './catalog-api';
 import { displayUnitChoices, kindLabels, showFlow, showHead } from '../shared/display-units';
+import { DecimalInput } from '../shared/locale-numbers';
 
 /** Min must not exceed max, for the pair of controls named. */
 function orderedRange(minName: string, maxName: string): ValidatorFn {
@@ -36,6 +37,7 @@ function orderedRange(minName: string, maxName: string): ValidatorFn {
 @Component({
   selector: 'rf-catalog-page',
   imports: [
+    DecimalInput,
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,

@@ -1,4 +1,5 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
+import { formatFigure } from './locale-numbers';
 
 /** One table of a chart's numbers: its caption, column headings (with units) and rows of figures as shown. */
 export interface NumberTable {
@@ -7,10 +8,9 @@ export interface NumberTable {
   rows: ReadonlyArray<readonly string[]>;
 }
 
-/** A figure with at most `digits` decimals, or a dash when there is none. */
+/** A figure with at most `digits` decimals in the user's locale, or a dash when there is none. */
 export function figure(value: number | null | undefined, digits = 1): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return '–';
-  return Number(value.toFixed(digits)).toLocaleString('en', { maximumFractionDigits: digits });
+  return formatFigure(value, `1.0-${digits}`);
 }
 
 /** At most `most` items of `items`, evenly spaced, always with the first and the last. */

@@ -1,4 +1,3 @@
-import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -15,6 +14,7 @@ import { kindLabels } from '../../shared/display-units';
 import { missesLabel, moneyLabel, motorLabel, rankByWords } from '../energy-and-costs';
 import { candidateKey, maxCompared, SelectionDraft } from '../selection-draft';
 import { CandidateColumns, choosableColumns } from './candidate-columns';
+import { FigurePipe } from '../../shared/locale-numbers';
 
 const sortValues: Record<string, (candidate: SelectionCandidate) => number | string> = {
   rank: (candidate) => candidate.rank,
@@ -71,7 +71,7 @@ function filterText(candidate: SelectionCandidate): string {
 @Component({
   selector: 'rf-candidate-results',
   imports: [
-    DecimalPipe,
+    FigurePipe,
     RouterLink,
     MatButtonModule,
     MatCheckboxModule,

@@ -1,4 +1,3 @@
-import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import {
   NonNullableFormBuilder,
@@ -21,6 +20,7 @@ import type { RankBy } from '../energy-and-costs';
 import { CandidateResults } from './candidate-results';
 import type { Subscription } from 'rxjs';
 import { kindLabels } from '../../shared/display-units';
+import { DecimalInput, FigurePipe } from '../../shared/locale-numbers';
 
 /** At least one arrangement must be ticked. */
 function someArrangement(group: AbstractControl): ValidationErrors | null {
@@ -37,7 +37,8 @@ const pumpKindChoices = (['submersible', 'external-centrifugal', 'mixed-flow'] a
 @Component({
   selector: 'rf-pump-search-page',
   imports: [
-    DecimalPipe,
+    FigurePipe,
+    DecimalInput,
     ReactiveFormsModule,
     CandidateResults,
     MatButtonModule,

@@ -1,4 +1,3 @@
-import { DecimalPipe } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -22,11 +21,12 @@ import { chartStyle, drawComparisonChart, type ChartModel } from './comparison-c
 import { candidateLabel, comparisonModel, unitConverter } from './comparison-model';
 import { comparisonNumbers } from './comparison-numbers';
 import { ChartNumbers } from '../../shared/chart-numbers';
+import { FigurePipe } from '../../shared/locale-numbers';
 
 /** Step 4: up to eight candidates on one chart and side by side in a table. */
 @Component({
   selector: 'rf-pump-comparison-page',
-  imports: [ChartNumbers, DecimalPipe, RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule],
+  imports: [FigurePipe, ChartNumbers, RouterLink, MatButtonModule, MatButtonToggleModule, MatIconModule],
   templateUrl: './pump-comparison-page.html',
   styleUrls: ['../design-page.scss', '../../shared/chart-frame.scss', './pump-comparison-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,4 +1,3 @@
-import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import {
@@ -20,6 +19,7 @@ import { aboveZero, plausibleValidator } from '../plausible-inputs';
 import { SelectionDraft } from '../selection-draft';
 import { unitSystems, type UnitSystem } from '../unit-systems';
 import { bandFromModules, bandFromTurnover, bandFromWeir, weirSheets, type FlowBand } from './flow-plans';
+import { DecimalInput, FigurePipe } from '../../shared/locale-numbers';
 
 type PlanMethod = 'modules' | 'turnover' | 'weir';
 
@@ -44,7 +44,8 @@ function bandInOrder(group: AbstractControl): ValidationErrors | null {
 @Component({
   selector: 'rf-flow-planner-page',
   imports: [
-    DecimalPipe,
+    FigurePipe,
+    DecimalInput,
     ReactiveFormsModule,
     MatButtonModule,
     MatFormFieldModule,

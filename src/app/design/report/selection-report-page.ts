@@ -1,11 +1,10 @@
-import { DatePipe, DecimalPipe, formatNumber } from '@angular/common';
+import { DatePipe } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
   ElementRef,
   afterRenderEffect,
   computed,
-  LOCALE_ID,
   inject,
   viewChild,
 } from '@angular/core';
@@ -23,6 +22,7 @@ import { moneyLabel, motorLabel } from '../energy-and-costs';
 import { SelectionDraft } from '../selection-draft';
 import { compileDraft, staticHeadOf } from '../system-draft';
 import { ReportDocuments } from './report-documents';
+import { FigurePipe, formatFigure } from '../../shared/locale-numbers';
 
 /** Candidates a report shows when none were ticked for comparison: the first few of the search. */
 const reportedWithoutComparison = 3;
@@ -33,7 +33,7 @@ const reportedWithoutComparison = 3;
  */
 @Component({
   selector: 'rf-selection-report-page',
-  imports: [ChartNumbers, DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, ReportDocuments],
+  imports: [FigurePipe, ChartNumbers, DatePipe, RouterLink, MatButtonModule, MatIconModule, ReportDocuments],
   templateUrl: './selection-report-page.html',
   styleUrls: ['../design-page.scss', '../../shared/chart-frame.scss', './selection-report-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -87,12 +87,11 @@ export class SelectionReportPage {
     }
   });
 
-  private readonly locale = inject(LOCALE_ID);
   /** The duty band's sentence goes on without a space before its semicolon, so it is one text. */
   protected readonly headAtBandNote = computed(() => {
     const heads = this.headAtBand();
     if (!heads) return '';
-    const head = (value: number) => formatNumber(value, this.locale, '1.1-1');
+    const head = (value: number) => formatFigure(value, '1.1-1');
     return `; the system needs ${head(heads.min)} to ${head(heads.max)} ${this.units().head} of total dynamic head over it.`;
   });
 

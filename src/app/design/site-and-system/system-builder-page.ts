@@ -1,4 +1,3 @@
-import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import {
@@ -33,6 +32,7 @@ import { aboveZero, plausibleLevelsValidator, plausibleValidator } from '../plau
 import { SelectionDraft } from '../selection-draft';
 import { compileDraft, staticHeadOf, toPipeSystem, type SegmentDraft, type SystemDraft } from '../system-draft';
 import { SystemCurvePreview, type CurvePoint } from './system-curve-preview';
+import { DecimalInput, FigurePipe } from '../../shared/locale-numbers';
 
 type FittingForm = FormGroup<{ kind: FormControl<string>; count: FormControl<number> }>;
 type EquipmentForm = FormGroup<{
@@ -60,7 +60,8 @@ const previewSteps = 40;
 @Component({
   selector: 'rf-system-builder-page',
   imports: [
-    DecimalPipe,
+    FigurePipe,
+    DecimalInput,
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,
