@@ -22,8 +22,8 @@ export interface ProposalFacts {
     arrangement: { installed: number; running: number };
     flow: number;
     head: number;
-    efficiency: number;
-    annualKWh: number;
+    efficiency: number | null;
+    annualKWh: number | null;
   } | null;
 }
 
