@@ -12,7 +12,7 @@ import { projectClientView } from './project-revisions';
 
 function checkedClient(body: ProjectClientInput): ProjectClient {
   const phone = body.clientPhone?.trim() ?? '';
-  const site = optionalText((body.siteAddress ?? '').replace(/\r\n?/g, '\n'), '/body/siteAddress');
+  const site = optionalText(body.siteAddress ?? '', '/body/siteAddress');
   return {
     clientName: checkedName(body.clientName, '/body/clientName'),
     clientEmail: body.clientEmail.trim(),

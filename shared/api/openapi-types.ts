@@ -2122,7 +2122,19 @@ export interface components {
             /** Format: date-time */
             lastViewedAt: string | null;
         };
-        CreatedClientLink: components["schemas"]["ClientLink"] & {
+        CreatedClientLink: {
+            id: number;
+            reportId: number;
+            /** Format: date-time */
+            createdAt: string;
+            /** Format: date-time */
+            expiresAt: string;
+            /** Format: date-time */
+            revokedAt: string | null;
+            state: components["schemas"]["ClientLinkState"];
+            viewCount: number;
+            /** Format: date-time */
+            lastViewedAt: string | null;
             /** @description Shown this once; only its SHA-256 is stored. */
             token: string;
             /** @description The page to send the client. */

@@ -27,6 +27,7 @@ import {
 import { createLogger } from '../../../server/logging';
 import { createSmtpMailer } from '../../../server/mail/mailer';
 import { createUserWithSession, tableChecksums, testMailboxFolder, waitForMail } from '../../support/accounts';
+import { contractSchemaValidator } from '../../support/contract-validator';
 import { freeLoopbackPort } from '../../support/free-port';
 import { createScratchDatabase } from '../../support/test-database';
 import { seedSyntheticCatalog, syntheticShapes } from '../selection/synthetic-catalog';
@@ -37,6 +38,12 @@ import { binaryBody, readPdf } from './pdf-text';
  * through the fake SMTP server (read back with mailparser, its bytes' checksum the stored one's),
  * and the read-only client link with its page, PDF, views, expiry and revocation.
  */
+
+/** The answer matches the contract's schema of that name. */
+function expectConforms(schema: string, body: unknown): void {
+  const validate = contractSchemaValidator(schema);
+  expect(validate(body), `${schema}: ${JSON.stringify(validate.errors)}`).to.equal(true);
+}
 
 function projectExample(): ProjectInput {
   const operation = (openApiDocument.paths?.['/projects'] as OpenAPIV3_1.PathItemObject)
@@ -100,7 +107,7 @@ describe('sending a proposal: client and site, e-mail with the PDF, read-only cl
         clientName: ' Ada Moss ',
         clientEmail,
         clientPhone: '+1 555 0142',
-        siteAddress: '4 Orchard Row\r\nFairview',
+        siteAddress: '4 Orchard Row\nFairview',
       })
       .expect(200);
     expect(saved.body).to.deep.equal({
@@ -111,6 +118,8 @@ describe('sending a proposal: client and site, e-mail with the PDF, read-only cl
     });
     const read = (await as(designerToken).get(`/projects/${project.id}`).expect(200)).body as Project;
     expect(read.client).to.deep.equal(saved.body);
+    expectConforms('ProjectClient', saved.body);
+    expectConforms('Project', read);
   });
 
   it('refuses a bad client e-mail, phone or name with a 4xx naming the field and writes nothing', async () => {
@@ -148,6 +157,7 @@ describe('sending a proposal: client and site, e-mail with the PDF, read-only cl
         .post(`/projects/${project.id}/proposal-mails`, { reportId: report.id, message })
         .expect(201)
     ).body as ProposalMail;
+    expectConforms('ProposalMail', sent);
     expect(sent).to.include({ reportId: report.id, to: clientEmail });
     expect(sent.subject).to.equal(`Proposal: ${project.name} (Millrace Pond Works)`);
     expect(sent.sentBy?.name).to.equal('Jo Fenwick');
@@ -170,6 +180,7 @@ describe('sending a proposal: client and site, e-mail with the PDF, read-only cl
 
     const log = (await as(designerToken).get(`/projects/${project.id}/proposal-mails`).expect(200))
       .body as ProposalMailList;
+    expectConforms('ProposalMailList', log);
     expect(log.mails.map((mail) => mail.id)).to.deep.equal([sent.id]);
     expect(log.mails[0].messageId)
       .to.equal(sent.messageId)
@@ -249,6 +260,7 @@ describe('sending a proposal: client and site, e-mail with the PDF, read-only cl
     it('makes a link answered once with its token; only the SHA-256 is stored', async () => {
       link = (await as(designerToken).post(`/projects/${project.id}/client-links`, { reportId: report.id }).expect(201))
         .body as CreatedClientLink;
+      expectConforms('CreatedClientLink', link);
       expect(link.token).to.match(/^rfc_[A-Za-z0-9_-]{43}$/);
       expect(link.url).to.equal(`http://riffle.example.test/api/v1/client-view?token=${link.token}`);
       expect(link).to.include({ reportId: report.id, state: 'active', viewCount: 0, lastViewedAt: null });
@@ -304,6 +316,7 @@ describe('sending a proposal: client and site, e-mail with the PDF, read-only cl
       expect(views.map((row) => row.what)).to.deep.equal(['page', 'pdf']);
       const listed = (await as(designerToken).get(`/projects/${project.id}/client-links`).expect(200))
         .body as ClientLinkList;
+      expectConforms('ClientLinkList', listed);
       const shown = listed.links.find((candidate) => candidate.id === link.id)!;
       expect(shown.viewCount).to.equal(2);
       expect(shown.lastViewedAt).to.equal(views[1].viewedAt.toISOString());
