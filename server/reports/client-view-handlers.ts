@@ -66,18 +66,27 @@ function answeredAsPage(error: unknown, request: Request, response: Response): b
   return true;
 }
 
+/** A handler that answers only for an open link; refused links as a page or problem details. */
+function forOpenLink(
+  answer: (open: OpenLink, request: Request, response: Response) => Promise<void> | void,
+): RequestHandler {
+  return async (request, response) => {
+    response.set('Cache-Control', 'no-store');
+    let open: OpenLink;
+    try {
+      open = await openLink(request);
+    } catch (error) {
+      if (answeredAsPage(error, request, response)) return;
+      throw error;
+    }
+    await answer(open, request, response);
+  };
+}
+
 export function createClientViewHandlers(): Record<'getClientView' | 'getClientViewPdf', RequestHandler> {
   return {
-    getClientView: async (request, response) => {
-      response.set('Cache-Control', 'no-store');
-      let open: OpenLink;
-      try {
-        open = await openLink(request);
-      } catch (error) {
-        if (answeredAsPage(error, request, response)) return;
-        throw error;
-      }
-      const { project, report } = open;
+    getClientView: forOpenLink(async ({ project, report }, request, response) => {
+      // the profile names the company of a proposal made before its facts were kept
       const profile = report.facts ? null : await CompanyProfile.findByPk(project.ownerUserId);
       response.type('html').send(
         clientViewPage({
@@ -88,23 +97,14 @@ export function createClientViewHandlers(): Record<'getClientView' | 'getClientV
           pdfHref: `/api/v1/client-view/report.pdf?token=${encodeURIComponent(String(request.query.token))}`,
         }),
       );
-    },
+    }),
 
-    getClientViewPdf: async (request, response) => {
-      response.set('Cache-Control', 'no-store');
-      let open: OpenLink;
-      try {
-        open = await openLink(request);
-      } catch (error) {
-        if (answeredAsPage(error, request, response)) return;
-        throw error;
-      }
-      const { project, report } = open;
+    getClientViewPdf: forOpenLink(({ project, report }, _request, response) => {
       response
         .type('application/pdf')
         .set('Content-Disposition', `inline; filename="${proposalFileName(project, report)}"`)
         .set('Repr-Digest', `sha-256=:${Buffer.from(report.sha256, 'hex').toString('base64')}:`)
         .send(report.pdf);
-    },
+    }),
   };
 }
