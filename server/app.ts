@@ -23,6 +23,10 @@ import { createProjectHistoryHandlers } from './projects/project-history-handler
 import { createCurveImportHandlers } from './catalog/curve-import-handlers';
 import { createProfileHandlers } from './reports/profile-handlers';
 import { createReportHandlers } from './reports/report-handlers';
+import { createProjectClientHandlers } from './projects/project-client-handlers';
+import { createProposalMailHandlers } from './reports/proposal-mail-handlers';
+import { createClientLinkHandlers } from './reports/client-link-handlers';
+import { createClientViewHandlers } from './reports/client-view-handlers';
 import { clientFilesRouter } from './client-files';
 
 /**
@@ -117,6 +121,11 @@ export function createApp({ sequelize, logger, clientFolder, accounts, trustedPr
     ...createProfileHandlers(),
     ...createReportHandlers(catalogSnapshot),
     ...createProjectHistoryHandlers(),
+    // sending proposals to clients: by mail, and by read-only link
+    ...createProjectClientHandlers(),
+    ...createProposalMailHandlers(accountsDependencies.mailer),
+    ...createClientLinkHandlers(accountsDependencies.publicUrl),
+    ...createClientViewHandlers(),
   };
   const guardFor = createOperationGuards(openApiDocument, accountsDependencies.rateLimits);
   app.use('/api/v1', createOperationRouter({ document: openApiDocument, handlers, guardFor }));

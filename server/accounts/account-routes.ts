@@ -8,7 +8,7 @@ import { createAdminHandlers } from './admin-handlers';
 import { createApiTokenHandlers } from './api-token-handlers';
 import { createAuthHandlers } from './auth-handlers';
 import type { RateLimitSettings } from './rate-limits';
-import { createRateLimiters } from './rate-limits';
+import { createRateLimiters, perUserRateLimits, rateLimitNameOf } from './rate-limits';
 
 export function createAccountHandlers(
   sequelize: Sequelize,
@@ -32,9 +32,12 @@ export function createOperationGuards(
   const limiterFor = createRateLimiters(rateLimits);
   const accessGuardFor = createAccessGuards(document.security);
   return (operation) => {
-    const chain = [limiterFor(operation), accessGuardFor(operation)].filter(
-      (handler): handler is RequestHandler => handler !== undefined,
-    );
+    const limiter = limiterFor(operation);
+    const name = rateLimitNameOf(operation);
+    // a per-user limit needs the caller the access guard finds; a per-address one runs before it
+    const ordered =
+      name && perUserRateLimits.has(name) ? [accessGuardFor(operation), limiter] : [limiter, accessGuardFor(operation)];
+    const chain = ordered.filter((handler): handler is RequestHandler => handler !== undefined);
     if (chain.length <= 1) return chain[0];
     return (request, response, next) => {
       chain[0](request, response, (error?: unknown) => (error ? next(error) : chain[1](request, response, next)));

@@ -1,7 +1,7 @@
 import { createHash, randomBytes } from 'node:crypto';
 
 /** What a bearer or e-mailed secret is for; the prefix tells them apart at a glance and in logs' redaction. */
-export const secretTokenKinds = { session: 'rfs_', apiToken: 'rft_', emailLink: 'rfl_' } as const;
+export const secretTokenKinds = { session: 'rfs_', apiToken: 'rft_', emailLink: 'rfl_', clientLink: 'rfc_' } as const;
 export type SecretTokenKind = keyof typeof secretTokenKinds;
 
 /** 32 random bytes in base64url: 43 characters. */

@@ -8,7 +8,8 @@ export interface FakeSmtpServer {
   stop: () => Promise<void>;
 }
 
-const maxMessageBytes = 1_000_000;
+/** Room for a proposal PDF (base64 takes a third more) besides the invitation and reset messages. */
+const maxMessageBytes = 20_000_000;
 
 /**
  * An SMTP server on loopback that accepts every message and keeps it in `mailboxFolder`, so the
@@ -35,6 +36,7 @@ export async function startFakeSmtpServer(options: { port: number; mailboxFolder
               to: session.envelope.rcptTo.map((recipient) => recipient.address),
               subject: message.subject,
               text: message.text,
+              attachments: message.attachments,
             });
             callback();
           })

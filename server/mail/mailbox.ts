@@ -25,7 +25,11 @@ export function readMailbox(folder: string): MailboxMessage[] {
   } catch {
     return [];
   }
-  return names
-    .map((name) => JSON.parse(readFileSync(join(folder, name), 'utf8')) as MailboxMessage)
-    .sort((a, b) => b.receivedAt.localeCompare(a.receivedAt) || b.id.localeCompare(a.id));
+  return (
+    names
+      .map((name) => JSON.parse(readFileSync(join(folder, name), 'utf8')) as MailboxMessage)
+      // messages kept before attachments were listed had none
+      .map((message) => ({ ...message, attachments: message.attachments ?? [] }))
+      .sort((a, b) => b.receivedAt.localeCompare(a.receivedAt) || b.id.localeCompare(a.id))
+  );
 }

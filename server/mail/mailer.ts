@@ -1,15 +1,27 @@
 import nodemailer from 'nodemailer';
 import type { MailConfig } from '../config';
 
+export interface OutgoingAttachment {
+  filename: string;
+  contentType: string;
+  content: Buffer;
+}
+
 export interface OutgoingMessage {
   to: string;
   subject: string;
   text: string;
+  attachments?: readonly OutgoingAttachment[];
 }
 
-/** Sends plain-text messages; resolves once the SMTP server has accepted the message. */
+/** What the SMTP server accepted: the message's Message-ID header. */
+export interface SentMessage {
+  messageId: string;
+}
+
+/** Sends plain-text messages; resolves once the SMTP server has accepted the message, rejects when it refuses or cannot be reached. */
 export interface Mailer {
-  send(message: OutgoingMessage): Promise<void>;
+  send(message: OutgoingMessage): Promise<SentMessage>;
 }
 
 /**
@@ -31,7 +43,12 @@ export function createSmtpMailer(config: MailConfig, port = config.port): Mailer
   return {
     send: async (message) => {
       if (port === 0) throw new Error('no SMTP port is configured (set RIFFLE_SMTP_PORT, or run the fake SMTP server)');
-      await transport.sendMail({ from: config.from, ...message });
+      const info = await transport.sendMail({
+        from: config.from,
+        ...message,
+        attachments: message.attachments?.map((attachment) => ({ ...attachment })),
+      });
+      return { messageId: info.messageId };
     },
   };
 }

@@ -3,6 +3,7 @@ import type { Transaction } from 'sequelize';
 import type {
   Project as ProjectView,
   ProjectChoice,
+  ProjectClient,
   ProjectChoiceInput,
   ProjectRevisionView,
 } from '../../shared/api/api-schemas';
@@ -95,6 +96,16 @@ export async function choiceView(choice: StoredChoice | null): Promise<ProjectCh
   };
 }
 
+/** The project's client and site; null where none is recorded. */
+export function projectClientView(project: Project): ProjectClient {
+  return {
+    clientName: project.clientName ?? null,
+    clientEmail: project.clientEmail ?? null,
+    clientPhone: project.clientPhone ?? null,
+    siteAddress: project.siteAddress ?? null,
+  };
+}
+
 export async function projectView(project: Project, revision: ProjectRevision): Promise<ProjectView> {
   return {
     id: project.id,
@@ -105,6 +116,7 @@ export async function projectView(project: Project, revision: ProjectRevision): 
     visitedOn: revision.visitedOn,
     notes: revision.notes,
     choice: await choiceView(revision.choice),
+    client: projectClientView(project),
     design: revision.design,
   };
 }

@@ -38,6 +38,8 @@ export interface ProposalContent {
   projectName: string;
   clientName: string;
   siteAddress: string;
+  /** The client's e-mail and phone, when the project records them. */
+  clientContact: string;
   design: DesignDraft;
   figures: DesignFigures;
   /** List prices by pump id, where the catalog has them. */
@@ -358,6 +360,7 @@ export function proposalPdf(content: ProposalContent): Promise<Buffer> {
   heading(doc, 'Client and site');
   facts(doc, [
     ['Client', content.clientName || '-'],
+    ...(content.clientContact ? ([['Contact', content.clientContact]] as const) : []),
     ['Site', content.siteAddress || '-'],
   ]);
   systemSection(doc, content);

@@ -10,6 +10,8 @@ import { DEFAULT_WASTE_ALLOWANCE_PERCENT, partsList, partsListCsv } from './part
 import { optionalText } from './profile-handlers';
 import type { PumpPrice } from './proposal-costs';
 import { proposalPdf } from './proposal-pdf';
+import { proposalFacts } from './proposal-facts';
+import { fileStem } from './stored-reports';
 
 /*
  * Proposals and parts lists of a saved design. The project's owner and admins may make and read
@@ -54,17 +56,6 @@ async function pricesOf(figures: DesignFigures): Promise<Map<number, PumpPrice>>
   );
 }
 
-/** A file name from the project's name: ASCII letters, digits and hyphens only. */
-function fileStem(project: Project): string {
-  return (
-    project.name
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, '-')
-      .replace(/^-+|-+$/g, '')
-      .slice(0, 60) || 'project'
-  );
-}
-
 function summary(report: ProjectReport): ReportSummary {
   return {
     id: report.id,
@@ -87,9 +78,12 @@ export function createReportHandlers(
   return {
     createProjectReport: async (request, response) => {
       const body = request.body as ReportRequest;
-      const clientName = optionalText(body.clientName ?? '', '/body/clientName');
-      const siteAddress = optionalText(body.siteAddress ?? '', '/body/siteAddress');
+      const givenClient = optionalText(body.clientName ?? '', '/body/clientName');
+      const givenSite = optionalText(body.siteAddress ?? '', '/body/siteAddress');
       const project = await reachableProject(request);
+      // the request's client and site, else those recorded on the project
+      const clientName = givenClient || (project.clientName ?? '');
+      const siteAddress = givenSite || (project.siteAddress ?? '');
       const figures = await savedDesignFigures(catalog, project);
       const [prices, catalogRevision, profile] = await Promise.all([
         pricesOf(figures),
@@ -109,6 +103,7 @@ export function createReportHandlers(
         projectName: project.name,
         clientName,
         siteAddress,
+        clientContact: [project.clientEmail, project.clientPhone].filter(Boolean).join(', '),
         design: project.design,
         figures,
         prices,
@@ -128,6 +123,7 @@ export function createReportHandlers(
         byteLength: pdf.length,
         sha256: createHash('sha256').update(pdf).digest('hex'),
         catalogRevision: catalogRevision ?? 0,
+        facts: proposalFacts(project, profile?.name ?? '', clientName, siteAddress, figures),
       });
       response.status(201).json(summary(report));
     },

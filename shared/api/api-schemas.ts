@@ -133,3 +133,15 @@ export type ReportPaper = Schemas['ReportPaper'];
 export type ReportRequest = Schemas['ReportRequest'];
 export type ReportSummary = Schemas['ReportSummary'];
 export type ReportList = Schemas['ReportList'];
+
+// Sending proposals to clients.
+export type ProjectClient = Schemas['ProjectClient'];
+export type ProjectClientInput = Schemas['ProjectClientInput'];
+export type ProposalMailRequest = Schemas['ProposalMailRequest'];
+export type ProposalMail = Schemas['ProposalMail'];
+export type ProposalMailList = Schemas['ProposalMailList'];
+export type ClientLinkRequest = Schemas['ClientLinkRequest'];
+export type ClientLinkState = Schemas['ClientLinkState'];
+export type ClientLink = Schemas['ClientLink'];
+export type CreatedClientLink = Schemas['CreatedClientLink'];
+export type ClientLinkList = Schemas['ClientLinkList'];

@@ -820,6 +820,131 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/projects/{projectId}/client": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        get?: never;
+        /**
+         * Record who the project's proposal goes to and the site it is for
+         * @description Replaces the project's client and site (a field left out is cleared). The project's GET answers them as `client`; a proposal made after this shows them unless its request names others, and a proposal e-mailed without `to` goes to `clientEmail`. My own projects only.
+         */
+        put: operations["updateProjectClient"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/proposal-mails": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        /** The proposals e-mailed from this project, newest first */
+        get: operations["listProposalMails"];
+        put?: never;
+        /**
+         * E-mail a stored proposal PDF to the client
+         * @description Sends the stored PDF as an attachment (`proposal-<project>-<date>.pdf`) with the designer's message as the plain-text body and a subject naming the project and the company of the profile. `to` defaults to the project's client e-mail. The send is logged only once the SMTP server has accepted it; when it refuses or cannot be reached the answer is 503 `mail-not-sent` and nothing is logged. At most 20 sends an hour per user.
+         */
+        post: operations["sendProposalMail"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/client-links": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        /** The project's client links, newest first, without their tokens */
+        get: operations["listClientLinks"];
+        put?: never;
+        /**
+         * Make a read-only link to a stored proposal for the client
+         * @description The answer carries the link's token once; only its SHA-256 is stored, so a lost link is revoked and made again. The link opens that proposal's page and PDF (`GET /client-view`) and nothing else, until it expires (`expiresInDays`, default 30) or is revoked.
+         */
+        post: operations["createClientLink"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/projects/{projectId}/client-links/{linkId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+                linkId: number;
+            };
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        /** Revoke a client link; it answers 410 from then on */
+        delete: operations["revokeClientLink"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/client-view": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * The proposal's read-only page, for the client holding the link
+         * @description No account: the link's token is the only key, and it opens this page and its PDF only. The page (HTML from this origin, no scripts) shows the company, client, site, chosen pump and duty, and the cautions. Each opening is logged on the link. A browser (asking for HTML) is answered a short HTML page for 404 and 410 as well; other callers get problem details. At most 60 requests a minute per client address.
+         */
+        get: operations["getClientView"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/client-view/report.pdf": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The proposal's PDF, for the client holding the link */
+        get: operations["getClientViewPdf"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
 }
 export type webhooks = Record<string, never>;
 export interface components {
@@ -1869,6 +1994,7 @@ export interface components {
             createdAt: string;
             /** Format: date-time */
             updatedAt: string;
+            client: components["schemas"]["ProjectClient"];
             /** @description The number of the revision this is (its ETag names it too). */
             revision: number;
             /** Format: date */
@@ -1930,6 +2056,92 @@ export interface components {
         };
         ReportList: {
             reports: components["schemas"]["ReportSummary"][];
+        };
+        ProjectClientInput: {
+            clientName: components["schemas"]["PersonName"];
+            clientEmail: components["schemas"]["Email"];
+            clientPhone?: string;
+            /** @description Lines separated by line feeds; no angle brackets or other control characters. */
+            siteAddress?: string;
+        };
+        ProjectClient: {
+            clientName: string | null;
+            clientEmail: string | null;
+            clientPhone: string | null;
+            siteAddress: string | null;
+        };
+        ProposalMailRequest: {
+            reportId: number;
+            /** @description Plain text; lines separated by line feeds, each without angle brackets or control characters. */
+            message: string;
+            to?: components["schemas"]["Email"];
+        };
+        ProposalMail: {
+            id: number;
+            reportId: number;
+            to: string;
+            subject: string;
+            sentBy: {
+                id: number;
+                name: string;
+            } | null;
+            /** Format: date-time */
+            sentAt: string;
+            /** @description The Message-ID header the message went with. */
+            messageId: string;
+            /** @description The attached PDF (in the answer to a send). */
+            attachment?: {
+                filename: string;
+                byteLength: number;
+            };
+        };
+        ProposalMailList: {
+            mails: components["schemas"]["ProposalMail"][];
+        };
+        ClientLinkRequest: {
+            reportId: number;
+            /** @default 30 */
+            expiresInDays: number;
+        };
+        /** @description The token of a client link (rfc_ and 43 base64url characters). */
+        ClientLinkToken: string;
+        /** @enum {string} */
+        ClientLinkState: "active" | "expired" | "revoked";
+        ClientLink: {
+            id: number;
+            reportId: number;
+            /** Format: date-time */
+            createdAt: string;
+            /** Format: date-time */
+            expiresAt: string;
+            /** Format: date-time */
+            revokedAt: string | null;
+            state: components["schemas"]["ClientLinkState"];
+            /** @description How often the page or its PDF was opened. */
+            viewCount: number;
+            /** Format: date-time */
+            lastViewedAt: string | null;
+        };
+        CreatedClientLink: {
+            id: number;
+            reportId: number;
+            /** Format: date-time */
+            createdAt: string;
+            /** Format: date-time */
+            expiresAt: string;
+            /** Format: date-time */
+            revokedAt: string | null;
+            state: components["schemas"]["ClientLinkState"];
+            viewCount: number;
+            /** Format: date-time */
+            lastViewedAt: string | null;
+            /** @description Shown this once; only its SHA-256 is stored. */
+            token: string;
+            /** @description The page to send the client. */
+            url: string;
+        };
+        ClientLinkList: {
+            links: components["schemas"]["ClientLink"][];
         };
         /** @enum {string} */
         Role: "admin" | "supplier-admin" | "designer" | "integrator";
@@ -2095,6 +2307,13 @@ export interface components {
                 to: string[];
                 subject: string;
                 text: string;
+                attachments: {
+                    filename: string;
+                    contentType: string;
+                    /** @description Bytes once decoded. */
+                    size: number;
+                    sha256: string;
+                }[];
             }[];
         };
     };
@@ -2254,6 +2473,56 @@ export interface components {
             };
             content: {
                 "application/problem+json": components["schemas"]["ProblemDetails"];
+            };
+        };
+        /** @description No client link has this token. */
+        ClientLinkUnknown: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                /**
+                 * @example {
+                 *       "type": "/api/v1/problems/client-link-unknown",
+                 *       "title": "Link not found",
+                 *       "status": 404,
+                 *       "detail": "This link does not open any proposal; ask the designer who sent it for a new one.",
+                 *       "pointer": "/query/token",
+                 *       "errors": [
+                 *         {
+                 *           "pointer": "/query/token",
+                 *           "detail": "is not a client link"
+                 *         }
+                 *       ]
+                 *     }
+                 */
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+                "text/html": string;
+            };
+        };
+        /** @description The client link has expired or was revoked. */
+        ClientLinkGone: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                /**
+                 * @example {
+                 *       "type": "/api/v1/problems/client-link-gone",
+                 *       "title": "Link no longer open",
+                 *       "status": 410,
+                 *       "detail": "This link was withdrawn by the designer; ask them for a new one.",
+                 *       "pointer": "/query/token",
+                 *       "errors": [
+                 *         {
+                 *           "pointer": "/query/token",
+                 *           "detail": "was revoked"
+                 *         }
+                 *       ]
+                 *     }
+                 */
+                "application/problem+json": components["schemas"]["ProblemDetails"];
+                "text/html": string;
             };
         };
     };
@@ -2981,7 +3250,8 @@ export interface operations {
                      *             "robin@example.test"
                      *           ],
                      *           "subject": "You are invited to Riffle",
-                     *           "text": "Open this link to set your name and password: http://127.0.0.1:8080/accounts/accept-invitation?token=..."
+                     *           "text": "Open this link to set your name and password: http://127.0.0.1:8080/accounts/accept-invitation?token=...",
+                     *           "attachments": []
                      *         }
                      *       ]
                      *     }
@@ -3967,6 +4237,12 @@ export interface operations {
                      *       "visitedOn": "2026-12-01",
                      *       "notes": "Intake moved 0.5 ft lower after the autumn dig.",
                      *       "choice": null,
+                     *       "client": {
+                     *         "clientName": "Ada Moss",
+                     *         "clientEmail": "ada.moss@example.test",
+                     *         "clientPhone": null,
+                     *         "siteAddress": "4 Orchard Row"
+                     *       },
                      *       "design": {
                      *         "unitSystem": "us",
                      *         "system": {
@@ -4064,6 +4340,12 @@ export interface operations {
                      *         "speedRpm": null,
                      *         "curveRevisionId": 31,
                      *         "curveRevisionNumber": 1
+                     *       },
+                     *       "client": {
+                     *         "clientName": "Ada Moss",
+                     *         "clientEmail": "ada.moss@example.test",
+                     *         "clientPhone": null,
+                     *         "siteAddress": "4 Orchard Row"
                      *       },
                      *       "design": {
                      *         "unitSystem": "us",
@@ -4233,6 +4515,12 @@ export interface operations {
                      *         "speedRpm": null,
                      *         "curveRevisionId": 31,
                      *         "curveRevisionNumber": 1
+                     *       },
+                     *       "client": {
+                     *         "clientName": "Ada Moss",
+                     *         "clientEmail": "ada.moss@example.test",
+                     *         "clientPhone": null,
+                     *         "siteAddress": "4 Orchard Row"
                      *       },
                      *       "design": {
                      *         "unitSystem": "us",
@@ -4971,6 +5259,370 @@ export interface operations {
             401: components["responses"]["Unauthorized"];
             403: components["responses"]["NotAllowed"];
             404: components["responses"]["NotFound"];
+        };
+    };
+    updateProjectClient: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "clientName": "Ada Moss",
+                 *       "clientEmail": "ada.moss@example.test",
+                 *       "clientPhone": "+1 555 0142",
+                 *       "siteAddress": "4 Orchard Row\nFairview"
+                 *     }
+                 */
+                "application/json": components["schemas"]["ProjectClientInput"];
+            };
+        };
+        responses: {
+            /** @description The project's client and site as stored. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "clientName": "Ada Moss",
+                     *       "clientEmail": "ada.moss@example.test",
+                     *       "clientPhone": "+1 555 0142",
+                     *       "siteAddress": "4 Orchard Row\nFairview"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ProjectClient"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
+    listProposalMails: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Every logged send. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "mails": [
+                     *         {
+                     *           "id": 3,
+                     *           "reportId": 9,
+                     *           "to": "ada.moss@example.test",
+                     *           "subject": "Proposal: Hillside cascade (Millrace Pond Works)",
+                     *           "sentBy": {
+                     *             "id": 2,
+                     *             "name": "Jo Fenwick"
+                     *           },
+                     *           "sentAt": "2026-12-03T10:00:00.000Z",
+                     *           "messageId": "<4f1c2a9e-77b0-4c1e-9d2a-1f3b5c7d9e01@riffle.test>",
+                     *           "attachment": {
+                     *             "filename": "proposal-hillside-cascade-2026-12-02.pdf",
+                     *             "byteLength": 48213
+                     *           }
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ProposalMailList"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    sendProposalMail: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "reportId": 9,
+                 *       "message": "Dear Ada,\n\nthe proposal for the cascade is attached.\n\nKind regards,\nJo"
+                 *     }
+                 */
+                "application/json": components["schemas"]["ProposalMailRequest"];
+            };
+        };
+        responses: {
+            /** @description The SMTP server accepted the message; the logged send. */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "id": 3,
+                     *       "reportId": 9,
+                     *       "to": "ada.moss@example.test",
+                     *       "subject": "Proposal: Hillside cascade (Millrace Pond Works)",
+                     *       "sentBy": {
+                     *         "id": 2,
+                     *         "name": "Jo Fenwick"
+                     *       },
+                     *       "sentAt": "2026-12-03T10:00:00.000Z",
+                     *       "messageId": "<4f1c2a9e-77b0-4c1e-9d2a-1f3b5c7d9e01@riffle.test>",
+                     *       "attachment": {
+                     *         "filename": "proposal-hillside-cascade-2026-12-02.pdf",
+                     *         "byteLength": 48213
+                     *       }
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ProposalMail"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+            /** @description No address to send to (`pointer` /body/to), or the message breaks the text rules (`pointer` /body/message). */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "type": "/api/v1/problems/no-recipient",
+                     *       "title": "No recipient",
+                     *       "status": 422,
+                     *       "detail": "the project has no client e-mail; record one or name `to`",
+                     *       "pointer": "/body/to",
+                     *       "errors": [
+                     *         {
+                     *           "pointer": "/body/to",
+                     *           "detail": "is needed when the project has no client e-mail"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/problem+json": components["schemas"]["ProblemDetails"];
+                };
+            };
+            429: components["responses"]["TooManyRequests"];
+            /** @description The SMTP server refused the message or could not be reached; nothing was logged as sent. */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "type": "/api/v1/problems/mail-not-sent",
+                     *       "title": "Mail not sent",
+                     *       "status": 503,
+                     *       "detail": "the mail server did not take the message (connect ECONNREFUSED 127.0.0.1:2525); nothing was sent, try again later"
+                     *     }
+                     */
+                    "application/problem+json": components["schemas"]["ProblemDetails"];
+                };
+            };
+        };
+    };
+    listClientLinks: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Every link with its state and how often it was opened. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "links": [
+                     *         {
+                     *           "id": 5,
+                     *           "reportId": 9,
+                     *           "createdAt": "2026-12-03T10:00:00.000Z",
+                     *           "expiresAt": "2027-01-02T10:00:00.000Z",
+                     *           "revokedAt": null,
+                     *           "state": "active",
+                     *           "viewCount": 2,
+                     *           "lastViewedAt": "2026-12-03T12:30:00.000Z"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/json": components["schemas"]["ClientLinkList"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    createClientLink: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                /**
+                 * @example {
+                 *       "reportId": 9,
+                 *       "expiresInDays": 30
+                 *     }
+                 */
+                "application/json": components["schemas"]["ClientLinkRequest"];
+            };
+        };
+        responses: {
+            /** @description The link, with its token (shown this once). */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "id": 5,
+                     *       "reportId": 9,
+                     *       "createdAt": "2026-12-03T10:00:00.000Z",
+                     *       "expiresAt": "2027-01-02T10:00:00.000Z",
+                     *       "revokedAt": null,
+                     *       "state": "active",
+                     *       "viewCount": 0,
+                     *       "lastViewedAt": null,
+                     *       "token": "rfc_3q2-7wQbX0S1fE9kLmN4pR6tV8yZ0aB2cD4eF6gH8iJ",
+                     *       "url": "http://127.0.0.1:8080/api/v1/client-view?token=rfc_3q2-7wQbX0S1fE9kLmN4pR6tV8yZ0aB2cD4eF6gH8iJ"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["CreatedClientLink"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    revokeClientLink: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                projectId: number;
+                linkId: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Revoked (or it was already). */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    getClientView: {
+        parameters: {
+            query: {
+                token: components["schemas"]["ClientLinkToken"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The page. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "text/html": string;
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            404: components["responses"]["ClientLinkUnknown"];
+            410: components["responses"]["ClientLinkGone"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getClientViewPdf: {
+        parameters: {
+            query: {
+                token: components["schemas"]["ClientLinkToken"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The PDF as stored; `Repr-Digest` carries its sha-256. */
+            200: {
+                headers: {
+                    /** @description inline; filename="proposal-<project>-<date>.pdf" */
+                    "Content-Disposition"?: string;
+                    /** @description sha-256=:<base64 of the checksum>: (RFC 9530) */
+                    "Repr-Digest"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/pdf": string;
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            404: components["responses"]["ClientLinkUnknown"];
+            410: components["responses"]["ClientLinkGone"];
+            429: components["responses"]["TooManyRequests"];
         };
     };
 }

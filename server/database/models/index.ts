@@ -19,6 +19,10 @@ import { Project } from './project';
 import { CompanyProfile } from './company-profile';
 import { ProjectReport } from './project-report';
 import { ProjectRevision } from './project-revision';
+// sending to clients
+import { ClientLink } from './client-link';
+import { ClientLinkView } from './client-link-view';
+import { ProposalMail } from './proposal-mail';
 
 /** Initialises every model and declares the associations, in one place. */
 export function initialiseModels(sequelize: Sequelize): void {
@@ -60,6 +64,15 @@ export function initialiseModels(sequelize: Sequelize): void {
     Project.hasMany(ProjectReport, { as: 'reports', foreignKey: 'projectId' });
     CompanyProfile.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   }
+  // sending to clients
+  for (const model of [ProposalMail, ClientLink, ClientLinkView]) model.initialise(sequelize);
+  if (!ProposalMail.associations.project) {
+    ProposalMail.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
+    ProposalMail.belongsTo(ProjectReport, { as: 'report', foreignKey: 'reportId' });
+    ClientLink.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
+    ClientLink.belongsTo(ProjectReport, { as: 'report', foreignKey: 'reportId' });
+    ClientLink.hasMany(ClientLinkView, { as: 'views', foreignKey: 'linkId' });
+  }
 }
 
 export { Supplier };
@@ -67,3 +80,4 @@ export { ApiToken, AuditEvent, Invitation, PasswordResetLink, Session, User };
 export { CurveDeclaredRange, CurveImport, CurvePoint, CurveRevision, Pump };
 export { Project, ProjectRevision };
 export { CompanyProfile, ProjectReport };
+export { ClientLink, ClientLinkView, ProposalMail };

@@ -16,6 +16,11 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
   declare ownerUserId: ForeignKey<User['id']>;
   declare name: string;
   declare design: DesignDraft;
+  /** Who the proposal goes to and where the feature is built; null until the designer records them. */
+  declare clientName: CreationOptional<string | null>;
+  declare clientEmail: CreationOptional<string | null>;
+  declare clientPhone: CreationOptional<string | null>;
+  declare siteAddress: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -34,6 +39,10 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
             return (typeof stored === 'string' ? JSON.parse(stored) : stored) as DesignDraft;
           },
         },
+        clientName: { type: DataTypes.STRING(200), allowNull: true },
+        clientEmail: { type: DataTypes.STRING(254), allowNull: true },
+        clientPhone: { type: DataTypes.STRING(40), allowNull: true },
+        siteAddress: { type: DataTypes.STRING(400), allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -36,6 +36,13 @@ export class DemoMailboxPage {
     this.reload();
   }
 
+  /** Bytes as a reader takes them in: B, KiB or MiB. */
+  protected sizeText(bytes: number): string {
+    if (bytes < 1024) return `${bytes} B`;
+    if (bytes < 1024 * 1024) return `${(bytes / 1024).toFixed(1)} KiB`;
+    return `${(bytes / 1024 / 1024).toFixed(1)} MiB`;
+  }
+
   protected reload(): void {
     this.adminApi.listDemoMail().subscribe({
       next: ({ messages }) =>

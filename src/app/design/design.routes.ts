@@ -38,6 +38,11 @@ export const designRoutes: Routes = [
         loadComponent: () => import('./projects/project-history-page').then((m) => m.ProjectHistoryPage),
       },
       {
+        path: 'projects/:projectId/proposal',
+        title: 'Send the proposal - Riffle',
+        loadComponent: () => import('./projects/proposal-page').then((m) => m.ProposalPage),
+      },
+      {
         path: 'report',
         title: 'Report - Riffle',
         loadComponent: () => import('./report/selection-report-page').then((m) => m.SelectionReportPage),

@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { expect } from 'chai';
 import type { OpenAPIV3_1 } from 'openapi-types';
 import request from 'supertest';
@@ -6,7 +7,14 @@ import { apiScopes, roles, type ApiScope, type Role } from '../../../shared/voca
 import { listOperations, openApiDocument, type ApiOperation } from '../../../server/api/openapi-document';
 import { createApp } from '../../../server/app';
 import { newSecretToken } from '../../../server/accounts/secret-tokens';
-import { PasswordResetLink, Supplier, type User } from '../../../server/database/models';
+import {
+  ClientLink,
+  PasswordResetLink,
+  Project,
+  ProjectReport,
+  Supplier,
+  type User,
+} from '../../../server/database/models';
 import { createLogger } from '../../../server/logging';
 import { createApiToken, createSession, createUserWithSession, tableChecksums } from '../../support/accounts';
 import { createScratchDatabase } from '../../support/test-database';
@@ -86,7 +94,15 @@ describe('access matrix over every operation of openapi.yaml', function () {
     app = createApp({
       sequelize,
       logger: createLogger('silent'),
-      accounts: { rateLimits: { 'sign-in': generous, 'email-link': generous, invitation: generous } },
+      accounts: {
+        rateLimits: {
+          'sign-in': generous,
+          'email-link': generous,
+          invitation: generous,
+          'proposal-mail': generous,
+          'client-link': generous,
+        },
+      },
     });
   });
 
@@ -201,6 +217,49 @@ describe('access matrix over every operation of openapi.yaml', function () {
         const response = await call(operation, tokensByRole.get(access.roles[0]));
         expect(response.status, describeStatus(response)).to.equal(401);
         expect(response.type).to.equal('application/problem+json');
+      });
+    }
+  });
+
+  // A client's read-only link opens its proposal's page and PDF only: its token, live, is no credential anywhere else.
+  describe('a live client link token, as a Bearer token or a cookie', () => {
+    let clientToken: string;
+
+    before(async () => {
+      const designer = usersByRole.designer;
+      const project = await Project.create({ ownerUserId: designer.id, name: 'Matrix pond', design: {} as never });
+      const pdf = Buffer.from('%PDF-1.4 matrix');
+      const report = await ProjectReport.create({
+        projectId: project.id,
+        madeByUserId: designer.id,
+        paper: 'a4',
+        pdf,
+        byteLength: pdf.length,
+        sha256: createHash('sha256').update(pdf).digest('hex'),
+        catalogRevision: 0,
+      });
+      const secret = newSecretToken('clientLink');
+      await ClientLink.create({
+        projectId: project.id,
+        reportId: report.id,
+        tokenHash: secret.hash,
+        createdByUserId: designer.id,
+        expiresAt: new Date(Date.now() + 86_400_000),
+      });
+      clientToken = secret.token;
+      await request(app).get('/api/v1/client-view/report.pdf').query({ token: clientToken }).expect(200);
+    });
+
+    for (const operation of operations) {
+      const access = readAccessDeclaration(operation, openApiDocument.security);
+      if (access.public) continue;
+      it(`${operation.method.toUpperCase()} ${operation.path} (${operation.operationId}) -> 401 both ways`, async () => {
+        const asBearer = await call(operation, clientToken);
+        expect(asBearer.status, describeStatus(asBearer)).to.equal(401);
+        const pending = request(app)[operation.method](concretePath(operation));
+        pending.set('Cookie', `token=${clientToken}; session=${clientToken}; riffle_session=${clientToken}`);
+        const asCookie = await pending;
+        expect(asCookie.status, describeStatus(asCookie)).to.equal(401);
       });
     }
   });

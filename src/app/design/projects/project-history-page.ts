@@ -36,7 +36,10 @@ import { RecordVisitForm } from './record-visit-form';
   template: `
     <section class="rf-card" aria-labelledby="rf-history-title">
       <h2 id="rf-history-title">Site visits of this project</h2>
-      <p><a routerLink="/design/projects">Back to the projects</a></p>
+      <p>
+        <a routerLink="/design/projects">Back to the projects</a> ·
+        <a [routerLink]="['/design/projects', projectId, 'proposal']">Send the proposal</a>
+      </p>
       @if (revisions() === null) {
         <p>Loading…</p>
       } @else {

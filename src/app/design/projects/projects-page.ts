@@ -48,6 +48,12 @@ import { ProjectsApi } from './projects-api';
                   <a mat-stroked-button [routerLink]="[project.id]" [attr.aria-label]="'History of ' + project.name"
                     >History</a
                   >
+                  <a
+                    mat-stroked-button
+                    [routerLink]="[project.id, 'proposal']"
+                    [attr.aria-label]="'Send the proposal of ' + project.name"
+                    >Send</a
+                  >
                   <button
                     mat-stroked-button
                     type="button"
