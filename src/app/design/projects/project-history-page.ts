@@ -1,4 +1,4 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { DatePipe } from '@angular/common';
 import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { FormsModule } from '@angular/forms';
@@ -15,6 +15,7 @@ import type {
 import { describeHttpError } from '../../core/problem-details';
 import { ProjectsApi } from './projects-api';
 import { RecordVisitForm } from './record-visit-form';
+import { FigurePipe } from '../../shared/locale-numbers';
 
 /**
  * One project's site visits: each revision with its date, author and notes; for any two, what
@@ -25,7 +26,7 @@ import { RecordVisitForm } from './record-visit-form';
   selector: 'rf-project-history-page',
   imports: [
     DatePipe,
-    DecimalPipe,
+    FigurePipe,
     FormsModule,
     MatButtonModule,
     MatFormFieldModule,
@@ -125,9 +126,9 @@ import { RecordVisitForm } from './record-visit-form';
             <tbody>
               @for (point of shown.after.systemHead; track $index) {
                 <tr>
-                  <th scope="row">TDH at {{ point.flow | number: '1.0-1' }} {{ shown.after.units.flow }}</th>
-                  <td>{{ shown.before.systemHead[$index].head | number: '1.2-2' }} {{ shown.after.units.head }}</td>
-                  <td>{{ point.head | number: '1.2-2' }} {{ shown.after.units.head }}</td>
+                  <th scope="row">TDH at {{ point.flow | figure: '1.0-1' }} {{ shown.after.units.flow }}</th>
+                  <td>{{ shown.before.systemHead[$index].head | figure: '1.2-2' }} {{ shown.after.units.head }}</td>
+                  <td>{{ point.head | figure: '1.2-2' }} {{ shown.after.units.head }}</td>
                 </tr>
               }
               @if (shown.after.choice && shown.before.choice) {

@@ -22,6 +22,7 @@ import { SessionService } from '../../core/session-service';
 import { ReportsApi } from '../../profile/reports-api';
 import { ProjectsApi } from './projects-api';
 import { ProposalSendingApi } from './proposal-sending-api';
+import { DecimalInput } from '../../shared/locale-numbers';
 
 /**
  * Sending one project's proposal: the client and site, a stored proposal (or a new one) e-mailed
@@ -30,6 +31,7 @@ import { ProposalSendingApi } from './proposal-sending-api';
 @Component({
   selector: 'rf-proposal-page',
   imports: [
+    DecimalInput,
     DatePipe,
     FormsModule,
     MatButtonModule,

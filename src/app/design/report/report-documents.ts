@@ -13,6 +13,7 @@ import { describeHttpError } from '../../core/problem-details';
 import { ReportsApi } from '../../profile/reports-api';
 import { attachmentFileName, saveFile } from '../../shared/file-download';
 import { SelectionDraft } from '../selection-draft';
+import { DecimalInput } from '../../shared/locale-numbers';
 
 /**
  * The proposal as a PDF made on the server from the saved project, the stored ones to download
@@ -21,6 +22,7 @@ import { SelectionDraft } from '../selection-draft';
 @Component({
   selector: 'rf-report-documents',
   imports: [
+    DecimalInput,
     DatePipe,
     FormsModule,
     RouterLink,
