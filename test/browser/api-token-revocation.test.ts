@@ -68,7 +68,7 @@ describe('API tokens, the password and a reset in Chromium', function () {
     expect(await page.getByRole('status').innerText()).to.contain('This API token is revoked');
     const listed = await page.locator('.rf-revoked-tokens li').allInnerTexts();
     expect(listed).to.have.length(1);
-    expect(listed[0]).to.match(/^Estimating sheet \(rft_\w+…\)$/);
+    expect(listed[0]).to.match(/^Estimating sheet \(rft_[\w-]+…\)$/);
 
     await signIn(resetPassword);
     const note = page.getByRole('note');

@@ -84,7 +84,7 @@ export async function waitForMail(to: string, since: Date, timeoutMs = 10_000): 
 
 /** The single-use token in an e-mailed link. */
 export function linkTokenIn(message: MailboxMessage): string {
-  const token = /[?&]token=(rfl_[A-Za-z0-9_-]{43})\b/.exec(message.text)?.[1];
+  const token = /[?&]token=(rfl_[A-Za-z0-9_-]{43})(?![\w-])/.exec(message.text)?.[1];
   if (!token) throw new Error(`no link token in the message "${message.subject}"`);
   return token;
 }
