@@ -1354,6 +1354,8 @@ export interface components {
             voltage: number | null;
             /** @enum {integer|null} */
             phaseCount: 1 | 3 | null;
+            /** @description The motor's full-load (rated) current at `voltage`, A. */
+            fullLoadCurrent: number | null;
             dischargeSizeMm: number | null;
             /** @description Largest solid sphere the pump passes, mm. */
             solidsHandlingMm: number | null;
@@ -3171,6 +3173,7 @@ export interface operations {
                      *           "nominalSpeedRpm": 2850,
                      *           "voltage": 230,
                      *           "phaseCount": 1,
+                     *           "fullLoadCurrent": 2.6,
                      *           "dischargeSizeMm": 38.1,
                      *           "solidsHandlingMm": 10,
                      *           "listPrice": {
@@ -3240,6 +3243,7 @@ export interface operations {
                      *         "nominalSpeedRpm": 2850,
                      *         "voltage": 230,
                      *         "phaseCount": 1,
+                     *         "fullLoadCurrent": 2.6,
                      *         "dischargeSizeMm": 38.1,
                      *         "solidsHandlingMm": 10,
                      *         "listPrice": null,

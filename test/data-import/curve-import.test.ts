@@ -130,6 +130,33 @@ describe('curve-table reader', () => {
     }
   });
 
+  it('reads a full-load current in amperes, and refuses 0, a negative, a word or over 1000 A naming the column', async () => {
+    const withCurrent = (value: string) =>
+      smallTable
+        .replace('preferred_flow_max,flow', 'preferred_flow_max,full_load_current,flow')
+        .split('\n')
+        .map((line, index) =>
+          index < 5
+            ? line
+            : line.replace(/^(K-\d+,[^,]*,[^,]*,[^,]*,[^,]*,)/, (cells) => `${cells}${index === 5 ? value : ''},`),
+        )
+        .join('\n');
+    const table = await read(withCurrent('4.6'));
+    expect(table.errors).to.deep.equal([]);
+    expect(table.pumps.map((pump) => pump.details.fullLoadCurrentA)).to.deep.equal([4.6, null]);
+    for (const [bad, code] of [
+      ['0', 'number-out-of-range'],
+      ['-2', 'number-out-of-range'],
+      ['1200', 'number-out-of-range'],
+      ['many', 'not-a-number'],
+    ]) {
+      const refused = await read(withCurrent(bad));
+      expect(refused.errors.map((error) => [error.row, error.column, error.code])).to.deep.equal([
+        [6, 'full_load_current', code],
+      ]);
+    }
+  });
+
   it('hashes the bytes it read (sha-256) and counts the point rows', async () => {
     const { createHash } = await import('node:crypto');
     const table = await read(smallTable);
