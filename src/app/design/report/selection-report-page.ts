@@ -22,6 +22,7 @@ import { ChartNumbers } from '../../shared/chart-numbers';
 import { moneyLabel, motorLabel } from '../energy-and-costs';
 import { SelectionDraft } from '../selection-draft';
 import { compileDraft, staticHeadOf } from '../system-draft';
+import { CableSuggestions } from './cable-suggestions';
 import { ReportDocuments } from './report-documents';
 
 /** Candidates a report shows when none were ticked for comparison: the first few of the search. */
@@ -33,7 +34,16 @@ const reportedWithoutComparison = 3;
  */
 @Component({
   selector: 'rf-selection-report-page',
-  imports: [ChartNumbers, DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, ReportDocuments],
+  imports: [
+    CableSuggestions,
+    ChartNumbers,
+    DatePipe,
+    DecimalPipe,
+    RouterLink,
+    MatButtonModule,
+    MatIconModule,
+    ReportDocuments,
+  ],
   templateUrl: './selection-report-page.html',
   styleUrls: ['../design-page.scss', '../../shared/chart-frame.scss', './selection-report-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
