@@ -72,22 +72,16 @@ function problemOf(error: unknown): string {
                         {{ answer.voltage }} V, {{ answer.phases === 3 ? 'three' : 'single' }} phase,
                         {{ answer.current | number: '1.0-2' }} A
                       </td>
-                      <td>
-                        @if (answer.smallest.awg; as awg) {
-                          {{ awg.conductor.label }} ({{ awg.percent | number: '1.1-1' }} %,
-                          {{ awg.volts | number: '1.1-1' }} V)
-                        } @else {
-                          none up to 4/0 AWG
-                        }
-                      </td>
-                      <td>
-                        @if (answer.smallest.metric; as metric) {
-                          {{ metric.conductor.label }} ({{ metric.percent | number: '1.1-1' }} %,
-                          {{ metric.volts | number: '1.1-1' }} V)
-                        } @else {
-                          none up to 300 mm²
-                        }
-                      </td>
+                      @for (column of seriesColumns; track column.series) {
+                        <td>
+                          @if (answer.smallest[column.series]; as drop) {
+                            {{ drop.conductor.label }} ({{ drop.percent | number: '1.1-1' }} %,
+                            {{ drop.volts | number: '1.1-1' }} V)
+                          } @else {
+                            {{ column.none }}
+                          }
+                        </td>
+                      }
                     } @else {
                       <td colspan="3" class="rf-muted">{{ suggestion.problem }}</td>
                     }
@@ -119,6 +113,11 @@ export class CableSuggestions {
   private readonly api = inject(CalculationsApi);
   protected readonly caution = CABLE_RUN_CAUTION;
   protected readonly limit = DEFAULT_MAX_DROP_PERCENT;
+  /** The answer's two series, in the table's column order, with what a series none of whose sizes is enough says. */
+  protected readonly seriesColumns = [
+    { series: 'awg', none: 'none up to 4/0 AWG' },
+    { series: 'metric', none: 'none up to 300 mm²' },
+  ] as const;
 
   /** Each pump once: the same pump in another arrangement has the same circuit per pump. */
   private readonly pumps = computed(() => {
