@@ -4,6 +4,7 @@ import {
   pumpEfficiencyAt,
   pumpHeadAt,
   solveParallelIdentical,
+  solveSeries,
   type CompiledSystemCurve,
   type EngineIssue,
   type NoOperatingPointReason,
@@ -39,6 +40,8 @@ export interface DutyPoint {
   /** Electrical input of all running pumps, W, or null without power or efficiency data. */
   inputPower: number | null;
   warnings: DutyWarning[];
+  /** Pumps in series only: the head each adds, m (each carries the full flow). */
+  headPerPump?: number;
 }
 
 export type DutyOutcome =
@@ -66,25 +69,79 @@ export function dutyOfParallelPumps(
 ): DutyOutcome {
   const solved = solveParallelIdentical(pump.fit, system, running, running);
   if (!solved.ok) return solved;
+  return {
+    ok: true,
+    point: dutyPoint(
+      pump,
+      running,
+      solved.totalFlow,
+      solved.totalFlow / running,
+      solved.head,
+      band,
+      density,
+      motorEfficiency,
+    ),
+  };
+}
+
+/**
+ * The duty of `running` identical pumps in series on `system` (heads add at equal flow; Karassik,
+ * Pump Handbook, 4th ed., ch. 10): each pump carries the full flow and adds an equal share of the
+ * head; region, power and warnings as for dutyOfParallelPumps, per pump at that flow and share.
+ */
+export function dutyOfSeriesPumps(
+  pump: PumpOnFile,
+  system: CompiledSystemCurve,
+  running: number,
+  band: PreferredBand,
+  density: number,
+  motorEfficiency = 1,
+): DutyOutcome {
+  const solved = solveSeries(pump.fit, system, running);
+  if (!solved.ok) return solved;
+  const point = dutyPoint(
+    pump,
+    running,
+    solved.totalFlow,
+    solved.totalFlow,
+    solved.head / running,
+    band,
+    density,
+    motorEfficiency,
+  );
+  return { ok: true, point: { ...point, head: solved.head, headPerPump: solved.head / running } };
+}
+
+/**
+ * One pump model's duty at a flow per pump (kept inside its published range) and a head per pump,
+ * `running` of them; `flow` is the set's total.
+ */
+export function dutyPoint(
+  pump: PumpOnFile,
+  running: number,
+  flow: number,
+  rawFlowPerPump: number,
+  head: number,
+  band: PreferredBand,
+  density: number,
+  motorEfficiency: number,
+): DutyPoint {
   const { fit } = pump;
-  const flowPerPump = Math.min(Math.max(solved.totalFlow / running, fit.flowMin), fit.flowMax);
+  const flowPerPump = Math.min(Math.max(rawFlowPerPump, fit.flowMin), fit.flowMax);
   const classified = classifyOperatingRegion(fit, flowPerPump, band, pump.declaredPreferred ?? null);
-  const power = powerAtOperatingPoint(fit, flowPerPump, solved.head, density, { motor: motorEfficiency });
+  const power = powerAtOperatingPoint(fit, flowPerPump, head, density, { motor: motorEfficiency });
   const warnings: DutyWarning[] = [];
   if (flowPerPump >= fit.flowMax - RUN_OUT_SHARE * (fit.flowMax - fit.flowMin)) warnings.push('run-out');
   if (pumpHeadAt(fit, flowPerPump) >= DEAD_HEAD_SHARE * fit.shutOffHead) warnings.push('dead-head');
   return {
-    ok: true,
-    point: {
-      running,
-      flow: solved.totalFlow,
-      head: solved.head,
-      flowPerPump,
-      percentOfBep: classified.percentOfBep,
-      region: classified.region,
-      efficiency: pumpEfficiencyAt(fit, flowPerPump),
-      inputPower: power.electrical === null ? null : power.electrical * running,
-      warnings,
-    },
+    running,
+    flow,
+    head,
+    flowPerPump,
+    percentOfBep: classified.percentOfBep,
+    region: classified.region,
+    efficiency: pumpEfficiencyAt(fit, flowPerPump),
+    inputPower: power.electrical === null ? null : power.electrical * running,
+    warnings,
   };
 }

@@ -10,11 +10,10 @@ import {
   branchDutyBand,
   branchFlowsAt,
   flowToSI,
-  parallelHeadCurve,
   systemBreakdown,
   type BranchSplit,
   type CompiledBranchedSystem,
-  type PumpCurveFit,
+  type HeadCurve,
 } from '../../shared/hydraulics';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { unprocessable, withRequestPointers } from './engine-problem';
@@ -76,21 +75,20 @@ function requireBranched(branched: CompiledBranchedSystem | null, pointer: strin
 }
 
 /**
- * The valve that gives `target.branch` its wanted flow at the operating point of `running`
- * identical pumps (balancingValveK: the same K on every other branch). Refusals are 422s under
+ * The valve that gives `target.branch` its wanted flow at the operating point of `pumps`, the
+ * combined head curve of the running pumps (identical ones in parallel or in series; balancingValveK: the same K on every other branch). Refusals are 422s under
  * `/body/balance` (or `/body/pump` when the valved system meets the pump nowhere).
  */
 export function balancingAnswer(
   branched: CompiledBranchedSystem | null,
-  fit: PumpCurveFit,
-  running: number,
+  pumps: HeadCurve,
   target: BalanceTarget,
   units: CalculationUnits,
 ): Balancing {
   const system = requireBranched(branched, '/body/balance/branch');
   const flow = flowToSI(target.flow, units.flow);
   const valveK = withRequestPointers(
-    () => balancingValveK(system, parallelHeadCurve(fit, running), target.branch, { flow }),
+    () => balancingValveK(system, pumps, target.branch, { flow }),
     (field) => (field.startsWith('/pump') ? `/body${field}` : `/body/balance${field}`),
     requestValueText(units),
   );

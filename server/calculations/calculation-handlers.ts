@@ -1,12 +1,9 @@
 import type { Request, RequestHandler } from 'express';
 import type {
-  CalculationUnits,
   DiameterUnit,
   FittingsQuery,
   FittingsResponse,
   OperatingPointRequest,
-  OperatingPointResponse,
-  OperatingPointSummary,
   PipeSizesQuery,
   PipeSizesResponse,
   SystemCurveRequest,
@@ -18,77 +15,22 @@ import {
   diameterToSI,
   FITTINGS,
   flowToSI,
-  npshAtDuty,
   npshAvailableAt,
   PIPE_SERIES,
-  preferredFlowRegion,
   SI_PLAUSIBLE_UNITS,
   systemBreakdown,
   VELOCITY_WARNING_LIMIT,
-  branchFlowsAt,
-  type CompiledBranchedSystem,
-  type CompiledSystemCurve,
-  type NoOperatingPointReason,
 } from '../../shared/hydraulics';
-import { engineInputErrorText, engineIssueText } from '../../shared/messages/engine-issue-text';
-import { ProblemError } from '../api/problem-details';
-import { balancingAnswer, branchedCurvePoint, branchFlowSummaries } from './branch-answers';
-import { dutyOfParallelPumps, type DutyPoint, type PumpOnFile } from './arrangement-duty';
-import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
-import { fitInlinePump, preferredBandOf, summarizeFit } from './pump-request';
-import { answerUnits, echoedUnits, requestValueText, round } from './request-units';
-import { gravityFlowMessage, npshCheckAnswer, npshGuidanceOf, npshMessage, suctionLiftCaution } from './suction-answer';
+import { engineIssueText } from '../../shared/messages/engine-issue-text';
+import { branchedCurvePoint } from './branch-answers';
+import { operatingPointAnswer } from './operating-point-answer';
+import type { CurrentPumpCurves } from './pump-request';
+import { answerUnits, echoedUnits, requestValueText } from './request-units';
+import { gravityFlowMessage, suctionLiftCaution } from './suction-answer';
 import { prepareSystem, requirePlausible, requirePlausibleFlow, velocityWarnings } from './system-request';
 
-/** Where the calculations find a catalog pump's current curve. */
-export interface CurrentPumpCurves {
-  findPump(pumpId: number): Promise<PumpOnFile | undefined>;
-}
-
-/** A duty point as the answer shows it, in the request's units; on a branched system, with each branch's flow. */
-export function operatingPointSummary(
-  point: DutyPoint,
-  units: CalculationUnits,
-  branched: CompiledBranchedSystem | null = null,
-): OperatingPointSummary {
-  const to = answerUnits(units);
-  return {
-    flow: to.flow(point.flow),
-    head: to.head(point.head),
-    flowPerPump: to.flow(point.flowPerPump),
-    percentOfBep: point.percentOfBep,
-    region: point.region,
-    efficiency: point.efficiency === null ? null : point.efficiency * 100,
-    inputPower: point.inputPower === null ? null : to.power(point.inputPower),
-    ...(branched === null ? {} : { branches: branchFlowSummaries(branchFlowsAt(branched, point.flow), units) }),
-  };
-}
-
-const noPointTitles: Record<NoOperatingPointReason, string> = {
-  'below-static-head':
-    'the pump cannot lift the water this high: its shut-off head is below the static head plus outlet pressure head',
-  'before-curve':
-    'the curves would cross left of the first published point of the pump curve, where the maker gives no data',
-  'beyond-curve':
-    'the curves would cross right of the last published point (run-out): the system needs less head than the pump gives even there',
-};
-
-/** The duty-point messages a designer reads, in the request's units. */
-export function dutyWarningMessages(point: DutyPoint, system: CompiledSystemCurve, units: CalculationUnits): string[] {
-  const to = answerUnits(units);
-  const messages = velocityWarnings(system, point.flow, units);
-  if (point.warnings.includes('run-out')) {
-    messages.push(
-      `run-out: each pump runs at ${round(to.flow(point.flowPerPump))} ${units.flow}, at the end of its published curve`,
-    );
-  }
-  if (point.warnings.includes('dead-head')) {
-    messages.push('near dead-head: the pump runs close to its shut-off head and passes little water; it may overheat');
-  }
-  if (point.region === 'outside')
-    messages.push('outside the preferred operating region: expect shorter bearing and seal life');
-  return messages;
-}
+export type { CurrentPumpCurves } from './pump-request';
+export { dutyWarningMessages, operatingPointSummary } from './operating-point-summary';
 
 function diameterUnitOf(request: Request): DiameterUnit {
   return (request.query as PipeSizesQuery | FittingsQuery).diameter ?? 'in';
@@ -158,77 +100,7 @@ export function createCalculationHandlers(
     },
 
     calculateOperatingPoint: async (request, response) => {
-      const body = request.body as OperatingPointRequest;
-      const { curve, branched, density, suction, gravityFlow } = prepareSystem(body.units, body.system);
-      const band = preferredBandOf(body.preferredBand);
-      const guidance = npshGuidanceOf(body.npshMarginRatio);
-      let pump: PumpOnFile;
-      if ('pumpId' in body.pump) {
-        const found = await pumps.findPump(body.pump.pumpId);
-        if (!found) {
-          throw new ProblemError(404, 'Pump not found', `No pump with a current curve has id ${body.pump.pumpId}`, [
-            { pointer: '/body/pump/pumpId', detail: 'no pump with a current curve has this id' },
-          ]);
-        }
-        pump = found;
-      } else {
-        pump = { fit: fitInlinePump(body.units, body.pump) };
-      }
-      const installed = body.arrangement?.installed ?? 1;
-      const running = body.arrangement?.running ?? installed;
-      if (running > installed)
-        throw unprocessable(
-          '/body/arrangement/running',
-          engineInputErrorText({
-            code: 'running-exceeds-installed',
-            params: { running, installed },
-            pointer: '/running',
-          }),
-        );
-      const duty = withRequestPointers(
-        () => dutyOfParallelPumps(pump, curve, running, band, density),
-        pointerInto('/body/arrangement'),
-      );
-      if (!duty.ok) {
-        const detail =
-          gravityFlow === null
-            ? noPointTitles[duty.reason]
-            : `${noPointTitles[duty.reason]}; ${gravityFlowMessage(gravityFlow, body.units)}`;
-        throw new ProblemError(
-          422,
-          'No operating point',
-          detail,
-          [{ pointer: '/body/pump', detail }],
-          'no-operating-point',
-          {
-            reason: duty.reason,
-            ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
-          },
-        );
-      }
-      const oneFailed =
-        running === installed && installed >= 2 ? dutyOfParallelPumps(pump, curve, running - 1, band, density) : null;
-      const warnings = dutyWarningMessages(duty.point, curve, body.units);
-      if (oneFailed && !oneFailed.ok) warnings.push(`with one pump failed: ${noPointTitles[oneFailed.reason]}`);
-      const npsh = suction ? npshAtDuty(suction, pump.fit, duty.point.flow, duty.point.flowPerPump, guidance) : null;
-      const npshText = npsh ? npshMessage(npsh, guidance, body.units) : null;
-      if (npshText) warnings.push(npshText);
-      const caution = suctionLiftCaution(suction, body.units);
-      if (caution) warnings.push(caution);
-      if (gravityFlow !== null) warnings.push(gravityFlowMessage(gravityFlow, body.units));
-      const answer: OperatingPointResponse = {
-        units: echoedUnits(body.units),
-        operatingPoint: operatingPointSummary(duty.point, body.units, branched),
-        oneFailed: oneFailed?.ok ? operatingPointSummary(oneFailed.point, body.units, branched) : null,
-        fit: summarizeFit(pump.fit, body.units, preferredFlowRegion(pump.fit, band, pump.declaredPreferred)),
-        ...(body.balance === undefined
-          ? {}
-          : { balancing: balancingAnswer(branched, pump.fit, running, body.balance, body.units) }),
-        ...(npsh ? { npsh: npshCheckAnswer(npsh, guidance, body.units) } : {}),
-        ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
-        warnings,
-      };
-      response.json(answer);
+      response.json(await operatingPointAnswer(pumps, request.body as OperatingPointRequest));
     },
 
     listPipeSizes: (request, response) => {

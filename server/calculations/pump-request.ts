@@ -1,18 +1,68 @@
-import type { CalculationUnits, CurveFitSummary, InlinePump, PreferredBandInput } from '../../shared/api/api-schemas';
+import type {
+  CalculationUnits,
+  CatalogPump,
+  CurveFitSummary,
+  InlinePump,
+  PreferredBandInput,
+} from '../../shared/api/api-schemas';
 import {
   checkPreferredBand,
   DEFAULT_PREFERRED_BAND,
   fitPumpCurveWithIssues,
   flowToSI,
   headToSI,
+  motorEfficiencyFor,
   powerToSI,
   type PreferredBand,
   type PumpCurveFit,
 } from '../../shared/hydraulics';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
+import { ProblemError } from '../api/problem-details';
+import type { PumpOnFile } from './arrangement-duty';
 import { pointerInto, withRequestPointers } from './engine-problem';
 import { answerUnits, powerUnitOf, requestValueText } from './request-units';
 import { requirePlausible } from './system-request';
+
+/** A catalog pump's current curve with what the wire-to-water rule reads of it. */
+export interface CatalogPumpOnFile extends PumpOnFile {
+  kind: string;
+  /** The catalog's motor efficiency, 0-1, or null. */
+  motorEfficiency: number | null;
+}
+
+/** Where the calculations find a catalog pump's current curve. */
+export interface CurrentPumpCurves {
+  findPump(pumpId: number): Promise<CatalogPumpOnFile | undefined>;
+}
+
+/** A pump of a request, ready for the engine, with the motor efficiency its curve power is divided by. */
+export interface RequestPump {
+  pump: PumpOnFile;
+  /** 0-1 (motorEfficiencyFor); 1 for an inline curve, whose power is taken as published. */
+  motorEfficiency: number;
+}
+
+/**
+ * The pump at `pointer` (`/body/pump`): an inline curve, fitted, or a catalog pump by id (a 404
+ * naming `pointer/pumpId` when no pump with a current curve has it). Power is wire-to-water as in
+ * the selection: a catalog pump's shaft power is divided by its catalog motor efficiency, else its
+ * kind's (motorEfficiencyFor); an inline curve's power is taken as its `powerBasis` says.
+ */
+export async function requestPump(
+  pumps: CurrentPumpCurves,
+  units: CalculationUnits,
+  spec: InlinePump | CatalogPump,
+  pointer = '/body/pump',
+): Promise<RequestPump> {
+  if (!('pumpId' in spec)) return { pump: { fit: fitInlinePump(units, spec, pointer) }, motorEfficiency: 1 };
+  const found = await pumps.findPump(spec.pumpId);
+  if (!found) {
+    throw new ProblemError(404, 'Pump not found', `No pump with a current curve has id ${spec.pumpId}`, [
+      { pointer: `${pointer}/pumpId`, detail: 'no pump with a current curve has this id' },
+    ]);
+  }
+  return { pump: found, motorEfficiency: motorEfficiencyFor(found, null).value };
+}
 
 /**
  * Fits an inline published curve, its warnings in the request's units; every problem is a 422

@@ -27,6 +27,8 @@ export interface CatalogPump extends PumpOnFile {
   model: string;
   modelCode: string;
   kind: string;
+  /** Largest solid sphere the pump passes, mm; null when the catalog does not say. */
+  solidsHandlingMm: number | null;
   revisionId: number;
   /** The motor's efficiency, 0-1, as the supplier gives it; null when the curve table has none. */
   motorEfficiency: number | null;
@@ -52,6 +54,7 @@ type CurrentCurveRow = Pick<PumpRow, 'supplier_id' | 'supplier_name' | 'model_co
   preferred_min: number | null;
   preferred_max: number | null;
   motor_efficiency: number | null;
+  solids_handling_mm: number | null;
   list_price: string | null;
   price_currency: string | null;
   full_load_current_a: number | null;
@@ -68,7 +71,8 @@ const stampQuery = `
 
 const pumpsQuery = `
   SELECT p.id AS pump_id, p.supplier_id, s.name AS supplier_name, p.model_code, p.display_name, p.kind,
-         p.motor_efficiency, p.list_price, p.price_currency, p.full_load_current_a, p.voltage_v, p.phase_count,
+         p.motor_efficiency, p.solids_handling_mm, p.list_price, p.price_currency, p.full_load_current_a, p.voltage_v,
+         p.phase_count,
          r.id AS revision_id, r.fit, d.flow_min_m3s AS preferred_min, d.flow_max_m3s AS preferred_max
   FROM pumps p
   JOIN suppliers s ON s.id = p.supplier_id
@@ -86,6 +90,7 @@ function toCatalogPump(row: CurrentCurveRow): CatalogPump {
     model: row.display_name,
     modelCode: row.model_code,
     kind: row.kind,
+    solidsHandlingMm: row.solids_handling_mm,
     revisionId: row.revision_id,
     motorEfficiency: row.motor_efficiency,
     listPrice:

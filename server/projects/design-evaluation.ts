@@ -48,6 +48,7 @@ export async function chosenCurve(pumpId: number, revisionId: number): Promise<C
       model: pump.displayName,
       modelCode: pump.modelCode,
       kind: pump.kind,
+      solidsHandlingMm: pump.solidsHandlingMm,
       revisionId: revision.id,
       fit,
       declaredPreferred: preferred ? { flowMin: preferred.flowMinM3s, flowMax: preferred.flowMaxM3s } : null,

@@ -33,9 +33,12 @@ function pumpFilter(filters: SelectionRequest['filters']): (pump: CatalogPump) =
   const suppliers = filters?.supplierIds?.length ? new Set(filters.supplierIds) : null;
   const kinds = filters?.kinds?.length ? new Set<string>(filters.kinds) : null;
   const text = filters?.modelContains?.trim().toLowerCase() || null;
+  const minSolids = filters?.minSolidsMm ?? null;
   return (pump) =>
     (!suppliers || suppliers.has(pump.supplierId)) &&
     (!kinds || kinds.has(pump.kind)) &&
+    // a pump whose solids handling the catalog does not give cannot be said to pass them
+    (minSolids === null || (pump.solidsHandlingMm !== null && pump.solidsHandlingMm >= minSolids)) &&
     (!text || pump.model.toLowerCase().includes(text) || pump.modelCode.toLowerCase().includes(text));
 }
 
@@ -52,6 +55,8 @@ function candidateAnswer(
     supplier: candidate.pump.supplier,
     model: candidate.pump.model,
     modelCode: candidate.pump.modelCode,
+    kind: candidate.pump.kind as SelectionCandidate['kind'],
+    solidsHandlingMm: candidate.pump.solidsHandlingMm,
     arrangement: { installed: candidate.running + (body.standby ? 1 : 0), running: candidate.running },
     operatingPoint: operatingPointSummary(candidate.point, body.units, branched),
     oneFailed: candidate.oneFailed ? operatingPointSummary(candidate.oneFailed, body.units, branched) : null,

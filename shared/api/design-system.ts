@@ -68,6 +68,8 @@ export function designSelectionRequest(design: DesignDraft): SelectionRequest {
     standby: search.standby ?? false,
     filters: {
       onlyPreferredRegion: search.onlyPreferredRegion,
+      ...(search.kinds?.length ? { kinds: search.kinds } : {}),
+      ...(search.minSolidsMm == null ? {} : { minSolidsMm: search.minSolidsMm }),
       ...(search.maxInputPowerPerPump === null ? {} : { maxInputPowerPerPump: search.maxInputPowerPerPump }),
     },
     energy: {

@@ -340,7 +340,7 @@ export interface paths {
         get?: never;
         put?: never;
         /**
-         * Where a pump (or identical pumps in parallel) meets the system curve
+         * Where a pump, identical pumps in parallel or in series, or a mixed set meets the system curve
          * @description The pump is either an inline published curve (at least three points, head not rising
          *     with flow; optional power or efficiency on every point) or a catalog pump by `pumpId`
          *     (its current curve revision). `arrangement` runs `running` of `installed` identical
@@ -357,6 +357,33 @@ export interface paths {
          *     margin of `npshMarginRatio` (default 1.1) and 0.6 m (ANSI/HI 9.6.1 clean water); a pump
          *     above the water gets a suction-lift and priming caution in `warnings`. With the outlet
          *     below the intake, `gravityFlow` (also in the 422 problem) says what gravity alone delivers.
+         *
+         *     Pumps in series: `arrangement.layout: series` with `running` of 2 or more and no standby
+         *     (`installed` equal to `running`); heads add at equal flow, so each pump carries the full
+         *     flow (`flowPerPump` equals `flow`) and adds `headPerPump`, an equal share of `head`;
+         *     `oneFailed` is the remaining pumps still in series, the stopped one bypassed (a check-valve
+         *     bypass round each pump is assumed); `npsh` is that of the first pump, at the full flow;
+         *     `balance` works on the series curve. One pump in series is a 422 at
+         *     `/body/arrangement/running`, a standby in series a 422 at `/body/arrangement/installed`.
+         *
+         *     A mixed set: `pumps` instead of `pump`, 2 to 4 entries of different models (inline or
+         *     catalog) in parallel, each with a check valve and `running` of it, at most 4 pumps in all
+         *     (more is a 422 at `/body/pumps`; more than 4 entries a 400 there). Flows add at the common
+         *     head; each curve must start at zero flow (a 422 at `/body/pumps/<i>/pump` otherwise). The
+         *     answer's `operatingPoint` gives the total flow, the common head and the total input power,
+         *     and in `pumps` each entry per single pump of it: flow, head, percent of BEP, region,
+         *     efficiency, input power (and `npsh` with a suction side); a pump whose shut-off head is
+         *     below the common head delivers nothing and is named in `warnings`. `oneFailed` is the
+         *     worst single failure: of the sets with one pump stopped, the one with the least total flow
+         *     (null, with a warning, when one of them meets the system nowhere). `fit` is the first
+         *     entry's fitted curve, `fits` every entry's. `arrangement` and `balance` are refused beside
+         *     `pumps` (a 422 naming the field), and so are both `pump` and `pumps` (at `/body/pumps`)
+         *     or neither (at `/body/pump`).
+         *
+         *     Input power is wire-to-water, as in the selection: a catalog pump's shaft power is divided
+         *     by its motor efficiency from the catalog, else its kind's assumed value; an inline curve's
+         *     power or efficiency is taken as its `powerBasis` says (shaft by default, with no motor
+         *     efficiency applied).
          */
         post: operations["calculateOperatingPoint"];
         delete?: never;
@@ -1092,16 +1119,35 @@ export interface components {
             installed: number;
             running: number;
         };
+        /** @description Identical pumps of `pump`: `running` of `installed` in parallel (default), or `running` in series (`layout: series`, heads add at equal flow, for a booster to a high fountain). Series needs `running` of 2 or more (1 is a 422 at `/body/arrangement/running`) and no standby: `installed` equal to `running` (else a 422 at `/body/arrangement/installed`). */
+        OperatingPointArrangement: {
+            installed: number;
+            running: number;
+            /**
+             * @default parallel
+             * @enum {string}
+             */
+            layout: "parallel" | "series";
+        };
+        /** @description One model of a mixed set and how many of it run. */
+        MixedSetEntry: {
+            pump: components["schemas"]["InlinePump"] | components["schemas"]["CatalogPump"];
+            /** @description Pumps of this model running, a whole number of at least 1. */
+            running: number;
+        };
         /** @description The preferred operating region as percent of BEP flow; default 70-120 (ANSI/HI 9.6.3). */
         PreferredBand: {
             minPercent: number;
             maxPercent: number;
         };
+        /** @description Exactly one of `pump` (one model, alone or identical pumps per `arrangement`) and `pumps` (a mixed set of different models in parallel); both or neither is a 422 naming the field. */
         OperatingPointRequest: {
             units: components["schemas"]["CalculationUnits"];
             system: components["schemas"]["PipeSystem"];
-            pump: components["schemas"]["InlinePump"] | components["schemas"]["CatalogPump"];
-            arrangement?: components["schemas"]["PumpArrangement"];
+            pump?: components["schemas"]["InlinePump"] | components["schemas"]["CatalogPump"];
+            /** @description A mixed set: 2 to 4 entries, different models in parallel (flows add at equal head, a check valve on each), all running; at most 4 pumps in all (the sum of `running`), more is a 422 at `/body/pumps`. Not with `arrangement` or `balance` (a 422 naming the field). */
+            pumps?: components["schemas"]["MixedSetEntry"][];
+            arrangement?: components["schemas"]["OperatingPointArrangement"];
             preferredBand?: components["schemas"]["PreferredBand"];
             balance?: components["schemas"]["BalanceTarget"];
             npshMarginRatio?: components["schemas"]["NpshMarginRatio"];
@@ -1157,8 +1203,42 @@ export interface components {
             efficiency: number | null;
             /** @description Input power of all running pumps, in power units. */
             inputPower: number | null;
+            /** @description Pumps in series only: the head each pump adds (the total head shared equally); each carries the full flow. */
+            headPerPump?: number;
             /** @description Branched systems only, in the order of system.branches. */
             branches?: components["schemas"]["BranchFlow"][];
+        };
+        /** @description A mixed set at its operating point: the total flow at the common head, and each model's pumps. */
+        MixedSetOperatingPoint: {
+            /** @description Total flow of the running pumps. */
+            flow: number;
+            /** @description The common head. */
+            head: number;
+            /** @description Input power of all running pumps, in power units; null when one model has no power or efficiency data. */
+            inputPower: number | null;
+            /** @description The running entries of `pumps`, in request order (with one failed, the entry whose pump stopped has one fewer running, or is left out). */
+            pumps: components["schemas"]["MixedSetPumpPoint"][];
+            /** @description Branched systems only, in the order of system.branches. */
+            branches?: components["schemas"]["BranchFlow"][];
+        };
+        /** @description One entry of a mixed set, per single pump of that model. A pump whose shut-off head is below the common head delivers nothing (its check valve stays shut): flow 0, head its shut-off head. */
+        MixedSetPumpPoint: {
+            /** @description Index of the entry in the request's `pumps`. */
+            entry: number;
+            running: number;
+            /** @description Flow of one pump of this entry. */
+            flow: number;
+            /** @description Head of one pump of this entry. */
+            head: number;
+            /** @description Flow as percent of BEP flow. */
+            percentOfBep: number | null;
+            region: components["schemas"]["OperatingRegion"];
+            /** @description Pump efficiency at the point, percent. */
+            efficiency: number | null;
+            /** @description Input power of one pump of this entry, in power units. */
+            inputPower: number | null;
+            /** @description Present when the system has a suction side: NPSH available at the total flow against this pump's NPSH3 at its flow. */
+            npsh?: components["schemas"]["NpshCheck"];
         };
         /**
          * @description Where a head curve comes from. published: fitted to the published points. estimated-from-two-points: only shut-off head H0 and open flow Qmax were published, so head follows H = H0 (1 - (Q/Qmax)^2), an assumed parabola (common practice for small centrifugal pumps, not a measured curve); such a curve has no efficiency or BEP and ranks below a published one of equal merit in a selection.
@@ -1188,12 +1268,21 @@ export interface components {
         };
         OperatingPointResponse: {
             units: components["schemas"]["CalculationUnits"];
-            operatingPoint: components["schemas"]["OperatingPoint"];
-            /** @description With two or more pumps all running: the point with one of them off (null otherwise, or when the rest run past their curve). */
-            oneFailed: components["schemas"]["OperatingPoint"] | null;
+            /**
+             * @description How the pumps are joined; a mixed set is always parallel.
+             * @enum {string}
+             */
+            layout: "parallel" | "series";
+            /** @description An OperatingPoint for `pump`; a MixedSetOperatingPoint for `pumps`. */
+            operatingPoint: components["schemas"]["OperatingPoint"] | components["schemas"]["MixedSetOperatingPoint"];
+            /** @description With two or more pumps all running: the point with one of them off (null otherwise, or when the rest cannot reach a point, which `warnings` then says). In parallel the rest share the flow; in series the remaining pumps stay in series (the stopped one bypassed); in a mixed set, the worst single failure: the pump whose stop lowers the total flow most. */
+            oneFailed: components["schemas"]["OperatingPoint"] | components["schemas"]["MixedSetOperatingPoint"] | null;
+            /** @description The fitted curve; for a mixed set, that of the first entry (`fits` has them all). */
             fit: components["schemas"]["CurveFitSummary"];
+            /** @description Mixed sets only, the fitted curve of each entry in request order. */
+            fits?: components["schemas"]["CurveFitSummary"][];
             balancing?: components["schemas"]["Balancing"];
-            /** @description Present when the system has a suction side. */
+            /** @description Present when the system has a suction side (for a mixed set, per entry in `operatingPoint.pumps`). */
             npsh?: components["schemas"]["NpshCheck"];
             gravityFlow?: components["schemas"]["GravityFlow"];
             warnings: string[];
@@ -1247,6 +1336,8 @@ export interface components {
             supplierIds?: number[];
             kinds?: ("submersible" | "external-centrifugal" | "mixed-flow")[];
             modelContains?: string;
+            /** @description Only pumps that pass a solid sphere at least this large, mm (leaves and fish waste in a pond or stream; a skimmer or waterfall pump is often asked to pass 6 to 10 mm, common practice). A pump whose catalog entry gives no solids size is left out. */
+            minSolidsMm?: number;
             /** @description In power units. */
             maxInputPowerPerPump?: number;
             /** @description Leave out candidates outside the preferred operating region. */
@@ -1313,6 +1404,9 @@ export interface components {
             supplier: string;
             model: string;
             modelCode: string;
+            kind: components["schemas"]["PumpKind"];
+            /** @description Largest solid sphere the pump passes, mm; null when the catalog does not say. */
+            solidsHandlingMm: number | null;
             arrangement: components["schemas"]["PumpArrangement"];
             operatingPoint: components["schemas"]["OperatingPoint"];
             /** @description The point with one pump off; null for a single pump or when the rest run past their curve. */
@@ -1738,6 +1832,10 @@ export interface components {
             requireOneFailed: boolean;
             standby?: boolean;
             onlyPreferredRegion: boolean;
+            /** @description Only pumps of these kinds; empty or absent for every kind. */
+            kinds?: components["schemas"]["PumpKind"][];
+            /** @description Only pumps passing solids at least this large, mm; null for no limit. */
+            minSolidsMm?: number | null;
             maxInputPowerPerPump: number | null;
             hoursPerDay: number;
             tariffPerKWh: number | null;

@@ -17,6 +17,11 @@ describe('the candidates table and cards in Chromium', function () {
 
   before(async () => {
     await seedSyntheticCatalog(app.sequelize, syntheticShapes(120, 5), 'Table Test Pumps');
+    // a third external centrifugal, and solids of 2, 6 or 10 mm by id (2 mm for every fourth)
+    await app.sequelize.query(
+      `UPDATE pumps SET kind = IF(id % 3 = 0, 'external-centrifugal', 'submersible'),
+         solids_handling_mm = ELT(1 + id % 4, 2, 6, 10, 6), updated_at = NOW(3)`,
+    );
     email = (await createUserWithSession(app.sequelize, 'designer')).user.email;
   });
 
@@ -165,5 +170,17 @@ describe('the candidates table and cards in Chromium', function () {
     expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
     await saveScreenshot(page, 'candidates-phone-cards');
     await page.setViewportSize({ width: 1400, height: 900 });
+  });
+
+  it('narrows the search to a pump kind and the solids it must pass', async () => {
+    const { page } = app;
+    await page.getByRole('checkbox', { name: 'External centrifugal' }).check();
+    await page.fill('input[name=minSolidsMm]', '6');
+    await findCandidates();
+    const facts = await page.locator('tr[data-candidate] td.mat-column-pump .rf-muted').allInnerTexts();
+    expect(facts.length).to.be.greaterThan(0);
+    expect(facts.every((text) => /External centrifugal · passes (6|10) mm solids/.test(text))).to.equal(true);
+    await page.getByRole('checkbox', { name: 'External centrifugal' }).uncheck();
+    await page.fill('input[name=minSolidsMm]', '');
   });
 });

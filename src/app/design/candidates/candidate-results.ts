@@ -11,6 +11,7 @@ import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import type { SelectionCandidate, SelectionResponse } from '../../../../shared/api/api-schemas';
 import { VELOCITY_WARNING_LIMIT, velocityFromSI } from '../../../../shared/hydraulics';
+import { kindLabels } from '../../shared/display-units';
 import { missesLabel, moneyLabel, motorLabel, rankByWords } from '../energy-and-costs';
 import { candidateKey, maxCompared, SelectionDraft } from '../selection-draft';
 import { CandidateColumns, choosableColumns } from './candidate-columns';
@@ -39,12 +40,20 @@ export function arrangementLabel(candidate: Pick<SelectionCandidate, 'arrangemen
   return `${running === 1 ? 'single' : `${running} in parallel`}${installed > running ? ' + standby' : ''}`;
 }
 
+/** A candidate's kind and the solids it passes, in words. */
+export function pumpFacts(candidate: Pick<SelectionCandidate, 'kind' | 'solidsHandlingMm'>): string {
+  const solids =
+    candidate.solidsHandlingMm === null ? 'solids not given' : `passes ${candidate.solidsHandlingMm} mm solids`;
+  return `${kindLabels[candidate.kind] ?? candidate.kind} · ${solids}`;
+}
+
 /** The words a filter matches a candidate by: its pump, maker, code, arrangement, region, misses, warnings and reasons. */
 function filterText(candidate: SelectionCandidate): string {
   return [
     candidate.model,
     candidate.supplier,
     candidate.modelCode,
+    pumpFacts(candidate),
     arrangementLabel(candidate),
     candidate.region,
     missesLabel(candidate),
@@ -113,6 +122,7 @@ export class CandidateResults {
 
   protected readonly key = candidateKey;
   protected readonly arrangementLabel = arrangementLabel;
+  protected readonly pumpFacts = pumpFacts;
   protected readonly rankByWords = rankByWords;
   protected readonly motorLabel = motorLabel;
   protected readonly moneyLabel = moneyLabel;

@@ -20,11 +20,18 @@ import { SelectionDraft, type SearchSettings } from '../selection-draft';
 import type { RankBy } from '../energy-and-costs';
 import { CandidateResults } from './candidate-results';
 import type { Subscription } from 'rxjs';
+import { kindLabels } from '../../shared/display-units';
 
 /** At least one arrangement must be ticked. */
 function someArrangement(group: AbstractControl): ValidationErrors | null {
   return Object.values(group.value as Record<string, boolean>).some(Boolean) ? null : { noArrangement: true };
 }
+
+/** The pump kinds the search may be narrowed to, in the contract's words and the page's. */
+const pumpKindChoices = (['submersible', 'external-centrifugal', 'mixed-flow'] as const).map((kind) => ({
+  kind,
+  label: kindLabels[kind],
+}));
 
 /** Step 3: the search over the catalog and its ranked candidates. */
 @Component({
@@ -53,6 +60,7 @@ export class PumpSearchPage {
   protected readonly searching = signal(false);
   protected readonly failed = signal(false);
   protected readonly cancelled = signal(false);
+  protected readonly pumpKindChoices = pumpKindChoices;
   private running: Subscription | null = null;
 
   private readonly settings = this.draft.search();
@@ -68,6 +76,13 @@ export class PumpSearchPage {
     requireOneFailed: this.settings.requireOneFailed,
     standby: this.settings.standby ?? false,
     onlyPreferredRegion: this.settings.onlyPreferredRegion,
+    kinds: this.formBuilder.group(
+      Object.fromEntries(pumpKindChoices.map(({ kind }) => [kind, this.settings.kinds?.includes(kind) ?? false])),
+    ),
+    minSolidsMm: this.formBuilder.control<number | null>(this.settings.minSolidsMm ?? null, [
+      Validators.min(0.1),
+      Validators.max(500),
+    ]),
     maxInputPowerPerPump: this.formBuilder.control<number | null>(this.settings.maxInputPowerPerPump, [
       Validators.min(0.001),
     ]),
@@ -117,6 +132,8 @@ export class PumpSearchPage {
       requireOneFailed: value.requireOneFailed,
       standby: value.standby,
       onlyPreferredRegion: value.onlyPreferredRegion,
+      kinds: pumpKindChoices.map(({ kind }) => kind).filter((kind) => value.kinds[kind]),
+      minSolidsMm: value.minSolidsMm || null,
       maxInputPowerPerPump: value.maxInputPowerPerPump || null,
       hoursPerDay: value.hoursPerDay,
       tariffPerKWh: value.tariffPerKWh ?? null,
