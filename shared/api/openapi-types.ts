@@ -1853,6 +1853,8 @@ export interface components {
             system: components["schemas"]["DesignSystem"];
             band: components["schemas"]["DutyBand"];
             search: components["schemas"]["DesignSearch"];
+            /** @description One-way length of the cable run from the supply to the pump, in the design's length unit (ft or m): the report suggests a conductor per pump from it. Left out when not given. */
+            cableLength?: number;
         };
         ProjectInput: {
             name: components["schemas"]["ProjectName"];

@@ -95,8 +95,8 @@ export class SelectionDraft {
   readonly project = computed(() => this.stored().project);
   /** The design as a project saves it. */
   readonly design = computed((): DesignDraft => {
-    const { unitSystem, system, band, search } = this.stored();
-    return { unitSystem, system, band, search };
+    const { unitSystem, system, band, search, cableLength } = this.stored();
+    return { unitSystem, system, band, search, ...(cableLength === null ? {} : { cableLength }) };
   });
   readonly unitSystem = computed(() => this.stored().unitSystem);
   readonly units = computed(() => unitSystems[this.stored().unitSystem].units);
@@ -153,7 +153,7 @@ export class SelectionDraft {
 
   /** Opens a saved project: its design replaces the draft, and the search is to run again. */
   openProject(project: Project): void {
-    const { unitSystem, system, band, search } = project.design;
+    const { unitSystem, system, band, search, cableLength } = project.design;
     this.stored.set({
       project: { id: project.id, name: project.name },
       unitSystem,
@@ -161,7 +161,7 @@ export class SelectionDraft {
       band,
       search,
       results: null,
-      cableLength: null,
+      cableLength: cableLength ?? null,
     });
   }
 
