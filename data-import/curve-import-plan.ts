@@ -54,6 +54,7 @@ function sameDetails(a: ReadPumpDetails, b: ReadPumpDetails): boolean {
     a.nominalSpeedRpm === b.nominalSpeedRpm &&
     a.voltageV === b.voltageV &&
     a.phaseCount === b.phaseCount &&
+    near(a.fullLoadCurrentA, b.fullLoadCurrentA) &&
     near(a.dischargeSizeMm, b.dischargeSizeMm) &&
     near(a.solidsHandlingMm, b.solidsHandlingMm) &&
     near(a.listPrice, b.listPrice) &&

@@ -148,6 +148,7 @@ export function readDetails(cells: CellContext, values: RowValues): ReadPumpDeta
   };
   const price = numberCell(cells, values, 'list_price', { unit: cells.unitOf('currency') ?? null, min: 0, max: 1e9 });
   const motor = numberCell(cells, values, 'motor_efficiency', { unit: '%', min: 10, max: 100 });
+  const current = numberCell(cells, values, 'full_load_current', { unit: 'A', above: 0, max: 1000 });
   const phases = numberCell(cells, values, 'phases', { unit: null, integer: true, min: 1, max: 3 });
   if (phases === 2) cells.errors.add(issue(values.row, 'phases', 'phases-unknown', { value: phases }));
   return {
@@ -157,6 +158,7 @@ export function readDetails(cells: CellContext, values: RowValues): ReadPumpDeta
       numberCell(cells, values, 'speed_rpm', { unit: 'rpm', integer: true, min: 100, max: 20000 }) ?? null,
     voltageV: numberCell(cells, values, 'voltage', { unit: 'V', integer: true, min: 1, max: 1000 }) ?? null,
     phaseCount: phases === 2 ? null : (phases ?? null),
+    fullLoadCurrentA: current ?? null,
     dischargeSizeMm: size('discharge_size'),
     solidsHandlingMm: size('solids_size'),
     listPrice: typeof price === 'number' ? Math.round(price * 100) / 100 : null,

@@ -34,6 +34,7 @@ export interface StoredPumpCurve {
   nominalSpeedRpm: number | null;
   voltageV: number | null;
   phaseCount: number | null;
+  fullLoadCurrentA?: number | null;
   dischargeSizeMm: number | null;
   solidsHandlingMm: number | null;
   listPrice: string | null;
@@ -114,6 +115,7 @@ export function curveTableOf(supplier: { name: string; code: string }, pumps: St
     size: pumps.some((pump) => pump.dischargeSizeMm !== null || pump.solidsHandlingMm !== null),
     price: pumps.some((pump) => pump.listPrice !== null),
     motor: pumps.some((pump) => (pump.motorEfficiency ?? null) !== null),
+    current: pumps.some((pump) => (pump.fullLoadCurrentA ?? null) !== null),
   };
   const comments = [
     `Curve table of ${supplier.name} (${supplier.code}), written by Riffle. Loaded again unchanged, it changes nothing.`,
@@ -129,6 +131,7 @@ export function curveTableOf(supplier: { name: string; code: string }, pumps: St
     ...(has.size ? [] : (['discharge_size', 'solids_size'] as const)),
     ...(has.price ? [] : (['list_price'] as const)),
     ...(has.motor ? [] : (['motor_efficiency'] as const)),
+    ...(has.current ? [] : (['full_load_current'] as const)),
     ...(ranges.length > 0
       ? []
       : (['preferred_flow_min', 'preferred_flow_max', 'allowable_flow_min', 'allowable_flow_max'] as const)),
@@ -150,6 +153,7 @@ export function curveTableOf(supplier: { name: string; code: string }, pumps: St
       speed_rpm: pump.nominalSpeedRpm,
       voltage: pump.voltageV,
       phases: pump.phaseCount,
+      full_load_current: pump.fullLoadCurrentA == null ? null : exact(pump.fullLoadCurrentA),
       discharge_size: size(pump.dischargeSizeMm),
       solids_size: size(pump.solidsHandlingMm),
       list_price: pump.priceCurrency === currency ? pump.listPrice : null,

@@ -52,6 +52,7 @@ export const pumpColumns = [
   'speed_rpm',
   'voltage',
   'phases',
+  'full_load_current',
   'discharge_size',
   'solids_size',
   'list_price',

@@ -49,6 +49,8 @@ export interface ReadPumpDetails {
   nominalSpeedRpm: number | null;
   voltageV: number | null;
   phaseCount: number | null;
+  /** The motor's full-load (rated) current, A, when the supplier gives it. */
+  fullLoadCurrentA: number | null;
   dischargeSizeMm: number | null;
   solidsHandlingMm: number | null;
   listPrice: number | null;

@@ -15,6 +15,7 @@ import { createHealthHandlers } from './health/health-handlers';
 import { createSelectionHandlers } from './selection/selection-handlers';
 import { createAccountHandlers, createOperationGuards } from './accounts/account-routes';
 import { accountsDependenciesFrom, type AccountsDependencies } from './accounts/accounts-dependencies';
+import { createCableRunHandlers } from './calculations/cable-run-handlers';
 import { createCalculationHandlers } from './calculations/calculation-handlers';
 import { CatalogSnapshot } from './catalog/catalog-snapshot';
 import { createCatalogHandlers } from './catalog/catalog-handlers';
@@ -115,6 +116,7 @@ export function createApp({ sequelize, logger, clientFolder, accounts, trustedPr
     ...createSelectionHandlers(catalogSnapshot),
     ...createAccountHandlers(sequelize, accountsDependencies),
     ...createCalculationHandlers(catalogSnapshot),
+    ...createCableRunHandlers(catalogSnapshot),
     ...createCatalogHandlers(sequelize),
     ...createCurveImportHandlers(sequelize),
     ...createProjectHandlers(),

@@ -21,8 +21,15 @@ import { seededRandom } from './seeded-random';
  *   head        H(x) = H0 (1 + s x - (1 + s - e) x^2), s <= 0 so that head never rises, e = H(1)/H0;
  *   efficiency  eta(x) = eta_max (1 - ((x - x_b) / x_b)^2), zero at shut-off, peak at x_b;
  *   power       P = rho g Q H / eta (hydraulic power over efficiency, rho of water at 20 C);
- *   NPSH3       N(x) = N0 + N1 x^2.
+ *   NPSH3       N(x) = N0 + N1 x^2;
+ *   full-load current  I = 1.15 P_max / (eta_m pf V k), the motor rated 15 % over the curve's largest
+ *               shaft power, eta_m = 0.8 and pf = 0.85 (invented round figures), k = 1 for single
+ *               phase and sqrt(3) for three phase.
  */
+
+/** The invented motors' efficiency and power factor at full load. */
+const MOTOR_EFFICIENCY = 0.8;
+const POWER_FACTOR = 0.85;
 
 interface KindShape {
   kind: PumpKind;
@@ -185,17 +192,26 @@ function pumpRows(
   const code = `${plan.prefix}-${shape.kind === 'submersible' ? 'SUB' : shape.kind === 'mixed-flow' ? 'MXF' : 'CEN'}-${sizeNumber}`;
   const sizeIn = (mm: number) => (plan.sizeUnit === 'in' ? round(mm * inchesPerMm, 2) : round(mm, 0));
   const basePrice = between(shape.basePrice, share);
+  const shareOf = (index: number) =>
+    startsAtShutOff ? index / (pointCount - 1) : 0.08 + (0.92 * index) / (pointCount - 1);
+  const headAt = (x: number) => shutOff * (1 + shape.slope * x - (1 + shape.slope - shape.endRatio) * x * x);
+  const efficiencyAt = (x: number) => peak * (1 - ((x - bepShare) / bepShare) ** 2);
+  // At shut-off the efficiency is zero; the power drawn there is taken as half of that near the BEP.
+  const powerNearBep = (density * STANDARD_GRAVITY * bepShare * runOutM3s * 0.8 * shutOff) / peak;
+  const shaftPower = (x: number, head: number) =>
+    x === 0 ? 0.5 * powerNearBep : (density * STANDARD_GRAVITY * x * runOutM3s * head) / efficiencyAt(x);
+  const largestPower = Math.max(
+    ...Array.from({ length: pointCount }, (_, index) => shaftPower(shareOf(index), headAt(shareOf(index)))),
+  );
+  const fullLoadCurrent =
+    (1.15 * largestPower) / (MOTOR_EFFICIENCY * POWER_FACTOR * shape.voltage * (shape.phases === 3 ? Math.sqrt(3) : 1));
 
   return Array.from({ length: pointCount }, (_, index) => {
-    const x = startsAtShutOff ? index / (pointCount - 1) : 0.08 + (0.92 * index) / (pointCount - 1);
+    const x = shareOf(index);
     const flow = x * runOutM3s;
-    const head =
-      shutOff * (1 + shape.slope * x - (1 + shape.slope - shape.endRatio) * x * x) * (1 + 0.006 * (random() - 0.5));
-    const efficiency = peak * (1 - ((x - bepShare) / bepShare) ** 2);
-    const hydraulicPower = density * STANDARD_GRAVITY * flow * head;
-    // At shut-off the efficiency is zero; the power drawn there is taken as half of that near the BEP.
-    const powerNearBep = (density * STANDARD_GRAVITY * bepShare * runOutM3s * 0.8 * shutOff) / peak;
-    const power = x === 0 ? 0.5 * powerNearBep : hydraulicPower / efficiency;
+    const head = headAt(x) * (1 + 0.006 * (random() - 0.5));
+    const efficiency = efficiencyAt(x);
+    const power = shaftPower(x, head);
     const first = index === 0;
     const npsh = shape.npsh && x > 0 ? shape.npsh[0] + (shape.npsh[1] - shape.npsh[0]) * x * x : null;
     const bepFlow = bepShare * runOutM3s;
@@ -206,6 +222,7 @@ function pumpRows(
       speed_rpm: first ? shape.speedRpm : null,
       voltage: first ? shape.voltage : null,
       phases: first ? shape.phases : null,
+      full_load_current: first ? round(fullLoadCurrent, fullLoadCurrent < 1 ? 2 : 1) : null,
       discharge_size: first ? sizeIn(between(shape.discharge, share)) : null,
       solids_size: first ? sizeIn(between(shape.solids, share)) : null,
       list_price: first && plan.currency ? round(basePrice * (0.95 + 0.1 * random()), 0) : null,
@@ -282,6 +299,7 @@ export function demoCurveTables(): DemoCurveTable[] {
         'speed_rpm',
         'voltage',
         'phases',
+        'full_load_current',
         'discharge_size',
         'solids_size',
         ...(plan.currency ? (['list_price'] as const) : []),

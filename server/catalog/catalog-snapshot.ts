@@ -33,6 +33,8 @@ export interface CatalogPump extends PumpOnFile {
   /** The motor's efficiency, 0-1, as the supplier gives it; null when the curve table has none. */
   motorEfficiency: number | null;
   listPrice: { amount: number; currency: string } | null;
+  /** The motor's rating as the supplier gives it (A, V, phases); each null when the curve table has none. */
+  electrical: { fullLoadCurrent: number | null; voltage: number | null; phases: number | null };
 }
 
 /** The pumps of one catalog state, and a place for derived structures that live as long as it does. */
@@ -55,6 +57,9 @@ type CurrentCurveRow = Pick<PumpRow, 'supplier_id' | 'supplier_name' | 'model_co
   solids_handling_mm: number | null;
   list_price: string | null;
   price_currency: string | null;
+  full_load_current_a: number | null;
+  voltage_v: number | null;
+  phase_count: number | null;
 };
 
 const stampQuery = `
@@ -66,7 +71,8 @@ const stampQuery = `
 
 const pumpsQuery = `
   SELECT p.id AS pump_id, p.supplier_id, s.name AS supplier_name, p.model_code, p.display_name, p.kind,
-         p.motor_efficiency, p.solids_handling_mm, p.list_price, p.price_currency,
+         p.motor_efficiency, p.solids_handling_mm, p.list_price, p.price_currency, p.full_load_current_a, p.voltage_v,
+         p.phase_count,
          r.id AS revision_id, r.fit, d.flow_min_m3s AS preferred_min, d.flow_max_m3s AS preferred_max
   FROM pumps p
   JOIN suppliers s ON s.id = p.supplier_id
@@ -91,6 +97,7 @@ function toCatalogPump(row: CurrentCurveRow): CatalogPump {
       row.list_price === null || row.price_currency === null
         ? null
         : { amount: Number(row.list_price), currency: row.price_currency },
+    electrical: { fullLoadCurrent: row.full_load_current_a, voltage: row.voltage_v, phases: row.phase_count },
     fit,
     declaredPreferred:
       row.preferred_min !== null && row.preferred_max !== null

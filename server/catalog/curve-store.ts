@@ -24,6 +24,7 @@ export async function loadExistingPumps(
     nominal_speed_rpm: number | null;
     voltage_v: number | null;
     phase_count: number | null;
+    full_load_current_a: number | null;
     discharge_size_mm: number | null;
     solids_handling_mm: number | null;
     list_price: string | null;
@@ -34,7 +35,7 @@ export async function loadExistingPumps(
     current_number: number | null;
     highest_number: number | null;
   }>(
-    `SELECT p.id, p.model_code, p.display_name, p.kind, p.nominal_speed_rpm, p.voltage_v, p.phase_count, p.discharge_size_mm,
+    `SELECT p.id, p.model_code, p.display_name, p.kind, p.nominal_speed_rpm, p.voltage_v, p.phase_count, p.full_load_current_a, p.discharge_size_mm,
             p.solids_handling_mm, p.list_price, p.price_currency, p.motor_efficiency, p.status, r.content_hash, r.number AS current_number,
             (SELECT MAX(x.number) FROM curve_revisions x WHERE x.pump_id = p.id) AS highest_number
        FROM pumps p LEFT JOIN curve_revisions r ON r.id = p.current_revision_id
@@ -55,6 +56,7 @@ export async function loadExistingPumps(
           nominalSpeedRpm: row.nominal_speed_rpm,
           voltageV: row.voltage_v,
           phaseCount: row.phase_count,
+          fullLoadCurrentA: row.full_load_current_a,
           dischargeSizeMm: row.discharge_size_mm,
           solidsHandlingMm: row.solids_handling_mm,
           listPrice: row.list_price === null ? null : Number(row.list_price),
@@ -107,6 +109,7 @@ export async function writePumps(sequelize: Sequelize, options: WriteOptions): P
           'nominalSpeedRpm',
           'voltageV',
           'phaseCount',
+          'fullLoadCurrentA',
           'dischargeSizeMm',
           'solidsHandlingMm',
           'listPrice',

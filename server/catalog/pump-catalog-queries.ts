@@ -31,6 +31,7 @@ export interface PumpRow {
   nominal_speed_rpm: number | null;
   voltage_v: number | null;
   phase_count: number | null;
+  full_load_current_a: number | null;
   discharge_size_mm: number | null;
   solids_handling_mm: number | null;
   list_price: string | null;
@@ -53,8 +54,8 @@ export type PumpListFilter = Omit<PumpListQuery, 'flowUnit' | 'headUnit'> &
 // Raw SQL: one joined select with a dynamic sort on joined columns stays cheap per catalog page.
 const pumpSelect = `
   SELECT p.id, p.supplier_id, s.code AS supplier_code, s.name AS supplier_name, p.model_code, p.display_name, p.kind,
-         p.nominal_speed_rpm, p.voltage_v, p.phase_count, p.discharge_size_mm, p.solids_handling_mm, p.list_price,
-         p.price_currency, p.status, r.number AS revision_number, r.flow_min_m3s, r.flow_max_m3s, r.head_min_m,
+         p.nominal_speed_rpm, p.voltage_v, p.phase_count, p.full_load_current_a, p.discharge_size_mm, p.solids_handling_mm,
+         p.list_price, p.price_currency, p.status, r.number AS revision_number, r.flow_min_m3s, r.flow_max_m3s, r.head_min_m,
          r.head_max_m, r.bep_flow_m3s, r.bep_head_m, r.bep_efficiency
     FROM pumps p
     JOIN suppliers s ON s.id = p.supplier_id
@@ -80,6 +81,7 @@ function toPumpSummary(row: PumpRow): PumpSummary {
     nominalSpeedRpm: row.nominal_speed_rpm,
     voltage: row.voltage_v,
     phaseCount: row.phase_count as PumpSummary['phaseCount'],
+    fullLoadCurrent: row.full_load_current_a,
     dischargeSizeMm: row.discharge_size_mm,
     solidsHandlingMm: row.solids_handling_mm,
     listPrice:

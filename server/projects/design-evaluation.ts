@@ -57,6 +57,7 @@ export async function chosenCurve(pumpId: number, revisionId: number): Promise<C
         pump.listPrice === null || pump.priceCurrency === null
           ? null
           : { amount: Number(pump.listPrice), currency: pump.priceCurrency },
+      electrical: { fullLoadCurrent: pump.fullLoadCurrentA, voltage: pump.voltageV, phases: pump.phaseCount },
     },
   };
 }

@@ -434,6 +434,38 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/calculations/cable-run": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Voltage drop of the copper cable run to a pump, and the smallest conductor under a limit
+         * @description The voltage a copper cable run loses at the pump's full-load current, resistive only
+         *     (reactance neglected: fair for branch-circuit sizes up to about 1/0 AWG or 50 mm2 at a
+         *     motor's power factor of 0.8 or more), with conductors at 75 C: single phase
+         *     VD = 2 L I R, three phase VD = sqrt(3) L I R, R per metre from NEC Chapter 9 Table 8 (AWG,
+         *     stranded copper at 75 C) or IEC 60228 class 2 (mm2, at 20 C, corrected with 0.00393/K).
+         *     Give `current`, `voltage` and `phases`, or `pumpId` to take all three from the catalog
+         *     (a pump whose curve table gives them). `length` is one way, from the supply to the pump,
+         *     in `units.length`. The answer gives the drop through `conductor` when one is named, and
+         *     the smallest branch-circuit conductor (from 14 AWG and 1.5 mm2) in each series that keeps
+         *     the drop at or under `maxDropPercent` (default 3 %, common practice after the NEC 210.19
+         *     informational note); a series none of whose sizes is enough is null with a warning, and
+         *     when neither series is enough the answer is 422. Voltage drop only: ampacity, overcurrent
+         *     protection and the motor-circuit rules are not checked, and `caution` says who decides.
+         */
+        post: operations["calculateCableRun"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/selections": {
         parameters: {
             query?: never;
@@ -970,6 +1002,77 @@ export interface components {
             diameter: components["schemas"]["DiameterUnit"];
             /** @description Unit of power in the answer (default kW). */
             power?: components["schemas"]["PowerUnit"];
+        };
+        /**
+         * @description A copper cable run from the supply to one pump. Either `current`, `voltage` and `phases`
+         *     together, or `pumpId` (a catalog pump whose curve table gives all three), not both.
+         */
+        CableRunRequest: {
+            units: {
+                length: components["schemas"]["LengthUnit"];
+            };
+            /** @description A catalog pump; its full-load current, voltage and phases are used. */
+            pumpId?: number;
+            /** @description The pump's full-load current, A. */
+            current?: number;
+            /** @description Nominal supply voltage, V; line to line for three phase. */
+            voltage?: number;
+            /** @enum {integer} */
+            phases?: 1 | 3;
+            /** @description One-way length from the supply to the pump, in units.length (the return conductor is counted by the formula). */
+            length: number;
+            /** @description A conductor to check: `awg-<size>` (18 to 4/0, e.g. awg-12, awg-1/0) or `mm2-<area>` (1 to 300, e.g. mm2-2.5). */
+            conductor?: string;
+            /** @description Largest acceptable drop, percent of the nominal voltage (default 3). */
+            maxDropPercent?: number;
+        };
+        CableConductor: {
+            id: string;
+            label: string;
+            /** @enum {string} */
+            series: "awg" | "metric";
+            areaMm2: number;
+        };
+        /** @description The run's drop through one conductor size. */
+        CableDrop: {
+            conductor: components["schemas"]["CableConductor"];
+            volts: number;
+            /** @description Percent of the nominal voltage. */
+            percent: number;
+            /** @description At or under maxDropPercent. */
+            withinLimit: boolean;
+        };
+        CableRunResponse: {
+            units: {
+                length: components["schemas"]["LengthUnit"];
+            };
+            pumpId?: number;
+            /** @description A */
+            current: number;
+            /** @description V */
+            voltage: number;
+            /** @enum {integer} */
+            phases: 1 | 3;
+            /** @description One way, in units.length. */
+            length: number;
+            maxDropPercent: number;
+            /** @description The conductor temperature resistances are taken at. */
+            conductorTemperatureC: number;
+            /** @description The drop through the conductor the request named; null when it named none. */
+            conductor: components["schemas"]["CableDrop"] | null;
+            /** @description The smallest branch-circuit conductor of each series at or under the limit; null when even the largest is not enough. */
+            smallest: {
+                awg: components["schemas"]["CableDrop"] | null;
+                metric: components["schemas"]["CableDrop"] | null;
+            };
+            warnings: string[];
+            /** @description Who decides the cable; `code` stays fixed, the sentence may be worded better. */
+            caution: {
+                /** @enum {string} */
+                code: "cable-run-electrician-decides";
+                title: string;
+                text: string;
+            };
         };
         FittingCount: {
             /** @enum {string} */
@@ -1573,6 +1676,8 @@ export interface components {
             voltage: number | null;
             /** @enum {integer|null} */
             phaseCount: 1 | 3 | null;
+            /** @description The motor's full-load (rated) current at `voltage`, A. */
+            fullLoadCurrent: number | null;
             dischargeSizeMm: number | null;
             /** @description Largest solid sphere the pump passes, mm. */
             solidsHandlingMm: number | null;
@@ -1873,6 +1978,8 @@ export interface components {
             system: components["schemas"]["DesignSystem"];
             band: components["schemas"]["DutyBand"];
             search: components["schemas"]["DesignSearch"];
+            /** @description One-way length of the cable run from the supply to the pump, in the design's length unit (ft or m): the report suggests a conductor per pump from it. Left out when not given. */
+            cableLength?: number;
         };
         ProjectInput: {
             name: components["schemas"]["ProjectName"];
@@ -3421,6 +3528,33 @@ export interface operations {
             422: components["responses"]["UnprocessableInput"];
         };
     };
+    calculateCableRun: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CableRunRequest"];
+            };
+        };
+        responses: {
+            /** @description The drop through the named conductor and the smallest conductor of each series under the limit. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["CableRunResponse"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["UnprocessableInput"];
+        };
+    };
     searchSelections: {
         parameters: {
             query?: never;
@@ -3539,6 +3673,7 @@ export interface operations {
                      *           "nominalSpeedRpm": 2850,
                      *           "voltage": 230,
                      *           "phaseCount": 1,
+                     *           "fullLoadCurrent": 2.6,
                      *           "dischargeSizeMm": 38.1,
                      *           "solidsHandlingMm": 10,
                      *           "listPrice": {
@@ -3608,6 +3743,7 @@ export interface operations {
                      *         "nominalSpeedRpm": 2850,
                      *         "voltage": 230,
                      *         "phaseCount": 1,
+                     *         "fullLoadCurrent": 2.6,
                      *         "dischargeSizeMm": 38.1,
                      *         "solidsHandlingMm": 10,
                      *         "listPrice": null,

@@ -111,6 +111,16 @@ export interface EngineInputErrorParams {
   'suction-after-discharge': { segment: number };
   'suction-needs-site': { what: 'siteElevation' | 'pumpElevation' };
   'pump-elevation-without-suction': Record<string, never>;
+  /** A phase count other than 1 or 3 (two-phase supplies are not sized). */
+  'unknown-phases': { value: number };
+  'unknown-conductor': { value: string; accepted: string[] };
+  /** Even the largest conductor of the series drops more than the limit (percent) on the run. */
+  'no-conductor-meets-limit': {
+    series: 'awg' | 'metric';
+    maxDropPercent: number;
+    largest: string;
+    largestDropPercent: number;
+  };
 }
 
 export type EngineInputErrorCode = keyof EngineInputErrorParams;

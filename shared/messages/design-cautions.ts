@@ -29,3 +29,13 @@ export const DESIGN_CAUTIONS: ReadonlyArray<{ title: string; text: string }> = [
     text: "Every figure here is a design estimate from published curves and textbook formulas: verify it against the pump maker's data, local codes and licensed practice before ordering or building.",
   },
 ];
+
+/**
+ * The caution beside every cable-run answer (its code stays fixed for clients; the sentence may be
+ * worded better): the suggestion sizes for voltage drop alone, and the people and code who decide.
+ */
+export const CABLE_RUN_CAUTION = {
+  code: 'cable-run-electrician-decides',
+  title: 'Electricity near water: the cable run.',
+  text: 'This conductor is sized for voltage drop alone (copper at 75 C, resistance only); ampacity, overcurrent protection, the motor-circuit rules and derating for burial or heat also decide it. The circuit needs ground-fault (GFCI/RCD) protection, cable and equipment listed for wet or buried locations and bonding as the local electrical code requires: a licensed electrician and the local code decide the cable.',
+} as const;

@@ -165,6 +165,11 @@ const ENGINE_INPUT_ERROR_TEXT: {
       : 'a system with a suction side needs the pump elevation above the intake water surface (negative when flooded)',
   'pump-elevation-without-suction': () =>
     'a pump elevation needs suction segments (side: suction); a submersible pump needs neither',
+  'unknown-phases': ({ value }) => `phases must be 1 (single phase) or 3 (three phase), got ${value}`,
+  'unknown-conductor': ({ value, accepted }) =>
+    `unknown conductor '${value}'; conductors are 'awg-<size>' or 'mm2-<area>': ${accepted.join(', ')}`,
+  'no-conductor-meets-limit': ({ series, maxDropPercent, largest, largestDropPercent }) =>
+    `no ${series === 'awg' ? 'AWG' : 'metric'} conductor keeps the voltage drop at or under ${round(maxDropPercent)} %: even ${largest} drops ${round(largestDropPercent)} %; shorten the run, raise the supply voltage or split the load`,
 };
 
 /** The sentence for one refused input, with values written by `units`. */

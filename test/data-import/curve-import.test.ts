@@ -108,17 +108,20 @@ describe('curve-table reader', () => {
     expect(table.fileUnits).to.deep.equal({ flow: 'gph', head: 'ft', power: 'hp' });
   });
 
+  /** The small table with one more pump column after preferred_flow_max, `value` on the first pump's first row. */
+  const withPumpColumn = (column: string, value: string) =>
+    smallTable
+      .replace('preferred_flow_max,flow', `preferred_flow_max,${column},flow`)
+      .split('\n')
+      .map((line, index) =>
+        index < 5
+          ? line
+          : line.replace(/^(K-\d+,[^,]*,[^,]*,[^,]*,[^,]*,)/, (cells) => `${cells}${index === 5 ? value : ''},`),
+      )
+      .join('\n');
+
   it('reads a motor efficiency in percent as a fraction, and refuses one of 0 or over 100 naming the column', async () => {
-    const withMotor = (value: string) =>
-      smallTable
-        .replace('preferred_flow_max,flow', 'preferred_flow_max,motor_efficiency,flow')
-        .split('\n')
-        .map((line, index) =>
-          index < 5
-            ? line
-            : line.replace(/^(K-\d+,[^,]*,[^,]*,[^,]*,[^,]*,)/, (cells) => `${cells}${index === 5 ? value : ''},`),
-        )
-        .join('\n');
+    const withMotor = (value: string) => withPumpColumn('motor_efficiency', value);
     const table = await read(withMotor('82.5'));
     expect(table.errors).to.deep.equal([]);
     expect(table.pumps.map((pump) => pump.details.motorEfficiency)).to.deep.equal([0.825, null]);
@@ -126,6 +129,24 @@ describe('curve-table reader', () => {
       const refused = await read(withMotor(bad));
       expect(refused.errors.map((error) => [error.row, error.column, error.code])).to.deep.equal([
         [6, 'motor_efficiency', 'number-out-of-range'],
+      ]);
+    }
+  });
+
+  it('reads a full-load current in amperes, and refuses 0, a negative, a word or over 1000 A naming the column', async () => {
+    const withCurrent = (value: string) => withPumpColumn('full_load_current', value);
+    const table = await read(withCurrent('4.6'));
+    expect(table.errors).to.deep.equal([]);
+    expect(table.pumps.map((pump) => pump.details.fullLoadCurrentA)).to.deep.equal([4.6, null]);
+    for (const [bad, code] of [
+      ['0', 'number-out-of-range'],
+      ['-2', 'number-out-of-range'],
+      ['1200', 'number-out-of-range'],
+      ['many', 'not-a-number'],
+    ]) {
+      const refused = await read(withCurrent(bad));
+      expect(refused.errors.map((error) => [error.row, error.column, error.code])).to.deep.equal([
+        [6, 'full_load_current', code],
       ]);
     }
   });

@@ -49,6 +49,8 @@ describe('curve-table export', function () {
     for (const supplier of suppliers) {
       const exported = await exportCurveTable(supplier);
       expect(exported.pumpCount, supplier.code).to.be.greaterThan(0);
+      // the demo gives every pump its full-load current, so the column is written
+      expect(exported.text.split('\n').find((line) => line.startsWith('model_code'))).to.contain('full_load_current');
       const again = await importText(sequelize, supplier, exported.text, { dryRun: true });
       expect(again.errors, supplier.code).to.deep.equal([]);
       expect(again.counts, supplier.code).to.deep.equal({ new: 0, changed: 0, unchanged: exported.pumpCount });

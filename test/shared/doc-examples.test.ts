@@ -2,6 +2,7 @@ import { expect } from 'chai';
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import * as systemInputMapping from '../../shared/api/system-input';
+import * as electrical from '../../shared/electrical';
 import * as hydraulics from '../../shared/hydraulics';
 import * as darcyFrictionTable from '../../shared/hydraulics/darcy-friction-table';
 import * as leastSquares from '../../shared/hydraulics/least-squares';
@@ -9,7 +10,8 @@ import * as pumpCurvePoints from '../../shared/hydraulics/pump-curve-points';
 import * as rootFinding from '../../shared/hydraulics/root-finding';
 
 /*
- * Runs the @example block of every doc comment in shared/hydraulics/ and shared/api/system-input.ts.
+ * Runs the @example block of every doc comment in shared/hydraulics/, shared/electrical/ and
+ * shared/api/system-input.ts.
  * A block is TypeScript-like lines using the engine's exports (and those of the engine's internal
  * modules); a line `expression // => value` states a result, which must agree with the computed
  * one to the digits written (half a unit in the last digit given); a result written as a quoted
@@ -22,6 +24,7 @@ import * as rootFinding from '../../shared/hydraulics/root-finding';
 
 const root = join(import.meta.dirname, '..', '..', 'shared');
 const folder = join(root, 'hydraulics');
+const electricalFolder = join(root, 'electrical');
 
 interface SourceFile {
   file: string;
@@ -32,6 +35,9 @@ const sources: SourceFile[] = [
   ...readdirSync(folder)
     .filter((name) => name.endsWith('.ts'))
     .map((file) => ({ file, text: readFileSync(join(folder, file), 'utf8') })),
+  ...readdirSync(electricalFolder)
+    .filter((name) => name.endsWith('.ts'))
+    .map((file) => ({ file: `electrical/${file}`, text: readFileSync(join(electricalFolder, file), 'utf8') })),
   { file: 'api/system-input.ts', text: readFileSync(join(root, 'api', 'system-input.ts'), 'utf8') },
 ];
 
@@ -43,6 +49,7 @@ const namespace: Record<string, unknown> = {
   ...rootFinding,
   ...systemInputMapping,
   ...hydraulics,
+  ...electrical,
 };
 
 interface DocExample {

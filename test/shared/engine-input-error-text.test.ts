@@ -133,6 +133,15 @@ const inputSamples: { [Code in EngineInputErrorCode]: [EngineInputErrorParams[Co
     {},
     'a pump elevation needs suction segments (side: suction); a submersible pump needs neither',
   ],
+  'unknown-phases': [{ value: 2 }, 'phases must be 1 (single phase) or 3 (three phase), got 2'],
+  'unknown-conductor': [
+    { value: 'awg-13', accepted: ['awg-12', 'mm2-2.5'] },
+    "unknown conductor 'awg-13'; conductors are 'awg-<size>' or 'mm2-<area>': awg-12, mm2-2.5",
+  ],
+  'no-conductor-meets-limit': [
+    { series: 'awg', maxDropPercent: 3, largest: '4/0 AWG', largestDropPercent: 4.123 },
+    'no AWG conductor keeps the voltage drop at or under 3 %: even 4/0 AWG drops 4.12 %; shorten the run, raise the supply voltage or split the load',
+  ],
 };
 
 const issueSamples: { [Code in EngineIssueCode]: [EngineIssueParams[Code], string] } = {

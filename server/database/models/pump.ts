@@ -23,6 +23,8 @@ export class Pump extends Model<InferAttributes<Pump>, InferCreationAttributes<P
   declare nominalSpeedRpm: number | null;
   declare voltageV: number | null;
   declare phaseCount: number | null;
+  /** The motor's full-load (rated) current, A, when the supplier gives it. */
+  declare fullLoadCurrentA: number | null;
   declare dischargeSizeMm: number | null;
   declare solidsHandlingMm: number | null;
   /** Decimal text as MariaDB returns DECIMAL, e.g. "412.50". */
@@ -48,6 +50,7 @@ export class Pump extends Model<InferAttributes<Pump>, InferCreationAttributes<P
         nominalSpeedRpm: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         voltageV: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: true },
         phaseCount: { type: DataTypes.TINYINT.UNSIGNED, allowNull: true },
+        fullLoadCurrentA: { type: DataTypes.DOUBLE, allowNull: true },
         dischargeSizeMm: { type: DataTypes.DOUBLE, allowNull: true },
         solidsHandlingMm: { type: DataTypes.DOUBLE, allowNull: true },
         listPrice: { type: DataTypes.DECIMAL(12, 2), allowNull: true },

@@ -2,6 +2,8 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
 import type {
+  CableRunRequest,
+  CableRunResponse,
   OperatingPointRequest,
   OperatingPointResponse,
   SelectionRequest,
@@ -21,6 +23,10 @@ export class CalculationsApi {
 
   calculateOperatingPoint(body: OperatingPointRequest): Observable<OperatingPointResponse> {
     return this.http.post<OperatingPointResponse>('/api/v1/calculations/operating-point', body);
+  }
+
+  calculateCableRun(body: CableRunRequest): Observable<CableRunResponse> {
+    return this.http.post<CableRunResponse>('/api/v1/calculations/cable-run', body);
   }
 
   searchSelections(body: SelectionRequest): Observable<SelectionResponse> {

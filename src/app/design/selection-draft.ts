@@ -7,7 +7,7 @@ import type {
   SelectionCandidate,
   SelectionResponse,
 } from '../../../shared/api/api-schemas';
-import { convertFlow } from '../../../shared/hydraulics';
+import { convertFlow, convertLength } from '../../../shared/hydraulics';
 import { convertSystemDraft, exampleDraft, toPipeSystem, type SystemDraft } from './system-draft';
 import { unitSystems, type UnitSystem } from './unit-systems';
 
@@ -28,6 +28,8 @@ interface StoredDraft {
   search: SearchSettings;
   results: SelectionResponse | null;
   compared: string[];
+  /** One-way length of the cable run from the supply to the pump, in the design's length unit; null when not given. */
+  cableLength: number | null;
 }
 
 /** The draft without the chosen candidates, which follow the results on their own. */
@@ -64,6 +66,7 @@ function initialDraft(): StoredDraft {
     },
     results: null,
     compared: [],
+    cableLength: null,
   };
 }
 
@@ -92,8 +95,8 @@ export class SelectionDraft {
   readonly project = computed(() => this.stored().project);
   /** The design as a project saves it. */
   readonly design = computed((): DesignDraft => {
-    const { unitSystem, system, band, search } = this.stored();
-    return { unitSystem, system, band, search };
+    const { unitSystem, system, band, search, cableLength } = this.stored();
+    return { unitSystem, system, band, search, ...(cableLength === null ? {} : { cableLength }) };
   });
   readonly unitSystem = computed(() => this.stored().unitSystem);
   readonly units = computed(() => unitSystems[this.stored().unitSystem].units);
@@ -102,6 +105,7 @@ export class SelectionDraft {
   readonly band = computed(() => this.stored().band);
   readonly search = computed(() => this.stored().search);
   readonly results = computed(() => this.stored().results);
+  readonly cableLength = computed(() => this.stored().cableLength);
   /** The candidates chosen for comparison: the stored choice at start, none again whenever the results change. */
   private readonly chosen = linkedSignal<SelectionResponse | null, string[]>({
     source: this.results,
@@ -139,13 +143,17 @@ export class SelectionDraft {
       unitSystem,
       system: convertSystemDraft(draft.system, from, to),
       band: { ...draft.band, flowMin: flow(draft.band.flowMin), flowMax: flow(draft.band.flowMax) },
+      cableLength:
+        draft.cableLength === null
+          ? null
+          : Number(convertLength(draft.cableLength, from.length, to.length).toPrecision(4)),
       results: null,
     }));
   }
 
   /** Opens a saved project: its design replaces the draft, and the search is to run again. */
   openProject(project: Project): void {
-    const { unitSystem, system, band, search } = project.design;
+    const { unitSystem, system, band, search, cableLength } = project.design;
     this.stored.set({
       project: { id: project.id, name: project.name },
       unitSystem,
@@ -153,6 +161,7 @@ export class SelectionDraft {
       band,
       search,
       results: null,
+      cableLength: cableLength ?? null,
     });
   }
 
@@ -176,6 +185,11 @@ export class SelectionDraft {
 
   setSearch(search: SearchSettings): void {
     this.stored.update((draft) => ({ ...draft, search }));
+  }
+
+  /** The cable run's one-way length (design units), or null; it changes no search. */
+  setCableLength(cableLength: number | null): void {
+    this.stored.update((draft) => ({ ...draft, cableLength }));
   }
 
   setResults(results: SelectionResponse): void {

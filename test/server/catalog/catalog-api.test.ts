@@ -126,6 +126,9 @@ describe('catalog and curve-import API', function () {
     const list = (await get('/pumps?search=AB-CEN-10').expect(200)).body as PumpPage;
     const detail = (await get(`/pumps/${list.items[0].id}`).expect(200)).body as PumpDetail;
     expect(detail.revision!.number).to.equal(1);
+    // the demo file's electrical columns (AB-CEN-10: 230 V, single phase, 1.5 A)
+    expect([detail.pump.voltage, detail.pump.phaseCount, detail.pump.fullLoadCurrent]).to.deep.equal([230, 1, 1.5]);
+    expect(list.items[0].fullLoadCurrent).to.equal(1.5);
     expect(detail.revision!.points.length).to.equal(detail.revision!.pointCount);
     const last = detail.revision!.points.at(-1)!;
     expect(pumpHeadAt(detail.revision!.fit as Parameters<typeof pumpHeadAt>[0], last.flow)).to.be.closeTo(

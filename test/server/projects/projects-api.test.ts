@@ -41,6 +41,17 @@ describe('projects: saved designs', function () {
     delete: (path: string) => request(app).delete(`/api/v1${path}`).set('Authorization', `Bearer ${token}`),
   });
 
+  it("keeps a design's cable run length, and refuses one of 0 naming the field", async () => {
+    const designer = as((await createUserWithSession(scratch.sequelize, 'designer')).token);
+    const example = contractExample();
+    const design: DesignDraft = { ...example.design, cableLength: 45 };
+    const created = (await designer.post('/projects', { ...example, design }).expect(201)).body as Project;
+    expect(created.design.cableLength).to.equal(45);
+    expect((await designer.get(`/projects/${created.id}`).expect(200)).body.design.cableLength).to.equal(45);
+    const refused = await designer.post('/projects', { ...example, design: { ...design, cableLength: 0 } }).expect(400);
+    expect(refused.body.pointer).to.equal('/body/design/cableLength');
+  });
+
   it('saves a design, lists it, gives it back as saved, saves it again changed, and deletes it', async () => {
     const designer = as((await createUserWithSession(scratch.sequelize, 'designer')).token);
     const example = contractExample();

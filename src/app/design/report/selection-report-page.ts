@@ -21,6 +21,7 @@ import { ChartNumbers } from '../../shared/chart-numbers';
 import { moneyLabel, motorLabel } from '../energy-and-costs';
 import { SelectionDraft } from '../selection-draft';
 import { compileDraft, staticHeadOf } from '../system-draft';
+import { CableSuggestions } from './cable-suggestions';
 import { ReportDocuments } from './report-documents';
 import { FigurePipe, formatFigure } from '../../shared/locale-numbers';
 
@@ -33,7 +34,16 @@ const reportedWithoutComparison = 3;
  */
 @Component({
   selector: 'rf-selection-report-page',
-  imports: [FigurePipe, ChartNumbers, DatePipe, RouterLink, MatButtonModule, MatIconModule, ReportDocuments],
+  imports: [
+    CableSuggestions,
+    ChartNumbers,
+    DatePipe,
+    FigurePipe,
+    RouterLink,
+    MatButtonModule,
+    MatIconModule,
+    ReportDocuments,
+  ],
   templateUrl: './selection-report-page.html',
   styleUrls: ['../design-page.scss', '../../shared/chart-frame.scss', './selection-report-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,

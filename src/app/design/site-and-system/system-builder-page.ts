@@ -31,6 +31,7 @@ import {
 import { aboveZero, plausibleLevelsValidator, plausibleValidator } from '../plausible-inputs';
 import { SelectionDraft } from '../selection-draft';
 import { compileDraft, staticHeadOf, toPipeSystem, type SegmentDraft, type SystemDraft } from '../system-draft';
+import { CableRunField } from './cable-run-field';
 import { SystemCurvePreview, type CurvePoint } from './system-curve-preview';
 import { DecimalInput, FigurePipe } from '../../shared/locale-numbers';
 
@@ -71,6 +72,7 @@ const previewSteps = 40;
     MatRadioModule,
     MatSelectModule,
     SystemCurvePreview,
+    CableRunField,
   ],
   templateUrl: './system-builder-page.html',
   styleUrls: ['../design-page.scss', './system-builder-page.scss'],
