@@ -39,6 +39,12 @@ export function arrangementLabel(candidate: Pick<SelectionCandidate, 'arrangemen
   return `${running === 1 ? 'single' : `${running} in parallel`}${installed > running ? ' + standby' : ''}`;
 }
 
+/** Each branch's flow at the candidate's operating point, in words; empty for a single route. */
+export function branchFlowsLabel(candidate: Pick<SelectionCandidate, 'operatingPoint'>, flowUnit: string): string {
+  const branches = candidate.operatingPoint.branches ?? [];
+  return branches.map((branch) => `${branch.name} ${branch.flow.toFixed(1)} ${flowUnit}`).join(', ');
+}
+
 /** The words a filter matches a candidate by: its pump, maker, code, arrangement, region, misses, warnings and reasons. */
 function filterText(candidate: SelectionCandidate): string {
   return [
@@ -117,6 +123,7 @@ export class CandidateResults {
   protected readonly motorLabel = motorLabel;
   protected readonly moneyLabel = moneyLabel;
   protected readonly missesLabel = missesLabel;
+  protected readonly branchFlowsLabel = branchFlowsLabel;
 
   protected sortBy(sort: Sort): void {
     this.sort.set(sort);
