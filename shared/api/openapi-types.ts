@@ -1734,10 +1734,12 @@ export interface components {
                 flow: components["schemas"]["FlowUnit"];
                 head: components["schemas"]["HeadUnit"];
             };
-            /** @description TDH at the band's low end, middle and high end. */
+            /** @description TDH at the band's low end, middle and high end; on a branched system, with each branch's share. */
             systemHead: {
                 flow: number;
                 head: number;
+                /** @description Branched systems only, in the order of system.branches. */
+                branches?: components["schemas"]["BranchFlow"][];
             }[];
             choice: components["schemas"]["ChoiceOutcome"] | null;
         };
