@@ -1,12 +1,13 @@
 import type { CalculationUnits, ChoiceOutcome, DesignDraft, DesignOutcome } from '../../shared/api/api-schemas';
 import { DESIGN_UNITS, designPipeSystem } from '../../shared/api/design-system';
-import { DEFAULT_NPSH_GUIDANCE, flowToSI, motorEfficiencyFor, type CompiledSystemCurve } from '../../shared/hydraulics';
+import { branchFlowsAt, DEFAULT_NPSH_GUIDANCE, flowToSI, motorEfficiencyFor } from '../../shared/hydraulics';
+import { branchFlowSummaries } from '../calculations/branch-answers';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { dutyOfParallelPumps } from '../calculations/arrangement-duty';
 import { operatingPointSummary } from '../calculations/calculation-handlers';
 import { preferredBandOf } from '../calculations/pump-request';
 import { answerUnits, requestValueText } from '../calculations/request-units';
-import { prepareSystem } from '../calculations/system-request';
+import { prepareSystem, type PreparedSystem } from '../calculations/system-request';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
 import { CurveDeclaredRange, CurveRevision, Pump, Supplier } from '../database/models';
 import { costTermsOf, type SelectionQuery } from '../selection/selection-query';
@@ -67,7 +68,7 @@ interface Arrangement {
   running: number;
 }
 
-function queryFor(design: DesignDraft, system: CompiledSystemCurve, density: number, arrangement: Arrangement) {
+function queryFor(design: DesignDraft, { curve: system, density, suction }: PreparedSystem, arrangement: Arrangement) {
   const units = designUnits(design.unitSystem);
   const query: SelectionQuery = {
     system,
@@ -88,8 +89,8 @@ function queryFor(design: DesignDraft, system: CompiledSystemCurve, density: num
     onlyPreferredRegion: false,
     accepts: () => true,
     limit: 1,
-    // a saved design keeps no suction side yet: submersible-style, nothing to check
-    suction: null,
+    // the design's suction side, when it has one, as the search checks it
+    suction,
     npshGuidance: DEFAULT_NPSH_GUIDANCE,
   };
   return query;
@@ -102,8 +103,9 @@ export function choiceOutcome(
   arrangement: Arrangement,
   units: CalculationUnits,
 ): ChoiceOutcome {
-  const { curve: system, density } = prepareSystem(designUnits(design.unitSystem), designPipeSystem(design.system), '');
-  const query = queryFor(design, system, density, arrangement);
+  const prepared = prepareSystem(designUnits(design.unitSystem), designPipeSystem(design.system), '');
+  const { curve: system, density, branched } = prepared;
+  const query = queryFor(design, prepared, arrangement);
   const base = { curveRevisionId: curve.pump.revisionId, curveRevisionNumber: curve.revisionNumber };
   const motor = motorEfficiencyFor(curve.pump, query.motorEfficiency).value;
   const duty = dutyOfParallelPumps(curve.pump, system, arrangement.running, query.band, density, motor);
@@ -120,7 +122,7 @@ export function choiceOutcome(
   if (!ranked) throw new Error('a chosen pump is never filtered out');
   return {
     ...base,
-    operatingPoint: operatingPointSummary(duty.point, units),
+    operatingPoint: operatingPointSummary(duty.point, units, branched),
     inBand: ranked.inBand,
     region: ranked.point.region,
     redundant: ranked.oneFailedMeetsMinimum === true,
@@ -135,7 +137,7 @@ export function designOutcome(
   chosen: { curve: ChosenCurve; arrangement: Arrangement } | null,
 ): DesignOutcome {
   const from = designUnits(design.unitSystem);
-  const { curve: system } = prepareSystem(from, designPipeSystem(design.system), '');
+  const { curve: system, branched } = prepareSystem(from, designPipeSystem(design.system), '');
   const to = answerUnits(units);
   const low = flowToSI(design.band.flowMin, from.flow);
   const high = flowToSI(design.band.flowMax, from.flow);
@@ -144,6 +146,7 @@ export function designOutcome(
     systemHead: [low, (low + high) / 2, high].map((flow) => ({
       flow: to.flow(flow),
       head: to.head(system.evaluate(flow)),
+      ...(branched === null ? {} : { branches: branchFlowSummaries(branchFlowsAt(branched, flow), units) }),
     })),
     choice: chosen ? choiceOutcome(design, chosen.curve, chosen.arrangement, units) : null,
   };

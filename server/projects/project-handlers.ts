@@ -1,6 +1,6 @@
 import type { Request, RequestHandler } from 'express';
 import type { Transaction } from 'sequelize';
-import type { ProjectInput, ProjectList } from '../../shared/api/api-schemas';
+import type { DesignSystem, ProjectInput, ProjectList } from '../../shared/api/api-schemas';
 import { PIPE_SERIES } from '../../shared/hydraulics';
 import { currentUser } from '../accounts/authenticated-user';
 import { ProblemError } from '../api/problem-details';
@@ -18,20 +18,36 @@ import { answerProject, latestRevision, requireCurrent, storedChoice } from './p
  * If-Match check.
  */
 
-/** The request's project input, every pipe a size of its series in the catalogue. */
-function checkedInput(request: Request): ProjectInput {
-  const input = request.body as ProjectInput;
-  input.design.system.segments.forEach((segment, index) => {
-    const pointer = `/body/design/system/segments/${index}`;
+function checkSegments(segments: DesignSystem['segments'], at: string): void {
+  segments.forEach((segment, index) => {
+    const pointer = `${at}/segments/${index}`;
     const series = PIPE_SERIES.find((candidate) => candidate.id === segment.series);
     if (!series)
       throw unprocessable(`${pointer}/series`, `is not a pipe series of the catalogue (GET /pipe-sizes lists them)`);
     if (!series.sizes.some((size) => size.id === segment.size))
       throw unprocessable(`${pointer}/size`, `is not a size of ${series.label}`);
   });
+}
+
+/** The request's project input, every pipe a size of its series in the catalogue, branch names unique. */
+function checkedInput(request: Request): ProjectInput {
+  const input = request.body as ProjectInput;
+  const { system } = input.design;
+  checkSegments(system.segments, '/body/design/system');
+  if (system.segments.length === 0 && !system.branches)
+    throw unprocessable('/body/design/system/segments', 'needs at least one segment without branches');
+  const branches = system.branches?.map((branch, index) => {
+    const at = `/body/design/system/branches/${index}`;
+    checkSegments(branch.segments, at);
+    const name = checkedName(branch.name, `${at}/name`);
+    if (system.branches!.slice(0, index).some((other) => other.name.trim() === name))
+      throw unprocessable(`${at}/name`, 'names another branch of the system already');
+    return { ...branch, name };
+  });
   if (input.design.band.flowMin > input.design.band.flowMax)
     throw unprocessable('/body/design/band/flowMax', 'must not be less than flowMin');
-  return { ...input, name: checkedName(input.name, '/body/name') };
+  const design = branches ? { ...input.design, system: { ...system, branches } } : input.design;
+  return { ...input, design, name: checkedName(input.name, '/body/name') };
 }
 
 /** The save as revision `number` of the project: its visit (today, UTC, when it names none) and design. */

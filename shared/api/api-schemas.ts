@@ -105,6 +105,7 @@ export type DemoMailMessage = DemoMailbox['messages'][number];
 // projects
 export type DesignDraft = Schemas['DesignDraft'];
 export type DesignSystem = Schemas['DesignSystem'];
+export type DesignBranch = Schemas['DesignBranch'];
 export type DesignSearch = Schemas['DesignSearch'];
 export type ProjectInput = Schemas['ProjectInput'];
 export type Project = Schemas['Project'];

@@ -1929,6 +1929,11 @@ export interface components {
             hazenWilliamsC?: number | null;
             /** @description A custom absolute roughness in the design's diameter unit; null or absent: the series' default. */
             roughness?: number | null;
+            /**
+             * @description suction: between the intake and the pump (such segments come first in the route or common run); absent: discharge.
+             * @enum {string}
+             */
+            side?: "suction" | "discharge";
             /** @description Equipment rated by a head loss (design's head unit) at a flow (design's flow unit). */
             equipment?: {
                 name: string;
@@ -1950,6 +1955,28 @@ export interface components {
             waterTemperatureC: number;
             /** @enum {string} */
             frictionMethod: "hazen-williams" | "darcy-weisbach";
+            /** @description The whole route (at least one segment); with branches, the common run from the pump to the split (may be empty). */
+            segments: components["schemas"]["DesignSegment"][];
+            /** @description Site elevation above mean sea level, in the design's length unit; used with a suction side. */
+            siteElevation?: number;
+            /** @description Pump (impeller eye) above the intake water surface, in the design's length unit; negative for a flooded suction; used with a suction side. */
+            pumpElevation?: number;
+            /** @description A common run splitting into 2 to 8 branches, each to its own outlet (names unique); the system's staticHead, dischargeLevel and outletPressureHead are then not used. */
+            branches?: components["schemas"]["DesignBranch"][];
+        };
+        /** @description One branch of a design's system, from the split to its outlet, in the design's units. */
+        DesignBranch: {
+            name: string;
+            /**
+             * @description direct: staticHead as typed; levels: outletLevel - the system's intakeLevel.
+             * @enum {string}
+             */
+            staticMode: "direct" | "levels";
+            /** @description Outlet above the intake water surface. */
+            staticHead: number;
+            /** @description Measured level of the outlet, on the datum of the intake level. */
+            outletLevel: number;
+            outletPressureHead: number;
             segments: components["schemas"]["DesignSegment"][];
         };
         DesignSearch: {
@@ -2037,10 +2064,12 @@ export interface components {
                 flow: components["schemas"]["FlowUnit"];
                 head: components["schemas"]["HeadUnit"];
             };
-            /** @description TDH at the band's low end, middle and high end. */
+            /** @description TDH at the band's low end, middle and high end; on a branched system, with each branch's share. */
             systemHead: {
                 flow: number;
                 head: number;
+                /** @description Branched systems only, in the order of system.branches. */
+                branches?: components["schemas"]["BranchFlow"][];
             }[];
             choice: components["schemas"]["ChoiceOutcome"] | null;
         };

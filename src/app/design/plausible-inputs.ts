@@ -1,7 +1,14 @@
 import type { AbstractControl, ValidationErrors, ValidatorFn } from '@angular/forms';
 import type { CalculationUnits } from '../../../shared/api/api-schemas';
-import { staticHeadOf, type SystemDraft } from './system-draft';
-import { checkPlausibleInUnits, plausibilityMessage, type PlausibleLimitName } from '../../../shared/hydraulics';
+import { designBranchStaticHead } from '../../../shared/api/design-system';
+import { systemInputOf } from '../../../shared/api/system-input';
+import { staticHeadOf, toPipeSystem, type SystemDraft } from './system-draft';
+import {
+  checkPlausibleInUnits,
+  compileSuctionSide,
+  plausibilityMessage,
+  type PlausibleLimitName,
+} from '../../../shared/hydraulics';
 
 /**
  * The API's plausibility limits (shared/hydraulics/plausible-limits.ts) on a value typed in the
@@ -43,6 +50,7 @@ export function plausibleLevelsValidator(units: () => CalculationUnits): Validat
   return (group: AbstractControl): ValidationErrors | null => {
     const draft = group.value as SystemDraft;
     if (
+      draft.branches?.length ||
       draft.staticMode !== 'levels' ||
       typeof draft.intakeLevel !== 'number' ||
       typeof draft.dischargeLevel !== 'number'
@@ -50,5 +58,42 @@ export function plausibleLevelsValidator(units: () => CalculationUnits): Validat
       return null;
     const problem = plausibleInputProblem('staticHead', staticHeadOf(draft), units());
     return problem ? { plausibleLevels: problem } : null;
+  };
+}
+
+/**
+ * Each branch's static head from its measured outlet level, held to the static head's limit; on
+ * the system's form group (the intake level is the system's).
+ */
+export function plausibleBranchLevelsValidator(units: () => CalculationUnits): ValidatorFn {
+  return (group: AbstractControl): ValidationErrors | null => {
+    const draft = group.getRawValue() as SystemDraft;
+    for (const branch of draft.branches ?? []) {
+      if (branch.staticMode !== 'levels' || typeof branch.outletLevel !== 'number') continue;
+      const problem = plausibleInputProblem('staticHead', designBranchStaticHead(branch, draft), units());
+      if (problem) return { branchLevels: `${branch.name}: ${problem}` };
+    }
+    return null;
+  };
+}
+
+/**
+ * The suction side as the calculations check it (shared/hydraulics/suction-side.ts): suction
+ * segments first, a site and pump elevation given with them and in range, no pump elevation
+ * without them. `toDraft` gives the form's value as the design's system.
+ */
+export function suctionSideValidator(
+  units: () => CalculationUnits,
+  toDraft: (group: AbstractControl) => SystemDraft,
+): ValidatorFn {
+  return (group: AbstractControl): ValidationErrors | null => {
+    const draft = toDraft(group);
+    if (!draft.segments.some((segment) => segment.side === 'suction')) return null;
+    try {
+      compileSuctionSide(systemInputOf({ ...toPipeSystem(draft), staticHead: 0 }, units()));
+      return null;
+    } catch (error) {
+      return { suctionSide: error instanceof Error ? error.message : String(error) };
+    }
   };
 }

@@ -1,8 +1,13 @@
-import type { CalculationUnits, DesignSystem, PipeSystem } from '../../../shared/api/api-schemas';
+import type { CalculationUnits, DesignBranch, DesignSystem, PipeSystem } from '../../../shared/api/api-schemas';
 import { designPipeSystem, designStaticHead } from '../../../shared/api/design-system';
-import { systemInputOf } from '../../../shared/api/system-input';
+import { branchedSystemInputOf, systemInputOf } from '../../../shared/api/system-input';
 import {
+  branchFlowsAt,
+  compileBranchedSystem,
   compileSystemCurve,
+  flowFromSI,
+  flowToSI,
+  lengthFromSI,
   convertDiameter,
   convertFlow,
   convertHead,
@@ -13,6 +18,7 @@ import {
 /** The system as the designer's form holds it, in the draft's unit system (the contract's DesignSystem). */
 export type SystemDraft = DesignSystem;
 export type SegmentDraft = DesignSystem['segments'][number];
+export type BranchDraft = DesignBranch;
 
 /** Static head from the draft: entered directly, or the rise from the intake to the discharge level. */
 export const staticHeadOf: (draft: SystemDraft) => number = designStaticHead;
@@ -25,7 +31,37 @@ export const toPipeSystem: (draft: SystemDraft) => PipeSystem = designPipeSystem
  * server stays the authority for every figure it answers.
  */
 export function compileDraft(system: PipeSystem, units: CalculationUnits): CompiledSystemCurve {
-  return compileSystemCurve(systemInputOf(system, units));
+  const branched = branchedSystemInputOf(system, units);
+  return branched === null ? compileSystemCurve(systemInputOf(system, units)) : compileBranchedSystem(branched);
+}
+
+/** One branch's share at a total flow, in the draft's units (velocity: its fastest segment). */
+export interface BranchShare {
+  name: string;
+  flow: number;
+  velocity: number;
+}
+
+/**
+ * Each branch's flow at the given total flows (draft units), by the shared engine's split
+ * (branch-flows.ts); an empty list for a single route.
+ * @returns one row per total flow, each with one share per branch in the system's order
+ */
+export function branchSharesOf(
+  system: PipeSystem,
+  units: CalculationUnits,
+  totalFlows: readonly number[],
+): BranchShare[][] {
+  const input = branchedSystemInputOf(system, units);
+  if (input === null) return [];
+  const compiled = compileBranchedSystem(input);
+  return totalFlows.map((total) =>
+    branchFlowsAt(compiled, flowToSI(total, units.flow)).branches.map((branch) => ({
+      name: branch.name,
+      flow: flowFromSI(branch.flow, units.flow),
+      velocity: lengthFromSI(branch.maxVelocity, units.length),
+    })),
+  );
 }
 
 /** Seven significant figures: survey levels keep well under a millimetre, and switching back gives the typed numbers again. */
@@ -40,23 +76,53 @@ export function convertSystemDraft(draft: SystemDraft, from: CalculationUnits, t
   const diameter = (value: number | null | undefined) =>
     value == null ? value : roundConverted(convertDiameter(value, from.diameter, to.diameter));
   const flow = (value: number) => roundConverted(convertFlow(value, from.flow, to.flow));
+  const segment = (entry: SegmentDraft): SegmentDraft => ({
+    ...entry,
+    length: length(entry.length),
+    insideDiameter: diameter(entry.insideDiameter),
+    roughness: diameter(entry.roughness),
+    equipment: entry.equipment?.map((item) => ({
+      ...item,
+      headLoss: head(item.headLoss),
+      atFlow: flow(item.atFlow),
+    })),
+  });
   return {
     ...draft,
     staticHead: head(draft.staticHead),
     intakeLevel: head(draft.intakeLevel),
     dischargeLevel: head(draft.dischargeLevel),
     outletPressureHead: head(draft.outletPressureHead),
-    segments: draft.segments.map((segment) => ({
-      ...segment,
-      length: length(segment.length),
-      insideDiameter: diameter(segment.insideDiameter),
-      roughness: diameter(segment.roughness),
-      equipment: segment.equipment?.map((entry) => ({
-        ...entry,
-        headLoss: head(entry.headLoss),
-        atFlow: flow(entry.atFlow),
-      })),
-    })),
+    segments: draft.segments.map(segment),
+    ...(draft.siteElevation === undefined ? {} : { siteElevation: length(draft.siteElevation) }),
+    ...(draft.pumpElevation === undefined ? {} : { pumpElevation: length(draft.pumpElevation) }),
+    ...(draft.branches === undefined
+      ? {}
+      : {
+          branches: draft.branches.map((branch) => ({
+            ...branch,
+            staticHead: head(branch.staticHead),
+            outletLevel: head(branch.outletLevel),
+            outletPressureHead: head(branch.outletPressureHead),
+            segments: branch.segments.map(segment),
+          })),
+        }),
+  };
+}
+
+/**
+ * A new branch after the split: the draft's static head (or outlet at the discharge level) and one
+ * short run of the common run's last size with an exit.
+ */
+export function newBranch(draft: SystemDraft, name: string): BranchDraft {
+  const last = draft.segments.at(-1) ?? exampleDraft().segments[0];
+  return {
+    name,
+    staticMode: draft.staticMode,
+    staticHead: staticHeadOf(draft),
+    outletLevel: draft.dischargeLevel,
+    outletPressureHead: 0,
+    segments: [{ series: last.series, size: last.size, length: 20, fittings: [{ kind: 'exit', count: 1 }], extraK: 0 }],
   };
 }
 

@@ -14,7 +14,7 @@ import { kindLabels } from '../../shared/display-units';
 import { missesLabel, moneyLabel, motorLabel, rankByWords } from '../energy-and-costs';
 import { candidateKey, maxCompared, SelectionDraft } from '../selection-draft';
 import { CandidateColumns, choosableColumns } from './candidate-columns';
-import { FigurePipe } from '../../shared/locale-numbers';
+import { FigurePipe, formatFigure } from '../../shared/locale-numbers';
 
 const sortValues: Record<string, (candidate: SelectionCandidate) => number | string> = {
   rank: (candidate) => candidate.rank,
@@ -45,6 +45,12 @@ export function pumpFacts(candidate: Pick<SelectionCandidate, 'kind' | 'solidsHa
   const solids =
     candidate.solidsHandlingMm === null ? 'solids not given' : `passes ${candidate.solidsHandlingMm} mm solids`;
   return `${kindLabels[candidate.kind] ?? candidate.kind} · ${solids}`;
+}
+
+/** Each branch's flow at the candidate's operating point, in words; empty for a single route. */
+export function branchFlowsLabel(candidate: Pick<SelectionCandidate, 'operatingPoint'>, flowUnit: string): string {
+  const branches = candidate.operatingPoint.branches ?? [];
+  return branches.map((branch) => `${branch.name} ${formatFigure(branch.flow, '1.0-1')} ${flowUnit}`).join(', ');
 }
 
 /** The words a filter matches a candidate by: its pump, maker, code, arrangement, region, misses, warnings and reasons. */
@@ -127,6 +133,7 @@ export class CandidateResults {
   protected readonly motorLabel = motorLabel;
   protected readonly moneyLabel = moneyLabel;
   protected readonly missesLabel = missesLabel;
+  protected readonly branchFlowsLabel = branchFlowsLabel;
 
   protected sortBy(sort: Sort): void {
     this.sort.set(sort);

@@ -20,7 +20,8 @@ import { comparisonNumbers } from '../compare/comparison-numbers';
 import { ChartNumbers } from '../../shared/chart-numbers';
 import { moneyLabel, motorLabel } from '../energy-and-costs';
 import { SelectionDraft } from '../selection-draft';
-import { compileDraft, staticHeadOf } from '../system-draft';
+import { SystemSchematic } from '../system-schematic';
+import { compileDraft, staticHeadOf, type SystemDraft } from '../system-draft';
 import { CableSuggestions } from './cable-suggestions';
 import { ReportDocuments } from './report-documents';
 import { FigurePipe, formatFigure } from '../../shared/locale-numbers';
@@ -43,6 +44,7 @@ const reportedWithoutComparison = 3;
     MatButtonModule,
     MatIconModule,
     ReportDocuments,
+    SystemSchematic,
   ],
   templateUrl: './selection-report-page.html',
   styleUrls: ['../design-page.scss', '../../shared/chart-frame.scss', './selection-report-page.scss'],
@@ -64,9 +66,13 @@ export class SelectionReportPage {
   protected readonly fromComparison = computed(() => this.draft.comparedCandidates().length > 0);
   protected readonly staticHead = computed(() => staticHeadOf(this.draft.system()));
 
-  /** Each pipe segment in words: series, size, length and fittings. */
-  protected readonly segments = computed(() =>
-    this.draft.system().segments.map((segment) => {
+  protected readonly isSuction = (segment: { side?: string }) => segment.side === 'suction';
+  protected readonly branched = computed(() => (this.draft.system().branches?.length ?? 0) > 0);
+
+  /** Each pipe segment in words: its run (route, common run or branch), series, size, length and fittings. */
+  protected readonly segments = computed(() => {
+    const system = this.draft.system();
+    const describe = (segment: SystemDraft['segments'][number], run: string) => {
       const series = PIPE_SERIES.find((candidate) => candidate.id === segment.series);
       const size = series?.sizes.find((candidate) => candidate.id === segment.size);
       const fittings = segment.fittings
@@ -76,13 +82,19 @@ export class SelectionReportPage {
             `${fitting.count} × ${FITTINGS.find((entry) => entry.kind === fitting.kind)?.label ?? fitting.kind}`,
         );
       return {
+        run: segment.side === 'suction' ? `${run}, suction side` : run,
         pipe: `${series?.label ?? segment.series}, ${size?.nominalLabel ?? segment.size}`,
         length: segment.length,
         fittings,
         extraK: segment.extraK,
       };
-    }),
-  );
+    };
+    const common = system.branches?.length ? 'Common run' : 'Route';
+    return [
+      ...system.segments.map((segment) => describe(segment, common)),
+      ...(system.branches ?? []).flatMap((branch) => branch.segments.map((segment) => describe(segment, branch.name))),
+    ];
+  });
 
   /** Total dynamic head the system needs at the band's ends, in the design's units. */
   protected readonly headAtBand = computed(() => {

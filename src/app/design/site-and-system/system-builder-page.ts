@@ -3,10 +3,10 @@ import { toSignal } from '@angular/core/rxjs-interop';
 import {
   FormArray,
   FormControl,
-  FormGroup,
   NonNullableFormBuilder,
   ReactiveFormsModule,
   Validators,
+  type AbstractControl,
   type ValidatorFn,
 } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -17,52 +17,65 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { map, startWith } from 'rxjs';
+import { designBranchStaticHead } from '../../../../shared/api/design-system';
 import {
-  diameterFromSI,
-  FITTINGS,
+  BRANCH_COUNT_LIMITS,
   flowFromSI,
   flowToSI,
   headFromSI,
   lengthFromSI,
-  PIPE_SERIES,
   VELOCITY_WARNING_LIMIT,
   type FrictionMethod,
 } from '../../../../shared/hydraulics';
-import { aboveZero, plausibleLevelsValidator, plausibleValidator } from '../plausible-inputs';
+import {
+  plausibleBranchLevelsValidator,
+  plausibleLevelsValidator,
+  plausibleValidator,
+  suctionSideValidator,
+} from '../plausible-inputs';
 import { SelectionDraft } from '../selection-draft';
-import { compileDraft, staticHeadOf, toPipeSystem, type SegmentDraft, type SystemDraft } from '../system-draft';
+import { SystemSchematic } from '../system-schematic';
+import {
+  branchSharesOf,
+  compileDraft,
+  newBranch,
+  staticHeadOf,
+  toPipeSystem,
+  type BranchShare,
+  type SystemDraft,
+} from '../system-draft';
+import { branchForm, segmentForm, uniqueBranchNames, type BranchForm, type SegmentForm } from './segment-forms';
 import { CableRunField } from './cable-run-field';
+import { SegmentListEditor } from './segment-list-editor';
 import { SystemCurvePreview, type CurvePoint } from './system-curve-preview';
 import { DecimalInput, FigurePipe } from '../../shared/locale-numbers';
 
-type FittingForm = FormGroup<{ kind: FormControl<string>; count: FormControl<number> }>;
-type EquipmentForm = FormGroup<{
-  name: FormControl<string>;
-  headLoss: FormControl<number>;
-  atFlow: FormControl<number>;
-}>;
-type SegmentForm = FormGroup<{
-  series: FormControl<string>;
-  size: FormControl<string>;
-  length: FormControl<number>;
-  extraK: FormControl<number>;
-  /** Custom bore, C and roughness: empty (null) keeps the size's. */
-  insideDiameter: FormControl<number | null>;
-  hazenWilliamsC: FormControl<number | null>;
-  roughness: FormControl<number | null>;
-  fittings: FormArray<FittingForm>;
-  equipment: FormArray<EquipmentForm>;
-}>;
+type RouteShape = 'single' | 'branches';
+
+/** The form's value as the design's system: no branches on a single route, elevations only when typed. */
+function draftOf(form: AbstractControl): SystemDraft {
+  const { branches, siteElevation, pumpElevation, ...rest } = form.getRawValue() as SystemDraft & {
+    siteElevation: number | null;
+    pumpElevation: number | null;
+  };
+  return {
+    ...rest,
+    ...(branches?.length ? { branches } : {}),
+    ...(siteElevation == null ? {} : { siteElevation }),
+    ...(pumpElevation == null ? {} : { pumpElevation }),
+  };
+}
 
 /** Points of the preview: enough for a smooth curve, cheap for the engine. */
 const previewSteps = 40;
 
-/** Step 1: the site's levels and the pipe route, with a live system curve from the shared engine. */
+/** Step 1: the site's levels and the pipe route (one route, or a common run and branches), with a live system curve from the shared engine. */
 @Component({
   selector: 'rf-system-builder-page',
   imports: [
     FigurePipe,
     DecimalInput,
+    CableRunField,
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,
@@ -71,8 +84,9 @@ const previewSteps = 40;
     MatInputModule,
     MatRadioModule,
     MatSelectModule,
+    SegmentListEditor,
     SystemCurvePreview,
-    CableRunField,
+    SystemSchematic,
   ],
   templateUrl: './system-builder-page.html',
   styleUrls: ['../design-page.scss', './system-builder-page.scss'],
@@ -82,50 +96,71 @@ export class SystemBuilderPage {
   private readonly formBuilder = inject(NonNullableFormBuilder);
   protected readonly draft = inject(SelectionDraft);
   protected readonly units = this.draft.units;
-  protected readonly series = PIPE_SERIES;
-  /** Reducers and expansions need a diameter ratio this form does not ask for: the API takes them. */
-  protected readonly fittingKinds = FITTINGS.filter((fitting) => fitting.resistance.method !== 'diameter-ratio');
+  protected readonly branchLimits = BRANCH_COUNT_LIMITS;
   protected readonly frictionMethods: ReadonlyArray<{ id: FrictionMethod; label: string }> = [
     { id: 'hazen-williams', label: 'Hazen-Williams (water, 4-25 C)' },
     { id: 'darcy-weisbach', label: 'Darcy-Weisbach with Colebrook' },
   ];
 
   protected readonly form = this.buildForm(this.draft.system());
+  protected readonly routeShape = new FormControl<RouteShape>(
+    this.form.controls.branches.length ? 'branches' : 'single',
+    { nonNullable: true },
+  );
 
   private readonly value = toSignal(
     this.form.valueChanges.pipe(
       startWith(null),
-      map(() => this.form.getRawValue() as SystemDraft),
+      map(() => draftOf(this.form)),
     ),
-    {
-      initialValue: this.form.getRawValue() as SystemDraft,
-    },
+    { initialValue: draftOf(this.form) },
   );
   private readonly status = toSignal(this.form.statusChanges.pipe(startWith(this.form.status)), {
     initialValue: this.form.status,
   });
 
   protected readonly staticHead = computed(() => staticHeadOf(this.value()));
+  protected readonly branched = computed(() => (this.value().branches?.length ?? 0) > 0);
+  protected readonly hasSuction = computed(() => this.value().segments.some((segment) => segment.side === 'suction'));
+  /** Each branch's static head as the calculations get it (typed, or from its outlet level). */
+  protected readonly branchHeads = computed(() =>
+    (this.value().branches ?? []).map((branch) => designBranchStaticHead(branch, this.value())),
+  );
+  /** The system as the schematic draws it: the last valid one. */
+  protected readonly shown = computed(() => (this.status() === 'VALID' ? this.value() : this.draft.system()));
 
   /** The preview, or the engine's reason why it cannot be drawn. */
   protected readonly preview = computed(
-    (): { points: CurvePoint[]; atBand: { min: number; max: number }; velocity: number } | { problem: string } => {
+    ():
+      | {
+          points: CurvePoint[];
+          atBand: { min: number; max: number };
+          velocity: number;
+          shares: BranchShare[][];
+        }
+      | { problem: string } => {
       if (this.status() !== 'VALID') return { problem: 'Complete the fields marked in red to see the system curve.' };
       const units = this.units();
       const band = this.draft.band();
       try {
-        const curve = compileDraft(toPipeSystem(this.value()), units);
+        const system = toPipeSystem(this.value());
+        const curve = compileDraft(system, units);
         const top = flowToSI(band.flowMax * 1.6, units.flow);
         const points = Array.from({ length: previewSteps + 1 }, (_, step) => {
           const flow = (top * step) / previewSteps;
           return { flow: flowFromSI(flow, units.flow), head: headFromSI(curve.evaluate(flow), units.head) };
         });
         const headAt = (flow: number) => headFromSI(curve.evaluate(flowToSI(flow, units.flow)), units.head);
+        const shares = branchSharesOf(system, units, [band.flowMin, band.flowMax]);
         const smallestArea = Math.min(...curve.segments.map((segment) => segment.area));
+        const commonVelocity = curve.segments.length
+          ? lengthFromSI(flowToSI(band.flowMax, units.flow) / smallestArea, units.length)
+          : 0;
         return {
           points,
           atBand: { min: headAt(band.flowMin), max: headAt(band.flowMax) },
-          velocity: lengthFromSI(flowToSI(band.flowMax, units.flow) / smallestArea, units.length),
+          velocity: Math.max(commonVelocity, ...(shares[1] ?? []).map((share) => share.velocity)),
+          shares,
         };
       } catch (error) {
         return { problem: error instanceof Error ? error.message : String(error) };
@@ -136,14 +171,40 @@ export class SystemBuilderPage {
   protected readonly velocityLimit = computed(() => lengthFromSI(VELOCITY_WARNING_LIMIT, this.units().length));
 
   constructor() {
-    // The typed static head counts only when it is the one in use: a stale value hidden behind the levels must not block the form.
-    const { staticMode, staticHead } = this.form.controls;
-    const useStaticMode = (mode: 'direct' | 'levels') =>
-      mode === 'levels' ? staticHead.disable({ emitEvent: false }) : staticHead.enable({ emitEvent: false });
-    useStaticMode(staticMode.value);
+    // A value counts only where it is in use: a stale one hidden behind the levels or the branches must not block the form.
+    const { staticMode, staticHead, dischargeLevel, outletPressureHead, branches } = this.form.controls;
+    const useStaticMode = () => {
+      const mode = staticMode.value;
+      const single = branches.length === 0;
+      const set = (control: AbstractControl, on: boolean) =>
+        on ? control.enable({ emitEvent: false }) : control.disable({ emitEvent: false });
+      set(staticHead, single && mode === 'direct');
+      set(dischargeLevel, single);
+      set(outletPressureHead, single);
+      for (const branch of branches.controls) {
+        branch.controls.staticMode.setValue(mode, { emitEvent: false });
+        set(branch.controls.staticHead, mode === 'direct');
+        set(branch.controls.outletLevel, mode === 'levels');
+      }
+      this.form.updateValueAndValidity();
+    };
+    useStaticMode();
     staticMode.valueChanges.subscribe(useStaticMode);
+    this.routeShape.valueChanges.subscribe((shape) => {
+      const current = draftOf(this.form);
+      branches.clear({ emitEvent: false });
+      if (shape === 'branches') {
+        for (const name of ['Falls', 'Filter return'])
+          branches.push(this.branch(newBranch(current, name)), { emitEvent: false });
+      } else if (this.segments.length === 0) {
+        this.segments.push(this.segment(exampleSegment(current)), { emitEvent: false });
+      }
+      this.segments.setValidators(shape === 'branches' ? [] : [Validators.minLength(1)]);
+      this.segments.updateValueAndValidity({ emitEvent: false });
+      useStaticMode();
+    });
     this.form.valueChanges.subscribe(() => {
-      if (this.form.valid) this.draft.setSystem(this.form.getRawValue() as SystemDraft);
+      if (this.form.valid) this.draft.setSystem(draftOf(this.form));
     });
   }
 
@@ -151,62 +212,31 @@ export class SystemBuilderPage {
     return this.form.controls.segments;
   }
 
-  protected sizesOf(seriesId: string) {
-    return PIPE_SERIES.find((series) => series.id === seriesId)?.sizes ?? [];
+  protected get branches(): FormArray<BranchForm> {
+    return this.form.controls.branches;
   }
 
-  protected insideDiameterLabel(size: { insideDiameter: number }): string {
-    const unit = this.units().diameter;
-    const value = diameterFromSI(size.insideDiameter, unit);
-    return `${value.toFixed(unit === 'in' ? 3 : 1)} ${unit} bore`;
+  protected addBranch(): void {
+    this.branches.push(this.branch(newBranch(draftOf(this.form), `Branch ${this.branches.length + 1}`)));
+    this.form.controls.staticMode.setValue(this.form.controls.staticMode.value);
   }
 
-  /** A new series keeps the nominal size when the series has it. */
-  protected seriesChanged(segment: SegmentForm): void {
-    const sizes = this.sizesOf(segment.controls.series.value);
-    const nominal = segment.controls.size.value.split('-').at(-1);
-    segment.controls.size.setValue((sizes.find((size) => String(size.nominalSize) === nominal) ?? sizes[0]).id);
+  protected removeBranch(index: number): void {
+    this.branches.removeAt(index);
   }
 
-  protected addSegment(): void {
-    const last = this.segments.at(this.segments.length - 1)?.getRawValue();
-    this.segments.push(
-      this.segmentForm({
-        series: last?.series ?? 'pvc-sch40',
-        size: last?.size ?? 'pvc-sch40-2',
-        length: 10,
-        extraK: 0,
-        fittings: [],
-        equipment: [],
-      }),
-    );
+  private segment(segment: SystemDraft['segments'][number]): SegmentForm {
+    return segmentForm(this.formBuilder, segment, this.units);
   }
 
-  protected removeSegment(index: number): void {
-    this.segments.removeAt(index);
-  }
-
-  protected addFitting(segment: SegmentForm): void {
-    segment.controls.fittings.push(this.fittingForm({ kind: 'elbow-90-standard', count: 1 }));
-  }
-
-  protected removeFitting(segment: SegmentForm, index: number): void {
-    segment.controls.fittings.removeAt(index);
-  }
-
-  protected addEquipment(segment: SegmentForm): void {
-    segment.controls.equipment.push(
-      this.equipmentForm({ name: 'Filter', headLoss: 1, atFlow: this.draft.band().flowMax }),
-    );
-  }
-
-  protected removeEquipment(segment: SegmentForm, index: number): void {
-    segment.controls.equipment.removeAt(index);
+  private branch(branch: NonNullable<SystemDraft['branches']>[number]): BranchForm {
+    return branchForm(this.formBuilder, branch, this.units);
   }
 
   private buildForm(system: SystemDraft) {
     const number = (value: number, ...validators: ValidatorFn[]) =>
       this.formBuilder.control(value, [Validators.required, ...validators]);
+    const branched = (system.branches?.length ?? 0) > 0;
     return this.formBuilder.group(
       {
         staticMode: this.formBuilder.control<'direct' | 'levels'>(system.staticMode),
@@ -216,63 +246,36 @@ export class SystemBuilderPage {
         outletPressureHead: number(system.outletPressureHead, plausibleValidator('outletPressureHead', this.units)),
         waterTemperatureC: number(system.waterTemperatureC, Validators.min(0), Validators.max(40)),
         frictionMethod: this.formBuilder.control<FrictionMethod>(system.frictionMethod),
+        siteElevation: this.formBuilder.control<number | null>(system.siteElevation ?? null),
+        pumpElevation: this.formBuilder.control<number | null>(system.pumpElevation ?? null),
         segments: this.formBuilder.array(
-          system.segments.map((segment) => this.segmentForm(segment)),
-          Validators.minLength(1),
+          system.segments.map((segment) => this.segment(segment)),
+          branched ? [] : [Validators.minLength(1)],
+        ),
+        branches: this.formBuilder.array(
+          (system.branches ?? []).map((branch) => this.branch(branch)),
+          [uniqueBranchNames],
         ),
       },
-      { validators: plausibleLevelsValidator(this.units) },
+      {
+        validators: [
+          plausibleLevelsValidator(this.units),
+          plausibleBranchLevelsValidator(this.units),
+          suctionSideValidator(this.units, draftOf),
+        ],
+      },
     );
   }
+}
 
-  private segmentForm(segment: SegmentDraft): SegmentForm {
-    return this.formBuilder.group({
-      series: this.formBuilder.control(segment.series),
-      size: this.formBuilder.control(segment.size),
-      length: this.formBuilder.control(segment.length, [
-        Validators.required,
-        aboveZero,
-        plausibleValidator('segmentLength', this.units),
-      ]),
-      extraK: this.formBuilder.control(segment.extraK, [
-        Validators.required,
-        Validators.min(0),
-        plausibleValidator('extraK', this.units),
-      ]),
-      insideDiameter: this.formBuilder.control<number | null>(segment.insideDiameter ?? null, [
-        aboveZero,
-        plausibleValidator('insideDiameter', this.units),
-      ]),
-      hazenWilliamsC: this.formBuilder.control<number | null>(segment.hazenWilliamsC ?? null, [
-        Validators.min(1),
-        Validators.max(200),
-      ]),
-      roughness: this.formBuilder.control<number | null>(segment.roughness ?? null, [
-        Validators.min(0),
-        plausibleValidator('roughness', this.units),
-      ]),
-      fittings: this.formBuilder.array(segment.fittings.map((fitting) => this.fittingForm(fitting))),
-      equipment: this.formBuilder.array((segment.equipment ?? []).map((entry) => this.equipmentForm(entry))),
-    });
-  }
-
-  private equipmentForm(entry: { name: string; headLoss: number; atFlow: number }): EquipmentForm {
-    return this.formBuilder.group({
-      name: this.formBuilder.control(entry.name, [Validators.required, Validators.maxLength(80)]),
-      headLoss: this.formBuilder.control(entry.headLoss, [Validators.required, Validators.min(0)]),
-      atFlow: this.formBuilder.control(entry.atFlow, [Validators.required, aboveZero]),
-    });
-  }
-
-  private fittingForm(fitting: { kind: string; count: number }): FittingForm {
-    return this.formBuilder.group({
-      kind: this.formBuilder.control(fitting.kind),
-      count: this.formBuilder.control(fitting.count, [
-        Validators.required,
-        Validators.min(0),
-        Validators.max(1000),
-        Validators.pattern(/^\d+$/),
-      ]),
-    });
-  }
+/** A first segment for a route left with none: the common run's last size, 10 lengths long. */
+function exampleSegment(draft: SystemDraft): SystemDraft['segments'][number] {
+  const last = draft.branches?.[0]?.segments[0];
+  return {
+    series: last?.series ?? 'pvc-sch40',
+    size: last?.size ?? 'pvc-sch40-3',
+    length: 10,
+    fittings: [],
+    extraK: 0,
+  };
 }

@@ -10,6 +10,7 @@ import {
 import { line } from 'd3-shape';
 import { appendHatchPattern, drawChartFrame } from '../../shared/chart-frame';
 import { ChartNumbers, evenlyPicked, figure, type NumberTable } from '../../shared/chart-numbers';
+import type { BranchShare } from '../system-draft';
 
 export interface CurvePoint {
   flow: number;
@@ -25,6 +26,31 @@ const margin = { top: 16, right: 16, bottom: 42, left: 52 };
   selector: 'rf-system-curve-preview',
   imports: [ChartNumbers],
   template: `<svg #chart role="img" [attr.aria-label]="summary()" class="rf-preview"></svg>
+    @if (branchShares().length === 2) {
+      <table class="rf-branch-flows">
+        <caption>
+          Branch flows at the band's ends
+        </caption>
+        <thead>
+          <tr>
+            <th scope="col">Branch</th>
+            <th scope="col">At {{ bandFlow(0) }} {{ flowUnit() }} ({{ flowUnit() }})</th>
+            <th scope="col">At {{ bandFlow(1) }} {{ flowUnit() }} ({{ flowUnit() }})</th>
+            <th scope="col">Fastest velocity at the top ({{ lengthUnit() }}/s)</th>
+          </tr>
+        </thead>
+        <tbody>
+          @for (share of branchShares()[1]; track share.name; let index = $index) {
+            <tr>
+              <th scope="row">{{ share.name }}</th>
+              <td>{{ figureOf(branchShares()[0][index].flow) }}</td>
+              <td>{{ figureOf(share.flow) }}</td>
+              <td>{{ figureOf(share.velocity) }}</td>
+            </tr>
+          }
+        </tbody>
+      </table>
+    }
     <rf-chart-numbers [tables]="numbers()" />`,
   styleUrls: ['../../shared/chart-frame.scss'],
   styles: `
@@ -32,6 +58,19 @@ const margin = { top: 16, right: 16, bottom: 42, left: 52 };
       max-width: 40rem;
       border: 1px solid #d8d2c6;
       border-radius: 4px;
+    }
+    .rf-branch-flows {
+      margin: 0.5rem 0;
+      border-collapse: collapse;
+      caption {
+        text-align: left;
+        font-weight: 600;
+      }
+      th,
+      td {
+        padding: 0.15rem 0.6rem 0.15rem 0;
+        text-align: left;
+      }
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -41,6 +80,16 @@ export class SystemCurvePreview {
   readonly band = input<{ flowMin: number; flowMax: number } | null>(null);
   readonly flowUnit = input.required<string>();
   readonly headUnit = input.required<string>();
+  readonly lengthUnit = input('ft');
+  /** Each branch's share at the band's low and high flow (none for a single route). */
+  readonly branchShares = input<readonly (readonly BranchShare[])[]>([]);
+
+  protected readonly figureOf = figure;
+
+  protected bandFlow(end: 0 | 1): string {
+    const band = this.band();
+    return band ? figure(end === 0 ? band.flowMin : band.flowMax) : '';
+  }
 
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('chart');
 
