@@ -120,6 +120,24 @@ describe('a branched design in Chromium', function () {
     const split = await page.locator('tr[data-candidate]').first().locator('.rf-branch-flows').innerText();
     expect(split).to.match(/^Falls \d+\.\d gpm, Filter return \d+\.\d gpm$/);
     expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
+
+    // the report gives the same split per pump, with the NPSH of the suction side
+    const [, falls, filterReturn] = /^Falls (\S+) gpm, Filter return (\S+) gpm$/.exec(split)!;
+    await page.getByRole('link', { name: 'Report' }).click();
+    const table = page.getByTestId('branch-and-suction');
+    await table.waitFor();
+    const headers = await table.locator('thead th').allInnerTexts();
+    expect(headers.slice(1, 3)).to.deep.equal([
+      'Falls: flow (gpm) · velocity (ft/s)',
+      'Filter return: flow (gpm) · velocity (ft/s)',
+    ]);
+    const firstRow = await table.locator('tbody tr').first().locator('td').allInnerTexts();
+    expect(firstRow[0]).to.match(new RegExp(`^${falls} · \\d+\\.\\d`));
+    expect(firstRow[1]).to.match(new RegExp(`^${filterReturn} · \\d+\\.\\d`));
+    expect(firstRow.slice(2).join(' ')).to.match(/ratio \d+\.\d\d, (enough|short)|submersible|not published/);
+    await table.scrollIntoViewIfNeeded();
+    await saveScreenshot(page, 'branched-report');
+    expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
   });
 
   it('saves the project and opens it again from the projects list with the branches as entered', async () => {

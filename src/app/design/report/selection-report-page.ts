@@ -22,6 +22,7 @@ import { moneyLabel, motorLabel } from '../energy-and-costs';
 import { SelectionDraft } from '../selection-draft';
 import { SystemSchematic } from '../system-schematic';
 import { compileDraft, staticHeadOf, type SystemDraft } from '../system-draft';
+import { BranchAndSuctionTable } from './branch-and-suction-table';
 import { CableSuggestions } from './cable-suggestions';
 import { ReportDocuments } from './report-documents';
 import { FigurePipe, formatFigure } from '../../shared/locale-numbers';
@@ -36,6 +37,7 @@ const reportedWithoutComparison = 3;
 @Component({
   selector: 'rf-selection-report-page',
   imports: [
+    BranchAndSuctionTable,
     CableSuggestions,
     ChartNumbers,
     DatePipe,
