@@ -92,6 +92,23 @@ describe('a branched design in Chromium', function () {
     const status = await page.locator('.rf-builder [role=status]').innerText();
     expect(status).to.contain(`Falls ${flows[0][2].toFixed(1)} gpm`);
 
+    // the chart draws each branch's flow at the pump's head; its table adds up to the total at every row
+    const preview = page.locator('rf-system-curve-preview');
+    expect(
+      await preview.locator('path.rf-branch-line').evaluateAll((paths) => paths.map((p) => p.dataset['branch'])),
+    ).to.deep.equal(['Falls', 'Filter return']);
+    const branchTable = preview.locator('table', { hasText: "Each branch's flow at the pump's head" });
+    const rows = await branchTable
+      .locator('tbody tr')
+      .evaluateAll((trs) =>
+        trs.map((tr) =>
+          [...tr.querySelectorAll('th, td')].map((cell) => Number(cell.textContent!.replaceAll(',', ''))),
+        ),
+      );
+    expect(rows.length).to.be.greaterThan(5);
+    for (const [total, , falls, filterReturn] of rows) expect(falls + filterReturn).to.be.closeTo(total, 0.2);
+    expect(rows.at(-1)![2]).to.be.greaterThan(rows[1][2]);
+
     // the schematic: pump, common run, tee and both outlets with their levels, in words too
     const schematic = page.locator('rf-system-schematic');
     const label = (await schematic.locator('svg').getAttribute('aria-label')) ?? '';
@@ -106,6 +123,7 @@ describe('a branched design in Chromium', function () {
       'Filter return: 1.5 ft',
     ]);
     expect(await schematic.locator('tbody tr').count()).to.equal(2);
+    await preview.scrollIntoViewIfNeeded();
     await saveScreenshot(page, 'branched-site-and-system');
     expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
   });

@@ -47,7 +47,7 @@ import {
 import { branchForm, segmentForm, uniqueBranchNames, type BranchForm, type SegmentForm } from './segment-forms';
 import { CableRunField } from './cable-run-field';
 import { SegmentListEditor } from './segment-list-editor';
-import { SystemCurvePreview, type CurvePoint } from './system-curve-preview';
+import { SystemCurvePreview, type BranchCurve, type CurvePoint } from './system-curve-preview';
 import { DecimalInput, FigurePipe } from '../../shared/locale-numbers';
 
 type RouteShape = 'single' | 'branches';
@@ -137,6 +137,7 @@ export class SystemBuilderPage {
           atBand: { min: number; max: number };
           velocity: number;
           shares: BranchShare[][];
+          branchCurves: BranchCurve[];
         }
       | { problem: string } => {
       if (this.status() !== 'VALID') return { problem: 'Complete the fields marked in red to see the system curve.' };
@@ -152,6 +153,15 @@ export class SystemBuilderPage {
         });
         const headAt = (flow: number) => headFromSI(curve.evaluate(flowToSI(flow, units.flow)), units.head);
         const shares = branchSharesOf(system, units, [band.flowMin, band.flowMax]);
+        const sharesAlong = branchSharesOf(
+          system,
+          units,
+          points.map((point) => point.flow),
+        );
+        const branchCurves = (sharesAlong[0] ?? []).map((branch, index) => ({
+          name: branch.name,
+          points: sharesAlong.map((row, step) => ({ flow: row[index].flow, head: points[step].head })),
+        }));
         const smallestArea = Math.min(...curve.segments.map((segment) => segment.area));
         const commonVelocity = curve.segments.length
           ? lengthFromSI(flowToSI(band.flowMax, units.flow) / smallestArea, units.length)
@@ -161,6 +171,7 @@ export class SystemBuilderPage {
           atBand: { min: headAt(band.flowMin), max: headAt(band.flowMax) },
           velocity: Math.max(commonVelocity, ...(shares[1] ?? []).map((share) => share.velocity)),
           shares,
+          branchCurves,
         };
       } catch (error) {
         return { problem: error instanceof Error ? error.message : String(error) };
