@@ -53,6 +53,8 @@ interface Measured {
   p95: number;
   p99: number;
   non2xx: number;
+  /** Mean bytes per response, headers included: a bigger answer costs serialising and writing. */
+  bytes: number;
 }
 
 function percentile(sorted: number[], share: number): number {
@@ -62,10 +64,12 @@ function percentile(sorted: number[], share: number): number {
 /** One autocannon run; latencies are collected per response so p95 is exact (autocannon reports p97.5). */
 async function measure(options: AutocannonOptions): Promise<Measured> {
   const latencies: number[] = [];
+  let bytes = 0;
   const instance = autocannon({ connections: CONNECTIONS, duration: DURATION_S, ...options });
-  instance.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) =>
-    latencies.push(responseTime),
-  );
+  instance.on('response', (_client: unknown, _status: number, responseBytes: number, responseTime: number) => {
+    latencies.push(responseTime);
+    bytes += responseBytes;
+  });
   const result = await instance;
   latencies.sort((a, b) => a - b);
   return {
@@ -74,12 +78,13 @@ async function measure(options: AutocannonOptions): Promise<Measured> {
     p95: percentile(latencies, 0.95),
     p99: percentile(latencies, 0.99),
     non2xx: result.non2xx,
+    bytes: latencies.length > 0 ? bytes / latencies.length : 0,
   };
 }
 
 function report(name: string, figures: Measured): void {
   console.log(
-    `${name.padEnd(28)} ${figures.requestsPerSecond.toFixed(0).padStart(7)} req/s   p50 ${figures.p50.toFixed(1).padStart(6)} ms   p95 ${figures.p95.toFixed(1).padStart(6)} ms   p99 ${figures.p99.toFixed(1).padStart(6)} ms   non-2xx ${figures.non2xx}`,
+    `${name.padEnd(28)} ${figures.requestsPerSecond.toFixed(0).padStart(7)} req/s   p50 ${figures.p50.toFixed(1).padStart(6)} ms   p95 ${figures.p95.toFixed(1).padStart(6)} ms   p99 ${figures.p99.toFixed(1).padStart(6)} ms   non-2xx ${figures.non2xx}   ${(figures.bytes / 1024).toFixed(1).padStart(6)} KiB/answer`,
   );
 }
 
