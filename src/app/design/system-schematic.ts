@@ -38,7 +38,7 @@ const sum = (segments: SystemDraft['segments']) => segments.reduce((total, segme
   selector: 'rf-system-schematic',
   template: `<figure class="rf-schematic">
     <svg #drawing role="img" [attr.aria-label]="summary()" [attr.viewBox]="viewBox()"></svg>
-    <table class="rf-schematic-table">
+    <table class="rf-schematic-table rf-figure-table">
       <caption>
         Outlets of the system
       </caption>
@@ -62,6 +62,7 @@ const sum = (segments: SystemDraft['segments']) => segments.reduce((total, segme
       </tbody>
     </table>
   </figure>`,
+  styleUrls: ['../shared/chart-frame.scss'],
   styles: `
     .rf-schematic {
       margin: 0;
@@ -73,18 +74,6 @@ const sum = (segments: SystemDraft['segments']) => segments.reduce((total, segme
       border: 1px solid #d8d2c6;
       border-radius: 4px;
       background: #fbfaf7;
-    }
-    .rf-schematic-table {
-      border-collapse: collapse;
-      caption {
-        text-align: left;
-        font-weight: 600;
-      }
-      th,
-      td {
-        padding: 0.15rem 0.6rem 0.15rem 0;
-        text-align: left;
-      }
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -63,7 +63,7 @@ const margin = { top: 16, right: 16, bottom: 42, left: 52 };
       </ul>
     }
     @if (branchShares().length === 2) {
-      <table class="rf-branch-flows">
+      <table class="rf-branch-flows rf-figure-table">
         <caption>
           Branch flows at the band's ends
         </caption>
@@ -110,16 +110,6 @@ const margin = { top: 16, right: 16, bottom: 42, left: 52 };
     }
     .rf-branch-flows {
       margin: 0.5rem 0;
-      border-collapse: collapse;
-      caption {
-        text-align: left;
-        font-weight: 600;
-      }
-      th,
-      td {
-        padding: 0.15rem 0.6rem 0.15rem 0;
-        text-align: left;
-      }
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
