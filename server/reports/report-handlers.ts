@@ -6,7 +6,7 @@ import { ProblemError } from '../api/problem-details';
 import type { CatalogSnapshot } from '../catalog/catalog-snapshot';
 import { CompanyProfile, CurveRevision, Project, ProjectReport, Pump } from '../database/models';
 import { designFigures, type DesignFigures } from './design-selection';
-import { DEFAULT_WASTE_ALLOWANCE_PERCENT, partsList, partsListCsv } from './parts-list';
+import { DEFAULT_WASTE_ALLOWANCE_PERCENT, partsList, partsListCsv, type PumpElectrical } from './parts-list';
 import { optionalText } from './profile-handlers';
 import type { PumpPrice } from './proposal-costs';
 import { proposalPdf } from './proposal-pdf';
@@ -34,6 +34,12 @@ async function reachableProject(request: Request): Promise<Project> {
 }
 
 /** The saved design's figures; a design the engine refuses is a 422 on the project, not on this request's body. */
+/** The catalog's motor rating of the first-ranked pump, for the parts list's cable; null without one. */
+async function chosenPumpElectrical(catalog: CatalogSnapshot, figures: DesignFigures): Promise<PumpElectrical | null> {
+  const chosen = figures.selection.candidates[0];
+  return chosen ? ((await catalog.findPump(chosen.pumpId))?.electrical ?? null) : null;
+}
+
 async function savedDesignFigures(catalog: CatalogSnapshot, project: Project): Promise<DesignFigures> {
   try {
     return await designFigures(catalog, project.design);
@@ -111,6 +117,7 @@ export function createReportHandlers(
           project.design,
           figures.selection.candidates[0] ?? null,
           body.wasteAllowancePercent ?? DEFAULT_WASTE_ALLOWANCE_PERCENT,
+          await chosenPumpElectrical(catalog, figures),
         ),
         madeAt: new Date(),
         catalogRevision: catalogRevision ?? 0,
@@ -165,6 +172,7 @@ export function createReportHandlers(
         project.design,
         figures.selection.candidates[0] ?? null,
         query.wasteAllowancePercent ?? DEFAULT_WASTE_ALLOWANCE_PERCENT,
+        await chosenPumpElectrical(catalog, figures),
       );
       response
         .type('text/csv; charset=utf-8')

@@ -839,9 +839,15 @@ export interface paths {
         /**
          * The crew's parts list of the project's saved design, as CSV
          * @description Pipe by series and nominal size with its total length and the standard sticks to buy
-         *     (10 ft and 20 ft, 6 m) after the waste allowance, fittings and valves by kind and size, the
-         *     pumps (duty and standby) of the first-ranked selection. Text cells a spreadsheet would run as a
-         *     formula start with an apostrophe.
+         *     (10 ft and 20 ft, 6 m) after the waste allowance, fittings and valves by kind and size, over
+         *     the route or the common run and every branch; equipment (each named item, and a set for a
+         *     segment's extra K); the pumps (duty and standby) of the first-ranked selection; and, when
+         *     the design gives a cable run, the copper cable to each of those pumps (one circuit each, the
+         *     run plus the same allowance) in the smallest conductor under a 3 % voltage drop at the pump's
+         *     full-load current (AWG with mm2 beside it in US units, the other way round in metric), or
+         *     "to be sized" where the catalog gives no rating. A licensed electrician and the local code
+         *     decide the cable. Sections: pipe, fitting, valve, equipment, pump, electrical. Text cells a
+         *     spreadsheet would run as a formula start with an apostrophe.
          */
         get: operations["getProjectPartsList"];
         put?: never;
@@ -5416,6 +5422,9 @@ export interface operations {
                      * @example section,item,size,quantity,unit,sticks_10ft,sticks_20ft,sticks_6m,notes
                      *     pipe,PVC Schedule 40,3 in,264,ft,27,14,14,240 ft measured + 10 % allowance
                      *     fitting,90° standard elbow,3 in,4,each,,,,
+                     *     pump,Alderbrook (invented) Submersible 40,AB-SUB-40,2,each,,,,duty
+                     *     pump,Alderbrook (invented) Submersible 40,AB-SUB-40,1,each,,,,standby
+                     *     electrical,Copper pump cable,14 AWG (or 1.5 mm2),198,ft,,,,"3 circuits of 60 ft one way + 10 % allowance; smallest under 3 % drop at 7.5 A, 230 V, 1 phase; a licensed electrician and the local code decide the cable"
                      */
                     "text/csv": string;
                 };

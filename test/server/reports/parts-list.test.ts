@@ -155,6 +155,101 @@ describe("reports: the crew's parts list", () => {
     ]);
   });
 
+  it('totals pipe and fittings over the common run and every branch, and lists named equipment where it stands', () => {
+    // common run 30 ft + falls 40 ft of 3 in = 70 ft, x 1.10 = 77 ft; filter return 150 ft of 2 in x 1.10 = 165 ft
+    const branched = design('us', [
+      {
+        series: 'pvc-sch40',
+        size: 'pvc-sch40-3',
+        length: 30,
+        fittings: [{ kind: 'elbow-90-standard', count: 2 }],
+        extraK: 0,
+      },
+    ]);
+    const segment = (
+      size: string,
+      length: number,
+      equipment: DesignDraft['system']['segments'][number]['equipment'],
+    ) => ({
+      series: 'pvc-sch40',
+      size,
+      length,
+      fittings: [{ kind: 'elbow-90-standard' as const, count: 1 }],
+      extraK: 0,
+      equipment,
+    });
+    branched.system.branches = [
+      {
+        name: 'Falls',
+        staticMode: 'direct',
+        staticHead: 6,
+        outletLevel: 0,
+        outletPressureHead: 0,
+        segments: [segment('pvc-sch40-3', 40, [])],
+      },
+      {
+        name: 'Filter return',
+        staticMode: 'direct',
+        staticHead: 1.5,
+        outletLevel: 0,
+        outletPressureHead: 0,
+        segments: [segment('pvc-sch40-2', 150, [{ name: 'Bead filter', headLoss: 4, atFlow: 60 }])],
+      },
+    ];
+    const lines = partsList(branched, null);
+    expect(pipe(lines).map((line) => [line.size, line.quantity])).to.deep.equal([
+      ['3"', 77],
+      ['2"', 165],
+    ]);
+    const elbows = lines.filter((line) => line.section === 'fitting').map((line) => [line.size, line.quantity]);
+    expect(elbows).to.deep.equal([
+      ['3"', 3],
+      ['2"', 1],
+    ]);
+    const equipment = lines.filter((line) => line.section === 'equipment');
+    expect(equipment.map((line) => [line.item, line.size, line.notes])).to.deep.equal([
+      ['Bead filter', '2"', 'Filter return, segment 1, rated 4 ft at 60 gpm'],
+    ]);
+  });
+
+  describe('the cable to each pump', () => {
+    const chosen = {
+      supplier: 'Invented Pumps',
+      model: 'Cascade 40',
+      modelCode: 'IP-40',
+      arrangement: { installed: 3, running: 2 },
+    } as SelectionCandidate;
+    const withCable = (unitSystem: 'us' | 'si', cableLength: number | undefined) => ({
+      ...design(unitSystem, [{ series: 'pvc-sch40', size: 'pvc-sch40-3', length: 10, fittings: [], extraK: 0 }]),
+      ...(cableLength === undefined ? {} : { cableLength }),
+    });
+    const cable = (lines: PartsLine[]) => lines.filter((line) => line.section === 'electrical');
+    const rating = { fullLoadCurrent: 7.5, voltage: 120, phases: 1 };
+
+    it('sizes one circuit per pump, duty and standby, for the drop: 250 ft at 7.5 A and 120 V needs 8 AWG', () => {
+      // by hand, single phase 2 L I R at 75 C (NEC Chapter 9 Table 8, from memory): 10 AWG 2 x 250 x 7.5 x 1.26e-3 = 4.7 V
+      // = 3.9 % misses 3 %; 8 AWG 0.778e-3 gives 2.9 V = 2.4 %. Metric, 76.2 m: 6 mm2 (3.08 ohm/km at 20 C x 1.216 at 75 C)
+      // drops 4.3 V = 3.6 %, 10 mm2 (1.83 x 1.216) 2.5 V = 2.1 %. Bought: 250 ft x 3 pumps x 1.10 = 825 ft.
+      const [line] = cable(partsList(withCable('us', 250), chosen, 10, rating));
+      expect(line).to.include({ item: 'Copper pump cable', size: '8 AWG (or 10 mm2)', quantity: 825, unit: 'ft' });
+      expect(line.notes).to.match(
+        /^3 circuits of 250 ft one way \+ 10 % allowance; smallest under 3 % drop at 7\.5 A, 120 V, 1 phase; a licensed electrician/,
+      );
+      const [metric] = cable(partsList(withCable('si', 76.2), chosen, 0, rating));
+      expect(metric).to.include({ size: '10 mm2 (or 8 AWG)', quantity: 228.6, unit: 'm' });
+    });
+
+    it('says "to be sized" without a rating in the catalog, and lists no cable without a cable run', () => {
+      const [line] = cable(
+        partsList(withCable('us', 60), chosen, 10, { fullLoadCurrent: null, voltage: 230, phases: 1 }),
+      );
+      expect(line.size).to.equal('to be sized');
+      expect(line.notes).to.contain('the catalog gives no full-load current, voltage and phases');
+      expect(cable(partsList(withCable('us', undefined), chosen, 10, rating))).to.deep.equal([]);
+      expect(cable(partsList(withCable('us', 60), null, 10, rating))).to.deep.equal([]);
+    });
+  });
+
   it('writes CSV whose text cells a spreadsheet would run as formulas start with an apostrophe', () => {
     const csv = partsListCsv([
       {

@@ -241,4 +241,26 @@ describe('reports: proposals of a saved design as PDF', function () {
     const bad = await designer.get(`/projects/${project.id}/parts-list.csv?wasteAllowancePercent=150`).expect(400);
     expect(bad.body.pointer).to.equal('/query/wasteAllowancePercent');
   });
+
+  it('adds the cable to each pump of the first-ranked set once the design gives a cable run', async () => {
+    const designer = as(designerToken);
+    const input = projectExample();
+    await designer
+      .put(`/projects/${project.id}`, { ...input, design: { ...input.design, cableLength: 60 } })
+      .expect(200);
+    const csv = (await designer.get(`/projects/${project.id}/parts-list.csv`).expect(200)).text;
+    const pumps = [...csv.matchAll(/\npump,[^\n]*?,(\d+),each,,,,(duty|standby)/g)].reduce(
+      (sum, [, count]) => sum + Number(count),
+      0,
+    );
+    expect(pumps).to.be.greaterThan(0);
+    // the synthetic pumps carry no motor rating: the cable is listed, its size left to the electrician
+    const cable =
+      /\nelectrical,Copper pump cable,to be sized,([\d.]+),ft,,,,"?(\d+) circuits? of 60 ft one way \+ 10 % allowance; the catalog gives no/.exec(
+        csv,
+      );
+    expect(cable, csv).to.not.equal(null);
+    expect(Number(cable![2])).to.equal(pumps);
+    expect(Number(cable![1])).to.be.closeTo(60 * pumps * 1.1, 0.05);
+  });
 });
