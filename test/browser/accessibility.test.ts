@@ -16,7 +16,8 @@ import { seedDemoCatalog } from '../data-import/catalog-fixtures';
 
 /*
  * axe-core over every page each role reaches, signed out and signed in: none may break a rule
- * axe rates serious or critical. The lesser findings are written to test-results/ to be read.
+ * axe rates serious or critical, nor scroll sideways as a whole, at 1,280 px, at 200 % zoom and on a
+ * phone. The lesser findings are written to test-results/ to be read.
  */
 describe('accessibility of every page in Chromium', function () {
   this.timeout(180_000);
@@ -65,11 +66,40 @@ describe('accessibility of every page in Chromium', function () {
     await page.getByRole('button', { name: 'Sign out' }).waitFor();
   }
 
-  /** A desktop window and a site phone: the toolbar folds its labels away on the narrow one. */
+  /**
+   * A desktop window, the same window zoomed to 200 % (half its CSS pixels: WCAG 2.2 SC 1.4.4)
+   * and a site phone: the toolbar folds its labels away on the narrow ones.
+   */
   const viewports = [
     { name: 'desktop', width: 1280, height: 900 },
+    { name: 'desktop at 200 %', width: 640, height: 450 },
     { name: 'phone', width: 390, height: 844 },
   ];
+
+  /** The page as a whole scrolls sideways (content lost off the window's edge); wide tables scroll in their own box. */
+  async function sidewaysOverflow(where: string): Promise<AxeViolation[]> {
+    const overflow = await app.page.evaluate(() => {
+      const root = document.documentElement;
+      const wide = [...document.querySelectorAll('main *')]
+        .filter((element) => element.getBoundingClientRect().right > root.clientWidth + 1)
+        .filter((element) => !element.closest('.rf-table-scroll, .rf-chart-numbers-scroll, [role=region][tabindex]'))
+        .map(
+          (element) =>
+            element.tagName.toLowerCase() + (element.className ? `.${String(element.className).split(' ')[0]}` : ''),
+        );
+      return { by: root.scrollWidth - root.clientWidth, wide: wide.slice(0, 5) };
+    });
+    return overflow.by > 1
+      ? [
+          {
+            rule: 'reflow',
+            impact: 'serious',
+            help: `${where}: the page is ${overflow.by} px wider than the window`,
+            targets: overflow.wide,
+          },
+        ]
+      : [];
+  }
 
   async function auditPages(who: Role | 'signed out'): Promise<AxeViolation[]> {
     const found: AxeViolation[] = [];
@@ -83,6 +113,7 @@ describe('accessibility of every page in Chromium', function () {
         lesser[where] = violations.filter((violation) => seriousOrCritical([violation]).length === 0);
         found.push(
           ...seriousOrCritical(violations).map((violation) => ({ ...violation, help: `${where}: ${violation.help}` })),
+          ...(await sidewaysOverflow(where)),
         );
       }
     }

@@ -13,36 +13,38 @@ import { AdminApi } from './admin-api';
   template: `
     <h1>Audit log</h1>
     <p>The latest 200 events. Passwords and tokens are never recorded.</p>
-    <table mat-table [dataSource]="events()" class="rf-audit">
-      <ng-container matColumnDef="at">
-        <th mat-header-cell *matHeaderCellDef>When</th>
-        <td mat-cell *matCellDef="let event">{{ event.at | date: 'medium' }}</td>
-      </ng-container>
-      <ng-container matColumnDef="action">
-        <th mat-header-cell *matHeaderCellDef>What</th>
-        <td mat-cell *matCellDef="let event">
-          <code [class.rf-failure]="event.action.endsWith('-failed')">{{ event.action }}</code>
-        </td>
-      </ng-container>
-      <ng-container matColumnDef="actor">
-        <th mat-header-cell *matHeaderCellDef>By</th>
-        <td mat-cell *matCellDef="let event">{{ event.actorEmail ?? '' }}</td>
-      </ng-container>
-      <ng-container matColumnDef="subject">
-        <th mat-header-cell *matHeaderCellDef>Account or address</th>
-        <td mat-cell *matCellDef="let event">{{ event.subjectEmail ?? event.email ?? '' }}</td>
-      </ng-container>
-      <ng-container matColumnDef="detail">
-        <th mat-header-cell *matHeaderCellDef>Detail</th>
-        <td mat-cell *matCellDef="let event">{{ event.detail ?? '' }}</td>
-      </ng-container>
-      <ng-container matColumnDef="ip">
-        <th mat-header-cell *matHeaderCellDef>From</th>
-        <td mat-cell *matCellDef="let event">{{ event.ip ?? '' }}</td>
-      </ng-container>
-      <tr mat-header-row *matHeaderRowDef="columns"></tr>
-      <tr mat-row *matRowDef="let row; columns: columns"></tr>
-    </table>
+    <div class="rf-table-scroll" tabindex="0" role="region" aria-label="Audit log">
+      <table mat-table [dataSource]="events()" class="rf-audit">
+        <ng-container matColumnDef="at">
+          <th mat-header-cell *matHeaderCellDef>When</th>
+          <td mat-cell *matCellDef="let event">{{ event.at | date: 'medium' }}</td>
+        </ng-container>
+        <ng-container matColumnDef="action">
+          <th mat-header-cell *matHeaderCellDef>What</th>
+          <td mat-cell *matCellDef="let event">
+            <code [class.rf-failure]="event.action.endsWith('-failed')">{{ event.action }}</code>
+          </td>
+        </ng-container>
+        <ng-container matColumnDef="actor">
+          <th mat-header-cell *matHeaderCellDef>By</th>
+          <td mat-cell *matCellDef="let event">{{ event.actorEmail ?? '' }}</td>
+        </ng-container>
+        <ng-container matColumnDef="subject">
+          <th mat-header-cell *matHeaderCellDef>Account or address</th>
+          <td mat-cell *matCellDef="let event">{{ event.subjectEmail ?? event.email ?? '' }}</td>
+        </ng-container>
+        <ng-container matColumnDef="detail">
+          <th mat-header-cell *matHeaderCellDef>Detail</th>
+          <td mat-cell *matCellDef="let event">{{ event.detail ?? '' }}</td>
+        </ng-container>
+        <ng-container matColumnDef="ip">
+          <th mat-header-cell *matHeaderCellDef>From</th>
+          <td mat-cell *matCellDef="let event">{{ event.ip ?? '' }}</td>
+        </ng-container>
+        <tr mat-header-row *matHeaderRowDef="columns"></tr>
+        <tr mat-row *matRowDef="let row; columns: columns"></tr>
+      </table>
+    </div>
   `,
   styles: `
     h1 {
