@@ -8,7 +8,7 @@ import { operatingPointSummary } from '../calculations/calculation-handlers';
 import { preferredBandOf } from '../calculations/pump-request';
 import { answerUnits, requestValueText } from '../calculations/request-units';
 import { prepareSystem, type PreparedSystem } from '../calculations/system-request';
-import type { CatalogPump } from '../catalog/catalog-snapshot';
+import { pumpSpeedsOf, type CatalogPump } from '../catalog/catalog-snapshot';
 import { CurveDeclaredRange, CurveRevision, Pump, Supplier } from '../database/models';
 import { costTermsOf, type SelectionQuery } from '../selection/selection-query';
 import { rankCandidate } from '../selection/selection-reasons';
@@ -59,6 +59,12 @@ export async function chosenCurve(pumpId: number, revisionId: number): Promise<C
           ? null
           : { amount: Number(pump.listPrice), currency: pump.priceCurrency },
       electrical: { fullLoadCurrent: pump.fullLoadCurrentA, voltage: pump.voltageV, phases: pump.phaseCount },
+      speeds: pumpSpeedsOf({
+        nominal_speed_rpm: pump.nominalSpeedRpm,
+        speed_min_rpm: pump.speedMinRpm,
+        speed_max_rpm: pump.speedMaxRpm,
+        fixed_speeds_rpm: pump.fixedSpeedsRpm,
+      }),
     },
   };
 }

@@ -1671,7 +1671,15 @@ export interface components {
             modelCode: string;
             displayName: string;
             kind: components["schemas"]["PumpKind"];
+            /** @description The speed the published curve is for, rpm. */
             nominalSpeedRpm: number | null;
+            /** @description A continuous speed range on a drive or controller, rpm (the nominal speed inside it); null for a pump the catalog gives none. */
+            speedRange: {
+                minRpm: number;
+                maxRpm: number;
+            } | null;
+            /** @description The fixed speeds of a multi-speed pump, rpm ascending, each at most the nominal speed; null for none. */
+            fixedSpeedsRpm: number[] | null;
             /** @description V */
             voltage: number | null;
             /** @enum {integer|null} */
@@ -1805,7 +1813,7 @@ export interface components {
             row: number | null;
             column: string | null;
             /** @enum {string} */
-            code: "not-a-curve-table" | "unknown-format-version" | "unknown-unit-line" | "unit-line-extra-value" | "unit-line-repeated" | "not-a-currency" | "unknown-unit" | "unknown-column" | "column-repeated" | "column-missing" | "unit-line-missing" | "column-needs-unit-line" | "file-empty" | "no-header" | "no-points" | "file-too-large" | "too-many-rows" | "recorded-as-text" | "not-text" | "not-csv" | "cell-beyond-header" | "model-code-blank" | "not-a-model-code" | "pump-repeated" | "too-many-points" | "differs-from-first-row" | "formula-text" | "efficiency-looks-fractional" | "name-blank" | "text-too-long" | "text-control-characters" | "not-a-number" | "number-out-of-range" | "phases-unknown" | "choice-blank" | "choice-unknown" | "range-one-end" | "range-reversed" | "point-value-blank" | "too-few-points" | "flow-not-increasing" | "head-rise-refused" | "head-rise-flagged" | "value-on-some-points" | "npsh-on-few-points" | "curve-refused" | "fit-issue" | "bep-unknown" | "poor-fit" | "range-beyond-points";
+            code: "not-a-curve-table" | "unknown-format-version" | "unknown-unit-line" | "unit-line-extra-value" | "unit-line-repeated" | "not-a-currency" | "unknown-unit" | "unknown-column" | "column-repeated" | "column-missing" | "unit-line-missing" | "column-needs-unit-line" | "file-empty" | "no-header" | "no-points" | "file-too-large" | "too-many-rows" | "recorded-as-text" | "not-text" | "not-csv" | "cell-beyond-header" | "model-code-blank" | "not-a-model-code" | "pump-repeated" | "too-many-points" | "differs-from-first-row" | "formula-text" | "efficiency-looks-fractional" | "name-blank" | "text-too-long" | "text-control-characters" | "not-a-number" | "number-out-of-range" | "phases-unknown" | "choice-blank" | "choice-unknown" | "range-one-end" | "range-reversed" | "speed-range-one-end" | "speed-range-reversed" | "speed-needs-nominal" | "speed-range-misses-nominal" | "speed-above-nominal" | "speeds-not-a-list" | "point-value-blank" | "too-few-points" | "flow-not-increasing" | "head-rise-refused" | "head-rise-flagged" | "value-on-some-points" | "npsh-on-few-points" | "curve-refused" | "fit-issue" | "bep-unknown" | "poor-fit" | "range-beyond-points";
             /** @description The values the code's sentence is made from. */
             params: {
                 [key: string]: unknown;
@@ -3700,6 +3708,8 @@ export interface operations {
                      *           "displayName": "Submersible 40",
                      *           "kind": "submersible",
                      *           "nominalSpeedRpm": 2850,
+                     *           "speedRange": null,
+                     *           "fixedSpeedsRpm": null,
                      *           "voltage": 230,
                      *           "phaseCount": 1,
                      *           "fullLoadCurrent": 2.6,
@@ -3770,6 +3780,11 @@ export interface operations {
                      *         "displayName": "Submersible 40",
                      *         "kind": "submersible",
                      *         "nominalSpeedRpm": 2850,
+                     *         "speedRange": {
+                     *           "minRpm": 1400,
+                     *           "maxRpm": 2850
+                     *         },
+                     *         "fixedSpeedsRpm": null,
                      *         "voltage": 230,
                      *         "phaseCount": 1,
                      *         "fullLoadCurrent": 2.6,
