@@ -380,6 +380,11 @@ export interface paths {
          *     `pumps` (a 422 naming the field), and so are both `pump` and `pumps` (at `/body/pumps`)
          *     or neither (at `/body/pump`).
          *
+         *     At a speed: `speed: {ratio}` or `speed: {rpm}` beside `pump` moves its curve by the affinity laws
+         *     (Q ~ N, H ~ N^2, P ~ N^3, efficiency held; White, Fluid Mechanics, 7th ed., section 11.4), and the
+         *     point, the fit and the NPSH are at that speed; `speed` in the answer says the speed used and gives
+         *     the curve at it. A mixed set keeps its pumps at their nominal speeds.
+         *
          *     Input power is wire-to-water, as in the selection: a catalog pump's shaft power is divided
          *     by its motor efficiency from the catalog, else its kind's assumed value; an inline curve's
          *     power or efficiency is taken as its `powerBasis` says (shaft by default, with no motor
@@ -1235,6 +1240,8 @@ export interface components {
              * @enum {string}
              */
             powerBasis?: "shaft" | "electrical";
+            /** @description The speed the curve is published for, rpm; lets `speed.rpm` be asked. */
+            speedRpm?: number;
         };
         CatalogPump: {
             pumpId: number;
@@ -1273,9 +1280,28 @@ export interface components {
             /** @description A mixed set: 2 to 4 entries, different models in parallel (flows add at equal head, a check valve on each), all running; at most 4 pumps in all (the sum of `running`), more is a 422 at `/body/pumps`. Not with `arrangement` or `balance` (a 422 naming the field). */
             pumps?: components["schemas"]["MixedSetEntry"][];
             arrangement?: components["schemas"]["OperatingPointArrangement"];
+            speed?: components["schemas"]["PumpSpeedRequest"];
             preferredBand?: components["schemas"]["PreferredBand"];
             balance?: components["schemas"]["BalanceTarget"];
             npshMarginRatio?: components["schemas"]["NpshMarginRatio"];
+        };
+        /** @description The speed `pump` runs at: `ratio` (N / N_nominal) or `rpm`, exactly one (both, or neither, is a 422 naming the field). `rpm` needs the nominal speed: a catalog pump's, or `pump.speedRpm` of an inline curve (else a 422 at `/body/speed/rpm`). The ratio is above 0 and at most 1.2; a catalog pump must run within its speed range or at one of its fixed speeds (or its nominal speed), else a 422 naming the field with the speeds allowed. Not for a mixed set (`pumps`: a 422 at `/body/speed`). */
+        PumpSpeedRequest: {
+            /** @description N / N_nominal, dimensionless. */
+            ratio?: number;
+            rpm?: number;
+        };
+        /** @description The speed used and the curve moved to it by the affinity laws (Q ~ N, H ~ N^2, P ~ N^3, efficiency held): `curve` samples the head over the published range at that speed, in the request's units. `cautions` holds `low-speed` below 60 % of the nominal speed (common practice: the held efficiency, a fan-cooled motor and the pump's minimum flow no longer hold there; its sentence is in `warnings`). */
+        PumpSpeedAnswer: {
+            ratio: number;
+            /** @description Null when the nominal speed is not known. */
+            rpm: number | null;
+            nominalRpm: number | null;
+            curve: {
+                flow: number;
+                head: number;
+            }[];
+            cautions: "low-speed"[];
         };
         /** @description Branched systems: the flow one branch should take at the operating point; the answer gives the valve that sets it (`balancing`). */
         BalanceTarget: {
@@ -1410,6 +1436,8 @@ export interface components {
             /** @description Present when the system has a suction side (for a mixed set, per entry in `operatingPoint.pumps`). */
             npsh?: components["schemas"]["NpshCheck"];
             gravityFlow?: components["schemas"]["GravityFlow"];
+            /** @description Present when `speed` was asked: `operatingPoint`, `oneFailed`, `fit` and `npsh` are then at that speed. */
+            speed?: components["schemas"]["PumpSpeedAnswer"];
             warnings: string[];
         };
         PipeSizesResponse: {

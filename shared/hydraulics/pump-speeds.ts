@@ -30,7 +30,15 @@ export const MAX_SPEED_RATIO = 1.2;
  */
 export const LOW_SPEED_CAUTION_RATIO = 0.6;
 
-/** Whether the catalog gives the pump more speeds than its nominal one. */
+/**
+ * Whether the catalog gives the pump more speeds than its nominal one (a range or fixed speeds,
+ * beside a nominal speed to scale from).
+ * @param speeds - the pump's speeds, rpm
+ * @returns true for a variable- or multi-speed pump
+ * @example
+ * hasSpeedChoice({ nominalRpm: 2900, rangeRpm: { min: 1450, max: 2900 }, fixedRpm: null }) // => true
+ * hasSpeedChoice({ nominalRpm: 2900, rangeRpm: null, fixedRpm: null }) // => false
+ */
 export function hasSpeedChoice(speeds: PumpSpeeds): boolean {
   return speeds.nominalRpm !== null && (speeds.rangeRpm !== null || (speeds.fixedRpm?.length ?? 0) > 0);
 }

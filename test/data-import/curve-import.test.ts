@@ -189,7 +189,7 @@ describe('curve-table reader', () => {
       [['2900', '0', '2900', ''], 'speed_min_rpm', 'number-out-of-range'],
       [['2900', '1450.5', '2900', ''], 'speed_min_rpm', 'number-out-of-range'],
     ] as const) {
-      const refused = await read(withSpeeds(...cells));
+      const refused = await read(withSpeeds(cells[0], cells[1], cells[2], cells[3]));
       expect(
         refused.errors.map((error) => [error.row, error.column, error.code]),
         cells.join(' '),
