@@ -1547,10 +1547,10 @@ export interface components {
             limit?: number;
         };
         /**
-         * @description estimated-curve: the pump's head curve is estimated from shut-off and open flow only (see CurveBasis).
+         * @description estimated-curve: the pump's head curve is estimated from shut-off and open flow only (see CurveBasis). low-speed: a variable-speed pump found below 60 % of its nominal speed (see PumpSpeedAnswer).
          * @enum {string}
          */
-        SelectionWarning: "velocity" | "run-out" | "dead-head" | "estimated-curve";
+        SelectionWarning: "velocity" | "run-out" | "dead-head" | "estimated-curve" | "low-speed";
         SelectionCandidate: {
             rank: number;
             pumpId: number;
@@ -1597,6 +1597,12 @@ export interface components {
             preferredRange: {
                 flowMin: number;
                 flowMax: number;
+            } | null;
+            /** @description A pump with a speed range or fixed speeds: the speed the search runs it at, the lowest whose point reaches the band's bottom flow (least energy for the band; kept within its range, or the lowest fixed speed at or above it). Its point, energy, curve and preferred range are at that speed (affinity laws). Null for a fixed-speed pump, at its nominal speed. */
+            speed: {
+                /** @description N / N_nominal. */
+                ratio: number;
+                rpm: number;
             } | null;
         };
         SelectionResponse: {
