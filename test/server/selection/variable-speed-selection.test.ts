@@ -106,7 +106,8 @@ describe('POST /api/v1/selections with variable- and multi-speed pumps', functio
   });
 
   it('cautions below 60 % speed when the band asks for so little', async () => {
-    const body = (await post({ ...search, duty: { flowMin: 1.9, flowMax: 2.5 } }).expect(200)).body as SelectionResponse;
+    const body = (await post({ ...search, duty: { flowMin: 1.9, flowMax: 2.5 } }).expect(200))
+      .body as SelectionResponse;
     const ranged = body.candidates.find((candidate) => candidate.pumpId === ids[0])!;
     const r = ratioForFlow(1.9);
     expect(r).to.be.within(0.5, 0.6);
