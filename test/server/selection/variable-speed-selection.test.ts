@@ -2,7 +2,8 @@ import { expect } from 'chai';
 import request from 'supertest';
 import { createApp } from '../../../server/app';
 import { createLogger } from '../../../server/logging';
-import type { SelectionResponse } from '../../../shared/api/api-schemas';
+import type { DesignDraft, ProjectRecheck, SelectionResponse } from '../../../shared/api/api-schemas';
+import { designPipeSystem } from '../../../shared/api/design-system';
 import { createUserWithSession } from '../../support/accounts';
 import { contractSchemaValidator } from '../../support/contract-validator';
 import { createScratchDatabase } from '../../support/test-database';
@@ -50,6 +51,8 @@ describe('POST /api/v1/selections with variable- and multi-speed pumps', functio
   const search = { units, system, duty: { flowMin: 3, flowMax: 4 }, arrangements: [1], limit: 10 };
   const post = (body: object) =>
     request(app).post('/api/v1/selections').set('Authorization', `Bearer ${token}`).send(body);
+  const postTo = (path: string, body?: object) =>
+    request(app).post(`/api/v1${path}`).set('Authorization', `Bearer ${token}`).send(body);
 
   before(async () => {
     scratch = await createScratchDatabase('variable_speed_selection');
@@ -103,6 +106,49 @@ describe('POST /api/v1/selections with variable- and multi-speed pumps', functio
     expect(twoSpeed.annualKWh!).to.be.below(fixed.annualKWh!);
     expect(body.candidates.map((candidate) => candidate.pumpId)).to.deep.equal(ids);
     expect(ranged.reasons.join(' ')).to.contain(`${Math.round(2900 * r)} rpm`);
+  });
+
+  it('re-checks a saved choice at the speed kept with it, as the operating point at that speed has it', async () => {
+    const design: DesignDraft = {
+      unitSystem: 'si',
+      system: {
+        staticMode: 'direct',
+        staticHead: 4,
+        intakeLevel: 0,
+        dischargeLevel: 4,
+        outletPressureHead: 0,
+        waterTemperatureC: 20,
+        frictionMethod: 'hazen-williams',
+        segments: [{ series: 'pvc-sch40', size: 'pvc-sch40-2', length: 30, fittings: [], extraK: 0 }],
+      },
+      band: { flowMin: 100, flowMax: 200 },
+      search: {
+        arrangements: [1],
+        requireOneFailed: false,
+        standby: false,
+        onlyPreferredRegion: false,
+        maxInputPowerPerPump: null,
+        hoursPerDay: 24,
+        tariffPerKWh: null,
+        limit: 20,
+      },
+    };
+    const recheck = async (speedRpm: number | null) => {
+      const choice = { pumpId: ids[0], arrangement: { installed: 1, running: 1 }, speedRpm };
+      const project = (await postTo('/projects', { name: `Drive ${speedRpm}`, design, choice }).expect(201)).body;
+      return (await postTo(`/projects/${project.id}/recheck`).expect(200)).body as ProjectRecheck;
+    };
+    const [nominal, slowed] = [await recheck(null), await recheck(2175)];
+    const expected = await postTo('/calculations/operating-point', {
+      units: { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm', power: 'W' },
+      system: designPipeSystem(design.system),
+      pump: { pumpId: ids[0] },
+      speed: { rpm: 2175 },
+    }).expect(200);
+    expect(slowed.saved.operatingPoint!.flow).to.be.closeTo(expected.body.operatingPoint.flow, 1e-6);
+    expect(slowed.saved.operatingPoint!.flow).to.be.below(nominal.saved.operatingPoint!.flow);
+    expect(slowed.saved.reasons.join(' ')).to.contain('at 2175 rpm, 75 % of nominal speed');
+    expect(nominal.saved.reasons.join(' ')).to.not.contain('rpm');
   });
 
   it('cautions below 60 % speed when the band asks for so little', async () => {
