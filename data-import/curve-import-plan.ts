@@ -52,6 +52,9 @@ function sameDetails(a: ReadPumpDetails, b: ReadPumpDetails): boolean {
     a.displayName === b.displayName &&
     a.kind === b.kind &&
     a.nominalSpeedRpm === b.nominalSpeedRpm &&
+    a.speedMinRpm === b.speedMinRpm &&
+    a.speedMaxRpm === b.speedMaxRpm &&
+    (a.fixedSpeedsRpm ?? []).join(';') === (b.fixedSpeedsRpm ?? []).join(';') &&
     a.voltageV === b.voltageV &&
     a.phaseCount === b.phaseCount &&
     near(a.fullLoadCurrentA, b.fullLoadCurrentA) &&

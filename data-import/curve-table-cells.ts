@@ -1,5 +1,6 @@
 import type { ImportIssue, ImportIssueCode, ImportIssueParams, NumberRule } from '../shared/messages/import-issues';
 import { diameterToSI, flowToSI, headToSI, powerToSI, type FlowUnit, type HeadUnit } from '../shared/hydraulics';
+import { MAX_SPEED_RATIO } from '../shared/hydraulics/pump-speeds';
 import { pumpKinds, pumpStatuses } from '../shared/vocabularies';
 import {
   curveTableLimits,
@@ -151,11 +152,12 @@ export function readDetails(cells: CellContext, values: RowValues): ReadPumpDeta
   const current = numberCell(cells, values, 'full_load_current', { unit: 'A', above: 0, max: 1000 });
   const phases = numberCell(cells, values, 'phases', { unit: null, integer: true, min: 1, max: 3 });
   if (phases === 2) cells.errors.add(issue(values.row, 'phases', 'phases-unknown', { value: phases }));
+  const nominalSpeedRpm = numberCell(cells, values, 'speed_rpm', speedRule) ?? null;
   return {
     displayName: textCell(cells, values, 'display_name', 160, true) ?? '',
     kind: choiceCell(cells, values, 'kind', pumpKinds) ?? 'submersible',
-    nominalSpeedRpm:
-      numberCell(cells, values, 'speed_rpm', { unit: 'rpm', integer: true, min: 100, max: 20000 }) ?? null,
+    nominalSpeedRpm,
+    ...readSpeeds(cells, values, nominalSpeedRpm),
     voltageV: numberCell(cells, values, 'voltage', { unit: 'V', integer: true, min: 1, max: 1000 }) ?? null,
     phaseCount: phases === 2 ? null : (phases ?? null),
     fullLoadCurrentA: current ?? null,
@@ -167,6 +169,81 @@ export function readDetails(cells: CellContext, values: RowValues): ReadPumpDeta
     status: choiceCell(cells, values, 'status', pumpStatuses, 'active') ?? 'active',
     notes: textCell(cells, values, 'notes', 2000, false),
   };
+}
+
+const speedRule = { unit: 'rpm', integer: true, min: 100, max: 20000 } as const;
+
+/**
+ * The speeds beside the nominal one: `speed_min_rpm`/`speed_max_rpm` (a drive's continuous range,
+ * both or neither, min < max, holding the nominal speed, at most MAX_SPEED_RATIO times it) and
+ * `speeds_rpm` (a multi-speed motor's speeds, `1450;2900`, ascending, each at most the nominal
+ * speed: the curve table holds the curve at speed_rpm, and a multi-speed pump's curve is
+ * published at its top speed, the lower ones scaled down from it). Both need speed_rpm. A bad
+ * value is an issue at its row and column, and the pump keeps no speeds from that cell.
+ */
+function readSpeeds(
+  cells: CellContext,
+  values: RowValues,
+  nominal: number | null,
+): { speedMinRpm: number | null; speedMaxRpm: number | null; fixedSpeedsRpm: number[] | null } {
+  const none = { speedMinRpm: null, speedMaxRpm: null, fixedSpeedsRpm: null };
+  const min = numberCell(cells, values, 'speed_min_rpm', speedRule);
+  const max = numberCell(cells, values, 'speed_max_rpm', speedRule);
+  const fixed = speedList(cells, values);
+  const refuse = (entry: Issue) => {
+    cells.errors.add(entry);
+    return none;
+  };
+  if (min === null || max === null || fixed === null) return none;
+  const hasRange = min !== undefined || max !== undefined;
+  if (!hasRange && fixed === undefined) return none;
+  if (nominal === null) {
+    // a speed_rpm cell that is there but bad has its own issue already
+    if ((values.cells.speed_rpm ?? '') !== '') return none;
+    const column = hasRange ? (min !== undefined ? 'speed_min_rpm' : 'speed_max_rpm') : 'speeds_rpm';
+    return refuse(issue(values.row, column, 'speed-needs-nominal', {}));
+  }
+  if (hasRange) {
+    if (min === undefined || max === undefined) {
+      const missing = min === undefined ? 'speed_min_rpm' : 'speed_max_rpm';
+      return refuse(issue(values.row, missing, 'speed-range-one-end', {}));
+    }
+    if (!(max > min)) return refuse(issue(values.row, 'speed_max_rpm', 'speed-range-reversed', { min, max }));
+    if (nominal < min || nominal > max) {
+      const column = nominal < min ? 'speed_min_rpm' : 'speed_max_rpm';
+      return refuse(issue(values.row, column, 'speed-range-misses-nominal', { min, max, nominal }));
+    }
+    if (max > MAX_SPEED_RATIO * nominal)
+      return refuse(
+        issue(values.row, 'speed_max_rpm', 'speed-above-nominal', { value: max, nominal, maxRatio: MAX_SPEED_RATIO }),
+      );
+  }
+  const above = fixed?.find((speed) => speed > nominal);
+  if (above !== undefined)
+    return refuse(issue(values.row, 'speeds_rpm', 'speed-above-nominal', { value: above, nominal, maxRatio: 1 }));
+  return {
+    speedMinRpm: hasRange ? (min as number) : null,
+    speedMaxRpm: hasRange ? (max as number) : null,
+    fixedSpeedsRpm: fixed ?? null,
+  };
+}
+
+/** `speeds_rpm`: undefined when blank, null (with an issue) when it is not an ascending list of whole rpm. */
+function speedList(cells: CellContext, values: RowValues): number[] | null | undefined {
+  const cell = (values.cells.speeds_rpm ?? '').trim();
+  if (cell === '') return undefined;
+  const parts = cell.split(';').map((part) => part.trim());
+  const speeds = parts.map(Number);
+  const fine =
+    parts.every((part) => /^\d{3,5}$/.test(part)) &&
+    speeds.every(
+      (speed, index) => speed >= speedRule.min && speed <= speedRule.max && (index === 0 || speed > speeds[index - 1]),
+    );
+  if (!fine) {
+    cells.errors.add(issue(values.row, 'speeds_rpm', 'speeds-not-a-list', { value: cell.slice(0, 40) }));
+    return null;
+  }
+  return speeds;
 }
 
 export function readRange(

@@ -35,6 +35,10 @@ export interface StoredPumpCurve {
   voltageV: number | null;
   phaseCount: number | null;
   fullLoadCurrentA?: number | null;
+  speedMinRpm?: number | null;
+  speedMaxRpm?: number | null;
+  /** rpm ascending, as the pumps table keeps them (`1450;2900`). */
+  fixedSpeedsRpm?: string | null;
   dischargeSizeMm: number | null;
   solidsHandlingMm: number | null;
   listPrice: string | null;
@@ -116,6 +120,8 @@ export function curveTableOf(supplier: { name: string; code: string }, pumps: St
     price: pumps.some((pump) => pump.listPrice !== null),
     motor: pumps.some((pump) => (pump.motorEfficiency ?? null) !== null),
     current: pumps.some((pump) => (pump.fullLoadCurrentA ?? null) !== null),
+    speedRange: pumps.some((pump) => (pump.speedMinRpm ?? null) !== null),
+    fixedSpeeds: pumps.some((pump) => (pump.fixedSpeedsRpm ?? null) !== null),
   };
   const comments = [
     `Curve table of ${supplier.name} (${supplier.code}), written by Riffle. Loaded again unchanged, it changes nothing.`,
@@ -132,6 +138,8 @@ export function curveTableOf(supplier: { name: string; code: string }, pumps: St
     ...(has.price ? [] : (['list_price'] as const)),
     ...(has.motor ? [] : (['motor_efficiency'] as const)),
     ...(has.current ? [] : (['full_load_current'] as const)),
+    ...(has.speedRange ? [] : (['speed_min_rpm', 'speed_max_rpm'] as const)),
+    ...(has.fixedSpeeds ? [] : (['speeds_rpm'] as const)),
     ...(ranges.length > 0
       ? []
       : (['preferred_flow_min', 'preferred_flow_max', 'allowable_flow_min', 'allowable_flow_max'] as const)),
@@ -151,6 +159,9 @@ export function curveTableOf(supplier: { name: string; code: string }, pumps: St
       display_name: pump.displayName,
       kind: pump.kind,
       speed_rpm: pump.nominalSpeedRpm,
+      speed_min_rpm: pump.speedMinRpm ?? null,
+      speed_max_rpm: pump.speedMaxRpm ?? null,
+      speeds_rpm: pump.fixedSpeedsRpm ?? null,
       voltage: pump.voltageV,
       phases: pump.phaseCount,
       full_load_current: pump.fullLoadCurrentA == null ? null : exact(pump.fullLoadCurrentA),

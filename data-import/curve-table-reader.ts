@@ -51,6 +51,11 @@ export interface ReadPumpDetails {
   phaseCount: number | null;
   /** The motor's full-load (rated) current, A, when the supplier gives it. */
   fullLoadCurrentA: number | null;
+  /** A continuous speed range on a drive or controller, rpm, both or neither; nominalSpeedRpm inside it. */
+  speedMinRpm: number | null;
+  speedMaxRpm: number | null;
+  /** The fixed speeds of a multi-speed pump, rpm ascending, each at most nominalSpeedRpm. */
+  fixedSpeedsRpm: number[] | null;
   dischargeSizeMm: number | null;
   solidsHandlingMm: number | null;
   listPrice: number | null;

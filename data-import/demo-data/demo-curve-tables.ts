@@ -27,6 +27,16 @@ import { seededRandom } from './seeded-random';
  *               phase and sqrt(3) for three phase.
  */
 
+/**
+ * Invented drives, by model code: pumps sold with a speed controller (a continuous range, rpm) or
+ * a two-speed motor (fixed speeds, rpm), so that the demo shows variable- and multi-speed pumps.
+ */
+const demoSpeeds: Readonly<Record<string, { range?: [number, number]; fixed?: number[] }>> = {
+  'AB-SUB-30': { range: [1400, 2850] },
+  'AB-CEN-20': { range: [1450, 3190] },
+  'QW-CEN-50': { fixed: [1450, 2900] },
+};
+
 /** The invented motors' efficiency and power factor at full load. */
 const MOTOR_EFFICIENCY = 0.8;
 const POWER_FACTOR = 0.85;
@@ -220,6 +230,9 @@ function pumpRows(
       display_name: first ? `${plan.code[0]}${plan.code.slice(1).toLowerCase()} ${shape.label} ${sizeNumber}` : null,
       kind: first ? shape.kind : null,
       speed_rpm: first ? shape.speedRpm : null,
+      speed_min_rpm: first ? (demoSpeeds[code]?.range?.[0] ?? null) : null,
+      speed_max_rpm: first ? (demoSpeeds[code]?.range?.[1] ?? null) : null,
+      speeds_rpm: first ? (demoSpeeds[code]?.fixed?.join(';') ?? null) : null,
       voltage: first ? shape.voltage : null,
       phases: first ? shape.phases : null,
       full_load_current: first ? round(fullLoadCurrent, fullLoadCurrent < 1 ? 2 : 1) : null,
@@ -274,6 +287,8 @@ export function demoCurveTables(): DemoCurveTable[] {
         pumpRows(plan, kindShapes[kind], size, plan.sizes[kind], random),
       ).flat(),
     );
+    const speedsOf = (kind: 'range' | 'fixed') =>
+      Object.entries(demoSpeeds).some(([code, speeds]) => code.startsWith(`${plan.prefix}-`) && speeds[kind]);
     const curveColumn: CurveTableColumn = plan.curveData === 'efficiency' ? 'efficiency' : 'power';
     const draft: CurveTableDraft = {
       delimiter: plan.delimiter,
@@ -297,6 +312,8 @@ export function demoCurveTables(): DemoCurveTable[] {
         'display_name',
         'kind',
         'speed_rpm',
+        ...(speedsOf('range') ? (['speed_min_rpm', 'speed_max_rpm'] as const) : []),
+        ...(speedsOf('fixed') ? (['speeds_rpm'] as const) : []),
         'voltage',
         'phases',
         'full_load_current',

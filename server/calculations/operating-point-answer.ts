@@ -5,6 +5,7 @@ import { dutyOfParallelPumps, dutyOfSeriesPumps, type DutyOutcome } from './arra
 import { balancingAnswer } from './branch-answers';
 import { pointerInto, unprocessable, withRequestPointers } from './engine-problem';
 import { mixedSetAnswer } from './mixed-set-answer';
+import { lowSpeedWarning, pumpOnFileAtSpeed, speedAnswer, speedAsked } from './pump-at-speed';
 import { dutyWarningMessages, noOperatingPoint, noPointTitles, operatingPointSummary } from './operating-point-summary';
 import { preferredBandOf, requestPump, summarizeFit, type CurrentPumpCurves } from './pump-request';
 import { answerUnits, echoedUnits } from './request-units';
@@ -43,11 +44,17 @@ export async function operatingPointAnswer(
   body: OperatingPointRequest,
 ): Promise<OperatingPointResponse> {
   requireOnePumpField(body);
-  if (body.pumps !== undefined) return mixedSetAnswer(pumps, body, body.pumps);
+  if (body.pumps !== undefined) {
+    if (body.speed !== undefined) throw unprocessable('/body/speed', 'is for one model (pump), not a mixed set');
+    return mixedSetAnswer(pumps, body, body.pumps);
+  }
   const { curve, branched, density, suction, gravityFlow } = prepareSystem(body.units, body.system);
   const band = preferredBandOf(body.preferredBand);
   const guidance = npshGuidanceOf(body.npshMarginRatio);
-  const { pump, motorEfficiency } = await requestPump(pumps, body.units, body.pump!);
+  const requested = await requestPump(pumps, body.units, body.pump!);
+  const { motorEfficiency } = requested;
+  const asked = body.speed === undefined ? null : speedAsked(body.speed, requested.speeds, requested.fromCatalog);
+  const pump = asked ? pumpOnFileAtSpeed(requested.pump, asked.ratio) : requested.pump;
   const layout = body.arrangement?.layout ?? 'parallel';
   const installed = body.arrangement?.installed ?? 1;
   const running = body.arrangement?.running ?? installed;
@@ -66,6 +73,8 @@ export async function operatingPointAnswer(
   // one failed: in parallel the rest share the flow; in series the rest stay in series, the stopped one bypassed
   const oneFailed = running === installed && installed >= 2 ? dutyOf(running - 1) : null;
   const warnings = dutyWarningMessages(duty.point, curve, body.units);
+  const lowSpeed = asked ? lowSpeedWarning(asked.ratio, body.units) : null;
+  if (lowSpeed) warnings.push(lowSpeed);
   if (oneFailed && !oneFailed.ok) warnings.push(`with one pump failed: ${noPointTitles[oneFailed.reason]}`);
   // in series the first pump takes the suction: the full flow
   const npsh = suction ? npshAtDuty(suction, pump.fit, duty.point.flow, duty.point.flowPerPump, guidance) : null;
@@ -84,6 +93,7 @@ export async function operatingPointAnswer(
     ...(body.balance === undefined ? {} : { balancing: balancingAnswer(branched, combined, body.balance, body.units) }),
     ...(npsh ? { npsh: npshCheckAnswer(npsh, guidance, body.units) } : {}),
     ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
+    ...(asked ? { speed: speedAnswer(asked, pump, body.units) } : {}),
     warnings,
   };
 }

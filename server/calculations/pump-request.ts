@@ -15,6 +15,7 @@ import {
   powerToSI,
   type PreferredBand,
   type PumpCurveFit,
+  type PumpSpeeds,
 } from '../../shared/hydraulics';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { ProblemError } from '../api/problem-details';
@@ -28,6 +29,7 @@ export interface CatalogPumpOnFile extends PumpOnFile {
   kind: string;
   /** The catalog's motor efficiency, 0-1, or null. */
   motorEfficiency: number | null;
+  speeds: PumpSpeeds;
 }
 
 /** Where the calculations find a catalog pump's current curve. */
@@ -40,6 +42,9 @@ export interface RequestPump {
   pump: PumpOnFile;
   /** 0-1 (motorEfficiencyFor); 1 for an inline curve, whose power is taken as published. */
   motorEfficiency: number;
+  /** A catalog pump's speeds; an inline curve's nominal speed (speedRpm) only. */
+  speeds: PumpSpeeds;
+  fromCatalog: boolean;
 }
 
 /**
@@ -54,14 +59,25 @@ export async function requestPump(
   spec: InlinePump | CatalogPump,
   pointer = '/body/pump',
 ): Promise<RequestPump> {
-  if (!('pumpId' in spec)) return { pump: { fit: fitInlinePump(units, spec, pointer) }, motorEfficiency: 1 };
+  if (!('pumpId' in spec))
+    return {
+      pump: { fit: fitInlinePump(units, spec, pointer) },
+      motorEfficiency: 1,
+      speeds: { nominalRpm: spec.speedRpm ?? null, rangeRpm: null, fixedRpm: null },
+      fromCatalog: false,
+    };
   const found = await pumps.findPump(spec.pumpId);
   if (!found) {
     throw new ProblemError(404, 'Pump not found', `No pump with a current curve has id ${spec.pumpId}`, [
       { pointer: `${pointer}/pumpId`, detail: 'no pump with a current curve has this id' },
     ]);
   }
-  return { pump: found, motorEfficiency: motorEfficiencyFor(found, null).value };
+  return {
+    pump: found,
+    motorEfficiency: motorEfficiencyFor(found, null).value,
+    speeds: found.speeds,
+    fromCatalog: true,
+  };
 }
 
 /**

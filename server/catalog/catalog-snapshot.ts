@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { PumpCurveFit } from '../../shared/hydraulics';
+import type { PumpCurveFit, PumpSpeeds } from '../../shared/hydraulics';
+import { fixedSpeedsOf } from '../database/models/pump';
 import type { PumpOnFile } from '../calculations/arrangement-duty';
 import type { CurrentPumpCurves } from '../calculations/calculation-handlers';
 import type { PumpRow } from './pump-catalog-queries';
@@ -35,6 +36,10 @@ export interface CatalogPump extends PumpOnFile {
   listPrice: { amount: number; currency: string } | null;
   /** The motor's rating as the supplier gives it (A, V, phases); each null when the curve table has none. */
   electrical: { fullLoadCurrent: number | null; voltage: number | null; phases: number | null };
+  /** The speed the curve is for and the others the catalog allows (range, fixed speeds). */
+  speeds: PumpSpeeds;
+  /** Set on a copy whose fit is scaled to a speed by the search: the ratio and its rpm. */
+  atSpeed?: { ratio: number; rpm: number };
 }
 
 /** The pumps of one catalog state, and a place for derived structures that live as long as it does. */
@@ -60,6 +65,10 @@ type CurrentCurveRow = Pick<PumpRow, 'supplier_id' | 'supplier_name' | 'model_co
   full_load_current_a: number | null;
   voltage_v: number | null;
   phase_count: number | null;
+  nominal_speed_rpm: number | null;
+  speed_min_rpm: number | null;
+  speed_max_rpm: number | null;
+  fixed_speeds_rpm: string | null;
 };
 
 const stampQuery = `
@@ -72,7 +81,7 @@ const stampQuery = `
 const pumpsQuery = `
   SELECT p.id AS pump_id, p.supplier_id, s.name AS supplier_name, p.model_code, p.display_name, p.kind,
          p.motor_efficiency, p.solids_handling_mm, p.list_price, p.price_currency, p.full_load_current_a, p.voltage_v,
-         p.phase_count,
+         p.phase_count, p.nominal_speed_rpm, p.speed_min_rpm, p.speed_max_rpm, p.fixed_speeds_rpm,
          r.id AS revision_id, r.fit, d.flow_min_m3s AS preferred_min, d.flow_max_m3s AS preferred_max
   FROM pumps p
   JOIN suppliers s ON s.id = p.supplier_id
@@ -80,6 +89,23 @@ const pumpsQuery = `
   LEFT JOIN curve_declared_ranges d ON d.revision_id = r.id AND d.region = 'preferred'
   WHERE p.status = 'active'
   ORDER BY p.id`;
+
+/** A pumps row's speeds (snake_case columns) as the engine's PumpSpeeds. */
+export function pumpSpeedsOf(row: {
+  nominal_speed_rpm: number | null;
+  speed_min_rpm: number | null;
+  speed_max_rpm: number | null;
+  fixed_speeds_rpm: string | null;
+}): PumpSpeeds {
+  return {
+    nominalRpm: row.nominal_speed_rpm,
+    rangeRpm:
+      row.speed_min_rpm === null || row.speed_max_rpm === null
+        ? null
+        : { min: row.speed_min_rpm, max: row.speed_max_rpm },
+    fixedRpm: fixedSpeedsOf(row.fixed_speeds_rpm),
+  };
+}
 
 function toCatalogPump(row: CurrentCurveRow): CatalogPump {
   const fit = (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as PumpCurveFit;
@@ -98,6 +124,7 @@ function toCatalogPump(row: CurrentCurveRow): CatalogPump {
         ? null
         : { amount: Number(row.list_price), currency: row.price_currency },
     electrical: { fullLoadCurrent: row.full_load_current_a, voltage: row.voltage_v, phases: row.phase_count },
+    speeds: pumpSpeedsOf(row),
     fit,
     declaredPreferred:
       row.preferred_min !== null && row.preferred_max !== null

@@ -2,6 +2,7 @@ import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { ExistingPump, ImportPhase, PlannedPump } from '../../data-import/curve-import-plan';
 import type { ReadPumpDetails } from '../../data-import/curve-table-reader';
 import { Pump } from '../database/models';
+import { fixedSpeedsOf, fixedSpeedsText } from '../database/models/pump';
 
 /*
  * The curve store: what a supplier holds, and the writes of one import. The revisions and points
@@ -25,6 +26,9 @@ export async function loadExistingPumps(
     voltage_v: number | null;
     phase_count: number | null;
     full_load_current_a: number | null;
+    speed_min_rpm: number | null;
+    speed_max_rpm: number | null;
+    fixed_speeds_rpm: string | null;
     discharge_size_mm: number | null;
     solids_handling_mm: number | null;
     list_price: string | null;
@@ -35,7 +39,8 @@ export async function loadExistingPumps(
     current_number: number | null;
     highest_number: number | null;
   }>(
-    `SELECT p.id, p.model_code, p.display_name, p.kind, p.nominal_speed_rpm, p.voltage_v, p.phase_count, p.full_load_current_a, p.discharge_size_mm,
+    `SELECT p.id, p.model_code, p.display_name, p.kind, p.nominal_speed_rpm, p.voltage_v, p.phase_count, p.full_load_current_a,
+            p.speed_min_rpm, p.speed_max_rpm, p.fixed_speeds_rpm, p.discharge_size_mm,
             p.solids_handling_mm, p.list_price, p.price_currency, p.motor_efficiency, p.status, r.content_hash, r.number AS current_number,
             (SELECT MAX(x.number) FROM curve_revisions x WHERE x.pump_id = p.id) AS highest_number
        FROM pumps p LEFT JOIN curve_revisions r ON r.id = p.current_revision_id
@@ -57,6 +62,9 @@ export async function loadExistingPumps(
           voltageV: row.voltage_v,
           phaseCount: row.phase_count,
           fullLoadCurrentA: row.full_load_current_a,
+          speedMinRpm: row.speed_min_rpm,
+          speedMaxRpm: row.speed_max_rpm,
+          fixedSpeedsRpm: fixedSpeedsOf(row.fixed_speeds_rpm),
           dischargeSizeMm: row.discharge_size_mm,
           solidsHandlingMm: row.solids_handling_mm,
           listPrice: row.list_price === null ? null : Number(row.list_price),
@@ -92,11 +100,12 @@ export async function writePumps(sequelize: Sequelize, options: WriteOptions): P
   if (detailRows.length > 0) {
     await Pump.bulkCreate(
       detailRows.map(({ read }) => {
-        const { notes: _notes, ...details } = read.details;
+        const { notes: _notes, fixedSpeedsRpm, ...details } = read.details;
         return {
           supplierId,
           modelCode: read.modelCode,
           ...details,
+          fixedSpeedsRpm: fixedSpeedsText(fixedSpeedsRpm),
           listPrice: details.listPrice === null ? null : details.listPrice.toFixed(2),
           currentRevisionId: null,
         };
@@ -110,6 +119,9 @@ export async function writePumps(sequelize: Sequelize, options: WriteOptions): P
           'voltageV',
           'phaseCount',
           'fullLoadCurrentA',
+          'speedMinRpm',
+          'speedMaxRpm',
+          'fixedSpeedsRpm',
           'dischargeSizeMm',
           'solidsHandlingMm',
           'listPrice',

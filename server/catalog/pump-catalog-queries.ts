@@ -12,6 +12,7 @@ import type {
 } from '../../shared/api/api-schemas';
 import type { PumpKind, PumpStatus } from '../../shared/vocabularies';
 import { CurveDeclaredRange, CurveImport, CurvePoint, CurveRevision, Pump, Supplier } from '../database/models';
+import { fixedSpeedsOf } from '../database/models/pump';
 
 /*
  * The catalog as designers and integrators read it: suppliers, pumps with the current curve's
@@ -32,6 +33,9 @@ export interface PumpRow {
   voltage_v: number | null;
   phase_count: number | null;
   full_load_current_a: number | null;
+  speed_min_rpm: number | null;
+  speed_max_rpm: number | null;
+  fixed_speeds_rpm: string | null;
   discharge_size_mm: number | null;
   solids_handling_mm: number | null;
   list_price: string | null;
@@ -54,7 +58,8 @@ export type PumpListFilter = Omit<PumpListQuery, 'flowUnit' | 'headUnit'> &
 // Raw SQL: one joined select with a dynamic sort on joined columns stays cheap per catalog page.
 const pumpSelect = `
   SELECT p.id, p.supplier_id, s.code AS supplier_code, s.name AS supplier_name, p.model_code, p.display_name, p.kind,
-         p.nominal_speed_rpm, p.voltage_v, p.phase_count, p.full_load_current_a, p.discharge_size_mm, p.solids_handling_mm,
+         p.nominal_speed_rpm, p.voltage_v, p.phase_count, p.full_load_current_a, p.speed_min_rpm, p.speed_max_rpm,
+         p.fixed_speeds_rpm, p.discharge_size_mm, p.solids_handling_mm,
          p.list_price, p.price_currency, p.status, r.number AS revision_number, r.flow_min_m3s, r.flow_max_m3s, r.head_min_m,
          r.head_max_m, r.bep_flow_m3s, r.bep_head_m, r.bep_efficiency
     FROM pumps p
@@ -82,6 +87,11 @@ function toPumpSummary(row: PumpRow): PumpSummary {
     voltage: row.voltage_v,
     phaseCount: row.phase_count as PumpSummary['phaseCount'],
     fullLoadCurrent: row.full_load_current_a,
+    speedRange:
+      row.speed_min_rpm === null || row.speed_max_rpm === null
+        ? null
+        : { minRpm: row.speed_min_rpm, maxRpm: row.speed_max_rpm },
+    fixedSpeedsRpm: fixedSpeedsOf(row.fixed_speeds_rpm),
     dischargeSizeMm: row.discharge_size_mm,
     solidsHandlingMm: row.solids_handling_mm,
     listPrice:

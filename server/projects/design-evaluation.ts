@@ -1,6 +1,13 @@
 import type { CalculationUnits, ChoiceOutcome, DesignDraft, DesignOutcome } from '../../shared/api/api-schemas';
 import { DESIGN_UNITS, designPipeSystem } from '../../shared/api/design-system';
-import { branchFlowsAt, DEFAULT_NPSH_GUIDANCE, flowToSI, motorEfficiencyFor } from '../../shared/hydraulics';
+import {
+  branchFlowsAt,
+  DEFAULT_NPSH_GUIDANCE,
+  flowToSI,
+  MAX_SPEED_RATIO,
+  motorEfficiencyFor,
+} from '../../shared/hydraulics';
+import { pumpOnFileAtSpeed } from '../calculations/pump-at-speed';
 import { branchFlowSummaries } from '../calculations/branch-answers';
 import { engineIssueText } from '../../shared/messages/engine-issue-text';
 import { dutyOfParallelPumps } from '../calculations/arrangement-duty';
@@ -8,7 +15,7 @@ import { operatingPointSummary } from '../calculations/calculation-handlers';
 import { preferredBandOf } from '../calculations/pump-request';
 import { answerUnits, requestValueText } from '../calculations/request-units';
 import { prepareSystem, type PreparedSystem } from '../calculations/system-request';
-import type { CatalogPump } from '../catalog/catalog-snapshot';
+import { pumpSpeedsOf, type CatalogPump } from '../catalog/catalog-snapshot';
 import { CurveDeclaredRange, CurveRevision, Pump, Supplier } from '../database/models';
 import { costTermsOf, type SelectionQuery } from '../selection/selection-query';
 import { rankCandidate } from '../selection/selection-reasons';
@@ -59,6 +66,12 @@ export async function chosenCurve(pumpId: number, revisionId: number): Promise<C
           ? null
           : { amount: Number(pump.listPrice), currency: pump.priceCurrency },
       electrical: { fullLoadCurrent: pump.fullLoadCurrentA, voltage: pump.voltageV, phases: pump.phaseCount },
+      speeds: pumpSpeedsOf({
+        nominal_speed_rpm: pump.nominalSpeedRpm,
+        speed_min_rpm: pump.speedMinRpm,
+        speed_max_rpm: pump.speedMaxRpm,
+        fixed_speeds_rpm: pump.fixedSpeedsRpm,
+      }),
     },
   };
 }
@@ -66,6 +79,17 @@ export async function chosenCurve(pumpId: number, revisionId: number): Promise<C
 interface Arrangement {
   installed: number;
   running: number;
+  /** The speed kept with the choice for a variable-speed pump, rpm; null or absent for the nominal speed. */
+  speedRpm?: number | null;
+}
+
+/** The chosen pump at the choice's speed (affinity laws), when it has one its nominal speed scales to. */
+function pumpAtChosenSpeed(pump: CatalogPump, speedRpm: number | null | undefined): CatalogPump {
+  const nominal = pump.speeds.nominalRpm;
+  if (speedRpm == null || nominal === null || speedRpm === nominal) return pump;
+  const ratio = speedRpm / nominal;
+  if (!(ratio > 0 && ratio <= MAX_SPEED_RATIO)) return pump;
+  return { ...pumpOnFileAtSpeed(pump, ratio), atSpeed: { ratio, rpm: speedRpm } };
 }
 
 function queryFor(design: DesignDraft, { curve: system, density, suction }: PreparedSystem, arrangement: Arrangement) {
@@ -107,8 +131,9 @@ export function choiceOutcome(
   const { curve: system, density, branched } = prepared;
   const query = queryFor(design, prepared, arrangement);
   const base = { curveRevisionId: curve.pump.revisionId, curveRevisionNumber: curve.revisionNumber };
-  const motor = motorEfficiencyFor(curve.pump, query.motorEfficiency).value;
-  const duty = dutyOfParallelPumps(curve.pump, system, arrangement.running, query.band, density, motor);
+  const pump = pumpAtChosenSpeed(curve.pump, arrangement.speedRpm);
+  const motor = motorEfficiencyFor(pump, query.motorEfficiency).value;
+  const duty = dutyOfParallelPumps(pump, system, arrangement.running, query.band, density, motor);
   if (!duty.ok)
     return {
       ...base,
@@ -118,7 +143,7 @@ export function choiceOutcome(
       redundant: false,
       reasons: [engineIssueText(duty.issue, requestValueText(units))],
     };
-  const ranked = rankCandidate(curve.pump, arrangement.running, duty.point, query);
+  const ranked = rankCandidate(pump, arrangement.running, duty.point, query);
   if (!ranked) throw new Error('a chosen pump is never filtered out');
   return {
     ...base,

@@ -55,7 +55,10 @@ export function createProjectHistoryHandlers(): Record<
       const after = await revisionNumbered(project.id, query.to, '/query/to');
       const choice = after.choice ?? before.choice;
       const chosen = choice
-        ? { curve: await curveOf(choice), arrangement: { installed: choice.installed, running: choice.running } }
+        ? {
+            curve: await curveOf(choice),
+            arrangement: { installed: choice.installed, running: choice.running, speedRpm: choice.speedRpm },
+          }
         : null;
       const units = designUnits(after.design.unitSystem);
       const answer: RevisionComparison = {
@@ -74,7 +77,7 @@ export function createProjectHistoryHandlers(): Record<
       const choice = revision.choice;
       if (!choice)
         throw unprocessable('/path/projectId', 'has no chosen pump to re-check: save the project with a choice');
-      const arrangement = { installed: choice.installed, running: choice.running };
+      const arrangement = { installed: choice.installed, running: choice.running, speedRpm: choice.speedRpm };
       const units = designUnits(revision.design.unitSystem);
       const savedCurve = await curveOf(choice);
       const saved = choiceOutcome(revision.design, savedCurve, arrangement, units);

@@ -85,6 +85,7 @@ function candidateAnswer(
     preferredRange: candidate.preferredRange
       ? { flowMin: to.flow(candidate.preferredRange.flowMin), flowMax: to.flow(candidate.preferredRange.flowMax) }
       : null,
+    speed: candidate.pump.atSpeed ?? null,
   };
 }
 

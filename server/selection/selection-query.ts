@@ -14,7 +14,7 @@ import type { SelectionRequirement } from './selection-shortfalls';
 
 /* What a selection search is asked (SI throughout) and what it answers. */
 
-export type SelectionWarningCode = DutyWarning | 'velocity' | 'estimated-curve';
+export type SelectionWarningCode = DutyWarning | 'velocity' | 'estimated-curve' | 'low-speed';
 
 /** What ranks candidates within a tier: annual energy, the set's first cost, or its life-cycle cost. */
 export type RankBy = 'energy' | 'first-cost' | 'life-cycle-cost';

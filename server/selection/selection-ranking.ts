@@ -201,4 +201,9 @@ export class TopPairs {
   best(): Array<[number, number]> {
     return this.pairs;
   }
+
+  /** The kept pairs' keys, in the order of best(). */
+  bestKeys(): readonly number[] {
+    return this.keys;
+  }
 }

@@ -2,6 +2,7 @@ import {
   annualEnergy,
   energyCost,
   lifeCycleCost,
+  LOW_SPEED_CAUTION_RATIO,
   motorEfficiencyFor,
   preferredFlowRegion,
 } from '../../shared/hydraulics';
@@ -88,6 +89,15 @@ export function rankCandidate(
   if (pump.fit.curveBasis === 'estimated-from-two-points') {
     warnings.push('estimated-curve');
     reasons.push('estimated curve: only shut-off and open flow are published');
+  }
+  if (pump.atSpeed) {
+    reasons.push(`at ${Math.round(pump.atSpeed.rpm)} rpm, ${(100 * pump.atSpeed.ratio).toFixed(0)} % of nominal speed`);
+    if (pump.atSpeed.ratio < LOW_SPEED_CAUTION_RATIO) {
+      warnings.push('low-speed');
+      reasons.push(
+        `below ${100 * LOW_SPEED_CAUTION_RATIO} % speed: efficiency, motor cooling and minimum flow to check`,
+      );
+    }
   }
   const npsh = npshOfPair(pump, running, point.flow, query);
   if (npsh) reasons.push(npshReason(npsh, query));

@@ -10,6 +10,7 @@ import { screenPoint, TIER_SPAN, tierInBand, TopPairs } from './selection-rankin
 import { OUT_OF_BAND_TIER } from './selection-shortfalls';
 import { BandSystemTable } from './system-table';
 import { pumpTermsOf, type PumpTerms } from './pump-terms';
+import { speedVariantState, variableSpeedIndexes } from './speed-variants';
 
 /*
  * The duty-point search over the catalog snapshot, in SI. For each pump and each number of
@@ -22,8 +23,34 @@ import { pumpTermsOf, type PumpTerms } from './pump-terms';
  * worked out in full, with their reasons.
  */
 
-/** Ranks the catalog's pumps for one system and duty band (see the note at the top). */
+/**
+ * Ranks the catalog's pumps for one system and duty band (see the note at the top). Pumps with a
+ * speed range or fixed speeds are searched apart, at the speed their duty asks for
+ * (speed-variants.ts), and their candidates merged with the rest by rank key; a catalog without
+ * them is searched exactly as before.
+ */
 export function searchCatalog(state: CatalogState, query: SelectionQuery): SelectionOutcome {
+  const variable = variableSpeedIndexes(state);
+  if (variable.length === 0) return searchPumps(state, query);
+  const varying = new Set(variable.map((index) => state.pumps[index]));
+  const outcomes = [
+    searchPumps(state, { ...query, accepts: (pump) => !varying.has(pump) && query.accepts(pump) }),
+    ...query.arrangements.map((running) =>
+      searchPumps(speedVariantState(state, variable, running, query), { ...query, arrangements: [running] }),
+    ),
+  ];
+  const ranked = outcomes
+    .flatMap((outcome) => outcome.candidates.map((candidate, at) => ({ candidate, key: outcome.keys[at] })))
+    .sort((a, b) => a.key - b.key)
+    .slice(0, query.limit);
+  return {
+    considered: outcomes.reduce((sum, outcome) => sum + outcome.considered, 0),
+    inBand: outcomes.reduce((sum, outcome) => sum + outcome.inBand, 0),
+    candidates: ranked.map(({ candidate }) => candidate),
+  };
+}
+
+function searchPumps(state: CatalogState, query: SelectionQuery): SelectionOutcome & { keys: number[] } {
   const packed = packedCurves(state);
   const { coefficients, flowMin, flowMax } = packed;
   const { system, arrangements } = query;
@@ -82,16 +109,20 @@ export function searchCatalog(state: CatalogState, query: SelectionQuery): Selec
   const adequateInBand = ranking.countBelow(OUT_OF_BAND_TIER * TIER_SPAN);
   if (ranking.admits(OUT_OF_BAND_TIER * TIER_SPAN))
     nearMisses(state, query, accepted, 2 * (query.limit - adequateInBand), ranking, table, terms);
+  const keys: number[] = [];
+  const bestKeys = ranking.bestKeys();
   const candidates = ranking
     .best()
-    .map(([index, running]) => {
+    .map(([index, running], at) => {
       const pump = state.pumps[index];
       const motor = motorEfficiencyFor(pump, query.motorEfficiency).value;
       const duty = dutyOfParallelPumps(pump, system, running, query.band, query.density, motor);
-      return duty.ok ? rankCandidate(pump, running, duty.point, query) : null;
+      const candidate = duty.ok ? rankCandidate(pump, running, duty.point, query) : null;
+      if (candidate) keys.push(bestKeys[at]);
+      return candidate;
     })
     .filter((candidate): candidate is RankedCandidate => candidate !== null);
-  return { considered, inBand: inBandCount, candidates };
+  return { considered, inBand: inBandCount, candidates, keys };
 }
 
 let sharedInBand = new Float64Array(0);

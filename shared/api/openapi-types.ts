@@ -380,6 +380,11 @@ export interface paths {
          *     `pumps` (a 422 naming the field), and so are both `pump` and `pumps` (at `/body/pumps`)
          *     or neither (at `/body/pump`).
          *
+         *     At a speed: `speed: {ratio}` or `speed: {rpm}` beside `pump` moves its curve by the affinity laws
+         *     (Q ~ N, H ~ N^2, P ~ N^3, efficiency held; White, Fluid Mechanics, 7th ed., section 11.4), and the
+         *     point, the fit and the NPSH are at that speed; `speed` in the answer says the speed used and gives
+         *     the curve at it. A mixed set keeps its pumps at their nominal speeds.
+         *
          *     Input power is wire-to-water, as in the selection: a catalog pump's shaft power is divided
          *     by its motor efficiency from the catalog, else its kind's assumed value; an inline curve's
          *     power or efficiency is taken as its `powerBasis` says (shaft by default, with no motor
@@ -1241,6 +1246,8 @@ export interface components {
              * @enum {string}
              */
             powerBasis?: "shaft" | "electrical";
+            /** @description The speed the curve is published for, rpm; lets `speed.rpm` be asked. */
+            speedRpm?: number;
         };
         CatalogPump: {
             pumpId: number;
@@ -1279,9 +1286,28 @@ export interface components {
             /** @description A mixed set: 2 to 4 entries, different models in parallel (flows add at equal head, a check valve on each), all running; at most 4 pumps in all (the sum of `running`), more is a 422 at `/body/pumps`. Not with `arrangement` or `balance` (a 422 naming the field). */
             pumps?: components["schemas"]["MixedSetEntry"][];
             arrangement?: components["schemas"]["OperatingPointArrangement"];
+            speed?: components["schemas"]["PumpSpeedRequest"];
             preferredBand?: components["schemas"]["PreferredBand"];
             balance?: components["schemas"]["BalanceTarget"];
             npshMarginRatio?: components["schemas"]["NpshMarginRatio"];
+        };
+        /** @description The speed `pump` runs at: `ratio` (N / N_nominal) or `rpm`, exactly one (both, or neither, is a 422 naming the field). `rpm` needs the nominal speed: a catalog pump's, or `pump.speedRpm` of an inline curve (else a 422 at `/body/speed/rpm`). The ratio is above 0 and at most 1.2; a catalog pump must run within its speed range or at one of its fixed speeds (or its nominal speed), else a 422 naming the field with the speeds allowed. Not for a mixed set (`pumps`: a 422 at `/body/speed`). */
+        PumpSpeedRequest: {
+            /** @description N / N_nominal, dimensionless. */
+            ratio?: number;
+            rpm?: number;
+        };
+        /** @description The speed used and the curve moved to it by the affinity laws (Q ~ N, H ~ N^2, P ~ N^3, efficiency held): `curve` samples the head over the published range at that speed, in the request's units. `cautions` holds `low-speed` below 60 % of the nominal speed (common practice: the held efficiency, a fan-cooled motor and the pump's minimum flow no longer hold there; its sentence is in `warnings`). */
+        PumpSpeedAnswer: {
+            ratio: number;
+            /** @description Null when the nominal speed is not known. */
+            rpm: number | null;
+            nominalRpm: number | null;
+            curve: {
+                flow: number;
+                head: number;
+            }[];
+            cautions: "low-speed"[];
         };
         /** @description Branched systems: the flow one branch should take at the operating point; the answer gives the valve that sets it (`balancing`). */
         BalanceTarget: {
@@ -1416,6 +1442,8 @@ export interface components {
             /** @description Present when the system has a suction side (for a mixed set, per entry in `operatingPoint.pumps`). */
             npsh?: components["schemas"]["NpshCheck"];
             gravityFlow?: components["schemas"]["GravityFlow"];
+            /** @description Present when `speed` was asked: `operatingPoint`, `oneFailed`, `fit` and `npsh` are then at that speed. */
+            speed?: components["schemas"]["PumpSpeedAnswer"];
             warnings: string[];
         };
         PipeSizesResponse: {
@@ -1525,10 +1553,10 @@ export interface components {
             limit?: number;
         };
         /**
-         * @description estimated-curve: the pump's head curve is estimated from shut-off and open flow only (see CurveBasis).
+         * @description estimated-curve: the pump's head curve is estimated from shut-off and open flow only (see CurveBasis). low-speed: a variable-speed pump found below 60 % of its nominal speed (see PumpSpeedAnswer).
          * @enum {string}
          */
-        SelectionWarning: "velocity" | "run-out" | "dead-head" | "estimated-curve";
+        SelectionWarning: "velocity" | "run-out" | "dead-head" | "estimated-curve" | "low-speed";
         SelectionCandidate: {
             rank: number;
             pumpId: number;
@@ -1575,6 +1603,12 @@ export interface components {
             preferredRange: {
                 flowMin: number;
                 flowMax: number;
+            } | null;
+            /** @description A pump with a speed range or fixed speeds: the speed the search runs it at, the lowest whose point reaches the band's bottom flow (least energy for the band; kept within its range, or the lowest fixed speed at or above it). Its point, energy, curve and preferred range are at that speed (affinity laws). Null for a fixed-speed pump, at its nominal speed. */
+            speed: {
+                /** @description N / N_nominal. */
+                ratio: number;
+                rpm: number;
             } | null;
         };
         SelectionResponse: {
@@ -1677,7 +1711,15 @@ export interface components {
             modelCode: string;
             displayName: string;
             kind: components["schemas"]["PumpKind"];
+            /** @description The speed the published curve is for, rpm. */
             nominalSpeedRpm: number | null;
+            /** @description A continuous speed range on a drive or controller, rpm (the nominal speed inside it); null for a pump the catalog gives none. */
+            speedRange: {
+                minRpm: number;
+                maxRpm: number;
+            } | null;
+            /** @description The fixed speeds of a multi-speed pump, rpm ascending, each at most the nominal speed; null for none. */
+            fixedSpeedsRpm: number[] | null;
             /** @description V */
             voltage: number | null;
             /** @enum {integer|null} */
@@ -1811,7 +1853,7 @@ export interface components {
             row: number | null;
             column: string | null;
             /** @enum {string} */
-            code: "not-a-curve-table" | "unknown-format-version" | "unknown-unit-line" | "unit-line-extra-value" | "unit-line-repeated" | "not-a-currency" | "unknown-unit" | "unknown-column" | "column-repeated" | "column-missing" | "unit-line-missing" | "column-needs-unit-line" | "file-empty" | "no-header" | "no-points" | "file-too-large" | "too-many-rows" | "recorded-as-text" | "not-text" | "not-csv" | "cell-beyond-header" | "model-code-blank" | "not-a-model-code" | "pump-repeated" | "too-many-points" | "differs-from-first-row" | "formula-text" | "efficiency-looks-fractional" | "name-blank" | "text-too-long" | "text-control-characters" | "not-a-number" | "number-out-of-range" | "phases-unknown" | "choice-blank" | "choice-unknown" | "range-one-end" | "range-reversed" | "point-value-blank" | "too-few-points" | "flow-not-increasing" | "head-rise-refused" | "head-rise-flagged" | "value-on-some-points" | "npsh-on-few-points" | "curve-refused" | "fit-issue" | "bep-unknown" | "poor-fit" | "range-beyond-points";
+            code: "not-a-curve-table" | "unknown-format-version" | "unknown-unit-line" | "unit-line-extra-value" | "unit-line-repeated" | "not-a-currency" | "unknown-unit" | "unknown-column" | "column-repeated" | "column-missing" | "unit-line-missing" | "column-needs-unit-line" | "file-empty" | "no-header" | "no-points" | "file-too-large" | "too-many-rows" | "recorded-as-text" | "not-text" | "not-csv" | "cell-beyond-header" | "model-code-blank" | "not-a-model-code" | "pump-repeated" | "too-many-points" | "differs-from-first-row" | "formula-text" | "efficiency-looks-fractional" | "name-blank" | "text-too-long" | "text-control-characters" | "not-a-number" | "number-out-of-range" | "phases-unknown" | "choice-blank" | "choice-unknown" | "range-one-end" | "range-reversed" | "speed-range-one-end" | "speed-range-reversed" | "speed-needs-nominal" | "speed-range-misses-nominal" | "speed-above-nominal" | "speeds-not-a-list" | "point-value-blank" | "too-few-points" | "flow-not-increasing" | "head-rise-refused" | "head-rise-flagged" | "value-on-some-points" | "npsh-on-few-points" | "curve-refused" | "fit-issue" | "bep-unknown" | "poor-fit" | "range-beyond-points";
             /** @description The values the code's sentence is made from. */
             params: {
                 [key: string]: unknown;
@@ -3706,6 +3748,8 @@ export interface operations {
                      *           "displayName": "Submersible 40",
                      *           "kind": "submersible",
                      *           "nominalSpeedRpm": 2850,
+                     *           "speedRange": null,
+                     *           "fixedSpeedsRpm": null,
                      *           "voltage": 230,
                      *           "phaseCount": 1,
                      *           "fullLoadCurrent": 2.6,
@@ -3776,6 +3820,11 @@ export interface operations {
                      *         "displayName": "Submersible 40",
                      *         "kind": "submersible",
                      *         "nominalSpeedRpm": 2850,
+                     *         "speedRange": {
+                     *           "minRpm": 1400,
+                     *           "maxRpm": 2850
+                     *         },
+                     *         "fixedSpeedsRpm": null,
                      *         "voltage": 230,
                      *         "phaseCount": 1,
                      *         "fullLoadCurrent": 2.6,

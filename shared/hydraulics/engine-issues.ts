@@ -38,6 +38,8 @@ export interface EngineIssueParams {
   'shut-off-extrapolated': { flowMin: number };
   /** A curve scaled by the affinity laws (speed ratio, 1 = nominal). */
   'affinity-scaled': { speedRatio: number };
+  /** A point at a speed ratio below the low-speed caution ratio (LOW_SPEED_CAUTION_RATIO). */
+  'low-speed': { speedRatio: number; cautionRatio: number };
   /** No operating point: the pump cannot lift the static head (m). */
   'shut-off-below-static-head': { shutOffHead: number; staticHead: number };
   /** No operating point inside the published flows. */

@@ -34,3 +34,4 @@ export * from './plausible-limits';
 export * from './pump-curve-points';
 export * from './suction-side';
 export * from './gravity-flow';
+export * from './pump-speeds';

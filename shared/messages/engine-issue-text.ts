@@ -63,6 +63,8 @@ const ENGINE_ISSUE_TEXT: {
     'estimated curve: only shut-off and open flow are published, so head between them follows H = H0 (1 - (Q/Qmax)^2), an assumed shape; no efficiency or BEP',
   'shut-off-extrapolated': () => 'shut-off head is extrapolated: the first point is not at zero flow',
   'affinity-scaled': ({ speedRatio }) => `scaled to ${(100 * speedRatio).toFixed(1)} % speed by the affinity laws`,
+  'low-speed': ({ speedRatio, cautionRatio }) =>
+    `at ${(100 * speedRatio).toFixed(1)} % speed, below ${(100 * cautionRatio).toFixed(0)} %: the efficiency the affinity laws hold may fall, a fan-cooled motor may run hot and the flow may be under the pump's minimum; check with its maker`,
   'shut-off-below-static-head': ({ shutOffHead, staticHead }, units) =>
     `shut-off head ${units.head(shutOffHead)} is below the system's static head ${units.head(staticHead)}`,
   'crosses-before-curve': () => 'the curves would cross before the first published point of the pump curve',

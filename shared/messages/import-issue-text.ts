@@ -158,6 +158,33 @@ export const IMPORT_ISSUE_TEXT: { [Code in ImportIssueCode]: Sentence<Code> } = 
     message: `the ${region} range ends (${max}) before it starts (${min})`,
     expected: `${region}_flow_max greater than ${region}_flow_min`,
   }),
+  'speed-range-one-end': () => ({
+    message: 'the speed range has only one end',
+    expected: 'both speed_min_rpm and speed_max_rpm, or neither',
+  }),
+  'speed-range-reversed': ({ min, max }) => ({
+    message: `the speed range ends (${max} rpm) before it starts (${min} rpm)`,
+    expected: 'speed_max_rpm greater than speed_min_rpm',
+  }),
+  'speed-needs-nominal': (_params, column) => ({
+    message: `the ${column} is given without speed_rpm`,
+    expected: 'speed_rpm, the speed the curve is published for, on the same row',
+  }),
+  'speed-range-misses-nominal': ({ min, max, nominal }) => ({
+    message: `the speed range ${min}-${max} rpm leaves out the nominal ${nominal} rpm`,
+    expected: 'a speed range that holds speed_rpm',
+  }),
+  'speed-above-nominal': ({ value, nominal, maxRatio }) => ({
+    message:
+      maxRatio === 1
+        ? `${value} rpm is above the nominal ${nominal} rpm`
+        : `${value} rpm is above ${maxRatio} times the nominal ${nominal} rpm`,
+    expected: maxRatio === 1 ? `at most ${nominal} rpm` : `at most ${Math.floor(maxRatio * nominal)} rpm`,
+  }),
+  'speeds-not-a-list': ({ value }) => ({
+    message: `"${value}" is not a list of speeds`,
+    expected: 'whole rpm from 100 to 20000 separated by ";", ascending, each once (e.g. 1450;2900)',
+  }),
   'point-value-blank': ({ unit }, column) => ({ message: `the ${column} is blank`, expected: `a number in ${unit}` }),
   'too-few-points': ({ modelCode, count }) => ({
     message: `pump ${modelCode} has ${count} usable point(s)`,

@@ -60,6 +60,14 @@ export interface ImportIssueParams {
   'choice-unknown': { value: string; choices: string[] };
   'range-one-end': { region: 'preferred' | 'allowable' };
   'range-reversed': { region: 'preferred' | 'allowable'; min: number; max: number };
+  'speed-range-one-end': Record<string, never>;
+  'speed-range-reversed': { min: number; max: number };
+  /** A speed range or fixed speeds given without speed_rpm, the speed the curve is for. */
+  'speed-needs-nominal': Record<string, never>;
+  'speed-range-misses-nominal': { min: number; max: number; nominal: number };
+  /** A speed above maxRatio times the nominal speed (rpm). */
+  'speed-above-nominal': { value: number; nominal: number; maxRatio: number };
+  'speeds-not-a-list': { value: string };
   'point-value-blank': { unit: string };
   'too-few-points': { modelCode: string; count: number };
   'flow-not-increasing': { previousRow: number };

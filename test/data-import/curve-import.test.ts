@@ -151,6 +151,54 @@ describe('curve-table reader', () => {
     }
   });
 
+  it('reads a speed range and fixed speeds beside the nominal speed, refusing bad ones at their row and column', async () => {
+    // speed_rpm, speed_min_rpm, speed_max_rpm, speeds_rpm on K-10's first row (line 6); K-20 gives none
+    const withSpeeds = (nominal: string, min: string, max: string, speeds: string) =>
+      smallTable
+        .replace('kind,preferred_flow_min', 'kind,speed_rpm,speed_min_rpm,speed_max_rpm,speeds_rpm,preferred_flow_min')
+        .split('\n')
+        .map((line, index) =>
+          index < 5
+            ? line
+            : line.replace(/^(K-\d+,[^,]*,[^,]*,)/, (cells) =>
+                index === 5 ? `${cells}${nominal},${min},${max},"${speeds}",` : `${cells},,,,`,
+              ),
+        )
+        .join('\n');
+    const table = await read(withSpeeds('2900', '1450', '3200', '1450;2175'));
+    expect(table.errors).to.deep.equal([]);
+    const [first, second] = table.pumps.map((pump) => pump.details);
+    expect([first.nominalSpeedRpm, first.speedMinRpm, first.speedMaxRpm, first.fixedSpeedsRpm]).to.deep.equal([
+      2900,
+      1450,
+      3200,
+      [1450, 2175],
+    ]);
+    expect([second.speedMinRpm, second.speedMaxRpm, second.fixedSpeedsRpm]).to.deep.equal([null, null, null]);
+    for (const [cells, column, code] of [
+      [['2900', '1450', '', ''], 'speed_max_rpm', 'speed-range-one-end'],
+      [['2900', '2900', '1450', ''], 'speed_max_rpm', 'speed-range-reversed'],
+      [['2900', '1000', '2000', ''], 'speed_max_rpm', 'speed-range-misses-nominal'],
+      [['2900', '3000', '3400', ''], 'speed_min_rpm', 'speed-range-misses-nominal'],
+      [['2900', '1450', '3500', ''], 'speed_max_rpm', 'speed-above-nominal'],
+      [['', '1450', '2900', ''], 'speed_min_rpm', 'speed-needs-nominal'],
+      [['', '', '', '1450;2900'], 'speeds_rpm', 'speed-needs-nominal'],
+      [['2900', '', '', '1450;3000'], 'speeds_rpm', 'speed-above-nominal'],
+      [['2900', '', '', '2900;1450'], 'speeds_rpm', 'speeds-not-a-list'],
+      [['2900', '', '', '1450;fast'], 'speeds_rpm', 'speeds-not-a-list'],
+      [['2900', '0', '2900', ''], 'speed_min_rpm', 'number-out-of-range'],
+      [['2900', '1450.5', '2900', ''], 'speed_min_rpm', 'number-out-of-range'],
+    ] as const) {
+      const refused = await read(withSpeeds(cells[0], cells[1], cells[2], cells[3]));
+      expect(
+        refused.errors.map((error) => [error.row, error.column, error.code]),
+        cells.join(' '),
+      ).to.deep.equal([[6, column, code]]);
+      expect(refused.pumps[0].details.speedMinRpm, cells.join(' ')).to.equal(null);
+      expect(refused.pumps[0].details.fixedSpeedsRpm, cells.join(' ')).to.equal(null);
+    }
+  });
+
   it('hashes the bytes it read (sha-256) and counts the point rows', async () => {
     const { createHash } = await import('node:crypto');
     const table = await read(smallTable);

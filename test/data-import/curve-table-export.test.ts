@@ -51,6 +51,10 @@ describe('curve-table export', function () {
       expect(exported.pumpCount, supplier.code).to.be.greaterThan(0);
       // the demo gives every pump its full-load current, so the column is written
       expect(exported.text.split('\n').find((line) => line.startsWith('model_code'))).to.contain('full_load_current');
+      // the demo's invented drives: speed ranges at Alderbrook, a two-speed pump at Quillwater
+      const header = exported.text.split('\n').find((line) => line.startsWith('model_code'))!;
+      expect(header.includes('speed_min_rpm'), supplier.code).to.equal(supplier.code === 'ALDERBROOK');
+      expect(header.includes('speeds_rpm'), supplier.code).to.equal(supplier.code === 'QUILLWATER');
       const again = await importText(sequelize, supplier, exported.text, { dryRun: true });
       expect(again.errors, supplier.code).to.deep.equal([]);
       expect(again.counts, supplier.code).to.deep.equal({ new: 0, changed: 0, unchanged: exported.pumpCount });

@@ -246,6 +246,42 @@ const samples: { [Code in ImportIssueCode]: Sample<Code> } = {
     message: 'the allowable range ends (1) before it starts (5)',
     expected: 'allowable_flow_max greater than allowable_flow_min',
   },
+  'speed-range-one-end': {
+    column: 'speed_max_rpm',
+    params: {},
+    message: 'the speed range has only one end',
+    expected: 'both speed_min_rpm and speed_max_rpm, or neither',
+  },
+  'speed-range-reversed': {
+    column: 'speed_max_rpm',
+    params: { min: 2900, max: 1450 },
+    message: 'the speed range ends (1450 rpm) before it starts (2900 rpm)',
+    expected: 'speed_max_rpm greater than speed_min_rpm',
+  },
+  'speed-needs-nominal': {
+    column: 'speeds_rpm',
+    params: {},
+    message: 'the speeds_rpm is given without speed_rpm',
+    expected: 'speed_rpm, the speed the curve is published for, on the same row',
+  },
+  'speed-range-misses-nominal': {
+    column: 'speed_max_rpm',
+    params: { min: 1000, max: 2000, nominal: 2900 },
+    message: 'the speed range 1000-2000 rpm leaves out the nominal 2900 rpm',
+    expected: 'a speed range that holds speed_rpm',
+  },
+  'speed-above-nominal': {
+    column: 'speed_max_rpm',
+    params: { value: 4000, nominal: 2900, maxRatio: 1.2 },
+    message: '4000 rpm is above 1.2 times the nominal 2900 rpm',
+    expected: 'at most 3480 rpm',
+  },
+  'speeds-not-a-list': {
+    column: 'speeds_rpm',
+    params: { value: '2900;1450' },
+    message: '"2900;1450" is not a list of speeds',
+    expected: 'whole rpm from 100 to 20000 separated by ";", ascending, each once (e.g. 1450;2900)',
+  },
   'point-value-blank': {
     column: 'head',
     params: { unit: 'ft' },

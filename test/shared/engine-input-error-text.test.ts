@@ -184,6 +184,10 @@ const issueSamples: { [Code in EngineIssueCode]: [EngineIssueParams[Code], strin
   ],
   'shut-off-extrapolated': [{ flowMin: 0.001 }, 'shut-off head is extrapolated: the first point is not at zero flow'],
   'affinity-scaled': [{ speedRatio: 0.8 }, 'scaled to 80.0 % speed by the affinity laws'],
+  'low-speed': [
+    { speedRatio: 0.5, cautionRatio: 0.6 },
+    "at 50.0 % speed, below 60 %: the efficiency the affinity laws hold may fall, a fan-cooled motor may run hot and the flow may be under the pump's minimum; check with its maker",
+  ],
   'shut-off-below-static-head': [
     { shutOffHead: 8, staticHead: 10 },
     "shut-off head 8.00 m is below the system's static head 10.00 m",

@@ -25,6 +25,11 @@ export class Pump extends Model<InferAttributes<Pump>, InferCreationAttributes<P
   declare phaseCount: number | null;
   /** The motor's full-load (rated) current, A, when the supplier gives it. */
   declare fullLoadCurrentA: number | null;
+  /** The continuous speed range on a drive or controller, rpm, both or neither. */
+  declare speedMinRpm: number | null;
+  declare speedMaxRpm: number | null;
+  /** The fixed speeds of a multi-speed pump, rpm ascending, as `1450;2900` (fixedSpeedsText). */
+  declare fixedSpeedsRpm: string | null;
   declare dischargeSizeMm: number | null;
   declare solidsHandlingMm: number | null;
   /** Decimal text as MariaDB returns DECIMAL, e.g. "412.50". */
@@ -51,6 +56,9 @@ export class Pump extends Model<InferAttributes<Pump>, InferCreationAttributes<P
         voltageV: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: true },
         phaseCount: { type: DataTypes.TINYINT.UNSIGNED, allowNull: true },
         fullLoadCurrentA: { type: DataTypes.DOUBLE, allowNull: true },
+        speedMinRpm: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        speedMaxRpm: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        fixedSpeedsRpm: { type: DataTypes.STRING(120), allowNull: true },
         dischargeSizeMm: { type: DataTypes.DOUBLE, allowNull: true },
         solidsHandlingMm: { type: DataTypes.DOUBLE, allowNull: true },
         listPrice: { type: DataTypes.DECIMAL(12, 2), allowNull: true },
@@ -63,4 +71,14 @@ export class Pump extends Model<InferAttributes<Pump>, InferCreationAttributes<P
       { sequelize, tableName: 'pumps' },
     );
   }
+}
+
+/** A multi-speed pump's speeds as the pumps table keeps them: rpm joined by `;`, or null. */
+export function fixedSpeedsText(speeds: readonly number[] | null): string | null {
+  return speeds === null || speeds.length === 0 ? null : speeds.join(';');
+}
+
+/** The speeds of fixedSpeedsText back as numbers, or null. */
+export function fixedSpeedsOf(text: string | null): number[] | null {
+  return text === null || text === '' ? null : text.split(';').map(Number);
 }

@@ -31,6 +31,12 @@ export function moneyLabel(money: { amount: number; currency: string } | null): 
   return money === null ? '–' : `${Math.round(money.amount).toLocaleString('en')} ${money.currency}`;
 }
 
+/** The speed the search runs a variable- or multi-speed pump at, in words; empty at the nominal speed of a fixed-speed pump. */
+export function speedLabel(candidate: Pick<SelectionCandidate, 'speed'>): string {
+  const speed = candidate.speed;
+  return speed ? `at ${Math.round(speed.rpm)} rpm (${Math.round(100 * speed.ratio)} % speed)` : '';
+}
+
 /** What a candidate misses of the designer's requirements, in words, or "none". */
 export function missesLabel(candidate: Pick<SelectionCandidate, 'misses'>): string {
   return candidate.misses.map((miss) => missWords[miss]).join(', ') || 'none';

@@ -129,6 +129,16 @@ describe('catalog and curve-import API', function () {
     // the demo file's electrical columns (AB-CEN-10: 230 V, single phase, 1.5 A)
     expect([detail.pump.voltage, detail.pump.phaseCount, detail.pump.fullLoadCurrent]).to.deep.equal([230, 1, 1.5]);
     expect(list.items[0].fullLoadCurrent).to.equal(1.5);
+    // a fixed-speed demo pump carries no speeds beside its nominal one; AB-CEN-20 has an invented drive
+    expect([detail.pump.nominalSpeedRpm, detail.pump.speedRange, detail.pump.fixedSpeedsRpm]).to.deep.equal([
+      2900,
+      null,
+      null,
+    ]);
+    const driven = (await get('/pumps?search=AB-CEN-20').expect(200)).body as PumpPage;
+    expect(driven.items[0].speedRange).to.deep.equal({ minRpm: 1450, maxRpm: 3190 });
+    const twoSpeed = (await get('/pumps?search=QW-CEN-50').expect(200)).body as PumpPage;
+    expect(twoSpeed.items[0].fixedSpeedsRpm).to.deep.equal([1450, 2900]);
     expect(detail.revision!.points.length).to.equal(detail.revision!.pointCount);
     const last = detail.revision!.points.at(-1)!;
     expect(pumpHeadAt(detail.revision!.fit as Parameters<typeof pumpHeadAt>[0], last.flow)).to.be.closeTo(

@@ -11,7 +11,7 @@ import { RouterLink } from '@angular/router';
 import type { SelectionCandidate, SelectionResponse } from '../../../../shared/api/api-schemas';
 import { VELOCITY_WARNING_LIMIT, velocityFromSI } from '../../../../shared/hydraulics';
 import { kindLabels } from '../../shared/display-units';
-import { missesLabel, moneyLabel, motorLabel, rankByWords } from '../energy-and-costs';
+import { missesLabel, moneyLabel, motorLabel, rankByWords, speedLabel } from '../energy-and-costs';
 import { candidateKey, maxCompared, SelectionDraft } from '../selection-draft';
 import { CandidateColumns, choosableColumns } from './candidate-columns';
 import { FigurePipe, formatFigure } from '../../shared/locale-numbers';
@@ -60,6 +60,7 @@ function filterText(candidate: SelectionCandidate): string {
     candidate.supplier,
     candidate.modelCode,
     pumpFacts(candidate),
+    speedLabel(candidate),
     arrangementLabel(candidate),
     candidate.region,
     missesLabel(candidate),
@@ -129,6 +130,7 @@ export class CandidateResults {
   protected readonly key = candidateKey;
   protected readonly arrangementLabel = arrangementLabel;
   protected readonly pumpFacts = pumpFacts;
+  protected readonly speedLabel = speedLabel;
   protected readonly rankByWords = rankByWords;
   protected readonly motorLabel = motorLabel;
   protected readonly moneyLabel = moneyLabel;

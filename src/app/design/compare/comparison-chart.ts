@@ -27,6 +27,8 @@ export interface ChartPoint {
 export interface ChartCandidate {
   key: string;
   label: string;
+  /** N / N_nominal of a pump the search runs at a speed (its curve is at that speed); null at nominal speed. */
+  speedRatio: number | null;
   curve: ChartPoint[];
   preferredRange: { flowMin: number; flowMax: number } | null;
   operatingPoint: ChartPoint;
@@ -147,7 +149,12 @@ export function drawComparisonChart(element: SVGSVGElement, model: ChartModel, h
 
   model.candidates.forEach((candidate, index) => {
     const style = chartStyle(index);
-    const group = plot.append('g').attr('data-candidate', candidate.key);
+    // the curve's shut-off head and speed as data, for a reader (and a test) without the drawing
+    const group = plot
+      .append('g')
+      .attr('data-candidate', candidate.key)
+      .attr('data-speed-ratio', candidate.speedRatio)
+      .attr('data-shut-off-head', candidate.curve[0]?.head ?? null);
     if (candidate.preferredRange) {
       const { flowMin, flowMax } = candidate.preferredRange;
       const inRange = candidate.curve.filter((point) => point.flow >= flowMin && point.flow <= flowMax);

@@ -34,6 +34,15 @@ describe('comparison model', () => {
     expect(candidateLabel({ ...candidate, arrangement: { installed: 1, running: 1 } })).toBe('Test pump 7');
   });
 
+  it('names the speed a variable-speed pump runs at, and hands its ratio to the chart', () => {
+    const driven = { ...candidate, speed: { ratio: 0.75, rpm: 2174.6 } } as SelectionCandidate;
+    expect(candidateLabel(driven)).toBe('Test pump 7 x2 + standby at 2175 rpm');
+    const us = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' } as const;
+    const design = { system: toPipeSystem(exampleDraft()), band: { flowMin: 90, flowMax: 130 }, units: us };
+    const [fixed, atSpeed] = comparisonModel(design, [candidate, driven], us)!.candidates;
+    expect([fixed.speedRatio, atSpeed.speedRatio]).toEqual([null, 0.75]);
+  });
+
   it('draws the design in other units: 100 gpm is 378.5 L/min, 20 ft is 6.096 m', () => {
     const us = { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' } as const;
     const si = { flow: 'L/min', head: 'm', length: 'm', diameter: 'mm', power: 'kW' } as const;

@@ -9,7 +9,8 @@ const systemCurveSteps = 60;
 /** A candidate's short name on charts and in tables: the model, how many run, and a standby. */
 export function candidateLabel(candidate: SelectionCandidate): string {
   const { running, installed } = candidate.arrangement;
-  return `${candidate.model}${running > 1 ? ` x${running}` : ''}${installed > running ? ' + standby' : ''}`;
+  const speed = candidate.speed ? ` at ${Math.round(candidate.speed.rpm)} rpm` : '';
+  return `${candidate.model}${running > 1 ? ` x${running}` : ''}${installed > running ? ' + standby' : ''}${speed}`;
 }
 
 /** The design as the comparison needs it: the system and band in the design's units. */
@@ -56,6 +57,7 @@ export function comparisonModel(
     candidates: candidates.map((candidate): ChartCandidate => ({
       key: candidateKey(candidate),
       label: candidateLabel(candidate),
+      speedRatio: candidate.speed?.ratio ?? null,
       curve: candidate.curve.map(point),
       preferredRange: candidate.preferredRange
         ? {

@@ -11,6 +11,7 @@ const model: ChartModel = {
     {
       key: '1x2',
       label: 'Pump A x2',
+      speedRatio: null,
       curve: [
         { flow: 0, head: 40 },
         { flow: 100, head: 30 },

@@ -13,7 +13,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import { missesLabel, moneyLabel, motorLabel } from '../energy-and-costs';
+import { missesLabel, moneyLabel, motorLabel, speedLabel } from '../energy-and-costs';
 import { candidateKey, SelectionDraft } from '../selection-draft';
 import { unitSystems, type UnitSystem } from '../unit-systems';
 import { downloadPng, downloadSvg } from '../../shared/chart-export';
@@ -98,6 +98,7 @@ export class PumpComparisonPage {
   protected readonly motorLabel = motorLabel;
   protected readonly moneyLabel = moneyLabel;
   protected readonly missesLabel = missesLabel;
+  protected readonly speedLabel = speedLabel;
 
   protected flow(value: number): number {
     return this.convert().flow(value);

@@ -83,7 +83,11 @@ export class RecordVisitForm {
       ? (this.draft.results()?.candidates ?? []).map((candidate) => ({
           key: candidateKey(candidate),
           label: `${candidate.rank}. ${candidate.modelCode}, ${candidate.arrangement.running} running of ${candidate.arrangement.installed}`,
-          choice: { pumpId: candidate.pumpId, arrangement: candidate.arrangement } as ProjectChoiceInput,
+          choice: {
+            pumpId: candidate.pumpId,
+            arrangement: candidate.arrangement,
+            speedRpm: candidate.speed ? Math.round(candidate.speed.rpm) : null,
+          } as ProjectChoiceInput,
         }))
       : [],
   );
