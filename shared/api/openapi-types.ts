@@ -826,7 +826,9 @@ export interface paths {
          *     the chosen pumps and their alternatives with first cost (when known) and running cost, the
          *     comparison chart, the crew's parts list and the cautions, with the date and the catalog
          *     revision used. Its figures are the selection search's for the saved design. The project's
-         *     owner and admins may make one.
+         *     owner and admins may make one. A caller that closes the connection (cancels) before the PDF
+         *     is stored gets no answer and leaves nothing stored; once stored, the proposal is kept and
+         *     listed even if its answer was not read.
          */
         post: operations["createProjectReport"];
         delete?: never;
