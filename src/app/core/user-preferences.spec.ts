@@ -47,6 +47,21 @@ describe('UserPreferences', () => {
     expect(preferences.candidateColumns()).toEqual(['flow', 'head']);
   });
 
+  it('asks again at the next sign-in of the same user, after a load the server refused', () => {
+    const preferences = signIn();
+    controller.expectOne({ method: 'GET', url }).flush(null, { status: 401, statusText: 'Unauthorized' });
+    expect(preferences.candidateColumns()).toBeUndefined();
+    // a sign-in answer is read afresh: the same user, a new object
+    TestBed.inject(SessionService).start({
+      ...session,
+      token: 'rfs_BBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBBB',
+      user: { ...session.user },
+    });
+    TestBed.tick();
+    controller.expectOne({ method: 'GET', url }).flush({ candidateColumns: ['head'], updatedAt: null });
+    expect(preferences.candidateColumns()).toEqual(['head']);
+  });
+
   it('sends one save for quick changes, the last one, once they rest', () => {
     const preferences = signIn();
     controller.expectOne({ method: 'GET', url }).flush({ candidateColumns: null, updatedAt: null });

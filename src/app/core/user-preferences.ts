@@ -45,10 +45,11 @@ export class UserPreferences {
   constructor() {
     toObservable(this.session.user)
       .pipe(
-        map((user) => user?.id ?? null),
+        // each sign-in asks again, even by the same user: the load before may have met a revoked session
         distinctUntilChanged(),
-        switchMap((userId) => {
-          if (userId === null) return EMPTY;
+        switchMap((user) => {
+          if (user === null) return EMPTY;
+          const userId = user.id;
           const changesBefore = this.changes;
           return this.api.getPreferences().pipe(
             map((preferences) => ({ userId, preferences, changed: this.changes !== changesBefore })),
