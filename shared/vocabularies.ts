@@ -35,3 +35,23 @@ export type PumpKind = (typeof pumpKinds)[number];
 /** Whether a pump is offered; retired pumps keep their curves for saved projects and the export. */
 export const pumpStatuses = wordList<Schemas['PumpSummary']['status']>()(['active', 'retired']);
 export type PumpStatus = (typeof pumpStatuses)[number];
+
+/** The candidates table's columns a user may hide, in table order; a user's preferences name them. */
+export const candidateColumns = wordList<Schemas['CandidateColumn']>()([
+  'arrangement',
+  'flow',
+  'head',
+  'bep',
+  'region',
+  'power',
+  'energy',
+  'cost',
+  'price',
+  'firstCost',
+  'lifeCycleCost',
+  'oneFailed',
+  'misses',
+  'warnings',
+  'reasons',
+]);
+export type CandidateColumn = (typeof candidateColumns)[number];

@@ -7,6 +7,7 @@ import type { AccountsDependencies } from './accounts-dependencies';
 import { createAdminHandlers } from './admin-handlers';
 import { createApiTokenHandlers } from './api-token-handlers';
 import { createAuthHandlers } from './auth-handlers';
+import { createPreferenceHandlers } from './preference-handlers';
 import type { RateLimitSettings } from './rate-limits';
 import { createRateLimiters, perUserRateLimits, rateLimitNameOf } from './rate-limits';
 
@@ -18,6 +19,7 @@ export function createAccountHandlers(
     ...createAuthHandlers(sequelize, dependencies),
     ...createApiTokenHandlers(sequelize),
     ...createAdminHandlers(sequelize, dependencies),
+    ...createPreferenceHandlers(),
   };
 }
 

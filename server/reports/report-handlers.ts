@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import type { Request, RequestHandler } from 'express';
 import type { ReportList, ReportRequest, ReportSummary } from '../../shared/api/api-schemas';
 import { currentUser } from '../accounts/authenticated-user';
+import { callerPresence } from '../api/caller-presence';
 import { ProblemError } from '../api/problem-details';
 import type { CatalogSnapshot } from '../catalog/catalog-snapshot';
 import { CompanyProfile, CurveRevision, Project, ProjectReport, Pump } from '../database/models';
@@ -62,6 +63,9 @@ async function pricesOf(figures: DesignFigures): Promise<Map<number, PumpPrice>>
   );
 }
 
+/** Rolls back a proposal whose caller cancelled before it was stored. */
+class CallerGone extends Error {}
+
 function summary(report: ProjectReport): ReportSummary {
   return {
     id: report.id,
@@ -83,6 +87,7 @@ export function createReportHandlers(
 > {
   return {
     createProjectReport: async (request, response) => {
+      const caller = callerPresence(response);
       const body = request.body as ReportRequest;
       const givenClient = optionalText(body.clientName ?? '', '/body/clientName');
       const givenSite = optionalText(body.siteAddress ?? '', '/body/siteAddress');
@@ -96,6 +101,8 @@ export function createReportHandlers(
         CurveRevision.max<number | null, CurveRevision>('id'),
         CompanyProfile.findByPk(project.ownerUserId),
       ]);
+      // cancelled while the figures were worked out: no PDF is made
+      if (caller.gone) return;
       const pdf = await proposalPdf({
         paper: body.paper,
         profile: {
@@ -122,17 +129,29 @@ export function createReportHandlers(
         madeAt: new Date(),
         catalogRevision: catalogRevision ?? 0,
       });
-      const report = await ProjectReport.create({
-        projectId: project.id,
-        madeByUserId: currentUser(request).id,
-        paper: body.paper,
-        pdf,
-        byteLength: pdf.length,
-        sha256: createHash('sha256').update(pdf).digest('hex'),
-        catalogRevision: catalogRevision ?? 0,
-        facts: proposalFacts(project, profile?.name ?? '', clientName, siteAddress, figures),
+      // A proposal nobody waited for is not kept: the caller who cancelled is asked nothing
+      // about it and would find it listed unasked. The last look is taken just before the commit.
+      const report = await ProjectReport.sequelize!.transaction(async (transaction) => {
+        const made = await ProjectReport.create(
+          {
+            projectId: project.id,
+            madeByUserId: currentUser(request).id,
+            paper: body.paper,
+            pdf,
+            byteLength: pdf.length,
+            sha256: createHash('sha256').update(pdf).digest('hex'),
+            catalogRevision: catalogRevision ?? 0,
+            facts: proposalFacts(project, profile?.name ?? '', clientName, siteAddress, figures),
+          },
+          { transaction },
+        );
+        if (caller.gone) throw new CallerGone();
+        return made;
+      }).catch((error: unknown) => {
+        if (error instanceof CallerGone) return null;
+        throw error;
       });
-      response.status(201).json(summary(report));
+      if (report) response.status(201).json(summary(report));
     },
 
     listProjectReports: async (request, response) => {

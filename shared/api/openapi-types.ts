@@ -201,6 +201,34 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/account/preferences": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * My preferences, kept on the server so that they follow me to any browser
+         * @description How the signed-in user likes the pages laid out. A preference never chosen is `null`: the
+         *     page then keeps its own default (every column of the candidates table).
+         */
+        get: operations["getPreferences"];
+        /**
+         * Save my preferences
+         * @description `candidateColumns` lists the candidates table's columns to show, each at most once; the
+         *     rank, the pick for comparison and the pump are always shown and are not listed. An empty
+         *     list hides every other column. The ids are those of `CandidateColumn`; an id that is not
+         *     one of them, or one given twice, is a 422 naming its index (`/body/candidateColumns/3`).
+         */
+        put: operations["updatePreferences"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/admin/users": {
         parameters: {
             query?: never;
@@ -803,7 +831,9 @@ export interface paths {
          *     the chosen pumps and their alternatives with first cost (when known) and running cost, the
          *     comparison chart, the crew's parts list and the cautions, with the date and the catalog
          *     revision used. Its figures are the selection search's for the saved design. The project's
-         *     owner and admins may make one.
+         *     owner and admins may make one. A caller that closes the connection (cancels) before the PDF
+         *     is stored gets no answer and leaves nothing stored; once stored, the proposal is kept and
+         *     listed even if its answer was not read.
          */
         post: operations["createProjectReport"];
         delete?: never;
@@ -2382,6 +2412,29 @@ export interface components {
             name: components["schemas"]["PersonName"];
             password: components["schemas"]["NewPassword"];
         };
+        /**
+         * @description A column of the candidates table that the user may hide, in table order: the pumps
+         *     installed and running (`arrangement`), the duty point's `flow` and `head` (TDH), its share of
+         *     the best efficiency flow (`bep`), its operating `region`, input `power`, `energy` a year and
+         *     its `cost`, the list `price`, the `firstCost` of the set, the `lifeCycleCost`, the duty with
+         *     one pump failed (`oneFailed`), what the pump `misses`, its `warnings` and the `reasons` for
+         *     its place.
+         * @enum {string}
+         */
+        CandidateColumn: "arrangement" | "flow" | "head" | "bep" | "region" | "power" | "energy" | "cost" | "price" | "firstCost" | "lifeCycleCost" | "oneFailed" | "misses" | "warnings" | "reasons";
+        Preferences: {
+            /** @description The candidates table's shown columns in table order; null until first chosen. */
+            candidateColumns: components["schemas"]["CandidateColumn"][] | null;
+            /**
+             * Format: date-time
+             * @description When they were last saved; null if never.
+             */
+            updatedAt: string | null;
+        };
+        PreferencesInput: {
+            /** @description The candidates table's columns to show, each at most once (ids of `CandidateColumn`). */
+            candidateColumns: string[];
+        };
         ApiTokenSummary: {
             id: number;
             name: string;
@@ -3189,6 +3242,96 @@ export interface operations {
             403: components["responses"]["NotAllowed"];
             422: components["responses"]["PasswordNotChanged"];
             429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getPreferences: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The preferences; `null` where nothing was chosen yet. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Preferences"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+        };
+    };
+    updatePreferences: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["PreferencesInput"];
+            };
+        };
+        responses: {
+            /** @description The saved preferences. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "candidateColumns": [
+                     *         "arrangement",
+                     *         "flow",
+                     *         "head",
+                     *         "bep",
+                     *         "region",
+                     *         "power",
+                     *         "energy",
+                     *         "oneFailed",
+                     *         "misses",
+                     *         "warnings"
+                     *       ],
+                     *       "updatedAt": "2026-12-03T12:30:00.000Z"
+                     *     }
+                     */
+                    "application/json": components["schemas"]["Preferences"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["NotAllowed"];
+            /** @description A column id is not one of `CandidateColumn`, breaks the text rules, or is given twice; `pointer` names its index. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    /**
+                     * @example {
+                     *       "type": "/api/v1/problems/unknown-column",
+                     *       "title": "Unknown column",
+                     *       "status": 422,
+                     *       "detail": "/body/candidateColumns/1 is not a column of the candidates table",
+                     *       "pointer": "/body/candidateColumns/1",
+                     *       "errors": [
+                     *         {
+                     *           "pointer": "/body/candidateColumns/1",
+                     *           "detail": "must be one of: arrangement, flow, head, bep, region, power, energy, cost, price, firstCost, lifeCycleCost, oneFailed, misses, warnings, reasons"
+                     *         }
+                     *       ]
+                     *     }
+                     */
+                    "application/problem+json": components["schemas"]["ProblemDetails"];
+                };
+            };
         };
     };
     listUsers: {

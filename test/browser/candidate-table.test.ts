@@ -1,12 +1,13 @@
 import { expect } from 'chai';
 import { axeViolations, scratchDatabase, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
-import { saveScreenshot } from '../support/browser';
+import { openBrowser, saveScreenshot } from '../support/browser';
 import { createUserWithSession, testPassword } from '../support/accounts';
 import { seedSyntheticCatalog, syntheticShapes } from '../server/selection/synthetic-catalog';
 
 /*
  * The candidates as a designer reads them: on a wide screen a table whose columns the designer
- * chooses (kept for that user after a reload), the pump kept in view while it scrolls sideways,
+ * chooses (kept for that user on the server, so after a reload and in another browser, and in
+ * this browser when the server cannot take it), the pump kept in view while it scrolls sideways,
  * sortable and filtered by one box; on a phone one card per candidate with five figures and the
  * rest on tap; and the pipe size that would keep a fast segment under the velocity limit.
  */
@@ -134,10 +135,16 @@ describe('the candidates table and cards in Chromium', function () {
   it('hides the columns the designer unticks, and keeps that choice after a reload', async () => {
     const { page } = app;
     expect(await page.locator('th.mat-column-reasons').count()).to.equal(1);
+    // the two ticks go to the server as one save, once the designer stops choosing
+    const saved = page.waitForResponse(
+      (response) => response.url().endsWith('/api/v1/account/preferences') && response.request().method() === 'PUT',
+    );
     await page.getByLabel('Columns shown').click();
     await page.getByRole('option', { name: 'Why this place' }).click();
     await page.getByRole('option', { name: 'Warnings' }).click();
     await page.keyboard.press('Escape');
+    const sent = (await saved).request().postDataJSON() as { candidateColumns: string[] };
+    expect(sent.candidateColumns).to.include('flow').and.not.include('reasons').and.not.include('warnings');
     expect(await page.locator('th.mat-column-reasons').count()).to.equal(0);
     expect(await page.locator('th.mat-column-warnings').count()).to.equal(0);
     expect(await page.locator('th.mat-column-pump').count()).to.equal(1);
@@ -148,6 +155,83 @@ describe('the candidates table and cards in Chromium', function () {
     expect(await page.locator('th.mat-column-reasons').count()).to.equal(0);
     expect(await page.locator('th.mat-column-flow').count()).to.equal(1);
     await saveScreenshot(page, 'candidates-chosen-columns');
+  });
+
+  it('keeps the chosen columns on the server: a fresh browser with nothing stored shows them after sign-in', async () => {
+    const elsewhere = await openBrowser();
+    try {
+      const { page } = elsewhere;
+      await page.setViewportSize({ width: 1400, height: 900 });
+      await page.goto(`${app.url}/accounts/sign-in`, { waitUntil: 'networkidle' });
+      expect(
+        await page.evaluate(() => Object.keys(localStorage).filter((key) => key.startsWith('riffle.'))),
+      ).to.deep.equal([]);
+      const loaded = page.waitForResponse(
+        (response) => response.url().endsWith('/api/v1/account/preferences') && response.request().method() === 'GET',
+      );
+      await page.fill('input[name=email]', email);
+      await page.fill('input[name=password]', testPassword);
+      await page.click('button[type=submit]');
+      expect((await loaded).status()).to.equal(200);
+      await page.goto(`${app.url}/design/candidates`, { waitUntil: 'networkidle' });
+      await Promise.all([
+        page.waitForResponse((response) => response.url().endsWith('/api/v1/selections'), { timeout: 15_000 }),
+        page.getByRole('button', { name: /Find candidates/ }).click(),
+      ]);
+      await page.locator('tr[data-candidate]').first().waitFor({ timeout: 15_000 });
+      expect(await page.locator('th.mat-column-reasons').count()).to.equal(0);
+      expect(await page.locator('th.mat-column-warnings').count()).to.equal(0);
+      expect(await page.locator('th.mat-column-flow').count()).to.equal(1);
+      expect(await page.locator('th.mat-column-pump').count()).to.equal(1);
+    } finally {
+      await elsewhere.close();
+    }
+  });
+
+  it('keeps the local choice, and says nothing, when the server cannot save it', async () => {
+    const { page } = app;
+    await page.route('**/api/v1/account/preferences', (route) =>
+      route.request().method() === 'PUT'
+        ? route.fulfill({
+            status: 503,
+            contentType: 'application/problem+json',
+            body: '{"type":"about:blank","title":"Service unavailable","status":503}',
+          })
+        : route.continue(),
+    );
+    try {
+      const refused = page.waitForResponse(
+        (response) => response.url().endsWith('/api/v1/account/preferences') && response.request().method() === 'PUT',
+      );
+      await page.getByLabel('Columns shown').click();
+      await page.getByRole('option', { name: 'Misses' }).click();
+      await page.keyboard.press('Escape');
+      expect((await refused).status()).to.equal(503);
+      expect(await page.locator('th.mat-column-misses').count()).to.equal(0);
+      await page.waitForTimeout(500); // time for a snack bar to open, were one to
+      expect(await page.locator('.rf-problem-snack').count()).to.equal(0);
+      expect(await page.getByRole('alert').count()).to.equal(0);
+    } finally {
+      await page.unroute('**/api/v1/account/preferences');
+    }
+    // the next load sends the choice the server missed, and this browser shows it meanwhile
+    const resent = page.waitForResponse(
+      (response) => response.url().endsWith('/api/v1/account/preferences') && response.request().method() === 'PUT',
+    );
+    await page.reload({ waitUntil: 'networkidle' });
+    const body = (await resent).request().postDataJSON() as { candidateColumns: string[] };
+    expect(body.candidateColumns).to.not.include('misses').and.not.include('reasons');
+    await findCandidates();
+    expect(await page.locator('th.mat-column-misses').count()).to.equal(0);
+    expect(await page.locator('th.mat-column-reasons').count()).to.equal(0);
+    // and puts it back for the later tests
+    const restored = page.waitForResponse(
+      (response) => response.url().endsWith('/api/v1/account/preferences') && response.request().method() === 'PUT',
+    );
+    await page.getByLabel('Columns shown').click();
+    await page.getByRole('option', { name: 'Misses' }).click();
+    await page.keyboard.press('Escape');
+    expect((await restored).status()).to.equal(200);
   });
 
   it('shows one card per candidate on a phone, five figures each and the rest on tap', async () => {

@@ -7,6 +7,7 @@ import { Invitation } from './invitation';
 import { PasswordResetLink } from './password-reset-link';
 import { Session } from './session';
 import { User } from './user';
+import { UserPreference } from './user-preference';
 // catalog
 import { CurveDeclaredRange } from './curve-declared-range';
 import { CurveImport } from './curve-import';
@@ -28,13 +29,15 @@ import { ProposalMail } from './proposal-mail';
 export function initialiseModels(sequelize: Sequelize): void {
   Supplier.initialise(sequelize);
   // accounts
-  for (const model of [User, Session, ApiToken, Invitation, PasswordResetLink, AuditEvent]) model.initialise(sequelize);
+  for (const model of [User, UserPreference, Session, ApiToken, Invitation, PasswordResetLink, AuditEvent])
+    model.initialise(sequelize);
   // Models are initialised again for each scratch database; associations are declared once.
   if (!User.associations.supplier) {
     User.belongsTo(Supplier, { as: 'supplier', foreignKey: 'supplierId' });
     Session.belongsTo(User, { as: 'user', foreignKey: 'userId' });
     ApiToken.belongsTo(User, { as: 'user', foreignKey: 'userId' });
     PasswordResetLink.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+    UserPreference.belongsTo(User, { as: 'user', foreignKey: 'userId' });
     AuditEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorUserId' });
     AuditEvent.belongsTo(User, { as: 'subject', foreignKey: 'subjectUserId' });
   }
@@ -76,7 +79,7 @@ export function initialiseModels(sequelize: Sequelize): void {
 }
 
 export { Supplier };
-export { ApiToken, AuditEvent, Invitation, PasswordResetLink, Session, User };
+export { ApiToken, AuditEvent, Invitation, PasswordResetLink, Session, User, UserPreference };
 export { CurveDeclaredRange, CurveImport, CurvePoint, CurveRevision, Pump };
 export { Project, ProjectRevision };
 export { CompanyProfile, ProjectReport };

@@ -1,9 +1,9 @@
-import { HttpClient, provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpClient, HttpContext, provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
-import { authTokenInterceptor } from './auth-token-interceptor';
+import { BACKGROUND_REQUEST, authTokenInterceptor } from './auth-token-interceptor';
 import { SessionService } from './session-service';
 
 const session = {
@@ -52,6 +52,20 @@ describe('authTokenInterceptor and SessionService', () => {
     expect(sessions.signedIn()).toBe(false);
     expect(localStorage.getItem('riffle.session')).toBeNull();
     expect(navigate).toHaveBeenCalledWith(['/accounts/sign-in'], { queryParams: { returnTo: '/' } });
+  });
+
+  it('leaves the session and the page alone when a request the app made by itself is refused', () => {
+    const sessions = TestBed.inject(SessionService);
+    const navigate = vi.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
+    sessions.start(session);
+    TestBed.inject(HttpClient)
+      .get('/api/v1/account/preferences', { context: new HttpContext().set(BACKGROUND_REQUEST, true) })
+      .subscribe({ error: () => undefined });
+    const refused = TestBed.inject(HttpTestingController).expectOne('/api/v1/account/preferences');
+    expect(refused.request.headers.get('Authorization')).toBe(`Bearer ${session.token}`);
+    refused.flush({ title: 'Sign-in required', status: 401 }, { status: 401, statusText: 'Unauthorized' });
+    expect(sessions.signedIn()).toBe(true);
+    expect(navigate).not.toHaveBeenCalled();
   });
 
   it('forgets an expired session and filters pages by role', () => {

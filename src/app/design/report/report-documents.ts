@@ -1,12 +1,14 @@
 import { DatePipe } from '@angular/common';
 import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, effect, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, effect, inject, signal, untracked } from '@angular/core';
+import type { Subscription } from 'rxjs';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import type { ReportPaper, ReportSummary } from '../../../../shared/api/api-schemas';
 import { describeHttpError } from '../../core/problem-details';
@@ -31,6 +33,7 @@ import { DecimalInput } from '../../shared/locale-numbers';
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
+    MatProgressBarModule,
   ],
   template: `
     <section class="rf-card rf-no-print" aria-labelledby="rf-report-documents">
@@ -59,12 +62,31 @@ import { DecimalInput } from '../../shared/locale-numbers';
           </mat-form-field>
         </div>
         <div class="rf-report-documents-actions">
-          <button mat-flat-button type="button" (click)="makePdf(project.id)" [disabled]="busy()">
+          <button mat-flat-button type="button" (click)="makePdf(project.id)" [disabled]="busy() || making()">
             <mat-icon>picture_as_pdf</mat-icon> Make PDF
           </button>
-          <button mat-stroked-button type="button" (click)="partsList(project.id)" [disabled]="busy()">
-            <mat-icon>list_alt</mat-icon> Parts list (CSV)
-          </button>
+          @if (making()) {
+            <button mat-stroked-button type="button" (click)="cancelPdf(project.id)">
+              <mat-icon>close</mat-icon> Cancel PDF
+            </button>
+          } @else {
+            <button mat-stroked-button type="button" (click)="partsList(project.id)" [disabled]="busy()">
+              <mat-icon>list_alt</mat-icon> Parts list (CSV)
+            </button>
+          }
+        </div>
+        <div role="status">
+          @if (making()) {
+            <mat-progress-bar mode="indeterminate" aria-label="Making the PDF" />
+            <p class="rf-muted">
+              Making the PDF: working out the figures for the saved design and laying out the pages. It is stored with
+              the project and downloads when it is ready.
+            </p>
+          } @else if (cancelled()) {
+            <p class="rf-muted">
+              PDF cancelled: nothing is stored. Had it been stored just before you cancelled, it is in the list below.
+            </p>
+          }
         </div>
         @if (problem(); as message) {
           <p class="rf-report-documents-problem" role="alert">{{ message }}</p>
@@ -81,6 +103,11 @@ import { DecimalInput } from '../../shared/locale-numbers';
               </li>
             }
           </ul>
+        } @else if (listed()) {
+          <p class="rf-muted" data-no-proposals>
+            No proposal of this project is stored yet. Check the client, the site and the paper above, then choose Make
+            PDF: each one made is kept here to download again.
+          </p>
         }
       } @else {
         <p class="rf-muted">Save the design as a project to make its proposal PDF and parts list.</p>
@@ -99,6 +126,7 @@ import { DecimalInput } from '../../shared/locale-numbers';
     .rf-report-documents-actions {
       display: flex;
       gap: 0.75rem;
+      margin-bottom: 0.75rem;
     }
     .rf-report-documents-problem {
       color: var(--mat-sys-error);
@@ -123,14 +151,26 @@ export class ReportDocuments {
   protected siteAddress = '';
   protected allowance = 10;
   protected readonly reports = signal<ReportSummary[]>([]);
+  /** Whether the stored proposals have been listed, so the empty list is not announced before. */
+  protected readonly listed = signal(false);
   protected readonly busy = signal(false);
+  protected readonly making = signal(false);
+  protected readonly cancelled = signal(false);
   protected readonly problem = signal<string | null>(null);
+  // only the Cancel button stops it: leaving the step lets the PDF be made and stored as before
+  private pendingPdf: Subscription | null = null;
 
   constructor() {
     effect(() => {
       const project = this.draft.project();
-      if (!project) return;
-      this.api.listReports(project.id).subscribe((list) => this.reports.set(list.reports));
+      if (project) untracked(() => this.listReports(project.id));
+    });
+  }
+
+  private listReports(projectId: number): void {
+    this.api.listReports(projectId).subscribe((list) => {
+      this.reports.set(list.reports);
+      this.listed.set(true);
     });
   }
 
@@ -140,9 +180,10 @@ export class ReportDocuments {
   }
 
   protected makePdf(projectId: number): void {
-    this.busy.set(true);
+    this.making.set(true);
+    this.cancelled.set(false);
     this.problem.set(null);
-    this.api
+    this.pendingPdf = this.api
       .createReport(projectId, {
         paper: this.paper,
         clientName: this.clientName,
@@ -151,11 +192,27 @@ export class ReportDocuments {
       })
       .subscribe({
         next: (report) => {
+          this.making.set(false);
           this.reports.update((reports) => [report, ...reports]);
           this.download(report);
         },
-        error: (error: HttpErrorResponse) => this.failed(error),
+        error: (error: HttpErrorResponse) => {
+          this.making.set(false);
+          this.failed(error);
+        },
       });
+  }
+
+  /**
+   * Stops waiting for the PDF: the request is aborted, and the server keeps nothing it had not yet
+   * stored. The list is asked again, for a proposal stored in the instant before the cancel.
+   */
+  protected cancelPdf(projectId: number): void {
+    this.pendingPdf?.unsubscribe();
+    this.pendingPdf = null;
+    this.making.set(false);
+    this.cancelled.set(true);
+    this.listReports(projectId);
   }
 
   protected download(report: ReportSummary): void {
