@@ -43,7 +43,9 @@ export function arrangementLabel(candidate: Pick<SelectionCandidate, 'arrangemen
 /** A candidate's kind and the solids it passes, in words. */
 export function pumpFacts(candidate: Pick<SelectionCandidate, 'kind' | 'solidsHandlingMm'>): string {
   const solids =
-    candidate.solidsHandlingMm === null ? 'solids not given' : `passes ${candidate.solidsHandlingMm} mm solids`;
+    candidate.solidsHandlingMm === null
+      ? 'solids not given'
+      : `passes ${formatFigure(candidate.solidsHandlingMm, '1.0-1')} mm solids`;
   return `${kindLabels[candidate.kind] ?? candidate.kind} · ${solids}`;
 }
 
