@@ -206,13 +206,18 @@ function bandSection(doc: Doc, content: ProposalContent): void {
   );
 }
 
+/** A variable- or multi-speed pump's running speed, as the search chose it. */
+function speedWords(speed: NonNullable<SelectionCandidate['speed']>): string {
+  return `at ${Math.round(speed.rpm)} rpm (${Math.round(100 * speed.ratio)} % speed)`;
+}
+
 function candidateRow(candidate: SelectionCandidate, content: ProposalContent): string[] {
   const point = candidate.operatingPoint;
   const costs = candidateCosts(candidate, content.prices);
   const money = (value: number | null) => (value === null ? '-' : `${figure(value, 0)} ${costs.currency ?? ''}`.trim());
   return [
     String(candidate.rank),
-    `${candidate.supplier} ${candidate.model} (${candidate.modelCode})`,
+    `${candidate.supplier} ${candidate.model} (${candidate.modelCode})${candidate.speed ? `, ${speedWords(candidate.speed)}` : ''}`,
     `${candidate.arrangement.running} run / ${candidate.arrangement.installed} inst.`,
     figure(point.flow, 1),
     figure(point.head, 2),
@@ -235,6 +240,9 @@ function pumpsSection(doc: Doc, content: ProposalContent): SelectionCandidate[] 
   const chosen = shown[0];
   facts(doc, [
     ['Chosen', `${chosen.supplier} ${chosen.model} (${chosen.modelCode})`],
+    ...(chosen.speed
+      ? [['Speed', `Run ${speedWords(chosen.speed)} by its drive or controller`] as [string, string]]
+      : []),
     [
       'Duty point',
       `${figure(chosen.operatingPoint.flow, 1)} ${units.flow} at ${figure(chosen.operatingPoint.head, 2)} ${units.head} TDH`,

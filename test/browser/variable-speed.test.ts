@@ -80,5 +80,14 @@ describe('a variable-speed pump found at reduced speed, in Chromium', function (
     expect(await page.locator('.rf-side thead th').nth(1).innerText()).to.contain(`at ${Math.round(ratio * 2900)} rpm`);
     await saveScreenshot(page, 'variable-speed-comparison');
     expect(seriousOrCritical(await axeViolations(page)), 'axe').to.deep.equal([]);
+
+    // the report names the same speed beside the pump it compares
+    await page.getByRole('link', { name: 'Next: the report' }).click();
+    const reported = page.locator('rf-selection-report-page [data-speed-rpm]').first();
+    await reported.waitFor();
+    expect(Number(await reported.getAttribute('data-speed-rpm'))).to.be.closeTo(ratio * 2900, 1);
+    expect(await reported.innerText()).to.equal(
+      `at ${Math.round(ratio * 2900)} rpm (${Math.round(100 * ratio)} % speed)`,
+    );
   });
 });

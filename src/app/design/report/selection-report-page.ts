@@ -18,7 +18,7 @@ import { drawComparisonChart } from '../compare/comparison-chart';
 import { candidateLabel, comparisonModel } from '../compare/comparison-model';
 import { comparisonNumbers } from '../compare/comparison-numbers';
 import { ChartNumbers } from '../../shared/chart-numbers';
-import { moneyLabel, motorLabel } from '../energy-and-costs';
+import { moneyLabel, motorLabel, speedLabel } from '../energy-and-costs';
 import { SelectionDraft } from '../selection-draft';
 import { SystemSchematic } from '../system-schematic';
 import { compileDraft, staticHeadOf, type SystemDraft } from '../system-draft';
@@ -122,6 +122,7 @@ export class SelectionReportPage {
   protected readonly label = candidateLabel;
   protected readonly motorLabel = motorLabel;
   protected readonly moneyLabel = moneyLabel;
+  protected readonly speedLabel = speedLabel;
 
   private readonly chartModel = computed(() =>
     comparisonModel(
