@@ -2130,6 +2130,8 @@ export interface components {
             rankBy?: "energy" | "first-cost" | "life-cycle-cost";
             costs?: components["schemas"]["SelectionCosts"] | null;
             limit: number;
+            /** @description A catalog pump already installed that stays: the search looks for one pump to add beside it in parallel (SelectionKeep), one added pump and no standby; null or left out for none. */
+            keepPumpId?: number | null;
         };
         /** @description A whole design as the design pages keep it; numbers are in the units of `unitSystem` (us - gpm, ft, in; si - L/min, m, mm). */
         DesignDraft: {
