@@ -31,8 +31,18 @@ const sortValues: Record<string, (candidate: SelectionCandidate) => number | str
   firstCost: (candidate) => candidate.firstCost?.amount ?? Number.POSITIVE_INFINITY,
   lifeCycleCost: (candidate) => candidate.lifeCycleCost?.amount ?? Number.POSITIVE_INFINITY,
   misses: (candidate) => candidate.misses.length,
-  oneFailed: (candidate) => candidate.oneFailed?.flow ?? -1,
+  oneFailed: (candidate) => oneFailedFlow(candidate) ?? -1,
 };
+
+/**
+ * The flow with one pump failed; beside a kept pump, the lesser of the two single failures (the
+ * kept or the added pump stopped); null when there is none or the rest have no operating point.
+ */
+export function oneFailedFlow(candidate: Pick<SelectionCandidate, 'oneFailed' | 'set'>): number | null {
+  if (!candidate.set) return candidate.oneFailed?.flow ?? null;
+  const flows = candidate.set.stopped.map((stopped) => stopped.flow);
+  return flows.includes(null) ? null : Math.min(...(flows as number[]));
+}
 
 /** How a candidate's pumps run, in words. */
 export function arrangementLabel(candidate: Pick<SelectionCandidate, 'arrangement' | 'set'>): string {
@@ -162,6 +172,7 @@ export class CandidateResults {
   protected readonly missesLabel = missesLabel;
   protected readonly branchFlowsLabel = branchFlowsLabel;
   protected readonly keptShareLabel = keptShareLabel;
+  protected readonly oneFailedFlow = oneFailedFlow;
   protected readonly stoppedLabel = stoppedLabel;
 
   protected sortBy(sort: Sort): void {
