@@ -52,9 +52,14 @@ export function searchBesideKeptPump(state: CatalogState, query: SelectionQuery,
   const keptAlone = dutyOfMixedSet([kept], query.system, query.band, query.density);
   const accepted: number[] = [];
   const inBand: number[] = [];
+  let leftOut = 0;
   for (let index = 0; index < state.pumps.length; index += 1) {
+    if (!query.accepts(state.pumps[index])) continue;
     // a mixed set needs each curve from zero flow (its shut-off head)
-    if (flowMin[index] !== 0 || !query.accepts(state.pumps[index])) continue;
+    if (flowMin[index] !== 0) {
+      leftOut += 1;
+      continue;
+    }
     accepted.push(index);
     const offset = index * 4;
     const reachesMin = need <= 0 || (need <= flowMax[index] && cubicAt(coefficients, offset, need) >= headAtMin);
@@ -100,5 +105,6 @@ export function searchBesideKeptPump(state: CatalogState, query: SelectionQuery,
     considered: accepted.length,
     inBand: inBand.length,
     candidates: ranked.slice(0, query.limit).map(({ candidate }) => candidate),
+    leftOut,
   };
 }

@@ -191,6 +191,10 @@ export async function answerSelection(catalog: CatalogSnapshot, body: SelectionR
   const query = { ...plain, keep: keptPumpOf(body, state, plain.motorEfficiency) };
   const outcome = searchCatalog(state, query);
   if (outcome.candidates.length === 0) warnings.push('no catalog pump meets this system in the arrangements asked for');
+  if (outcome.leftOut)
+    warnings.push(
+      `catalog pumps left out (${outcome.leftOut}): a curve that does not start at zero flow cannot be set in parallel beside the kept pump`,
+    );
   return {
     units: echoedUnits(body.units),
     duty: body.duty,

@@ -126,4 +126,6 @@ export interface SelectionOutcome {
   considered: number;
   inBand: number;
   candidates: RankedCandidate[];
+  /** Beside a kept pump: accepted pumps left out because their curve does not start at zero flow. */
+  leftOut?: number;
 }

@@ -5,6 +5,7 @@ import type { OpenAPIV3_1 } from 'openapi-types';
 import { openApiDocument } from '../../../server/api/openapi-document';
 import { createApp } from '../../../server/app';
 import { createLogger } from '../../../server/logging';
+import { snapshotClock } from '../../../server/catalog/catalog-snapshot';
 import {
   compileSystemCurve,
   flowFromSI,
@@ -97,7 +98,9 @@ describe('POST /api/v1/selections with keep', function () {
     for (const row of rows)
       fits.set(row.pump_id, (typeof row.fit === 'string' ? JSON.parse(row.fit) : row.fit) as PumpCurveFit);
   });
+  const realClock = snapshotClock.now;
   after(async () => {
+    snapshotClock.now = realClock;
     await scratch?.drop();
   });
 
@@ -230,6 +233,24 @@ describe('POST /api/v1/selections with keep', function () {
     const validate = contractSchemaValidator('SelectionResponse');
     expect(validate(response.body), JSON.stringify(validate.errors)).to.equal(true);
     expect(response.body.candidates[0].set.pumps[0].pumpId).to.equal(keptId);
+  });
+
+  it('leaves out, and says so, a pump whose curve does not start at zero flow', async () => {
+    const before = (await post('/selections', search({ limit: 1 })).expect(200)).body as SelectionResponse;
+    const pumpId = before.candidates[0].pumpId;
+    await scratch.sequelize.query(
+      `UPDATE curve_revisions r JOIN pumps p ON p.current_revision_id = r.id
+       SET r.fit = JSON_SET(r.fit, '$.flowMin', 0.0002), p.updated_at = NOW() + INTERVAL 1 MINUTE WHERE p.id = ?`,
+      { replacements: [pumpId] },
+    );
+    // past the snapshot's stamp reuse, so the search reads the changed catalog
+    snapshotClock.now = () => realClock() + 60_000;
+    const after = (await post('/selections', search({ limit: 200 })).expect(200)).body as SelectionResponse;
+    expect(after.considered).to.equal(fits.size - 1);
+    expect(after.candidates.map((candidate) => candidate.pumpId)).to.not.include(pumpId);
+    expect(after.warnings).to.include(
+      'catalog pumps left out (1): a curve that does not start at zero flow cannot be set in parallel beside the kept pump',
+    );
   });
 
   const refusals: Array<{ name: string; body: () => object; status: number; pointer: string; under?: true }> = [
