@@ -27,7 +27,11 @@ const ESTIMATED_CURVE_PENALTY = 0.01;
 
 const roleWords = { kept: 'the kept pump', added: 'the added pump' } as const;
 
-function stoppedCases(outcomes: readonly [MixedSetOutcome, MixedSetOutcome], query: SelectionQuery) {
+/** The set with the kept pump stopped, then the added one, from each other pump's outcome alone. */
+export function stoppedCases(
+  outcomes: readonly [MixedSetOutcome, MixedSetOutcome],
+  query: SelectionQuery,
+): KeptSetDuty['stopped'] {
   return (['kept', 'added'] as const).map((role, at) => {
     const outcome = outcomes[at];
     const point = outcome.ok ? outcome.point : null;
@@ -64,14 +68,14 @@ function keyOf(candidate: RankedCandidate, query: SelectionQuery): number {
 }
 
 /**
- * `pump` added beside the kept one at the set's `point` (members: kept, added), with the sets of
- * the added pump alone and of the kept one alone; null when a filter leaves it out (the added
- * pump's region and input power are what the filters read).
+ * `pump` added beside the kept one at the set's `point` (members: kept, added), with the set
+ * with either one stopped (stoppedCases); null when a filter leaves it out (the added pump's
+ * region and input power are what the filters read).
  */
 export function rankKeptSet(
   pump: CatalogPump,
   point: MixedSetPoint,
-  alone: readonly [MixedSetOutcome, MixedSetOutcome],
+  stopped: KeptSetDuty['stopped'],
   query: SelectionQuery,
 ): { candidate: RankedCandidate; key: number } | null {
   const kept = point.members[0].point;
@@ -89,7 +93,6 @@ export function rankKeptSet(
   if (kept.flowPerPump === 0)
     reasons.push('the kept pump delivers nothing beside it: its shut-off head is not above the common head');
   else reasons.push(`kept pump ${regionReason(kept)}`);
-  const stopped = stoppedCases(alone, query);
   stopped.forEach((each) => reasons.push(stoppedReason(each)));
   const bothMeet = stopped.every((each) => each.meetsMinimum);
 

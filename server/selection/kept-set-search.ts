@@ -1,9 +1,14 @@
 import { motorEfficiencyFor, polynomialValue, type PumpCurveFit } from '../../shared/hydraulics';
-import { dutyOfMixedSet, withOnePumpStopped, type MixedSetMember } from '../calculations/mixed-set-duty';
-import type { CatalogState } from '../catalog/catalog-snapshot';
-import { rankKeptSet } from './kept-set-candidate';
+import {
+  dutyOfMixedSet,
+  withOnePumpStopped,
+  type MixedSetMember,
+  type MixedSetPoint,
+} from '../calculations/mixed-set-duty';
+import type { CatalogPump, CatalogState } from '../catalog/catalog-snapshot';
+import { rankKeptSet, stoppedCases } from './kept-set-candidate';
 import { cubicAt, packedCurves } from './packed-curves';
-import type { KeptPump, RankedCandidate, SelectionOutcome, SelectionQuery } from './selection-query';
+import type { KeptPump, SelectionOutcome, SelectionQuery } from './selection-query';
 import { OUT_OF_BAND_TIER } from './selection-shortfalls';
 import { TIER_SPAN } from './selection-ranking';
 
@@ -41,6 +46,10 @@ function keptMember(keep: KeptPump): MixedSetMember {
   return { entry: 0, pump: keep.pump, running: 1, motorEfficiency: keep.motorEfficiency };
 }
 
+function addedMember(pump: CatalogPump, query: SelectionQuery): MixedSetMember {
+  return { entry: 1, pump, running: 1, motorEfficiency: motorEfficiencyFor(pump, query.motorEfficiency).value };
+}
+
 /** Ranks the catalog's pumps as the one added beside `query.keep` (see the note at the top). */
 export function searchBesideKeptPump(state: CatalogState, query: SelectionQuery, keep: KeptPump): SelectionOutcome {
   const { coefficients, flowMin, flowMax } = packedCurves(state);
@@ -67,31 +76,36 @@ export function searchBesideKeptPump(state: CatalogState, query: SelectionQuery,
     if (reachesMin && staysBelowMax) inBand.push(index);
   }
 
-  const ranked: Array<{ candidate: RankedCandidate; key: number }> = [];
+  // Ranked first on the added pump alone by the sign test at Qmin (as the plain search ranks
+  // redundancy); only the answer's few have that pump alone solved, for their figures.
+  const keptMeets = keptAlone.ok && keptAlone.point.flow >= query.flowMin * (1 - 1e-9);
+  const headAtMinIsMet = (index: number) =>
+    query.flowMin <= flowMax[index] && cubicAt(coefficients, index * 4, query.flowMin) >= headAtMin;
+  const ranked: Array<{ index: number; point: MixedSetPoint; key: number }> = [];
   const solve = (index: number) => {
     const pump = state.pumps[index];
-    const added: MixedSetMember = {
-      entry: 1,
-      pump,
-      running: 1,
-      motorEfficiency: motorEfficiencyFor(pump, query.motorEfficiency).value,
-    };
-    const members = [kept, added];
-    const duty = dutyOfMixedSet(members, query.system, query.band, query.density);
+    const duty = dutyOfMixedSet([kept, addedMember(pump, query)], query.system, query.band, query.density);
     if (!duty.ok) return;
-    const addedAlone = dutyOfMixedSet(withOnePumpStopped(members, 0), query.system, query.band, query.density);
-    const result = rankKeptSet(pump, duty.point, [addedAlone, keptAlone], query);
-    if (result) ranked.push(result);
+    const screened = rankKeptSet(
+      pump,
+      duty.point,
+      [
+        { role: 'kept', point: null, meetsMinimum: headAtMinIsMet(index) },
+        { role: 'added', point: null, meetsMinimum: keptMeets },
+      ],
+      query,
+    );
+    if (screened) ranked.push({ index, point: duty.point, key: screened.key });
   };
   inBand.forEach(solve);
   const adequate = ranked.filter(({ key }) => key < OUT_OF_BAND_TIER * TIER_SPAN).length;
   if (adequate < query.limit) {
-    const screened = new Set(inBand);
+    const solvedAlready = new Set(inBand);
     const middle = (query.flowMin + query.flowMax) / 2;
     const headAtMiddle = query.system.evaluate(middle);
     const needAtMiddle = middle - flowAtHead(keep.pump.fit, headAtMiddle);
     accepted
-      .filter((index) => !screened.has(index))
+      .filter((index) => !solvedAlready.has(index))
       .map((index) => {
         const flow = Math.min(Math.max(needAtMiddle, 0), flowMax[index]);
         return { index, gap: Math.abs(cubicAt(coefficients, index * 4, flow) - headAtMiddle) };
@@ -101,10 +115,12 @@ export function searchBesideKeptPump(state: CatalogState, query: SelectionQuery,
       .forEach(({ index }) => solve(index));
   }
   ranked.sort((a, b) => a.key - b.key);
-  return {
-    considered: accepted.length,
-    inBand: inBand.length,
-    candidates: ranked.slice(0, query.limit).map(({ candidate }) => candidate),
-    leftOut,
-  };
+  const candidates = ranked.slice(0, query.limit).flatMap(({ index, point }) => {
+    const pump = state.pumps[index];
+    const members = [kept, addedMember(pump, query)];
+    const addedAlone = dutyOfMixedSet(withOnePumpStopped(members, 0), query.system, query.band, query.density);
+    const full = rankKeptSet(pump, point, stoppedCases([addedAlone, keptAlone], query), query);
+    return full ? [full.candidate] : [];
+  });
+  return { considered: accepted.length, inBand: inBand.length, candidates, leftOut };
 }
