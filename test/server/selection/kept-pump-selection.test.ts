@@ -208,6 +208,31 @@ describe('POST /api/v1/selections with keep', function () {
     }
   });
 
+  it('ranks redundant sets first when the kept pump alone reaches a lower band minimum', async () => {
+    const lowBand = { flowMin: 60, flowMax: 130 };
+    const answer = (await post('/selections', search({ duty: lowBand, requireOneFailed: true, limit: 60 })).expect(200))
+      .body as SelectionResponse;
+    const [redundant, notRedundant] = [
+      answer.candidates.filter((candidate) => candidate.inBand && !candidate.misses.includes('redundancy')),
+      answer.candidates.filter((candidate) => candidate.inBand && candidate.misses.includes('redundancy')),
+    ];
+    expect(redundant.length).to.be.greaterThan(0);
+    expect(notRedundant.length).to.be.greaterThan(0);
+    for (const candidate of [...redundant.slice(0, 3), ...notRedundant.slice(0, 3)]) {
+      const addedAlone = (
+        await post('/calculations/operating-point', { units, system, pump: { pumpId: candidate.pumpId } })
+      ).body.operatingPoint;
+      const reaches = addedAlone !== undefined && addedAlone.flow >= lowBand.flowMin;
+      expect(candidate.set!.stopped[1].meetsMinimum).to.equal(true);
+      expect(candidate.set!.stopped[0].meetsMinimum).to.equal(reaches);
+      expect(candidate.misses.includes('redundancy')).to.equal(!reaches);
+    }
+    // in band, a candidate missing more requirements never ranks above one missing fewer
+    const inBand = answer.candidates.filter((candidate) => candidate.inBand);
+    for (let at = 1; at < inBand.length; at += 1)
+      expect(inBand[at - 1].misses.length).to.be.at.most(inBand[at].misses.length);
+  });
+
   it('takes an inline kept curve the same as the catalog pump of that curve', async () => {
     const curve = syntheticCurve(keptShape).map((point) => ({
       flow: flowFromSI(point.flow, 'gpm'),
