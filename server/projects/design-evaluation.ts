@@ -116,6 +116,7 @@ function queryFor(design: DesignDraft, { curve: system, density, suction }: Prep
     // the design's suction side, when it has one, as the search checks it
     suction,
     npshGuidance: DEFAULT_NPSH_GUIDANCE,
+    keep: null,
   };
   return query;
 }

@@ -20,6 +20,7 @@ import {
 import { prepareSystem, requirePlausibleFlow } from '../calculations/system-request';
 import type { CatalogPump, CatalogSnapshot } from '../catalog/catalog-snapshot';
 import { costTermsOf, type RankedCandidate, type SelectionQuery } from './selection-query';
+import { keptPumpOf, keptSetAnswer } from './kept-pump-request';
 import { pipeSizeSuggestions } from './pipe-size-suggestions';
 import { sampledCombinedCurve, searchCatalog } from './selection-search';
 import { unmetSummary, type BandMissFacts } from './selection-shortfalls';
@@ -46,6 +47,7 @@ function candidateAnswer(
   candidate: RankedCandidate,
   rank: number,
   body: SelectionRequest,
+  query: SelectionQuery,
   branched: CompiledBranchedSystem | null,
 ): SelectionCandidate {
   const to = answerUnits(body.units);
@@ -86,6 +88,9 @@ function candidateAnswer(
       ? { flowMin: to.flow(candidate.preferredRange.flowMin), flowMax: to.flow(candidate.preferredRange.flowMax) }
       : null,
     speed: candidate.pump.atSpeed ?? null,
+    ...(candidate.set
+      ? { set: keptSetAnswer(candidate.set, query.keep?.pumpId ?? null, candidate.pump.pumpId, body) }
+      : {}),
   };
 }
 
@@ -96,6 +101,8 @@ function bandMissFacts(
   state: Parameters<typeof searchCatalog>[0],
 ): BandMissFacts {
   const below = outcome.candidates.filter((candidate) => candidate.point.flow < query.flowMin).length;
+  if (query.keep)
+    return { below: 2 * below >= outcome.candidates.length, threeInParallelInBand: null, besideKeptPump: true };
   const threeInParallelInBand = query.arrangements.includes(3)
     ? null
     : searchCatalog(state, { ...query, arrangements: [3], limit: 1 }).inBand;
@@ -154,7 +161,7 @@ function selectionQuery(body: SelectionRequest): {
       density,
       flowMin,
       flowMax,
-      arrangements: body.arrangements ?? defaultArrangements,
+      arrangements: body.arrangements ?? (body.keep ? [1] : defaultArrangements),
       requireOneFailed: body.requireOneFailed ?? false,
       standby: body.standby ?? false,
       band: preferredBandOf(body.preferredBand),
@@ -169,6 +176,7 @@ function selectionQuery(body: SelectionRequest): {
       limit: body.limit ?? defaultLimit,
       suction,
       npshGuidance: npshGuidanceOf(body.npshMarginRatio),
+      keep: null,
     },
     branched,
     gravityFlow,
@@ -178,10 +186,15 @@ function selectionQuery(body: SelectionRequest): {
 
 /** The search's answer for one request, as `POST /selections` gives it (reports use it too). */
 export async function answerSelection(catalog: CatalogSnapshot, body: SelectionRequest): Promise<SelectionResponse> {
-  const { query, branched, gravityFlow, warnings } = selectionQuery(body);
+  const { query: plain, branched, gravityFlow, warnings } = selectionQuery(body);
   const state = await catalog.current();
+  const query = { ...plain, keep: keptPumpOf(body, state, plain.motorEfficiency) };
   const outcome = searchCatalog(state, query);
   if (outcome.candidates.length === 0) warnings.push('no catalog pump meets this system in the arrangements asked for');
+  if (outcome.leftOut)
+    warnings.push(
+      `catalog pumps left out (${outcome.leftOut}): a curve that does not start at zero flow cannot be set in parallel beside the kept pump`,
+    );
   return {
     units: echoedUnits(body.units),
     duty: body.duty,
@@ -201,7 +214,9 @@ export async function answerSelection(catalog: CatalogSnapshot, body: SelectionR
     ),
     considered: outcome.considered,
     inBand: outcome.inBand,
-    candidates: outcome.candidates.map((candidate, index) => candidateAnswer(candidate, index + 1, body, branched)),
+    candidates: outcome.candidates.map((candidate, index) =>
+      candidateAnswer(candidate, index + 1, body, query, branched),
+    ),
     ...(gravityFlow === null ? {} : { gravityFlow: answerUnits(body.units).flow(gravityFlow) }),
     pipeSizeSuggestions: pipeSizeSuggestions(body.system, branched, query.flowMax, answerUnits(body.units)),
     warnings,

@@ -8,7 +8,8 @@ import {
   type PreferredBand,
   type SuctionSide,
 } from '../../shared/hydraulics';
-import type { DutyPoint, DutyWarning } from '../calculations/arrangement-duty';
+import type { DutyPoint, DutyWarning, PumpOnFile } from '../calculations/arrangement-duty';
+import type { MixedSetPoint } from '../calculations/mixed-set-duty';
 import type { CatalogPump } from '../catalog/catalog-snapshot';
 import type { SelectionRequirement } from './selection-shortfalls';
 
@@ -73,6 +74,25 @@ export interface SelectionQuery {
   /** The system's suction side, or null without one. */
   suction: SuctionSide | null;
   npshGuidance: NpshGuidance;
+  /** The pump kept beside each candidate, or null to search the arrangements alone. */
+  keep: KeptPump | null;
+}
+
+/** A pump already installed that stays, ready for the engine. */
+export interface KeptPump {
+  pump: PumpOnFile;
+  /** The catalog pump's id; null for an inline curve. */
+  pumpId: number | null;
+  /** 0-1, the motor efficiency its curve power is divided by. */
+  motorEfficiency: number;
+}
+
+/** A kept pump and a candidate at the set's duty, and the set with either one stopped. */
+export interface KeptSetDuty {
+  /** Members: the kept pump (entry 0), then the added one (entry 1). */
+  point: MixedSetPoint;
+  /** The kept pump stopped, then the added one; point null when the other alone has none. */
+  stopped: Array<{ role: 'kept' | 'added'; point: MixedSetPoint | null; meetsMinimum: boolean }>;
 }
 
 export interface RankedCandidate {
@@ -98,10 +118,14 @@ export interface RankedCandidate {
   npsh: NpshAtDuty | null;
   /** The combined curve's preferred region, total flow, m3/s. */
   preferredRange: { flowMin: number; flowMax: number } | null;
+  /** With a kept pump: the set's duty; `point` then holds the set's flow, head and power. */
+  set?: KeptSetDuty;
 }
 
 export interface SelectionOutcome {
   considered: number;
   inBand: number;
   candidates: RankedCandidate[];
+  /** Beside a kept pump: accepted pumps left out because their curve does not start at zero flow. */
+  leftOut?: number;
 }

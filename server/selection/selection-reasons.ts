@@ -16,6 +16,52 @@ function percent(value: number | null): string {
   return value === null ? '' : ` (${Math.round(value)} % of BEP)`;
 }
 
+/** Where a point runs on its pump's curve, in words. */
+export function regionReason(point: Pick<DutyPoint, 'region' | 'percentOfBep'>): string {
+  if (point.region === 'preferred') return `in the preferred operating region${percent(point.percentOfBep)}`;
+  if (point.region === 'allowable')
+    return `outside POR, inside the maker's allowable region${percent(point.percentOfBep)}`;
+  if (point.region === 'outside') return `outside POR${percent(point.percentOfBep)}`;
+  return 'no efficiency data: the BEP and the preferred region are unknown';
+}
+
+/**
+ * A set's running and first costs: annual energy from its input power (W), its cost at the
+ * tariff, the list price of the pumps bought, and the life-cycle cost in the costs' currency
+ * (a price in another currency is left out, which `reasons` gets told).
+ */
+export function setCosts(
+  pump: CatalogPump,
+  inputPower: number | null,
+  bought: number,
+  query: SelectionQuery,
+  reasons: string[],
+): { annualKWh: number | null; annualCost: number | null; firstCost: Money | null; lifeCycle: Money | null } {
+  const annualKWh = inputPower === null ? null : annualEnergy(inputPower, query.hoursPerDay);
+  const annualCost =
+    annualKWh === null || query.tariffPerKWh === null ? null : energyCost(annualKWh, query.tariffPerKWh);
+  const firstCost: Money | null = pump.listPrice
+    ? { amount: pump.listPrice.amount * bought, currency: pump.listPrice.currency }
+    : null;
+  const costs = query.costs;
+  const lifeCycle: Money | null =
+    costs && firstCost?.currency === costs.currency && annualCost !== null
+      ? {
+          amount: lifeCycleCost({
+            initialCost: firstCost.amount,
+            annualEnergyCost: annualCost,
+            years: costs.years,
+            discountRate: costs.discountRate,
+            energyPriceRise: costs.energyPriceRise,
+          }),
+          currency: costs.currency,
+        }
+      : null;
+  if (costs && firstCost && firstCost.currency !== costs.currency)
+    reasons.push(`priced in ${firstCost.currency}, not ${costs.currency}: left out of the life-cycle cost`);
+  return { annualKWh, annualCost, firstCost, lifeCycle };
+}
+
 /**
  * A pair the engine has solved, worked out in full for the answer: band, region, one-failed
  * check, energy, warnings, tier and the reasons in words; null when a filter leaves it out.
@@ -38,11 +84,7 @@ export function rankCandidate(
   const reasons: string[] = [];
   if (inBand) reasons.push('in the duty band');
   else reasons.push(point.flow < query.flowMin ? 'below the duty band' : 'above the duty band');
-  if (point.region === 'preferred') reasons.push(`in the preferred operating region${percent(point.percentOfBep)}`);
-  else if (point.region === 'allowable')
-    reasons.push(`outside POR, inside the maker's allowable region${percent(point.percentOfBep)}`);
-  else if (point.region === 'outside') reasons.push(`outside POR${percent(point.percentOfBep)}`);
-  else reasons.push('no efficiency data: the BEP and the preferred region are unknown');
+  reasons.push(regionReason(point));
 
   let oneFailed: DutyPoint | null = null;
   let oneFailedMeetsMinimum: boolean | null = null;
@@ -109,29 +151,13 @@ export function rankCandidate(
     velocityOk: !warnings.includes('velocity'),
     npshMarginMet: !npsh?.margin || npsh.margin.adequate,
   });
-  const annualKWh = point.inputPower === null ? null : annualEnergy(point.inputPower, query.hoursPerDay);
-  const annualCost =
-    annualKWh === null || query.tariffPerKWh === null ? null : energyCost(annualKWh, query.tariffPerKWh);
-  const installed = running + (query.standby ? 1 : 0);
-  const firstCost: Money | null = pump.listPrice
-    ? { amount: pump.listPrice.amount * installed, currency: pump.listPrice.currency }
-    : null;
-  const costs = query.costs;
-  const lifeCycle: Money | null =
-    costs && firstCost?.currency === costs.currency && annualCost !== null
-      ? {
-          amount: lifeCycleCost({
-            initialCost: firstCost.amount,
-            annualEnergyCost: annualCost,
-            years: costs.years,
-            discountRate: costs.discountRate,
-            energyPriceRise: costs.energyPriceRise,
-          }),
-          currency: costs.currency,
-        }
-      : null;
-  if (costs && firstCost && firstCost.currency !== costs.currency)
-    reasons.push(`priced in ${firstCost.currency}, not ${costs.currency}: left out of the life-cycle cost`);
+  const { annualKWh, annualCost, firstCost, lifeCycle } = setCosts(
+    pump,
+    point.inputPower,
+    running + (query.standby ? 1 : 0),
+    query,
+    reasons,
+  );
   const perPump = preferredFlowRegion(pump.fit, query.band, pump.declaredPreferred);
   return {
     pump,

@@ -2,6 +2,7 @@ import { motorEfficiencyFor, polynomialValue, solveOperatingPoint } from '../../
 import { dutyOfParallelPumps } from '../calculations/arrangement-duty';
 import type { CatalogPump, CatalogState } from '../catalog/catalog-snapshot';
 import { crossingInBracket } from './band-crossing';
+import { searchBesideKeptPump } from './kept-set-search';
 import { withNpshShortfall } from './npsh-ranking';
 import { combinedCurves, cubicAt, packedCurves } from './packed-curves';
 import type { RankedCandidate, SelectionOutcome, SelectionQuery } from './selection-query';
@@ -27,9 +28,10 @@ import { speedVariantState, variableSpeedIndexes } from './speed-variants';
  * Ranks the catalog's pumps for one system and duty band (see the note at the top). Pumps with a
  * speed range or fixed speeds are searched apart, at the speed their duty asks for
  * (speed-variants.ts), and their candidates merged with the rest by rank key; a catalog without
- * them is searched exactly as before.
+ * them is searched exactly as before. Beside a kept pump, the search is kept-set-search.ts's.
  */
 export function searchCatalog(state: CatalogState, query: SelectionQuery): SelectionOutcome {
+  if (query.keep) return searchBesideKeptPump(state, query, query.keep);
   const variable = variableSpeedIndexes(state);
   if (variable.length === 0) return searchPumps(state, query);
   const varying = new Set(variable.map((index) => state.pumps[index]));

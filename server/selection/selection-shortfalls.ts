@@ -81,6 +81,8 @@ export interface BandMissFacts {
   below: boolean;
   /** Pairs of three in parallel that reach the band, or null when three were tried already. */
   threeInParallelInBand: number | null;
+  /** The pairs were a kept pump and one added beside it: more in parallel was not tried. */
+  besideKeptPump?: boolean;
 }
 
 /**
@@ -99,8 +101,9 @@ export function unmetSummary(
   if (noneInBand) {
     // what was tried and failed goes in the summary; the list holds only what would reach the band
     const threeInParallel = noneInBand.threeInParallelInBand;
-    const tried =
-      noneInBand.below && threeInParallel !== null && threeInParallel === 0
+    const tried = noneInBand.besideKeptPump
+      ? ''
+      : noneInBand.below && threeInParallel !== null && threeInParallel === 0
         ? ' Three pumps in parallel do not reach it either.'
         : noneInBand.below && threeInParallel === null
           ? ' Three pumps in parallel were among the arrangements and do not reach it either.'

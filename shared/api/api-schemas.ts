@@ -52,6 +52,9 @@ export type EnergyInputs = Schemas['EnergyInputs'];
 export type SelectionRequest = Schemas['SelectionRequest'];
 export type SelectionWarning = Schemas['SelectionWarning'];
 export type SelectionCandidate = Schemas['SelectionCandidate'];
+export type SelectionKeep = Schemas['SelectionKeep'];
+export type KeptSetPoint = Schemas['KeptSetPoint'];
+export type KeptSetPumpPoint = Schemas['KeptSetPumpPoint'];
 export type PipeSizeSuggestion = Schemas['PipeSizeSuggestion'];
 export type SelectionResponse = Schemas['SelectionResponse'];
 

@@ -106,9 +106,11 @@ export function designSelectionRequest(design: DesignDraft): SelectionRequest {
     units: DESIGN_UNITS[design.unitSystem],
     system: designPipeSystem(design.system),
     duty: { flowMin: design.band.flowMin, flowMax: design.band.flowMax },
-    arrangements: search.arrangements,
+    // beside a kept pump, one pump is added and no standby (SelectionKeep)
+    arrangements: search.keepPumpId == null ? search.arrangements : [1],
     requireOneFailed: search.requireOneFailed,
-    standby: search.standby ?? false,
+    standby: search.keepPumpId == null ? (search.standby ?? false) : false,
+    ...(search.keepPumpId == null ? {} : { keep: { pump: { pumpId: search.keepPumpId } } }),
     filters: {
       onlyPreferredRegion: search.onlyPreferredRegion,
       ...(search.kinds?.length ? { kinds: search.kinds } : {}),

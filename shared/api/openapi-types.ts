@@ -524,7 +524,14 @@ export interface paths {
          *     where it does. `curve` samples the combined curve and `preferredRange` its preferred
          *     region, in total flow, for drawing. On a branched system, `duty.branch` makes the band
          *     that branch's flow: the search ranks on the total flows that keep it there
-         *     (`totalFlowBand`), and each operating point gives every branch's flow. Results are
+         *     (`totalFlowBand`), and each operating point gives every branch's flow. With `keep`, each
+         *     pump is searched as the one added beside a kept pump (see SelectionKeep): a candidate's
+         *     `arrangement` is the added pump (1 installed, 1 running), its `operatingPoint` gives the
+         *     set's flow, head and input power with the added pump's own flow (`flowPerPump`), % of BEP,
+         *     region and efficiency, `set` gives each pump's share and the set with either one stopped
+         *     (`oneFailed` is null, `oneFailedMeetsMinimum` holds for both), energy and costs are the
+         *     set's running costs with the added pump's price as the first cost, and `curve` and
+         *     `preferredRange` are the added pump's own. Results are
          *     design estimates: verify them against the maker's data.
          */
         post: operations["searchSelections"];
@@ -1581,6 +1588,53 @@ export interface components {
             costs?: components["schemas"]["SelectionCosts"];
             /** @description Most candidates to return; default 20. */
             limit?: number;
+            keep?: components["schemas"]["SelectionKeep"];
+        };
+        /** @description A pump already installed that stays: each catalog pump is searched as the one added beside it, the two in parallel (different models, a check valve on each, flows adding at the common head, as a mixed set of `POST /calculations/operating-point`). The set's operating point is ranked against the duty band and its energy is both pumps' input power (wire-to-water; the kept catalog pump's motor as for any candidate, an inline curve's power taken as its `powerBasis` says). One added pump only: `arrangements` may be left out or `[1]` (anything else is a 422 at `/body/arrangements`), and no `standby` (a 422 at `/body/standby`). With `requireOneFailed` the set must still reach the band's minimum with either pump stopped; both are checked and `set.stopped` says which fails. A catalog id that names no active pump with a current curve is a 422 at `/body/keep/pump/pumpId`; a kept curve must start at zero flow (its shut-off head), else a 422 at `/body/keep/pump`. Catalog pumps whose curve does not start at zero flow cannot be set beside it and are left out; pumps with a speed range or fixed speeds are searched at their nominal speed. */
+        SelectionKeep: {
+            pump: components["schemas"]["InlinePump"] | components["schemas"]["CatalogPump"];
+            /** @description Kept pumps of this model running; 1 (the default) only. */
+            running?: number;
+        };
+        /** @description With `keep`: the set of the kept pump and the added candidate at its operating point (the total flow at the common head, both pumps' input power), each pump's own share, and the set with either pump stopped. */
+        KeptSetPoint: {
+            /** @description Total flow of the set. */
+            flow: number;
+            /** @description The common head. */
+            head: number;
+            /** @description Input power of both pumps, in power units; null when one lacks power or efficiency data. */
+            inputPower: number | null;
+            /** @description The kept pump first, then the added one. */
+            pumps: components["schemas"]["KeptSetPumpPoint"][];
+            /** @description The set with the kept pump stopped (the added one alone), then with the added pump stopped (the kept one alone). */
+            stopped: components["schemas"]["KeptSetStopped"][];
+        };
+        /** @description One pump of a kept set. A pump whose shut-off head is below the common head delivers nothing (flow 0, head its shut-off head). */
+        KeptSetPumpPoint: {
+            /** @enum {string} */
+            role: "kept" | "added";
+            /** @description The catalog pump; null for a kept inline curve. */
+            pumpId: number | null;
+            /** @description This pump's flow. */
+            flow: number;
+            /** @description This pump's head. */
+            head: number;
+            /** @description Flow as percent of BEP flow. */
+            percentOfBep: number | null;
+            region: components["schemas"]["OperatingRegion"];
+            /** @description Pump efficiency at the point, percent. */
+            efficiency: number | null;
+            /** @description This pump's input power, in power units. */
+            inputPower: number | null;
+        };
+        /** @description The set with one of its pumps stopped; flow and head null when the other alone has no operating point. */
+        KeptSetStopped: {
+            /** @enum {string} */
+            stopped: "kept" | "added";
+            flow: number | null;
+            head: number | null;
+            /** @description The pump left running alone still reaches the band's minimum. */
+            meetsMinimum: boolean;
         };
         /**
          * @description estimated-curve: the pump's head curve is estimated from shut-off and open flow only (see CurveBasis). low-speed: a variable-speed pump found below 60 % of its nominal speed (see PumpSpeedAnswer).
@@ -1640,6 +1694,7 @@ export interface components {
                 ratio: number;
                 rpm: number;
             } | null;
+            set?: components["schemas"]["KeptSetPoint"];
         };
         SelectionResponse: {
             units: components["schemas"]["CalculationUnits"];
@@ -2075,6 +2130,8 @@ export interface components {
             rankBy?: "energy" | "first-cost" | "life-cycle-cost";
             costs?: components["schemas"]["SelectionCosts"] | null;
             limit: number;
+            /** @description A catalog pump already installed that stays: the search looks for one pump to add beside it in parallel (SelectionKeep), one added pump and no standby; null or left out for none. */
+            keepPumpId?: number | null;
         };
         /** @description A whole design as the design pages keep it; numbers are in the units of `unitSystem` (us - gpm, ft, in; si - L/min, m, mm). */
         DesignDraft: {

@@ -3,7 +3,8 @@
  * loopback, 20 connections for 10 s, with GET /api/v1/health measured in the same run as the
  * baseline. Prints requests/s, p50/p95/p99 latency and the ratio; asserts nothing. A second
  * baseline, GET /api/v1/fittings with the same bearer token (the guard, with its remembered token, and a
- * small answer), shows how much of a search's time is the search itself.
+ * small answer), shows how much of a search's time is the search itself. The same searches beside
+ * a kept pump (`keep`: each pump solved as the one added in parallel) are measured after.
  * Every run starts a scratch MariaDB of its own in a temporary folder and removes it afterwards.
  * The server runs in a child process (this file with --serve), so the load generator does not
  * share its event loop.
@@ -91,7 +92,8 @@ function report(name: string, figures: Measured): void {
 /** Static heads cycled through, so the requests are not all the same search. */
 const staticHeads = [12, 13.5, 14.5, 15.5, 17];
 
-function selectionBody(staticHead: number): string {
+/** The search body; with `keptPumpId`, one pump added beside that kept one (arrangements [1]). */
+function selectionBody(staticHead: number, keptPumpId: number | null = null): string {
   return JSON.stringify({
     units: { flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' },
     system: {
@@ -109,7 +111,7 @@ function selectionBody(staticHead: number): string {
       ],
     },
     duty: { flowMin: 90, flowMax: 130 },
-    arrangements: [1, 2, 3],
+    ...(keptPumpId === null ? { arrangements: [1, 2, 3] } : { keep: { pump: { pumpId: keptPumpId } } }),
     requireOneFailed: true,
     energy: { hoursPerDay: 24, tariffPerKWh: 0.18 },
     limit: 20,
@@ -162,6 +164,12 @@ async function main(): Promise<void> {
     const seedStarted = performance.now();
     await seedSyntheticCatalog(sequelize, syntheticShapes(PUMP_COUNT), 'Benchmark Pumps (invented)');
     console.log(`seeded ${PUMP_COUNT} synthetic pumps in ${((performance.now() - seedStarted) / 1000).toFixed(1)} s`);
+    // the installed pump a designer keeps: alone some 65 gpm on these systems, below the band
+    const [keptPumpId] = await seedSyntheticCatalog(
+      sequelize,
+      [{ shutOffHead: 12, lastFlow: 0.005, peakEfficiency: 0.6 }],
+      'Installed Benchmark Pumps (invented)',
+    );
     const { token } = await createUserWithSession(sequelize, 'designer');
 
     const started = await startServerProcess(databasePort);
@@ -186,17 +194,42 @@ async function main(): Promise<void> {
       ],
     });
 
+    await measure({
+      url: `${url}/api/v1/selections`,
+      method: 'POST',
+      headers,
+      body: selectionBody(14.5, keptPumpId),
+      duration: 2,
+    });
+    const beside = await measure({
+      url: `${url}/api/v1/selections`,
+      method: 'POST',
+      headers,
+      requests: [
+        {
+          setupRequest: (request) => ({
+            ...request,
+            body: selectionBody(staticHeads[next++ % staticHeads.length], keptPumpId),
+          }),
+        },
+      ],
+    });
+
     console.log(
       `\n${CONNECTIONS} connections, ${DURATION_S} s each, loopback, ${PUMP_COUNT} pumps x 3 arrangements per search`,
     );
     report('GET /api/v1/health', health);
     report('GET /api/v1/fittings (token)', guarded);
     report('POST /api/v1/selections', selections);
+    report('  ... beside a kept pump', beside);
     console.log(
       `selections / health requests per second: ${(selections.requestsPerSecond / health.requestsPerSecond).toFixed(3)}`,
     );
     console.log(
       `selections / fittings (same guard) requests per second: ${(selections.requestsPerSecond / guarded.requestsPerSecond).toFixed(3)}`,
+    );
+    console.log(
+      `beside a kept pump / plain search requests per second: ${(beside.requestsPerSecond / selections.requestsPerSecond).toFixed(3)}`,
     );
     console.log(`target p95 < 150 ms: ${selections.p95 < 150 ? 'met' : 'not met'} (${selections.p95.toFixed(1)} ms)`);
   } finally {

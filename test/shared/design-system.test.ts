@@ -1,6 +1,11 @@
 import { expect } from 'chai';
-import type { DesignSystem } from '../../shared/api/api-schemas';
-import { DESIGN_UNITS, designPipeSystem, designStaticHead } from '../../shared/api/design-system';
+import type { DesignSearch, DesignSystem } from '../../shared/api/api-schemas';
+import {
+  DESIGN_UNITS,
+  designPipeSystem,
+  designSelectionRequest,
+  designStaticHead,
+} from '../../shared/api/design-system';
 
 /*
  * The one mapping of a design to the calculations' system, used by the design pages, proposals and
@@ -71,5 +76,35 @@ describe('a design as the calculations take it', () => {
   it('states each unit system in full', () => {
     expect(DESIGN_UNITS.us).to.deep.equal({ flow: 'gpm', head: 'ft', length: 'ft', diameter: 'in', power: 'kW' });
     expect(DESIGN_UNITS.si).to.deep.equal({ flow: 'L/min', head: 'm', length: 'm', diameter: 'mm', power: 'kW' });
+  });
+
+  describe('the search of a design with a kept pump', () => {
+    const search: DesignSearch = {
+      arrangements: [1, 2],
+      requireOneFailed: true,
+      standby: true,
+      onlyPreferredRegion: false,
+      maxInputPowerPerPump: null,
+      hoursPerDay: 24,
+      tariffPerKWh: null,
+      limit: 20,
+    };
+    const design = { unitSystem: 'us' as const, system, band: { flowMin: 90, flowMax: 130 }, search };
+
+    it('sends keep with one added pump and no standby', () => {
+      const body = designSelectionRequest({ ...design, search: { ...search, keepPumpId: 7 } });
+      expect(body.keep).to.deep.equal({ pump: { pumpId: 7 } });
+      expect(body.arrangements).to.deep.equal([1]);
+      expect(body.standby).to.equal(false);
+    });
+
+    it('leaves a design without one as it was', () => {
+      for (const keepPumpId of [undefined, null]) {
+        const body = designSelectionRequest({ ...design, search: { ...search, keepPumpId } });
+        expect(body).to.not.have.property('keep');
+        expect(body.arrangements).to.deep.equal([1, 2]);
+        expect(body.standby).to.equal(true);
+      }
+    });
   });
 });

@@ -8,7 +8,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import type { SelectionCandidate, SelectionResponse } from '../../../../shared/api/api-schemas';
+import type { KeptSetPoint, SelectionCandidate, SelectionResponse } from '../../../../shared/api/api-schemas';
 import { VELOCITY_WARNING_LIMIT, velocityFromSI } from '../../../../shared/hydraulics';
 import { kindLabels } from '../../shared/display-units';
 import { missesLabel, moneyLabel, motorLabel, rankByWords, speedLabel } from '../energy-and-costs';
@@ -31,13 +31,46 @@ const sortValues: Record<string, (candidate: SelectionCandidate) => number | str
   firstCost: (candidate) => candidate.firstCost?.amount ?? Number.POSITIVE_INFINITY,
   lifeCycleCost: (candidate) => candidate.lifeCycleCost?.amount ?? Number.POSITIVE_INFINITY,
   misses: (candidate) => candidate.misses.length,
-  oneFailed: (candidate) => candidate.oneFailed?.flow ?? -1,
+  oneFailed: (candidate) => oneFailedFlow(candidate) ?? -1,
 };
 
+/**
+ * The flow with one pump failed; beside a kept pump, the lesser of the two single failures (the
+ * kept or the added pump stopped); null when there is none or the rest have no operating point.
+ */
+export function oneFailedFlow(candidate: Pick<SelectionCandidate, 'oneFailed' | 'set'>): number | null {
+  if (!candidate.set) return candidate.oneFailed?.flow ?? null;
+  const flows = candidate.set.stopped.map((stopped) => stopped.flow);
+  return flows.includes(null) ? null : Math.min(...(flows as number[]));
+}
+
 /** How a candidate's pumps run, in words. */
-export function arrangementLabel(candidate: Pick<SelectionCandidate, 'arrangement'>): string {
+export function arrangementLabel(candidate: Pick<SelectionCandidate, 'arrangement' | 'set'>): string {
+  if (candidate.set) return 'added beside the kept pump';
   const { running, installed } = candidate.arrangement;
   return `${running === 1 ? 'single' : `${running} in parallel`}${installed > running ? ' + standby' : ''}`;
+}
+
+/**
+ * Beside a kept pump: the kept pump's share of the set's flow, and what each pump alone
+ * delivers when the other stops.
+ */
+export function keptShareLabel(set: KeptSetPoint, flowUnit: string): string {
+  const [kept, added] = set.pumps;
+  const flow = (value: number) => `${formatFigure(value, '1.0-1')} ${flowUnit}`;
+  const percent = kept.percentOfBep === null ? '' : `, ${formatFigure(kept.percentOfBep, '1.0-0')} % of BEP`;
+  return `kept pump ${flow(kept.flow)}${percent}; added pump ${flow(added.flow)}; set ${flow(set.flow)}`;
+}
+
+/** Beside a kept pump: each pump alone with the other stopped. */
+export function stoppedLabel(set: KeptSetPoint, flowUnit: string): string {
+  return set.stopped
+    .map(({ stopped, flow, meetsMinimum }) => {
+      const alone = stopped === 'kept' ? 'added pump alone' : 'kept pump alone';
+      const figure = flow === null ? 'no operating point' : `${formatFigure(flow, '1.0-1')} ${flowUnit}`;
+      return `${alone}: ${figure}${meetsMinimum ? '' : ', below the band'}`;
+    })
+    .join('; ');
 }
 
 /** A candidate's kind and the solids it passes, in words. */
@@ -138,6 +171,9 @@ export class CandidateResults {
   protected readonly moneyLabel = moneyLabel;
   protected readonly missesLabel = missesLabel;
   protected readonly branchFlowsLabel = branchFlowsLabel;
+  protected readonly keptShareLabel = keptShareLabel;
+  protected readonly oneFailedFlow = oneFailedFlow;
+  protected readonly stoppedLabel = stoppedLabel;
 
   protected sortBy(sort: Sort): void {
     this.sort.set(sort);

@@ -18,6 +18,7 @@ import { CalculationsApi } from '../calculations-api';
 import { SelectionDraft, type SearchSettings } from '../selection-draft';
 import type { RankBy } from '../energy-and-costs';
 import { CandidateResults } from './candidate-results';
+import { KeptPumpPicker } from './kept-pump-picker';
 import type { Subscription } from 'rxjs';
 import { kindLabels } from '../../shared/display-units';
 import { DecimalInput, FigurePipe } from '../../shared/locale-numbers';
@@ -41,6 +42,7 @@ const pumpKindChoices = (['submersible', 'external-centrifugal', 'mixed-flow'] a
     DecimalInput,
     ReactiveFormsModule,
     CandidateResults,
+    KeptPumpPicker,
     MatButtonModule,
     MatCheckboxModule,
     MatFormFieldModule,
@@ -114,6 +116,7 @@ export class PumpSearchPage {
       Validators.min(0),
       Validators.max(50),
     ]),
+    keepPumpId: this.formBuilder.control<number | null>(this.settings.keepPumpId ?? null),
     limit: this.formBuilder.control(this.settings.limit, [
       Validators.required,
       Validators.min(1),
@@ -147,6 +150,7 @@ export class PumpSearchPage {
         energyPriceRise: value.energyPriceRise ?? 0,
       },
       limit: value.limit,
+      ...(value.keepPumpId === null ? {} : { keepPumpId: value.keepPumpId }),
     };
     this.draft.setSearch(settings);
     const body = designSelectionRequest(this.draft.design());
