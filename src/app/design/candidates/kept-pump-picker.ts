@@ -62,6 +62,7 @@ function choiceOf(pump: Pick<PumpSummary, 'id' | 'displayName' | 'modelCode' | '
       }
     </fieldset>
   `,
+  styleUrls: ['../design-page.scss', './pump-search-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class KeptPumpPicker implements OnInit {
