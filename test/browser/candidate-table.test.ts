@@ -109,6 +109,8 @@ describe('the candidates table and cards in Chromium', function () {
   it('sorts by a column and narrows the rows with the filter box', async () => {
     const { page } = app;
     await page.locator('th.mat-column-flow').click();
+    // the rows are read once the table has drawn the new order
+    await page.locator('th.mat-column-flow[aria-sort="ascending"]').waitFor();
     const flows = (await page.locator('tr[data-candidate] td.mat-column-flow').allInnerTexts()).map((text) =>
       Number(text.replaceAll(',', '')),
     );
