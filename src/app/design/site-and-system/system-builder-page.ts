@@ -1,3 +1,4 @@
+import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import {
@@ -73,6 +74,7 @@ const previewSteps = 40;
 @Component({
   selector: 'rf-system-builder-page',
   imports: [
+    NgTemplateOutlet,
     FigurePipe,
     DecimalInput,
     CableRunField,
