@@ -4,8 +4,8 @@ import { lengthToSI } from '../../shared/hydraulics';
 import { CABLE_RUN_CAUTION } from '../../shared/messages/design-cautions';
 import { Pump } from '../../server/database/models';
 import { axeViolations, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
-import { createUserWithSession, testPassword } from '../support/accounts';
-import { saveScreenshot } from '../support/browser';
+import { createUserWithSession } from '../support/accounts';
+import { saveScreenshot, signInWithTheForm } from '../support/browser';
 
 /*
  * The cable run in Chromium over the demo catalog: a length typed on the site step gives the
@@ -22,11 +22,7 @@ describe('cable run suggestion in Chromium', function () {
 
   it('signs the designer in and types a 150 ft cable run on the site step', async () => {
     const { page } = app;
-    await page.goto(`${app.url}/accounts/sign-in`, { waitUntil: 'networkidle' });
-    await page.fill('input[name=email]', email);
-    await page.fill('input[name=password]', testPassword);
-    await page.click('button[type=submit]');
-    await page.locator('a', { hasText: 'Design' }).first().waitFor({ timeout: 10_000 });
+    await signInWithTheForm(page, app.url, email);
     await page.goto(`${app.url}/design/system`, { waitUntil: 'networkidle' });
     await page.getByLabel('Cable run to the pump, one way').fill('-3');
     await page.getByLabel('Cable run to the pump, one way').blur();

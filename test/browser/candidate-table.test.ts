@@ -1,6 +1,6 @@
 import { expect } from 'chai';
 import { axeViolations, scratchDatabase, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
-import { openBrowser, saveScreenshot } from '../support/browser';
+import { openBrowser, saveScreenshot, signInWithTheForm } from '../support/browser';
 import { createUserWithSession, testPassword } from '../support/accounts';
 import { seedSyntheticCatalog, syntheticShapes } from '../server/selection/synthetic-catalog';
 
@@ -39,11 +39,7 @@ describe('the candidates table and cards in Chromium', function () {
   it('signs in, puts a small pipe on the route and finds candidates', async () => {
     const { page } = app;
     await page.setViewportSize({ width: 1400, height: 900 });
-    await page.goto(`${app.url}/accounts/sign-in`, { waitUntil: 'networkidle' });
-    await page.fill('input[name=email]', email);
-    await page.fill('input[name=password]', testPassword);
-    await page.click('button[type=submit]');
-    await page.locator('a', { hasText: 'Design' }).first().waitFor({ timeout: 10_000 });
+    await signInWithTheForm(page, app.url, email);
     await page.goto(`${app.url}/design/system`, { waitUntil: 'networkidle' });
     // the smallest size of the first segment's series: at the band's top its velocity is far over 5 ft/s
     await page.locator('[data-segment-size="0"]').click();

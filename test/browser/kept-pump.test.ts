@@ -1,8 +1,8 @@
 import { expect } from 'chai';
 import type { SelectionRequest, SelectionResponse } from '../../shared/api/api-schemas';
 import { axeViolations, scratchDatabase, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
-import { saveScreenshot } from '../support/browser';
-import { createUserWithSession, testPassword } from '../support/accounts';
+import { saveScreenshot, signInWithTheForm } from '../support/browser';
+import { createUserWithSession } from '../support/accounts';
 import { seedSyntheticCatalog, syntheticShapes } from '../server/selection/synthetic-catalog';
 
 /*
@@ -30,11 +30,7 @@ describe('keeping an existing pump in Chromium', function () {
 
   it('signs the designer in', async () => {
     const { page } = app;
-    await page.goto(`${app.url}/accounts/sign-in`, { waitUntil: 'networkidle' });
-    await page.fill('input[name=email]', email);
-    await page.fill('input[name=password]', testPassword);
-    await page.click('button[type=submit]');
-    await page.locator('a', { hasText: 'Design' }).first().waitFor({ timeout: 10_000 });
+    await signInWithTheForm(page, app.url, email);
   });
 
   it('picks the installed pump by model, searches beside it and shows the set', async () => {

@@ -1,6 +1,7 @@
 import { expect } from 'chai';
+import { signInWithTheForm } from '../support/browser';
 import { scratchDatabase, useAppInChromium } from '../support/app-in-chromium';
-import { createUserWithSession, testPassword } from '../support/accounts';
+import { createUserWithSession } from '../support/accounts';
 import { seedSyntheticCatalog, syntheticShapes } from '../server/selection/synthetic-catalog';
 
 /*
@@ -19,11 +20,7 @@ describe('figures in a German browser', function () {
 
   it('signs in', async () => {
     const { page } = app;
-    await page.goto(`${app.url}/accounts/sign-in`, { waitUntil: 'networkidle' });
-    await page.fill('input[name=email]', email);
-    await page.fill('input[name=password]', testPassword);
-    await page.click('button[type=submit]');
-    await page.locator('a', { hasText: 'Design' }).first().waitFor({ timeout: 10_000 });
+    await signInWithTheForm(page, app.url, email);
   });
 
   it('shows the typed static head with a decimal comma and takes a comma or a point', async () => {

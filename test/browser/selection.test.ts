@@ -2,8 +2,8 @@ import { expect } from 'chai';
 import { readFileSync } from 'node:fs';
 import { DESIGN_CAUTIONS } from '../../shared/messages/design-cautions';
 import { axeViolations, scratchDatabase, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
-import { saveScreenshot } from '../support/browser';
-import { createUserWithSession, testPassword } from '../support/accounts';
+import { saveScreenshot, signInWithTheForm } from '../support/browser';
+import { createUserWithSession } from '../support/accounts';
 import { seedSyntheticCatalog, syntheticShapes } from '../server/selection/synthetic-catalog';
 
 /*
@@ -22,11 +22,7 @@ describe('pump selection in Chromium', function () {
 
   it('signs the designer in', async () => {
     const { page } = app;
-    await page.goto(`${app.url}/accounts/sign-in`, { waitUntil: 'networkidle' });
-    await page.fill('input[name=email]', email);
-    await page.fill('input[name=password]', testPassword);
-    await page.click('button[type=submit]');
-    await page.locator('a', { hasText: 'Design' }).first().waitFor({ timeout: 10_000 });
+    await signInWithTheForm(page, app.url, email);
   });
 
   it('builds the system from two measured levels and previews its curve', async () => {

@@ -1,7 +1,7 @@
 import { expect } from 'chai';
 import { axeViolations, scratchDatabase, seriousOrCritical, useAppInChromium } from '../support/app-in-chromium';
-import { saveScreenshot } from '../support/browser';
-import { createUserWithSession, testPassword } from '../support/accounts';
+import { saveScreenshot, signInWithTheForm } from '../support/browser';
+import { createUserWithSession } from '../support/accounts';
 import { seedDemoCatalog } from '../data-import/catalog-fixtures';
 
 /*
@@ -28,11 +28,7 @@ describe('a variable-speed pump found at reduced speed, in Chromium', function (
   it('finds AB-CEN-20 at reduced speed and says the speed beside the pump', async () => {
     const { page } = app;
     await page.setViewportSize({ width: 1400, height: 900 });
-    await page.goto(`${app.url}/accounts/sign-in`, { waitUntil: 'networkidle' });
-    await page.fill('input[name=email]', email);
-    await page.fill('input[name=password]', testPassword);
-    await page.click('button[type=submit]');
-    await page.locator('a', { hasText: 'Design' }).first().waitFor({ timeout: 10_000 });
+    await signInWithTheForm(page, app.url, email);
     await page.goto(`${app.url}/design/band`, { waitUntil: 'networkidle' });
     await page.fill('input[name=flowMin]', '12');
     await page.fill('input[name=flowMax]', '18');

@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { projectRoot } from '../../server/config';
+import { testPassword } from './accounts';
 
 export const screenshotFolder = join(projectRoot, 'test-results');
 
@@ -67,4 +68,13 @@ export async function saveScreenshot(page: Page, name: string): Promise<string> 
   const path = join(screenshotFolder, `${name}.png`);
   await page.screenshot({ path, fullPage: true });
   return path;
+}
+
+/** Signs a user in through the sign-in form with the tests' password, and waits for the signed-in toolbar. */
+export async function signInWithTheForm(page: Page, appUrl: string, email: string): Promise<void> {
+  await page.goto(`${appUrl}/accounts/sign-in`, { waitUntil: 'networkidle' });
+  await page.fill('input[name=email]', email);
+  await page.fill('input[name=password]', testPassword);
+  await page.click('button[type=submit]');
+  await page.locator('a', { hasText: 'Design' }).first().waitFor({ timeout: 10_000 });
 }
